@@ -1,0 +1,58 @@
+/**
+ * The private MariaDB instance as the start command, the db scripts and the tests use it.
+ * Its secrets (the app user's password, the development session secret) are made once and
+ * kept in `.data/local-secrets.json`, which git ignores.
+ */
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { createDatabase, instanceSpec, projectRoot, recreateDatabase, startInstance, stopInstance, type RunningInstance } from './instance';
+
+export type InstanceName = 'dev' | 'test';
+
+/** Ports of the private instances: away from 3306 so a system MariaDB can run beside them. */
+export const INSTANCE_PORTS: Record<InstanceName, number> = {
+  dev: Number(process.env['DB_PORT'] ?? 4306),
+  test: Number(process.env['TEST_DB_PORT'] ?? 4307),
+};
+
+interface LocalSecrets {
+  dbPassword: string;
+  sessionSecret: string;
+}
+
+export function localSecrets(): LocalSecrets {
+  const file = join(projectRoot, '.data', 'local-secrets.json');
+  if (existsSync(file)) return JSON.parse(readFileSync(file, 'utf8')) as LocalSecrets;
+  mkdirSync(join(projectRoot, '.data'), { recursive: true });
+  const secrets: LocalSecrets = {
+    dbPassword: randomBytes(18).toString('base64url'),
+    sessionSecret: randomBytes(32).toString('base64url'),
+  };
+  writeFileSync(file, JSON.stringify(secrets, null, 2), { mode: 0o600 });
+  return secrets;
+}
+
+export interface LocalDatabase {
+  url: string;
+  instance: RunningInstance;
+}
+
+/**
+ * Starts (or reuses) the named instance and makes sure `database` and its user exist;
+ * with `fresh`, the database is dropped first (tests start from nothing).
+ */
+export async function openLocalDatabase(
+  name: InstanceName,
+  database: string,
+  { fresh = false, log }: { fresh?: boolean; log?: (line: string) => void } = {},
+): Promise<LocalDatabase> {
+  const instance = await startInstance(instanceSpec(name, INSTANCE_PORTS[name]), log);
+  if (fresh) await recreateDatabase(instance, database);
+  const url = await createDatabase(instance, database, 'speedwright', localSecrets().dbPassword);
+  return { url, instance };
+}
+
+export function stopLocalInstance(name: InstanceName): Promise<boolean> {
+  return stopInstance(instanceSpec(name, INSTANCE_PORTS[name]));
+}

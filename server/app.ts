@@ -1,0 +1,176 @@
+import { randomUUID } from 'node:crypto';
+import { existsSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import connectSessionSequelize from 'connect-session-sequelize';
+import { csrfSync } from 'csrf-sync';
+import express, { type Express } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import session from 'express-session';
+import helmet from 'helmet';
+import type { Logger } from 'pino';
+import { pinoHttp } from 'pino-http';
+import type { Sequelize } from 'sequelize';
+import { authRoutes } from './auth/auth.routes';
+import { configurePassport } from './auth/passport';
+import { MariaDbRateLimitStore } from './auth/rate-limit-store';
+import type { ServerConfig } from './config';
+import { healthRoutes } from './health/health.routes';
+import { HttpError } from './http-error';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { usersRoutes } from './users/users.routes';
+
+export const SESSION_COOKIE = 'speedwright.sid';
+const SESSION_HOURS = 12;
+
+export interface AppDeps {
+  config: ServerConfig;
+  sequelize: Sequelize;
+  logger: Logger;
+}
+
+export interface SpeedwrightApp {
+  app: Express;
+  /** Stops the session store's timers; the caller closes Sequelize. */
+  close(): void;
+}
+
+const REQUEST_ID = /^[A-Za-z0-9._-]{1,64}$/;
+
+/** Builds the Express app: security headers, logs, sessions, CSRF, the API, then the web app. */
+export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightApp {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', parseTrustProxy(config.TRUST_PROXY));
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'script-src': ["'self'"],
+          // Angular adds component styles at run time as <style> elements.
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'connect-src': ["'self'"],
+          'worker-src': ["'self'"],
+          'manifest-src': ["'self'"],
+          // Served over plain HTTP on a LAN or localhost too; TLS is the proxy's business.
+          'upgrade-insecure-requests': null,
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  );
+
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req, res) => {
+        const incoming = req.headers['x-request-id'];
+        const id = typeof incoming === 'string' && REQUEST_ID.test(incoming) ? incoming : randomUUID();
+        res.setHeader('x-request-id', id);
+        return id;
+      },
+      redact: ['req.headers.cookie', 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'],
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api/') },
+    }),
+  );
+
+  // Health first: it must answer even when sessions (which need the database) cannot.
+  app.use('/api/health', healthRoutes(sequelize));
+
+  const SequelizeStore = connectSessionSequelize(session.Store);
+  const store = new SequelizeStore({
+    db: sequelize,
+    tableName: 'sessions',
+    expiration: SESSION_HOURS * 3600_000,
+    checkExpirationInterval: 15 * 60_000,
+  });
+
+  app.use(
+    '/api',
+    express.json({ limit: '1mb', strict: true }),
+    session({
+      name: SESSION_COOKIE,
+      secret: config.SESSION_SECRET,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      proxy: undefined,
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: config.COOKIE_SECURE === 'auto' ? 'auto' : config.COOKIE_SECURE === 'true',
+        maxAge: SESSION_HOURS * 3600_000,
+        path: '/',
+      },
+    }),
+  );
+
+  const passport = configurePassport({
+    lockAfterFailedSignIns: config.LOCK_AFTER_FAILED_SIGN_INS,
+    lockMinutes: config.LOCK_MINUTES,
+  });
+  app.use('/api', passport.initialize(), passport.session());
+
+  const { csrfSynchronisedProtection, generateToken } = csrfSync({
+    getTokenFromRequest: (req) => req.headers['x-csrf-token'] as string | undefined,
+  });
+  app.use('/api', csrfSynchronisedProtection);
+
+  const loginLimiter = rateLimit({
+    windowMs: 15 * 60_000,
+    limit: config.LOGIN_RATE_LIMIT_PER_15_MIN,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    store: new MariaDbRateLimitStore(sequelize, 'login:'),
+    handler: (_req, _res, next) =>
+      next(new HttpError(429, 'too_many_attempts', 'Too many sign-in attempts from this device. Wait 15 minutes and try again.')),
+  });
+
+  app.use('/api/auth', authRoutes({ passport, generateCsrfToken: generateToken, loginLimiter, sessionCookieName: SESSION_COOKIE }));
+  app.use('/api/users', usersRoutes());
+  app.use('/api', apiNotFound);
+
+  serveWebApp(app, resolve(config.APP_DIST));
+  app.use(errorHandler);
+
+  return { app, close: () => store.stopExpiringSessions() };
+}
+
+/** The production build of the Angular app with its service worker; every other path gets index.html. */
+function serveWebApp(app: Express, distDir: string): void {
+  const index = join(distDir, 'index.html');
+  app.use(
+    express.static(distDir, {
+      index: false,
+      setHeaders: (res, path) => {
+        const name = path.slice(path.lastIndexOf('/') + 1);
+        if (/\.[0-9a-z]{8,}\.(js|css)$/i.test(name) || path.includes('/media/')) {
+          res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+        } else {
+          // index.html, ngsw.json, ngsw-worker.js, the manifest: always ask again.
+          res.setHeader('Cache-Control', 'no-cache');
+        }
+      },
+    }),
+  );
+  app.get('/{*path}', (_req, res, next) => {
+    if (!existsSync(index)) {
+      next(new HttpError(503, 'app_not_built', 'The web app has not been built yet: run `npm run build`.'));
+      return;
+    }
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(index);
+  });
+}
+
+function parseTrustProxy(value: string): boolean | number | string {
+  if (value === 'true') return true;
+  if (value === 'false') return false;
+  if (/^\d+$/.test(value)) return Number(value);
+  return value;
+}

@@ -1,0 +1,50 @@
+import { Router, type RequestHandler } from 'express';
+import type { PassportStatic } from 'passport';
+import { loginRequestSchema } from '../../shared/api/auth';
+import { HttpError } from '../http-error';
+import { requireSignIn } from '../middleware/authorize';
+import { parseOrThrow } from '../middleware/validate';
+
+export interface AuthRoutesDeps {
+  passport: PassportStatic;
+  generateCsrfToken: (req: Parameters<RequestHandler>[0], overwrite?: boolean) => string;
+  loginLimiter: RequestHandler;
+  sessionCookieName: string;
+}
+
+/** `/api/auth`: CSRF token, sign-in, sign-out, who am I. */
+export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionCookieName }: AuthRoutesDeps): Router {
+  const router = Router();
+
+  router.get('/csrf', (req, res) => {
+    res.set('Cache-Control', 'no-store').json({ token: generateCsrfToken(req) });
+  });
+
+  router.post('/login', loginLimiter, (req, res, next) => {
+    req.body = parseOrThrow(loginRequestSchema, req.body, 'sign-in');
+    passport.authenticate('local', (error: unknown, user: Express.User | false, info?: unknown) => {
+      if (error) return next(error);
+      if (!user) return next(info instanceof HttpError ? info : new HttpError(401, 'invalid_credentials', 'The e-mail or password is not right.'));
+      req.logIn(user, (loginError) => {
+        if (loginError) return next(loginError);
+        res.json({ user });
+      });
+    })(req, res, next);
+  });
+
+  router.post('/logout', (req, res, next) => {
+    req.logOut((error) => {
+      if (error) return next(error);
+      req.session.destroy((destroyError) => {
+        if (destroyError) return next(destroyError);
+        res.clearCookie(sessionCookieName, { path: '/' }).status(204).end();
+      });
+    });
+  });
+
+  router.get('/me', requireSignIn, (req, res) => {
+    res.set('Cache-Control', 'no-store').json({ user: req.user });
+  });
+
+  return router;
+}

@@ -1,0 +1,20 @@
+/**
+ * The one error services throw. The error middleware turns it into
+ * `{ error: { code, message, fields? } }` with its status; anything else becomes a 500
+ * whose body says nothing about the internals.
+ */
+export class HttpError extends Error {
+  override readonly name = 'HttpError';
+
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: Record<string, string>,
+  ) {
+    super(message);
+  }
+}
+
+export const notFound = (what = 'That record') => new HttpError(404, 'not_found', `${what} does not exist.`);
+export const forbidden = (message = 'Your role may not do this.') => new HttpError(403, 'forbidden', message);

@@ -1,0 +1,71 @@
+/**
+ * `npm start`: the whole product on this machine. Starts the private MariaDB (unless
+ * DATABASE_URL names a server), migrates, seeds the invented demo data, builds the web app,
+ * serves it and prints the URL. Ctrl-C stops the server and, if it started it, the database.
+ */
+import { spawnSync } from 'node:child_process';
+import { join } from 'node:path';
+import { openLocalDatabase, localSecrets, stopLocalInstance } from '../db/local';
+import { projectRoot } from '../db/instance';
+import { createMigrator } from '../db/migrator';
+import { DEFAULT_DEMO_PASSWORD, seedDemo } from '../db/seed';
+import { createSequelize } from './database';
+import { initModels } from './models';
+import { serve } from './main';
+
+function step(text: string): void {
+  console.log(`\u203a ${text}`);
+}
+
+async function launch(): Promise<void> {
+  let stopDatabase = false;
+  let databaseUrl = process.env['DATABASE_URL'];
+  if (!databaseUrl) {
+    step('Starting the private MariaDB instance');
+    const local = await openLocalDatabase('dev', 'speedwright', { log: step });
+    databaseUrl = local.url;
+    stopDatabase = local.instance.startedHere;
+  }
+
+  step('Migrating and seeding the demo data (invented demo data — not for flight)');
+  const sequelize = createSequelize(databaseUrl);
+  initModels(sequelize);
+  await createMigrator(sequelize, undefined).up();
+  await seedDemo(sequelize, process.env['DEMO_PASSWORD'] ?? DEFAULT_DEMO_PASSWORD);
+  await sequelize.close();
+
+  if (process.env['SKIP_BUILD'] !== '1') {
+    step('Building the web app (production)');
+    const build = spawnSync(process.execPath, [join(projectRoot, 'node_modules/@angular/cli/bin/ng.js'), 'build'], {
+      cwd: projectRoot,
+      stdio: 'inherit',
+      env: { ...process.env, NG_CLI_ANALYTICS: 'false' },
+    });
+    if (build.status !== 0) throw new Error('The web app did not build; see the messages above.');
+  }
+
+  const server = await serve({
+    NODE_ENV: 'production',
+    SESSION_SECRET: localSecrets().sessionSecret,
+    ...process.env,
+    DATABASE_URL: databaseUrl,
+    APP_DIST: process.env['APP_DIST'] ?? join(projectRoot, 'dist/app/browser'),
+  });
+  console.log(`\nSpeedwright is running: http://localhost:${server.port}/`);
+  console.log(`Demo accounts: pilot@demo.speedwright.example (and engineer@, approver@, admin@, inspector@), password ${process.env['DEMO_PASSWORD'] ? 'from DEMO_PASSWORD' : DEFAULT_DEMO_PASSWORD}`);
+  console.log('Press Ctrl-C to stop.\n');
+
+  const shutdown = async () => {
+    step('Stopping');
+    await server.stop();
+    if (stopDatabase) await stopLocalInstance('dev');
+    process.exit(0);
+  };
+  process.once('SIGINT', () => void shutdown());
+  process.once('SIGTERM', () => void shutdown());
+}
+
+launch().catch((error: unknown) => {
+  console.error(`\nSpeedwright could not start: ${error instanceof Error ? error.message : String(error)}`);
+  process.exit(1);
+});

@@ -1,0 +1,27 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+/** An operator: the company whose people, fleet and speed data Speedwright keeps apart from every other. */
+export class Operator extends Model<InferAttributes<Operator>, InferCreationAttributes<Operator>> {
+  declare id: CreationOptional<number>;
+  declare slug: string;
+  declare name: string;
+  /** Demo operators' figures are invented; every screen and card says so. */
+  declare isDemo: CreationOptional<boolean>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize): typeof Operator {
+    Operator.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        slug: { type: DataTypes.STRING(64), allowNull: false, unique: true },
+        name: { type: DataTypes.STRING(200), allowNull: false },
+        isDemo: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'operators' },
+    );
+    return Operator;
+  }
+}

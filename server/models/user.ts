@@ -1,0 +1,53 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
+import { ROLES, type Role } from '../../shared/auth/roles';
+import type { Operator } from './operator';
+
+/** A person who signs in. E-mail addresses are unique across operators and stored lower-case. */
+export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
+  declare id: CreationOptional<number>;
+  declare operatorId: ForeignKey<Operator['id']>;
+  declare email: string;
+  declare displayName: string;
+  declare role: Role;
+  declare passwordHash: string | null;
+  /** Consecutive failed sign-ins since the last success. */
+  declare failedSignIns: CreationOptional<number>;
+  /** Set after too many failed sign-ins; sign-in is refused until then. */
+  declare lockedUntil: Date | null;
+  /** Locked by an administrator until unlocked. */
+  declare lockedByAdmin: CreationOptional<boolean>;
+  declare lastSignInAt: Date | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare operator?: NonAttribute<Operator>;
+
+  static initModel(sequelize: Sequelize): typeof User {
+    User.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
+        displayName: { type: DataTypes.STRING(200), allowNull: false },
+        role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
+        passwordHash: { type: DataTypes.STRING(255), allowNull: true },
+        failedSignIns: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
+        lockedUntil: { type: DataTypes.DATE, allowNull: true },
+        lockedByAdmin: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        lastSignInAt: { type: DataTypes.DATE, allowNull: true },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'users' },
+    );
+    return User;
+  }
+}

@@ -1,0 +1,60 @@
+/**
+ * One Express app per test file against the test database, plus signed-in supertest agents.
+ */
+import { pino } from 'pino';
+import request from 'supertest';
+import type TestAgent from 'supertest/lib/agent';
+import type { Role } from '../../shared/auth/roles';
+import { createApp } from '../../server/app';
+import { loadConfig, type ServerConfig } from '../../server/config';
+import { createSequelize } from '../../server/database';
+import { initModels } from '../../server/models';
+import { TEST_PASSWORD } from './constants';
+
+export { TEST_PASSWORD };
+
+export interface Harness {
+  app: ReturnType<typeof createApp>['app'];
+  sequelize: ReturnType<typeof createSequelize>;
+  close(): Promise<void>;
+}
+
+export function startHarness(overrides: Partial<Record<keyof ServerConfig, string>> = {}): Harness {
+  const config = loadConfig({
+    NODE_ENV: 'test',
+    DATABASE_URL: process.env['DATABASE_URL'],
+    SESSION_SECRET: 'test-session-secret-that-is-long-enough-0123456789',
+    LOG_LEVEL: 'silent',
+    LOGIN_RATE_LIMIT_PER_15_MIN: '1000',
+    APP_DIST: 'dist/app/browser',
+    ...overrides,
+  });
+  const sequelize = createSequelize(config.DATABASE_URL);
+  initModels(sequelize);
+  const { app, close } = createApp({ config, sequelize, logger: pino({ level: 'silent' }) });
+  return {
+    app,
+    sequelize,
+    async close() {
+      close();
+      await sequelize.close();
+    },
+  };
+}
+
+/** A supertest agent (it keeps cookies) with a fresh CSRF token. */
+export async function csrfAgent(app: Harness['app']): Promise<{ agent: TestAgent; token: string }> {
+  const agent = request.agent(app);
+  const res = await agent.get('/api/auth/csrf').expect(200);
+  return { agent, token: res.body.token as string };
+}
+
+export const demoEmail = (role: Role, domain = 'demo') => `${role}@${domain}.speedwright.example`;
+
+/** Signs in and returns the agent with the token of its new (regenerated) session. */
+export async function signIn(app: Harness['app'], email: string, password = TEST_PASSWORD): Promise<{ agent: TestAgent; token: string }> {
+  const { agent, token } = await csrfAgent(app);
+  await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email, password }).expect(200);
+  const fresh = await agent.get('/api/auth/csrf').expect(200);
+  return { agent, token: fresh.body.token as string };
+}
