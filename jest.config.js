@@ -2,9 +2,9 @@
 const { createCjsPreset } = require('jest-preset-angular/presets');
 
 /**
- * Three jest projects: the pure shared library, the server against a real MariaDB
- * instance, and the Angular client under jsdom. `npm run test:unit` and `npm run test:api`
- * pick them by name.
+ * Four jest projects: the pure shared library, the server against a real MariaDB instance,
+ * end-to-end in Debian's Chromium against the production build, and the Angular client
+ * under jsdom. `npm run test:unit`, `test:api` and `test:e2e` pick them by name.
  */
 const tsJest = ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }];
 
@@ -27,6 +27,17 @@ module.exports = {
       globalSetup: '<rootDir>/test/api/global-setup.ts',
       globalTeardown: '<rootDir>/test/api/global-teardown.ts',
       setupFiles: ['<rootDir>/test/api/env.ts'],
+    },
+    {
+      displayName: 'e2e',
+      testEnvironment: 'node',
+      roots: ['<rootDir>/test/e2e'],
+      testMatch: ['**/*.e2e.ts'],
+      transform: { '^.+\\.ts$': tsJest },
+      globalSetup: '<rootDir>/test/e2e/global-setup.ts',
+      globalTeardown: '<rootDir>/test/e2e/global-teardown.ts',
+      setupFiles: ['<rootDir>/test/e2e/env.ts'],
+      testTimeout: 60_000,
     },
     {
       displayName: 'client',

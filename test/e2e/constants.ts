@@ -1,0 +1,1 @@
+export const E2E_PASSWORD = 'speedwright-e2e-password';

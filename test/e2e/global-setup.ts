@@ -1,0 +1,43 @@
+/**
+ * Before the end-to-end tests: a fresh e2e database on the private test instance, migrated
+ * and seeded, and the real server (production build of the app) on a free loopback port.
+ */
+import { writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { projectRoot } from '../../db/instance';
+import { localSecrets, openLocalDatabase } from '../../db/local';
+import { createMigrator } from '../../db/migrator';
+import { seedDemo } from '../../db/seed';
+import { createSequelize } from '../../server/database';
+import { serve } from '../../server/main';
+import { initModels } from '../../server/models';
+import { E2E_PASSWORD } from './constants';
+
+declare global {
+  // eslint-disable-next-line no-var
+  var speedwrightE2e: { stop(): Promise<void>; startedDb: boolean } | undefined;
+}
+
+export default async function globalSetup(): Promise<void> {
+  const { url, instance } = await openLocalDatabase('test', 'speedwright_e2e_test', { fresh: true });
+  const sequelize = createSequelize(url);
+  initModels(sequelize);
+  await createMigrator(sequelize).up();
+  await seedDemo(sequelize, E2E_PASSWORD);
+  await sequelize.close();
+
+  const server = await serve({
+    NODE_ENV: 'test',
+    PORT: '0',
+    HOST: '127.0.0.1',
+    DATABASE_URL: url,
+    SESSION_SECRET: localSecrets().sessionSecret,
+    LOG_LEVEL: 'warn',
+    LOGIN_RATE_LIMIT_PER_15_MIN: '1000',
+    APP_DIST: join(projectRoot, 'dist/app/browser'),
+  });
+  globalThis.speedwrightE2e = { stop: server.stop, startedDb: instance.startedHere };
+  const baseUrl = `http://localhost:${server.port}`;
+  process.env['E2E_BASE_URL'] = baseUrl;
+  writeFileSync(join(projectRoot, '.data', 'e2e-env.json'), JSON.stringify({ baseUrl }));
+}

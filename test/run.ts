@@ -1,0 +1,52 @@
+/**
+ * `npm test`: every test. Installs what the tests need from Debian when it is missing
+ * (mariadb-server, chromium), starts the private test MariaDB instance, builds the web app
+ * for production, then runs all jest projects in one run: the shared library, the client,
+ * the API against real MariaDB, and end-to-end in Chromium. `--e2e-only` runs the last alone.
+ */
+import { spawnSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { ensureMariadbInstalled, projectRoot } from '../db/instance';
+import { openLocalDatabase, stopLocalInstance } from '../db/local';
+import { CHROMIUM_PATH } from './e2e/browser';
+
+function ensureChromium(): void {
+  if (existsSync(CHROMIUM_PATH)) return;
+  const isRoot = process.getuid?.() === 0;
+  if (!isRoot) throw new Error(`Chromium is missing at ${CHROMIUM_PATH}; install the Debian package chromium (apt-get needs root).`);
+  console.log('Installing chromium with apt-get (once per machine)…');
+  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
+  for (const args of [['update', '-qq'], ['install', '-y', '-qq', 'chromium']]) {
+    if (spawnSync('apt-get', args, { stdio: 'inherit', env }).status !== 0) throw new Error(`apt-get ${args.join(' ')} failed.`);
+  }
+}
+
+function run(args: string[]): number {
+  const result = spawnSync(process.execPath, args, { cwd: projectRoot, stdio: 'inherit', env: { ...process.env, NG_CLI_ANALYTICS: 'false' } });
+  return result.status ?? 1;
+}
+
+async function main(): Promise<number> {
+  const e2eOnly = process.argv.includes('--e2e-only');
+  ensureMariadbInstalled();
+  ensureChromium();
+  const { instance } = await openLocalDatabase('test', 'speedwright_api_test');
+  try {
+    console.log('\u203a Building the web app (production) for the end-to-end tests');
+    if (run([join(projectRoot, 'node_modules/@angular/cli/bin/ng.js'), 'build']) !== 0) return 1;
+    const jest = [join(projectRoot, 'node_modules/jest/bin/jest.js'), '--ci'];
+    if (e2eOnly) jest.push('--selectProjects', 'e2e');
+    return run([...jest, ...process.argv.slice(2).filter((arg) => arg !== '--e2e-only')]);
+  } finally {
+    if (instance.startedHere) await stopLocalInstance('test');
+  }
+}
+
+main().then(
+  (code) => process.exit(code),
+  (error: unknown) => {
+    console.error(error instanceof Error ? error.message : error);
+    process.exit(1);
+  },
+);
