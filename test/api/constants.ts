@@ -1,2 +1,15 @@
+import { join } from 'node:path';
+
 /** The demo password as the API tests seed it. */
 export const TEST_PASSWORD = 'speedwright-test-password';
+
+/**
+ * The API tests' own database on the private test instance. Two people running the API tests
+ * at once on one machine give each run its own name (API_TEST_DATABASE=speedwright_api_mine).
+ */
+export const API_TEST_DATABASE = process.env['API_TEST_DATABASE'] ?? 'speedwright_api_test';
+
+/** Where global setup leaves the database URL for the test files. */
+export function apiTestEnvFile(): string {
+  return join(__dirname, '..', '..', '.data', `api-test-env-${API_TEST_DATABASE}.json`);
+}

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { apiTestEnvFile } from './constants';
 
 // Every API test file reads the URL of the database that global-setup.ts prepared.
-const { url } = JSON.parse(readFileSync(join(__dirname, '..', '..', '.data', 'api-test-env.json'), 'utf8')) as { url: string };
+const { url } = JSON.parse(readFileSync(apiTestEnvFile(), 'utf8')) as { url: string };
 process.env['DATABASE_URL'] = url;

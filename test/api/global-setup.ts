@@ -3,16 +3,13 @@
  * never the demo database), a fresh test database, migrations and the seed.
  */
 import { writeFileSync } from 'node:fs';
-import { join } from 'node:path';
-import { projectRoot } from '../../db/instance';
 import { openLocalDatabase } from '../../db/local';
 import { createMigrator } from '../../db/migrator';
 import { seedDemo } from '../../db/seed';
 import { createSequelize } from '../../server/database';
 import { initModels } from '../../server/models';
-import { TEST_PASSWORD } from './constants';
+import { API_TEST_DATABASE, apiTestEnvFile, TEST_PASSWORD } from './constants';
 
-export const API_TEST_DATABASE = 'speedwright_api_test';
 
 export default async function globalSetup(): Promise<void> {
   let url = process.env['TEST_DATABASE_URL'];
@@ -27,5 +24,5 @@ export default async function globalSetup(): Promise<void> {
   await createMigrator(sequelize).up();
   await seedDemo(sequelize, TEST_PASSWORD);
   await sequelize.close();
-  writeFileSync(join(projectRoot, '.data', 'api-test-env.json'), JSON.stringify({ url, startedHere }));
+  writeFileSync(apiTestEnvFile(), JSON.stringify({ url, startedHere }));
 }
