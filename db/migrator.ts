@@ -2,6 +2,7 @@ import type { QueryInterface, Sequelize } from 'sequelize';
 import { SequelizeStorage, Umzug, type MigrationFn } from 'umzug';
 import * as operatorsAndUsers from './migrations/20261201-0001-operators-and-users';
 import * as sessionsAndRateLimits from './migrations/20261201-0002-sessions-and-rate-limits';
+import * as auditEvents from './migrations/20261201-0101-audit-events';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -13,6 +14,7 @@ export type Migration = MigrationFn<QueryInterface>;
 const MIGRATIONS: { name: string; module: { up: Migration; down: Migration } }[] = [
   { name: '20261201-0001-operators-and-users', module: operatorsAndUsers },
   { name: '20261201-0002-sessions-and-rate-limits', module: sessionsAndRateLimits },
+  { name: '20261201-0101-audit-events', module: auditEvents },
 ];
 
 export function createMigrator(sequelize: Sequelize, logger: Umzug<QueryInterface>['options']['logger'] = undefined): Umzug<QueryInterface> {
