@@ -1,0 +1,26 @@
+import { NavigationEntry } from './core/navigation/navigation-entry';
+
+/**
+ * Every place in the app, in navigation order. A new feature adds its entry here; the router,
+ * the side navigation and the home page's next steps all follow from it.
+ */
+export const APP_NAVIGATION: readonly NavigationEntry[] = [
+  {
+    path: 'home',
+    label: 'Home',
+    icon: 'home',
+    capability: null,
+    purpose: 'Who you are, your operator and what your role may do.',
+    title: 'Home · Speedwright',
+    loadComponent: () => import('./home/home-page').then((m) => m.HomePage),
+  },
+  {
+    path: 'people',
+    label: 'People',
+    icon: 'group',
+    capability: 'manage-people',
+    purpose: "See your operator's people, their roles, locked accounts and when each last signed in.",
+    title: 'People · Speedwright',
+    loadComponent: () => import('./people/people-page').then((m) => m.PeoplePage),
+  },
+];

@@ -1,0 +1,37 @@
+import { Route, Routes } from '@angular/router';
+import { APP_NAVIGATION } from './app.navigation';
+import { capabilityGuard } from './core/auth/capability-guard';
+import { sessionKnownGuard, signedInGuard, signedOutGuard } from './core/auth/signed-in-guard';
+import { NavigationEntry } from './core/navigation/navigation-entry';
+
+function routeFor(entry: NavigationEntry): Route {
+  return {
+    path: entry.path,
+    title: entry.title,
+    loadComponent: entry.loadComponent,
+    canActivate: entry.capability === null ? [signedInGuard] : [signedInGuard, capabilityGuard(entry.capability)],
+  };
+}
+
+export const routes: Routes = [
+  { path: '', pathMatch: 'full', redirectTo: 'home' },
+  {
+    path: 'sign-in',
+    title: 'Sign in · Speedwright',
+    canActivate: [signedOutGuard],
+    loadComponent: () => import('./sign-in/sign-in-page').then((m) => m.SignInPage),
+  },
+  ...APP_NAVIGATION.map(routeFor),
+  {
+    path: 'not-allowed',
+    title: 'Not allowed · Speedwright',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./not-allowed/not-allowed-page').then((m) => m.NotAllowedPage),
+  },
+  {
+    path: '**',
+    title: 'Page not found · Speedwright',
+    canActivate: [sessionKnownGuard],
+    loadComponent: () => import('./not-found/not-found-page').then((m) => m.NotFoundPage),
+  },
+];

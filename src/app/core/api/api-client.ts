@@ -1,0 +1,43 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable, catchError, map, throwError, timeout } from 'rxjs';
+import type { z } from 'zod';
+import { ApiRequestError } from './api-request-error';
+import { parseResponse } from './parse-response';
+
+/** Long enough for a slow ramp connection, short enough that nobody stares at a spinner. */
+const ANSWER_TIMEOUT_MS = 20_000;
+
+/**
+ * HttpClient with the two rules every call follows: the answer is parsed with its schema, and
+ * any failure arrives as an ApiRequestError carrying a sentence to show.
+ */
+@Injectable({ providedIn: 'root' })
+export class ApiClient {
+  private readonly http = inject(HttpClient);
+
+  get<S extends z.ZodType>(url: string, schema: S): Observable<z.output<S>> {
+    return this.http.get<unknown>(url).pipe(
+      timeout({ first: ANSWER_TIMEOUT_MS }),
+      parseResponse(schema),
+      catchError((error: unknown) => throwError(() => ApiRequestError.from(error))),
+    );
+  }
+
+  post<S extends z.ZodType>(url: string, body: unknown, schema: S): Observable<z.output<S>> {
+    return this.http.post<unknown>(url, body).pipe(
+      timeout({ first: ANSWER_TIMEOUT_MS }),
+      parseResponse(schema),
+      catchError((error: unknown) => throwError(() => ApiRequestError.from(error))),
+    );
+  }
+
+  /** For endpoints that answer 204 No Content. */
+  postWithoutAnswer(url: string, body: unknown): Observable<void> {
+    return this.http.post(url, body, { observe: 'response', responseType: 'text' }).pipe(
+      timeout({ first: ANSWER_TIMEOUT_MS }),
+      map(() => undefined),
+      catchError((error: unknown) => throwError(() => ApiRequestError.from(error))),
+    );
+  }
+}

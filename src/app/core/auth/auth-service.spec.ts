@@ -1,0 +1,155 @@
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+import { SessionUser } from '../../../../shared/api/auth';
+import { API_PATHS, CSRF_HEADER } from '../api/api-paths';
+import { ApiRequestError } from '../api/api-request-error';
+import { AuthService } from './auth-service';
+import { csrfInterceptor } from './csrf-interceptor';
+
+const engineer: SessionUser = {
+  id: 7,
+  email: 'engineer@demo.speedwright.example',
+  displayName: 'Ines Marlow',
+  role: 'engineer',
+  operatorId: 1,
+  operatorName: 'Kestrel Fen Aviation (demo)',
+};
+
+describe('AuthService', () => {
+  let auth: AuthService;
+  let backend: HttpTestingController;
+
+  beforeEach(() => {
+    TestBed.configureTestingModule({
+      providers: [provideHttpClient(withInterceptors([csrfInterceptor])), provideHttpClientTesting()],
+    });
+    auth = TestBed.inject(AuthService);
+    backend = TestBed.inject(HttpTestingController);
+  });
+
+  afterEach(() => backend.verify());
+
+  function signIn(): void {
+    auth.signIn({ email: engineer.email, password: 'pw' }).subscribe();
+    backend.expectOne(API_PATHS.csrf).flush({ token: 'before' });
+    backend.expectOne(API_PATHS.login).flush({ user: engineer });
+  }
+
+  describe('session()', () => {
+    it('asks the server once and shares the answer', () => {
+      const seen: (SessionUser | null)[] = [];
+      auth.session().subscribe((user) => seen.push(user));
+      auth.session().subscribe((user) => seen.push(user));
+      backend.expectOne(API_PATHS.me).flush({ user: engineer });
+
+      expect(seen).toEqual([engineer, engineer]);
+      expect(auth.user()).toEqual(engineer);
+      expect(auth.state()).toBe('signed-in');
+
+      auth.session().subscribe((user) => seen.push(user));
+      backend.expectNone(API_PATHS.me);
+      expect(seen).toHaveLength(3);
+    });
+
+    it('treats a 401 as signed out without reporting a problem', () => {
+      let answer: SessionUser | null | undefined;
+      auth.session().subscribe((user) => (answer = user));
+      backend.expectOne(API_PATHS.me).flush({ error: { code: 'signed_out', message: 'x' } }, { status: 401, statusText: 'Unauthorized' });
+
+      expect(answer).toBeNull();
+      expect(auth.state()).toBe('signed-out');
+      expect(auth.probeProblem()).toBeNull();
+    });
+
+    it('rejects a malformed session answer instead of trusting it', () => {
+      let answer: SessionUser | null | undefined;
+      auth.session().subscribe((user) => (answer = user));
+      backend.expectOne(API_PATHS.me).flush({ user: { ...engineer, role: 'captain' } });
+
+      expect(answer).toBeNull();
+      expect(auth.user()).toBeNull();
+      expect(auth.probeProblem()?.code).toBe('malformed_response');
+    });
+
+    it('remembers why the server could not be asked', () => {
+      auth.session().subscribe();
+      backend.expectOne(API_PATHS.me).error(new ProgressEvent('error'));
+      expect(auth.state()).toBe('signed-out');
+      expect(auth.probeProblem()?.code).toBe('network_unreachable');
+      expect(auth.probeProblem()?.message).toContain('cannot reach the server');
+    });
+  });
+
+  describe('signIn()', () => {
+    it('parses the user and keeps it as the session', () => {
+      let user: SessionUser | undefined;
+      auth.signIn({ email: engineer.email, password: 'pw' }).subscribe((u) => (user = u));
+      backend.expectOne(API_PATHS.csrf).flush({ token: 't' });
+      const login = backend.expectOne(API_PATHS.login);
+      expect(login.request.body).toEqual({ email: engineer.email, password: 'pw' });
+      login.flush({ user: engineer });
+
+      expect(user).toEqual(engineer);
+      expect(auth.user()).toEqual(engineer);
+      expect(auth.signedIn()).toBe(true);
+    });
+
+    it('fails with a typed error when the answer is malformed', () => {
+      let error: ApiRequestError | undefined;
+      auth.signIn({ email: engineer.email, password: 'pw' }).subscribe({ error: (e) => (error = e) });
+      backend.expectOne(API_PATHS.csrf).flush({ token: 't' });
+      backend.expectOne(API_PATHS.login).flush({ user: { id: 'seven' } });
+
+      expect(error).toBeInstanceOf(ApiRequestError);
+      expect(error?.code).toBe('malformed_response');
+      expect(auth.user()).toBeNull();
+    });
+
+    it("passes the server's code and sentence on a 401", () => {
+      let error: ApiRequestError | undefined;
+      auth.signIn({ email: engineer.email, password: 'nope' }).subscribe({ error: (e) => (error = e) });
+      backend.expectOne(API_PATHS.csrf).flush({ token: 't' });
+      backend
+        .expectOne(API_PATHS.login)
+        .flush({ error: { code: 'invalid_credentials', message: 'The e-mail or password is not right.' } }, { status: 401, statusText: 'Unauthorized' });
+
+      expect(error?.status).toBe(401);
+      expect(error?.code).toBe('invalid_credentials');
+      expect(error?.message).toBe('The e-mail or password is not right.');
+      expect(error?.fromServer).toBe(true);
+    });
+
+    it('fetches a new CSRF token for the next write, because the session changed', () => {
+      signIn();
+      auth.signOut().subscribe();
+      backend.expectOne(API_PATHS.csrf).flush({ token: 'after' });
+      expect(backend.expectOne(API_PATHS.logout).request.headers.get(CSRF_HEADER)).toBe('after');
+    });
+  });
+
+  describe('signOut()', () => {
+    it('forgets the person once the server confirmed', () => {
+      signIn();
+      let done = false;
+      auth.signOut().subscribe(() => (done = true));
+      backend.expectOne(API_PATHS.csrf).flush({ token: 'after' });
+      backend.expectOne(API_PATHS.logout).flush(null, { status: 204, statusText: 'No Content' });
+
+      expect(done).toBe(true);
+      expect(auth.user()).toBeNull();
+      expect(auth.state()).toBe('signed-out');
+    });
+
+    it('keeps the person signed in when the server could not be told', () => {
+      signIn();
+      let error: ApiRequestError | undefined;
+      auth.signOut().subscribe({ error: (e) => (error = e) });
+      backend.expectOne(API_PATHS.csrf).flush({ token: 'after' });
+      backend.expectOne(API_PATHS.logout).error(new ProgressEvent('error'));
+
+      expect(error?.code).toBe('network_unreachable');
+      expect(auth.user()).toEqual(engineer);
+    });
+  });
+});

@@ -1,0 +1,42 @@
+import { formatDate } from '@angular/common';
+import { OperatorPerson } from '../../../shared/api/auth';
+import { ROLE_LABELS } from '../../../shared/auth/roles';
+
+/** A person as the people table shows, sorts and filters them. */
+export interface PersonRow {
+  readonly id: number;
+  readonly displayName: string;
+  readonly email: string;
+  readonly roleLabel: string;
+  readonly locked: boolean;
+  readonly invitationPending: boolean;
+  readonly accountLabel: string;
+  /** Milliseconds since the epoch, or null when the person never signed in. */
+  readonly lastSignInMs: number | null;
+  readonly lastSignInLabel: string;
+}
+
+/** Times in UTC, as flight operations keep them. */
+export function toPersonRow(person: OperatorPerson): PersonRow {
+  const lastSignInMs = person.lastSignInAt === null ? null : Date.parse(person.lastSignInAt);
+  const known = lastSignInMs !== null && Number.isFinite(lastSignInMs);
+  return {
+    id: person.id,
+    displayName: person.displayName,
+    email: person.email,
+    roleLabel: ROLE_LABELS[person.role],
+    locked: person.locked,
+    invitationPending: person.invitationPending,
+    accountLabel: accountLabel(person),
+    lastSignInMs: known ? lastSignInMs : null,
+    lastSignInLabel:
+      person.lastSignInAt === null ? 'Never' : known ? `${formatDate(lastSignInMs, 'd MMM y, HH:mm', 'en-US', 'UTC')} UTC` : 'Not recorded',
+  };
+}
+
+/** A lock is what an admin acts on first, so it outranks a pending invitation. */
+function accountLabel(person: OperatorPerson): string {
+  if (person.locked) return 'Locked';
+  if (person.invitationPending) return 'Invited, no password yet';
+  return 'Active';
+}

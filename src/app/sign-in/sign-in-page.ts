@@ -1,0 +1,102 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, inject, input, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { Router } from '@angular/router';
+import { finalize } from 'rxjs';
+import { loginRequestSchema } from '../../../shared/api/auth';
+import { ApiRequestError } from '../core/api/api-request-error';
+import { AuthService } from '../core/auth/auth-service';
+import { ConnectionStatus } from '../core/connection/connection-status';
+import { zodValidator } from '../core/forms/zod-validator';
+
+type SignInField = 'email' | 'password';
+
+/** Our own sentences for when the server's answer carried none. */
+const FALLBACK_SENTENCES: Readonly<Record<number, string>> = {
+  401: 'The e-mail or password is not right.',
+  423: "This account is locked after repeated failed sign-ins. Ask your operator's administrator to unlock it.",
+  429: 'Too many sign-in attempts. Wait a few minutes, then try again.',
+};
+
+@Component({
+  selector: 'sw-sign-in-page',
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule],
+  templateUrl: './sign-in-page.html',
+  styleUrl: './sign-in-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SignInPage {
+  private readonly auth = inject(AuthService);
+  private readonly router = inject(Router);
+  private readonly destroyRef = inject(DestroyRef);
+
+  /** Where to go after signing in; bound from the `returnUrl` query parameter. */
+  readonly returnUrl = input<string | undefined>();
+
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    email: ['', zodValidator(loginRequestSchema.shape.email)],
+    password: ['', zodValidator(loginRequestSchema.shape.password)],
+  });
+  protected readonly online = inject(ConnectionStatus).online;
+  protected readonly probeProblem = this.auth.probeProblem;
+  protected readonly pending = signal(false);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly passwordVisible = signal(false);
+
+  protected signIn(): void {
+    if (this.pending()) {
+      return;
+    }
+    this.form.markAllAsTouched();
+    const request = loginRequestSchema.safeParse(this.form.getRawValue());
+    if (this.form.invalid || !request.success) {
+      return;
+    }
+    this.pending.set(true);
+    this.problem.set(null);
+    this.auth
+      .signIn(request.data)
+      .pipe(
+        finalize(() => this.pending.set(false)),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe({
+        next: () => void this.router.navigateByUrl(this.destination()),
+        error: (error: ApiRequestError) => this.showProblem(error),
+      });
+  }
+
+  protected togglePasswordVisibility(): void {
+    this.passwordVisible.update((visible) => !visible);
+  }
+
+  protected fieldMessage(field: SignInField): string | null {
+    const errors = this.form.controls[field].errors;
+    return (errors?.['schema'] as string | undefined) ?? (errors?.['server'] as string | undefined) ?? null;
+  }
+
+  private showProblem(error: ApiRequestError): void {
+    const fallback = FALLBACK_SENTENCES[error.status];
+    this.problem.set(error.fromServer || fallback === undefined ? error.message : fallback);
+    for (const field of ['email', 'password'] as const) {
+      const sentence = error.fields[field];
+      if (sentence) {
+        this.form.controls[field].setErrors({ server: sentence });
+      }
+    }
+  }
+
+  /** Only a path inside the app: a crafted link must not send someone to another site. */
+  private destination(): string {
+    const url = this.returnUrl();
+    if (url && url.startsWith('/') && !url.startsWith('//') && !url.startsWith('/sign-in')) {
+      return url;
+    }
+    return '/home';
+  }
+}
