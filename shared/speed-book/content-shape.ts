@@ -1,0 +1,145 @@
+/**
+ * The shape of a revision's content: field by field, each value on its own. The rules that
+ * tie fields together (tables rising, references resolving, limits above stall) live in
+ * `content-rules.ts`; `revision-content.ts` joins the two into the one schema.
+ */
+import * as z from 'zod';
+
+/** "The ceiling" → "the ceiling" inside a sentence; "VNE" stays as it is. */
+const inSentence = (what: string) => (/^[A-Z][a-z]/.test(what) ? what[0].toLowerCase() + what.slice(1) : what);
+
+const num = (what: string) =>
+  z.number({ error: (issue) => (issue.input === undefined ? `Give ${inSentence(what)}.` : `${what} must be a number.`) });
+
+/** A speed in knots, above zero and below 1 000 kt. */
+export const knots = (what: string) =>
+  num(what).positive(`${what} must be above zero.`).max(999, `${what} must be below 1,000 kt.`);
+
+/** A weight in kilograms, above zero and below 1 000 000 kg. */
+export const kilograms = (what: string) =>
+  num(what).positive(`${what} must be above zero.`).max(999_999, `${what} must be below 1,000,000 kg.`);
+
+const text = (what: string, max: number) =>
+  z
+    .string({ error: (issue) => (issue.input === undefined ? `Give ${what}.` : `${what} must be text.`) })
+    .trim()
+    .min(1, `Give ${what}.`)
+    .max(max, `${what} must be at most ${max} characters.`);
+
+export const AIRCRAFT_CATEGORIES = ['piston-single', 'piston-twin', 'turboprop', 'jet'] as const;
+export const SPEED_PHASES = ['takeoff', 'climb', 'cruise', 'approach', 'landing', 'any'] as const;
+export const SPEED_BASES = ['ias', 'cas'] as const;
+
+export const aircraftSchema = z.strictObject({
+  category: z.enum(AIRCRAFT_CATEGORIES, { error: 'Choose piston-single, piston-twin, turboprop or jet.' }),
+  engines: num('The number of engines').int('The number of engines must be a whole number.').min(1, 'An aircraft has at least one engine.').max(8, 'At most 8 engines.'),
+  ceilingFt: num('The ceiling').int('The ceiling must be whole feet.').min(1000, 'The ceiling must be at least 1,000 ft.').max(60_000, 'The ceiling must be at most 60,000 ft.'),
+});
+
+export const weightsSchema = z.strictObject({
+  minimumKg: kilograms('The minimum weight'),
+  maximumTakeoffKg: kilograms('The maximum takeoff weight'),
+  maximumLandingKg: kilograms('The maximum landing weight'),
+  /** The weight weight-scaled speeds are published at; needed as soon as one speed is scaled. */
+  referenceKg: kilograms('The reference weight').optional(),
+});
+
+/** Our own keys for flap/gear configurations: lower-case words joined by hyphens. */
+export const configurationKeySchema = z
+  .string({ error: 'Give the configuration key.' })
+  .regex(/^[a-z][a-z0-9]*(-[a-z0-9]+)*$/, 'A configuration key is lower-case letters and digits joined by hyphens, such as landing-flap.')
+  .max(32, 'A configuration key must be at most 32 characters.');
+
+export const positionErrorPointSchema = z.strictObject({
+  iasKt: knots('The indicated airspeed'),
+  casKt: knots('The calibrated airspeed'),
+});
+
+export const configurationSchema = z.strictObject({
+  key: configurationKeySchema,
+  label: text('the configuration’s label', 80),
+  /** IAS → CAS, strictly increasing in both columns. */
+  positionError: z
+    .array(positionErrorPointSchema, { error: 'Give the position-error table as a list of IAS/CAS points.' })
+    .min(2, 'A position-error table needs at least two IAS/CAS points.')
+    .max(100, 'A position-error table has at most 100 points.'),
+});
+
+/** Trade codes (VS1, VR, VREF, V2) or free ones: a letter, then letters and digits. */
+export const speedCodeSchema = z
+  .string({ error: 'Give the speed’s code.' })
+  .regex(/^[A-Za-z][A-Za-z0-9]*$/, 'A speed code is a letter followed by letters and digits, such as VREF or VS1.')
+  .max(12, 'A speed code must be at most 12 characters.');
+
+const speedBase = {
+  code: speedCodeSchema,
+  label: text('the speed’s label', 80),
+  phase: z.enum(SPEED_PHASES, { error: 'Choose takeoff, climb, cruise, approach, landing or any.' }),
+  configurationKey: configurationKeySchema,
+  basis: z.enum(SPEED_BASES, { error: 'Choose ias or cas.' }),
+};
+
+const tableKt = knots('A tabulated speed');
+const axis = (what: string, min: number, max: number, unit: string) =>
+  z
+    .array(num(`Each ${what}`).min(min, `Each ${what} must be at least ${min} ${unit}.`).max(max, `Each ${what} must be at most ${max} ${unit}.`), {
+      error: `Give the ${what} axis as a list of numbers.`,
+    })
+    .min(2, `The ${what} axis needs at least two entries.`)
+    .max(50, `The ${what} axis has at most 50 entries.`);
+
+/** Weight-scaled from `referenceKt` at `weights.referenceKg`: V = Vref·√(W / Wref). */
+export const scaledSpeedSchema = z.strictObject({ ...speedBase, kind: z.literal('scaled'), referenceKt: knots('The reference speed') });
+
+/**
+ * Tabulated against weight, and optionally pressure altitude and OAT. `valuesKt` nests in axis
+ * order: `valuesKt[weight][altitude][oat]`, absent axes left out (as shared/aero's speed table).
+ */
+export const tabulatedSpeedSchema = z.strictObject({
+  ...speedBase,
+  kind: z.literal('tabulated'),
+  byWeightKg: axis('weight', 1, 999_999, 'kg'),
+  byPressureAltitudeFt: axis('pressure altitude', -2000, 60_000, 'ft').optional(),
+  byOatC: axis('temperature', -100, 70, '°C').optional(),
+  valuesKt: z.array(z.union([tableKt, z.array(z.union([tableKt, z.array(tableKt)]))]), {
+    error: 'Give the tabulated speeds as a list (one entry per weight), nested by altitude and temperature.',
+  }),
+});
+
+export const fixedSpeedSchema = z.strictObject({ ...speedBase, kind: z.literal('fixed'), valueKt: knots('The speed') });
+
+export const speedSchema = z.discriminatedUnion('kind', [scaledSpeedSchema, tabulatedSpeedSchema, fixedSpeedSchema], {
+  error: 'Choose the speed’s kind: scaled, tabulated or fixed.',
+});
+
+/**
+ * Limit speeds, in the basis named by `indicatorMarkingBasis` (the flight manual's limitations
+ * and the airspeed indicator's markings share one basis). VNO, VNE and VMO are read through the
+ * first configuration's position-error table (the cruise configuration); each VFE through its
+ * own configuration's.
+ */
+export const limitsSchema = z.strictObject({
+  vnoKt: knots('VNO').optional(),
+  vneKt: knots('VNE').optional(),
+  vmoKt: knots('VMO').optional(),
+  mmo: num('MMO').min(0.1, 'MMO must be at least Mach 0.1.').max(0.99, 'MMO must be below Mach 1.').optional(),
+  vfeKt: z.record(z.string(), knots('VFE'), { error: 'Give VFE as configuration key → kt.' }),
+  vleKt: knots('VLE').optional(),
+  vloKt: knots('VLO').optional(),
+  vmcKt: knots('VMC').optional(),
+  vyseKt: knots('VYSE').optional(),
+});
+
+export const revisionContentShape = z.strictObject({
+  schemaVersion: z.literal(1, { error: 'This is revision content of schema version 1.' }),
+  aircraft: aircraftSchema,
+  weights: weightsSchema,
+  configurations: z
+    .array(configurationSchema, { error: 'Give the configurations as a list.' })
+    .min(1, 'Give at least one configuration (the first is the cruise configuration).')
+    .max(12, 'At most 12 configurations.'),
+  speeds: z.array(speedSchema, { error: 'Give the speeds as a list.' }).max(100, 'At most 100 speeds.'),
+  limits: limitsSchema,
+  indicatorMarkingBasis: z.enum(SPEED_BASES, { error: 'Choose ias or cas.' }),
+  notes: z.string({ error: 'Notes must be text.' }).max(4000, 'Notes must be at most 4,000 characters.'),
+});
