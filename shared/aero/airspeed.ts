@@ -108,7 +108,9 @@ function checkedSpeed(input: AirspeedInput, key: SpeedKey): number {
   const label = LABELS[key];
   requirePositiveSpeed(value, key, `The ${label}`, key === 'mach' ? '' : 'kt');
   if (key === 'mach' ? value < MIN_MACH : value < MIN_AIRSPEED_KT) {
-    throw tooSlow(key, key === 'mach' ? `Mach ${formatNumber(value, 5)}` : `A ${label} of ${formatNumber(value, 3)} kt`, key === 'mach' ? `Mach ${MIN_MACH}` : `${MIN_AIRSPEED_KT} kt`);
+    throw key === 'mach'
+      ? tooSlow(key, `Mach ${formatNumber(value, 5)}`, `Mach ${MIN_MACH}`)
+      : tooSlow(key, `${key === 'easKt' ? 'An' : 'A'} ${label} of ${formatNumber(value, 3)} kt`, `${MIN_AIRSPEED_KT} kt`);
   }
   return value;
 }
