@@ -37,7 +37,7 @@ module.exports = {
       globalSetup: '<rootDir>/test/e2e/global-setup.ts',
       globalTeardown: '<rootDir>/test/e2e/global-teardown.ts',
       setupFiles: ['<rootDir>/test/e2e/env.ts'],
-      testTimeout: 60_000,
+      setupFilesAfterEnv: ['<rootDir>/test/e2e/timeouts.ts'],
     },
     {
       displayName: 'client',

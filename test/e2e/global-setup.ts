@@ -23,7 +23,7 @@ export default async function globalSetup(): Promise<void> {
   const sequelize = createSequelize(url);
   initModels(sequelize);
   await createMigrator(sequelize).up();
-  await seedDemo(sequelize, E2E_PASSWORD);
+  await seedDemo(sequelize, E2E_PASSWORD, { signingKeySecret: localSecrets().signingKeySecret });
   await sequelize.close();
 
   const server = await serve({
@@ -32,6 +32,7 @@ export default async function globalSetup(): Promise<void> {
     HOST: '127.0.0.1',
     DATABASE_URL: url,
     SESSION_SECRET: localSecrets().sessionSecret,
+    SIGNING_KEY_SECRET: localSecrets().signingKeySecret,
     LOG_LEVEL: 'warn',
     LOGIN_RATE_LIMIT_PER_15_MIN: '1000',
     APP_DIST: join(projectRoot, 'dist/app/browser'),
