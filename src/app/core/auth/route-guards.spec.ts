@@ -15,7 +15,7 @@ const pilot: SessionUser = {
   operatorName: 'Kestrel Fen Aviation (demo)',
 };
 
-describe('route guards', () => {
+describe('signedInGuard, signedOutGuard and capabilityGuard', () => {
   let session: SessionUser | null;
 
   beforeEach(() => {
