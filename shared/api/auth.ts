@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { ROLES } from '../auth/roles';
 
 /** The signed-in person as the API returns it (`/api/auth/login`, `/api/auth/me`). */
