@@ -48,7 +48,7 @@ const CALLS: Readonly<Record<string, (n: number[]) => unknown>> = {
   densityAltitudeFt: ([h, t, d]) => aero.densityAltitudeFt(h, t, d),
   convertAirspeed: ([h, t, v, which]) => {
     const key = (['casKt', 'easKt', 'tasKt', 'mach'] as const)[Math.abs(Math.trunc(which || 0)) % 4];
-    return aero.convertAirspeed({ pressureAltitudeFt: h, oatC: t, [key]: v } as aero.AirspeedInput);
+    return aero.convertAirspeed({ pressureAltitudeFt: h, oatC: t, [key]: v } as unknown as aero.AirspeedInput);
   },
   iasToCasKt: ([v]) => aero.iasToCasKt(POSITION_ERROR, v),
   casToIasKt: ([v]) => aero.casToIasKt(POSITION_ERROR, v),

@@ -5,8 +5,16 @@
  * calibration"; NASA RP 1046 on position error). Never extrapolated.
  */
 import { AeroInputError } from './errors';
-import { formatNumber, requireFinite, requirePositiveSpeed } from './guards';
-import { type AxisPosition, locate, mix } from './interpolation';
+import * as guards from './guards';
+import * as interpolation from './interpolation';
+import type { AxisPosition } from './interpolation';
+
+// Imports are bound to module constants once, at load: the CommonJS output of esbuild (used by
+// tsx, which runs the benchmark) reads every imported name through a getter on each use, which
+// made those reads the bulk of a conversion's time. tsc and the Angular bundler are unaffected.
+const { formatNumber } = guards;
+const requirePositiveSpeed: typeof guards.requirePositiveSpeed = guards.requirePositiveSpeed;
+const { EDGE_TOLERANCE, mix } = interpolation;
 
 /** One calibration point: at indicated airspeed `iasKt` the calibrated airspeed is `casKt`. */
 export interface PositionErrorPoint {
@@ -41,34 +49,73 @@ export function checkPositionErrorTable(table: PositionErrorTable): void {
   if (!Array.isArray(table) || table.length < 2) {
     throw invalid('positionErrorTable', 'it needs at least two IAS/CAS points.');
   }
+  // Fast path, run on every lookup: one pass of comparisons that every valid table passes
+  // (NaN fails them all). Anything else is examined again below to name the problem.
+  let previousIasKt = 0;
+  let previousCasKt = 0;
   for (let i = 0; i < table.length; i++) {
-    const point: unknown = table[i];
-    if (typeof point !== 'object' || point === null) throw invalid(`positionErrorTable[${i}]`, `point ${i + 1} is not an IAS/CAS pair.`);
-    const { iasKt, casKt } = point as PositionErrorPoint;
-    if (!isSpeed(iasKt)) throw invalid(`positionErrorTable[${i}].iasKt`, `point ${i + 1} has an IAS that is not a speed above zero.`);
-    if (!isSpeed(casKt)) throw invalid(`positionErrorTable[${i}].casKt`, `point ${i + 1} has a CAS that is not a speed above zero.`);
-    if (i > 0) {
-      const previous = table[i - 1];
-      if (iasKt <= previous.iasKt || casKt <= previous.casKt) {
-        throw invalid(
-          `positionErrorTable[${i}]`,
-          `point ${i + 1} (${formatNumber(iasKt, 1)} KIAS, ${formatNumber(casKt, 1)} KCAS) does not rise strictly above ` +
-            `point ${i} (${formatNumber(previous.iasKt, 1)} KIAS, ${formatNumber(previous.casKt, 1)} KCAS).`,
-        );
-      }
+    const point = table[i];
+    if (typeof point !== 'object' || point === null) explainBadPoint(table, i);
+    const iasKt = point.iasKt;
+    const casKt = point.casKt;
+    if (
+      !(typeof iasKt === 'number' && typeof casKt === 'number' && iasKt > previousIasKt && casKt > previousCasKt) ||
+      !(iasKt < Infinity && casKt < Infinity)
+    ) {
+      explainBadPoint(table, i);
     }
+    previousIasKt = iasKt;
+    previousCasKt = casKt;
   }
+}
+
+/** Throws `invalid-table` naming what is wrong with point `i` (which failed the fast check). */
+function explainBadPoint(table: PositionErrorTable, i: number): never {
+  const point: unknown = table[i];
+  if (typeof point !== 'object' || point === null) throw invalid(`positionErrorTable[${i}]`, `point ${i + 1} is not an IAS/CAS pair.`);
+  const { iasKt, casKt } = point as PositionErrorPoint;
+  if (!isSpeed(iasKt)) throw invalid(`positionErrorTable[${i}].iasKt`, `point ${i + 1} has an IAS that is not a speed above zero.`);
+  if (!isSpeed(casKt)) throw invalid(`positionErrorTable[${i}].casKt`, `point ${i + 1} has a CAS that is not a speed above zero.`);
+  const previous = table[i - 1];
+  throw invalid(
+    `positionErrorTable[${i}]`,
+    `point ${i + 1} (${formatNumber(iasKt, 1)} KIAS, ${formatNumber(casKt, 1)} KCAS) does not rise strictly above ` +
+      `point ${i} (${formatNumber(previous.iasKt, 1)} KIAS, ${formatNumber(previous.casKt, 1)} KCAS).`,
+  );
 }
 
 /** Reused scratch for `locate`, so a lookup allocates nothing (the library is synchronous). */
 const position: AxisPosition = { index: 0, t: 0 };
 
+/**
+ * `interpolation.locate` specialised to a column of the table, without a callback: the lookup
+ * runs once per row of a card's altitude table.
+ */
+function locatePoint(table: PositionErrorTable, column: 'iasKt' | 'casKt', x: number): boolean {
+  const last = table.length - 1;
+  const first = table[0][column];
+  const end = table[last][column];
+  const slack = (end - first) * EDGE_TOLERANCE;
+  if (!(x >= first - slack && x <= end + slack)) return false;
+  const clamped = x < first ? first : x > end ? end : x;
+  let low = 0;
+  let high = last;
+  while (high - low > 1) {
+    const middle = (low + high) >> 1;
+    if (table[middle][column] <= clamped) low = middle;
+    else high = middle;
+  }
+  const x0 = table[low][column];
+  const x1 = table[high][column];
+  position.index = low;
+  position.t = clamped === x1 ? 1 : (clamped - x0) / (x1 - x0);
+  return true;
+}
+
 function convert(table: PositionErrorTable, speedKt: number, from: 'iasKt' | 'casKt', to: 'iasKt' | 'casKt'): number {
   checkPositionErrorTable(table);
-  const name = from === 'iasKt' ? 'indicated' : 'calibrated';
-  requireFinite(speedKt, from, `The ${name} airspeed`);
-  requirePositiveSpeed(speedKt, from, `The ${name} airspeed`);
-  if (!locate(table.length, (i) => table[i][from], speedKt, position)) {
+  requirePositiveSpeed(speedKt, from, from === 'iasKt' ? 'The indicated airspeed' : 'The calibrated airspeed');
+  if (!locatePoint(table, from, speedKt)) {
     const unit = from === 'iasKt' ? 'KIAS' : 'KCAS';
     throw new AeroInputError(
       'outside-table',
