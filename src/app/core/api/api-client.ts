@@ -32,6 +32,14 @@ export class ApiClient {
     );
   }
 
+  patch<S extends z.ZodType>(url: string, body: unknown, schema: S): Observable<z.output<S>> {
+    return this.http.patch<unknown>(url, body).pipe(
+      timeout({ first: ANSWER_TIMEOUT_MS }),
+      parseResponse(schema),
+      catchError((error: unknown) => throwError(() => ApiRequestError.from(error))),
+    );
+  }
+
   /** For endpoints that answer 204 No Content. */
   postWithoutAnswer(url: string, body: unknown): Observable<void> {
     return this.http.post(url, body, { observe: 'response', responseType: 'text' }).pipe(

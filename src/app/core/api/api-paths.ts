@@ -5,6 +5,13 @@ export const API_PATHS = {
   logout: '/api/auth/logout',
   me: '/api/auth/me',
   users: '/api/users',
+  aircraftTypes: '/api/aircraft-types',
+  airframes: '/api/airframes',
+  audit: '/api/audit',
+  mailbox: '/api/dev/mailbox',
+  acceptInvitation: '/api/auth/invitations/accept',
+  passwordReset: '/api/auth/password-reset',
+  passwordResetConfirm: '/api/auth/password-reset/confirm',
   health: '/api/health',
 } as const;
 
