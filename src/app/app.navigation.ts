@@ -15,6 +15,15 @@ export const APP_NAVIGATION: readonly NavigationEntry[] = [
     loadComponent: () => import('./home/home-page').then((m) => m.HomePage),
   },
   {
+    path: 'fleet',
+    label: 'Fleet',
+    icon: 'flight',
+    capability: 'read-published',
+    purpose: "See your operator's airframes by registration and the aircraft types they belong to.",
+    title: 'Fleet · Speedwright',
+    loadComponent: () => import('./fleet/fleet-page').then((m) => m.FleetPage),
+  },
+  {
     path: 'people',
     label: 'People',
     icon: 'group',
