@@ -8,6 +8,7 @@ import { createMigrator } from '../../db/migrator';
 import { seedDemo } from '../../db/seed';
 import { createSequelize } from '../../server/database';
 import { initModels } from '../../server/models';
+import { TEST_SIGNING_KEY_SECRET } from './constants';
 import { API_TEST_DATABASE, apiTestEnvFile, TEST_PASSWORD } from './constants';
 
 
@@ -22,7 +23,7 @@ export default async function globalSetup(): Promise<void> {
   const sequelize = createSequelize(url);
   initModels(sequelize);
   await createMigrator(sequelize).up();
-  await seedDemo(sequelize, TEST_PASSWORD);
+  await seedDemo(sequelize, TEST_PASSWORD, { signingKeySecret: TEST_SIGNING_KEY_SECRET });
   await sequelize.close();
   writeFileSync(apiTestEnvFile(), JSON.stringify({ url, startedHere }));
 }
