@@ -10,20 +10,18 @@ import helmet from 'helmet';
 import type { Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 import type { Sequelize } from 'sequelize';
+import { accountLinksRoutes } from './auth/account-links.routes';
 import { authRoutes } from './auth/auth.routes';
 import { configurePassport } from './auth/passport';
 import { MariaDbRateLimitStore } from './auth/rate-limit-store';
 import type { ServerConfig } from './config';
 import { healthRoutes } from './health/health.routes';
 import { HttpError } from './http-error';
+import { mailboxRoutes } from './mail/mailbox.routes';
+import { createOutbox, setOutbox } from './mail/outbox';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { uploadsRoutes } from './uploads/uploads.routes';
 import { usersRoutes } from './users/users.routes';
-import { auditRoutes } from './audit/audit.routes';
-import { aircraftTypesRoutes, airframesRoutes } from './fleet/fleet.routes';
-import { openApiRoutes } from './openapi/openapi.routes';
-import { operatorRoutes } from './operator/operator.routes';
-import { revisionsRoutes } from './revisions/revisions.routes';
-import { speedBooksRoutes } from './speed-books/speed-books.routes';
 
 export const SESSION_COOKIE = 'speedwright.sid';
 const SESSION_HOURS = 12;
@@ -45,6 +43,7 @@ const REQUEST_ID = /^[A-Za-z0-9._-]{1,64}$/;
 /** Builds the Express app: security headers, logs, sessions, CSRF, the API, then the web app. */
 export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightApp {
   const app = express();
+  setOutbox(createOutbox(config, logger));
   app.disable('x-powered-by');
   app.set('trust proxy', parseTrustProxy(config.TRUST_PROXY));
 
@@ -139,13 +138,18 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
 
   app.use('/api/auth', authRoutes({ passport, generateCsrfToken: generateToken, loginLimiter, sessionCookieName: SESSION_COOKIE }));
   app.use('/api/users', usersRoutes());
-  app.use('/api/aircraft-types', aircraftTypesRoutes());
-  app.use('/api/airframes', airframesRoutes());
-  app.use('/api/speed-books', speedBooksRoutes());
-  app.use('/api/revisions', revisionsRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
-  app.use('/api/operator', operatorRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
-  app.use('/api/audit', auditRoutes());
-  app.use('/api/openapi.json', openApiRoutes());
+  const accountLinkLimiter = rateLimit({
+    windowMs: 15 * 60_000,
+    limit: config.LOGIN_RATE_LIMIT_PER_15_MIN,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    store: new MariaDbRateLimitStore(sequelize, 'account-link:'),
+    handler: (_req, _res, next) =>
+      next(new HttpError(429, 'too_many_attempts', 'Too many requests from this device. Wait 15 minutes and try again.')),
+  });
+  app.use('/api/auth', accountLinksRoutes({ limiter: accountLinkLimiter }));
+  if (config.MAILBOX_DIR) app.use('/api/dev/mailbox', mailboxRoutes(resolve(config.MAILBOX_DIR)));
+  app.use('/api/uploads', uploadsRoutes());
   app.use('/api', apiNotFound);
 
   serveWebApp(app, resolve(config.APP_DIST));

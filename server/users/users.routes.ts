@@ -1,12 +1,34 @@
 import { Router } from 'express';
+import { invitePersonRequestSchema, updatePersonRequestSchema } from '../../shared/api/auth';
 import { operatorScope, requireCapability } from '../middleware/authorize';
-import { listOperatorPeople } from './users.service';
+import { idParam } from '../middleware/id-param';
+import { parseOrThrow } from '../middleware/validate';
+import { invitePerson, listOperatorPeople, resendInvitation, updatePerson } from './users.service';
 
 /** `/api/users`: the operator's people (administrators). */
 export function usersRoutes(): Router {
   const router = Router();
-  router.get('/', requireCapability('manage-people'), async (req, res) => {
+  router.use(requireCapability('manage-people'));
+
+  router.get('/', async (req, res) => {
     res.json({ users: await listOperatorPeople(operatorScope(req)) });
   });
+
+  router.post('/', async (req, res) => {
+    const input = parseOrThrow(invitePersonRequestSchema, req.body, 'invitation');
+    res.status(201).json(await invitePerson(operatorScope(req), req.user!.id, input, req));
+  });
+
+  router.patch('/:id', async (req, res) => {
+    const userId = idParam(req.params['id'], 'That person');
+    const input = parseOrThrow(updatePersonRequestSchema, req.body, 'change');
+    res.json({ user: await updatePerson(operatorScope(req), req.user!.id, userId, input, req) });
+  });
+
+  router.post('/:id/invitation', async (req, res) => {
+    const userId = idParam(req.params['id'], 'That person');
+    res.status(201).json(await resendInvitation(operatorScope(req), req.user!.id, userId, req));
+  });
+
   return router;
 }

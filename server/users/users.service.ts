@@ -1,17 +1,143 @@
-import type { OperatorPerson } from '../../shared/api/auth';
-import { User } from '../models';
+import type { Request } from 'express';
+import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
+import type { InvitePersonRequest, OperatorPerson, UpdatePersonRequest } from '../../shared/api/auth';
+import { recordAudit } from '../audit/audit.service';
+import { issueInvitation, sendInvitation } from '../auth/invitations.service';
+import { HttpError, notFound } from '../http-error';
+import { Operator, User } from '../models';
+
+const PERSON = 'That person';
 
 /** The operator's people, for its administrator. */
 export async function listOperatorPeople(operatorId: number): Promise<OperatorPerson[]> {
   const users = await User.findAll({ where: { operatorId }, order: [['displayName', 'ASC']] });
-  const now = Date.now();
-  return users.map((user) => ({
+  return users.map(toOperatorPerson);
+}
+
+export function toOperatorPerson(user: User): OperatorPerson {
+  return {
     id: user.id,
     email: user.email,
     displayName: user.displayName,
     role: user.role,
-    locked: user.lockedByAdmin || (user.lockedUntil !== null && user.lockedUntil.getTime() > now),
+    locked: user.lockedByAdmin || (user.lockedUntil !== null && user.lockedUntil.getTime() > Date.now()),
+    invitationPending: user.passwordHash === null,
     lastSignInAt: user.lastSignInAt?.toISOString() ?? null,
     createdAt: user.createdAt.toISOString(),
-  }));
+  };
+}
+
+export interface InviteResult {
+  user: OperatorPerson;
+  /** Whether the mail server took the invitation; the admin can send it again when not. */
+  mailSent: boolean;
+}
+
+/** Adds a person without a password and mails them an invitation to choose one. */
+export async function invitePerson(operatorId: number, actorId: number, input: InvitePersonRequest, req: Request): Promise<InviteResult> {
+  let created: { user: User; invitation: Awaited<ReturnType<typeof issueInvitation>> };
+  try {
+    created = await User.sequelize!.transaction(async (transaction) => {
+      if (await User.findOne({ where: { email: input.email }, transaction })) throw emailTaken();
+      const user = await User.create(
+        { operatorId, email: input.email, displayName: input.displayName, role: input.role, passwordHash: null, lockedUntil: null, lastSignInAt: null },
+        { transaction },
+      );
+      const invitation = await issueInvitation(user, actorId, transaction);
+      await recordAudit(
+        { operatorId, actorId, action: 'user.invited', entityType: 'user', entityId: user.id, details: { email: user.email, role: user.role }, req },
+        transaction,
+      );
+      return { user, invitation };
+    });
+  } catch (error) {
+    // Two admins inviting the same address at once: the unique index decides.
+    if (error instanceof UniqueConstraintError) throw emailTaken();
+    throw error;
+  }
+  const mailSent = await sendInvitation(created.user, actorId, created.invitation);
+  return { user: toOperatorPerson(created.user), mailSent };
+}
+
+/** A new invitation link for someone who has not chosen a password yet; earlier links stop working. */
+export async function resendInvitation(operatorId: number, actorId: number, userId: number, req: Request): Promise<InviteResult> {
+  const { user, invitation } = await User.sequelize!.transaction(async (transaction) => {
+    const user = await User.findOne({ where: { id: userId, operatorId }, lock: transaction.LOCK.UPDATE, transaction });
+    if (!user) throw notFound(PERSON);
+    if (user.passwordHash !== null) {
+      throw new HttpError(409, 'invitation_accepted', `${user.displayName} has already accepted the invitation. If they forgot the password, they can ask for a reset on the sign-in page.`);
+    }
+    const invitation = await issueInvitation(user, actorId, transaction);
+    await recordAudit({ operatorId, actorId, action: 'user.invitation-resent', entityType: 'user', entityId: user.id, req }, transaction);
+    return { user, invitation };
+  });
+  const mailSent = await sendInvitation(user, actorId, invitation);
+  return { user: toOperatorPerson(user), mailSent };
+}
+
+/**
+ * Changes role, lock or name. Keeps at least one administrator who can sign in, and never
+ * lets an administrator lock themself out. The change applies to open sessions at once,
+ * because every request reloads the person.
+ */
+export async function updatePerson(operatorId: number, actorId: number, userId: number, input: UpdatePersonRequest, req: Request): Promise<OperatorPerson> {
+  return User.sequelize!.transaction(async (transaction) => {
+    // The operator row serialises changes to its people, so two admins demoting each other
+    // at once cannot both succeed and leave nobody in charge.
+    await Operator.findByPk(operatorId, { lock: transaction.LOCK.UPDATE, transaction });
+    const user = await User.findOne({ where: { id: userId, operatorId }, lock: transaction.LOCK.UPDATE, transaction });
+    if (!user) throw notFound(PERSON);
+
+    if (input.locked === true && user.id === actorId) {
+      throw new HttpError(409, 'cannot_lock_self', 'You cannot lock your own account. Ask another administrator if it must be locked.', {
+        locked: 'You cannot lock your own account.',
+      });
+    }
+    const staysActiveAdmin = (input.role ?? user.role) === 'admin' && !(input.locked ?? user.lockedByAdmin);
+    const isActiveAdmin = user.role === 'admin' && !user.lockedByAdmin;
+    if (isActiveAdmin && !staysActiveAdmin && (await otherActiveAdmins(operatorId, user.id, transaction)) === 0) {
+      throw new HttpError(
+        409,
+        'last_admin',
+        `${user.displayName} is the operator's only administrator who can sign in. Make someone else an administrator first.`,
+      );
+    }
+
+    const audits: { action: string; details?: Record<string, unknown> }[] = [];
+    if (input.role !== undefined && input.role !== user.role) {
+      audits.push({ action: 'user.role-changed', details: { from: user.role, to: input.role } });
+      user.role = input.role;
+    }
+    if (input.locked !== undefined && input.locked !== user.lockedByAdmin) {
+      audits.push({ action: input.locked ? 'user.locked' : 'user.unlocked' });
+      user.lockedByAdmin = input.locked;
+    }
+    if (input.locked === false) {
+      // Unlocking also lifts a lock after failed sign-ins.
+      user.lockedUntil = null;
+      user.failedSignIns = 0;
+    }
+    if (input.displayName !== undefined && input.displayName !== user.displayName) {
+      audits.push({ action: 'user.renamed', details: { from: user.displayName, to: input.displayName } });
+      user.displayName = input.displayName;
+    }
+    await user.save({ transaction });
+    for (const audit of audits) {
+      await recordAudit({ operatorId, actorId, entityType: 'user', entityId: user.id, req, ...audit }, transaction);
+    }
+    return toOperatorPerson(user);
+  });
+}
+
+function otherActiveAdmins(operatorId: number, exceptUserId: number, transaction: Transaction): Promise<number> {
+  return User.count({
+    where: { operatorId, role: 'admin', lockedByAdmin: false, passwordHash: { [Op.ne]: null }, id: { [Op.ne]: exceptUserId } },
+    transaction,
+  });
+}
+
+function emailTaken(): HttpError {
+  return new HttpError(409, 'email_taken', 'This e-mail address already belongs to an account.', {
+    email: 'This e-mail address already belongs to an account.',
+  });
 }

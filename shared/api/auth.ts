@@ -28,11 +28,73 @@ export const operatorPersonSchema = z.object({
   displayName: z.string(),
   role: z.enum(ROLES),
   locked: z.boolean(),
+  /** Invited but has not chosen a password yet (the invitation can be sent again). */
+  invitationPending: z.boolean(),
   lastSignInAt: z.string().nullable(),
   createdAt: z.string(),
 });
 export type OperatorPerson = z.infer<typeof operatorPersonSchema>;
 export const operatorPeopleSchema = z.object({ users: z.array(operatorPersonSchema) });
+export const operatorPersonResponseSchema = z.object({ user: operatorPersonSchema });
+
+const emailField = z.string().trim().toLowerCase().email('Enter an e-mail address such as name@example.com.').max(254);
+const displayNameField = z
+  .string()
+  .trim()
+  .min(1, 'Enter the name colleagues know this person by.')
+  .max(200, 'Keep the name under 200 characters.');
+
+/** Password rules for a new password, in one place for the form and the server. */
+export const NEW_PASSWORD_MIN_LENGTH = 12;
+export const newPasswordSchema = z
+  .string()
+  .min(NEW_PASSWORD_MIN_LENGTH, `Choose a password of at least ${NEW_PASSWORD_MIN_LENGTH} characters; a few unrelated words work well.`)
+  .max(200, 'Keep the password under 200 characters.')
+  .refine((password) => password.trim().length > 0, 'A password of only spaces is not accepted.');
+
+/** The token of an invitation or password-reset link: 32 random bytes, base64url. */
+export const linkTokenSchema = z
+  .string()
+  .regex(/^[A-Za-z0-9_-]{43}$/, 'This link is not complete. Open it again from the e-mail, or copy the whole link.');
+
+/** `POST /api/users` (admin): invite a person by e-mail. */
+export const invitePersonRequestSchema = z.strictObject({
+  email: emailField,
+  displayName: displayNameField,
+  role: z.enum(ROLES, { message: `Choose one of the roles: ${ROLES.join(', ')}.` }),
+});
+export type InvitePersonRequest = z.infer<typeof invitePersonRequestSchema>;
+
+/** `PATCH /api/users/:id` (admin): any of role, lock, name. */
+export const updatePersonRequestSchema = z
+  .strictObject({
+    role: z.enum(ROLES, { message: `Choose one of the roles: ${ROLES.join(', ')}.` }).optional(),
+    locked: z.boolean({ message: 'Say true to lock the account or false to unlock it.' }).optional(),
+    displayName: displayNameField.optional(),
+  })
+  .refine((body) => body.role !== undefined || body.locked !== undefined || body.displayName !== undefined, {
+    message: 'Send at least one of role, locked or displayName.',
+  });
+export type UpdatePersonRequest = z.infer<typeof updatePersonRequestSchema>;
+
+/** `POST /api/auth/invitations/accept`: the invited person chooses a password. */
+export const acceptInvitationRequestSchema = z.strictObject({
+  token: linkTokenSchema,
+  password: newPasswordSchema,
+  displayName: displayNameField.optional(),
+});
+export type AcceptInvitationRequest = z.infer<typeof acceptInvitationRequestSchema>;
+
+/** `POST /api/auth/password-reset`: always answered 202, whether or not the account exists. */
+export const passwordResetRequestSchema = z.strictObject({ email: emailField });
+export type PasswordResetRequest = z.infer<typeof passwordResetRequestSchema>;
+
+/** `POST /api/auth/password-reset/confirm`. */
+export const passwordResetConfirmSchema = z.strictObject({ token: linkTokenSchema, password: newPasswordSchema });
+export type PasswordResetConfirm = z.infer<typeof passwordResetConfirmSchema>;
+
+/** The answer of accept and confirm: the address to sign in with next. */
+export const passwordSetResponseSchema = z.object({ email: z.string() });
 
 /**
  * Every error the API sends has this shape. `fields` maps a dotted field path to a sentence

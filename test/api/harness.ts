@@ -8,11 +8,14 @@ import type { Role } from '../../shared/auth/roles';
 import { createApp } from '../../server/app';
 import { loadConfig, type ServerConfig } from '../../server/config';
 import { createSequelize } from '../../server/database';
+import { readMailbox, waitForMail, type MailboxEntry } from '../../server/mail/mailbox';
 import { initModels } from '../../server/models';
-import { TEST_SIGNING_KEY_SECRET } from './constants';
-import { TEST_PASSWORD } from './constants';
+import { apiTestAttachmentsDir, apiTestMailboxDir, TEST_PASSWORD } from './constants';
 
-export { TEST_PASSWORD, TEST_SIGNING_KEY_SECRET };
+export { TEST_PASSWORD };
+
+/** The address links in the tests' mails start with. */
+export const TEST_PUBLIC_URL = 'http://speedwright.test';
 
 export interface Harness {
   app: ReturnType<typeof createApp>['app'];
@@ -25,10 +28,13 @@ export function startHarness(overrides: Partial<Record<keyof ServerConfig, strin
     NODE_ENV: 'test',
     DATABASE_URL: process.env['DATABASE_URL'],
     SESSION_SECRET: 'test-session-secret-that-is-long-enough-0123456789',
-    SIGNING_KEY_SECRET: TEST_SIGNING_KEY_SECRET,
     LOG_LEVEL: 'silent',
     LOGIN_RATE_LIMIT_PER_15_MIN: '1000',
     APP_DIST: 'dist/app/browser',
+    SMTP_URL: process.env['SMTP_URL'],
+    MAILBOX_DIR: apiTestMailboxDir(),
+    PUBLIC_URL: TEST_PUBLIC_URL,
+    ATTACHMENTS_DIR: apiTestAttachmentsDir(),
     ...overrides,
   });
   const sequelize = createSequelize(config.DATABASE_URL);
@@ -59,4 +65,14 @@ export async function signIn(app: Harness['app'], email: string, password = TEST
   await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email, password }).expect(200);
   const fresh = await agent.get('/api/auth/csrf').expect(200);
   return { agent, token: fresh.body.token as string };
+}
+
+/** Waits for the next message to `address` in this run's fake mailbox (mail is sent after the response). */
+export function mailTo(address: string, match: (entry: MailboxEntry) => boolean = () => true, timeoutMs = 5000): Promise<MailboxEntry> {
+  return waitForMail(apiTestMailboxDir(), (entry) => entry.to.includes(address.toLowerCase()) && match(entry), timeoutMs);
+}
+
+/** Every message to `address` so far. */
+export function mailsTo(address: string): MailboxEntry[] {
+  return readMailbox(apiTestMailboxDir()).filter((entry) => entry.to.includes(address.toLowerCase()));
 }

@@ -1,0 +1,32 @@
+import { Router, type RequestHandler } from 'express';
+import { acceptInvitationRequestSchema, passwordResetConfirmSchema, passwordResetRequestSchema } from '../../shared/api/auth';
+import { parseOrThrow } from '../middleware/validate';
+import { acceptInvitation } from './invitations.service';
+import { confirmPasswordReset, requestPasswordReset } from './password-reset.service';
+
+/**
+ * `/api/auth`: the links people get by mail — accepting an invitation and resetting a
+ * password. Nobody is signed in for these; the token in the link is the proof.
+ */
+export function accountLinksRoutes({ limiter }: { limiter: RequestHandler }): Router {
+  const router = Router();
+
+  router.post('/invitations/accept', limiter, async (req, res) => {
+    const input = parseOrThrow(acceptInvitationRequestSchema, req.body, 'invitation');
+    res.json(await acceptInvitation(input, req));
+  });
+
+  router.post('/password-reset', limiter, async (req, res) => {
+    const { email } = parseOrThrow(passwordResetRequestSchema, req.body, 'password reset');
+    await requestPasswordReset(email, req);
+    // The same answer whether or not the account exists.
+    res.status(202).json({ message: 'If an account uses this e-mail address, a link to choose a new password is on its way. It works for one hour.' });
+  });
+
+  router.post('/password-reset/confirm', limiter, async (req, res) => {
+    const input = parseOrThrow(passwordResetConfirmSchema, req.body, 'new password');
+    res.json(await confirmPasswordReset(input, req));
+  });
+
+  return router;
+}

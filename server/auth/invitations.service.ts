@@ -1,0 +1,97 @@
+/**
+ * Invitations: an administrator adds a person without a password; the mail carries a link
+ * that lets them choose one. Single use, seven days, only the hash stored.
+ */
+import type { Request } from 'express';
+import { Op, type Transaction } from 'sequelize';
+import type { AcceptInvitationRequest } from '../../shared/api/auth';
+import { recordAudit } from '../audit/audit.service';
+import { HttpError } from '../http-error';
+import { invitationMail } from '../mail/messages';
+import { outbox } from '../mail/outbox';
+import { Invitation, Operator, User } from '../models';
+import { assertLinkUsable, hashLinkToken, newLinkToken, type LinkWording } from './link-tokens';
+import { hashPassword } from './passwords';
+
+export const INVITATION_DAYS = 7;
+
+const WORDS: LinkWording = {
+  unknown: 'This invitation link is not valid. Open it again from the e-mail, or ask your administrator for a new one.',
+  used: 'This invitation has already been used. Sign in with the password you chose, or ask for a password reset.',
+  replaced: 'A newer invitation was sent after this one. Use the link in the latest e-mail.',
+  expired: 'This invitation has expired. Ask your administrator to send a new one.',
+};
+
+export interface IssuedInvitation {
+  token: string;
+  expiresAt: Date;
+}
+
+/** Creates an invitation for `user` (revoking earlier unused ones) inside the caller's transaction. */
+export async function issueInvitation(user: User, invitedById: number, transaction: Transaction): Promise<IssuedInvitation> {
+  const now = new Date();
+  await Invitation.update({ revokedAt: now }, { where: { userId: user.id, usedAt: null, revokedAt: null }, transaction });
+  const { token, tokenHash } = newLinkToken();
+  const expiresAt = new Date(now.getTime() + INVITATION_DAYS * 24 * 3600_000);
+  await Invitation.create(
+    { operatorId: user.operatorId, userId: user.id, invitedById, tokenHash, expiresAt, usedAt: null, revokedAt: null },
+    { transaction },
+  );
+  return { token, expiresAt };
+}
+
+/** Mails the invitation; resolves whether the mail server took it. Call after the commit. */
+export async function sendInvitation(user: User, invitedById: number, invitation: IssuedInvitation): Promise<boolean> {
+  const [operator, invitedBy] = await Promise.all([Operator.findByPk(user.operatorId), User.findByPk(invitedById)]);
+  const link = outbox().link('/invitation', { token: invitation.token });
+  return outbox().send(
+    invitationMail({
+      to: user.email,
+      displayName: user.displayName,
+      operatorName: operator?.name ?? 'your operator',
+      invitedBy: invitedBy?.displayName ?? 'Your administrator',
+      link,
+      expiresAt: invitation.expiresAt,
+    }),
+  );
+}
+
+/** Sets the invited person's password and spends the link. Answers the e-mail to sign in with. */
+export async function acceptInvitation(input: AcceptInvitationRequest, req: Request): Promise<{ email: string }> {
+  const tokenHash = hashLinkToken(input.token);
+  // Check before hashing the password, so made-up tokens cost no argon2 work.
+  assertLinkUsable(await Invitation.findOne({ where: { tokenHash } }), WORDS);
+  const passwordHash = await hashPassword(input.password);
+
+  return User.sequelize!.transaction(async (transaction) => {
+    const invitation = await Invitation.findOne({ where: { tokenHash }, lock: transaction.LOCK.UPDATE, transaction });
+    assertLinkUsable(invitation, WORDS);
+    const user = await User.findByPk(invitation.userId, { lock: transaction.LOCK.UPDATE, transaction });
+    if (!user || user.operatorId !== invitation.operatorId) throw new HttpError(410, 'link_used', WORDS.used);
+    if (user.passwordHash) throw new HttpError(410, 'link_used', WORDS.used);
+
+    const now = new Date();
+    await user.update(
+      { passwordHash, failedSignIns: 0, lockedUntil: null, ...(input.displayName ? { displayName: input.displayName } : {}) },
+      { transaction },
+    );
+    await invitation.update({ usedAt: now }, { transaction });
+    await Invitation.update(
+      { revokedAt: now },
+      { where: { userId: user.id, usedAt: null, revokedAt: null, id: { [Op.ne]: invitation.id } }, transaction },
+    );
+    await recordAudit(
+      {
+        operatorId: user.operatorId,
+        actorId: user.id,
+        action: 'invitation.accepted',
+        entityType: 'user',
+        entityId: user.id,
+        details: { invitationId: invitation.id, ...(input.displayName ? { displayName: input.displayName } : {}) },
+        req,
+      },
+      transaction,
+    );
+    return { email: user.email };
+  });
+}

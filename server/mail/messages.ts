@@ -1,0 +1,94 @@
+/**
+ * The wording of every mail Speedwright sends, in one place. Plain text, short, and always
+ * saying why the reader got it and what to do next.
+ */
+import type { OutgoingMail } from './outbox';
+
+const SIGNATURE = '\n\n— Speedwright\nYou get this message because of your account with this operator in Speedwright.';
+
+export function invitationMail(p: { to: string; displayName: string; operatorName: string; invitedBy: string; link: string; expiresAt: Date }): OutgoingMail {
+  return {
+    to: p.to,
+    subject: `You are invited to ${p.operatorName} on Speedwright`,
+    text:
+      `Hello ${p.displayName},\n\n` +
+      `${p.invitedBy} has added you to ${p.operatorName} on Speedwright, where the operator keeps its approved speed data and issues speed cards.\n\n` +
+      `To choose your password and start, open this link:\n${p.link}\n\n` +
+      `The link works once and until ${formatUtc(p.expiresAt)}. If it has run out, ask ${p.invitedBy} to send a new one. ` +
+      `If you were not expecting this, you can ignore the message.` +
+      SIGNATURE,
+  };
+}
+
+export function passwordResetMail(p: { to: string; displayName: string; link: string; expiresAt: Date }): OutgoingMail {
+  return {
+    to: p.to,
+    subject: 'Choose a new Speedwright password',
+    text:
+      `Hello ${p.displayName},\n\n` +
+      `Someone asked to reset the password of this account. If it was you, open this link and choose a new password:\n${p.link}\n\n` +
+      `The link works once and until ${formatUtc(p.expiresAt)}. Your current password keeps working until you choose a new one.\n\n` +
+      `If it was not you, ignore this message; nothing changes.` +
+      SIGNATURE,
+  };
+}
+
+export interface RevisionMailFacts {
+  to: string;
+  displayName: string;
+  speedBookTitle: string;
+  revisionNumber: number;
+  changeSummary?: string | null;
+  link: string;
+}
+
+export function revisionSubmittedMail(p: RevisionMailFacts & { submittedBy: string }): OutgoingMail {
+  return {
+    to: p.to,
+    subject: `Review needed: ${p.speedBookTitle}, revision ${p.revisionNumber}`,
+    text:
+      `Hello ${p.displayName},\n\n` +
+      `${p.submittedBy} has submitted revision ${p.revisionNumber} of the speed book "${p.speedBookTitle}" for review.\n` +
+      summaryLine(p.changeSummary) +
+      `\nCompare it with the current published revision and publish it or send it back:\n${p.link}\n\n` +
+      `Someone who wrote a revision cannot approve it, so it waits for another approver.` +
+      SIGNATURE,
+  };
+}
+
+export function revisionPublishedMail(p: RevisionMailFacts): OutgoingMail {
+  return {
+    to: p.to,
+    subject: `New speed data: ${p.speedBookTitle}, revision ${p.revisionNumber}`,
+    text:
+      `Hello ${p.displayName},\n\n` +
+      `Revision ${p.revisionNumber} of the speed book "${p.speedBookTitle}" is now published and replaces the earlier revision.\n` +
+      summaryLine(p.changeSummary) +
+      `\nOpen Speedwright while you have a connection so your device takes the new data. Speed cards made from the earlier revision are out of date; make new ones before your next flight.\n${p.link}` +
+      SIGNATURE,
+  };
+}
+
+export function revisionWithdrawnMail(p: RevisionMailFacts & { reason: string }): OutgoingMail {
+  return {
+    to: p.to,
+    subject: `Withdrawn: ${p.speedBookTitle}, revision ${p.revisionNumber}`,
+    text:
+      `Hello ${p.displayName},\n\n` +
+      `Revision ${p.revisionNumber} of the speed book "${p.speedBookTitle}" has been withdrawn and must no longer be used.\n` +
+      `Reason given: ${p.reason}\n\n` +
+      `Do not use speed cards made from this revision. Open Speedwright while you have a connection to see what applies now:\n${p.link}` +
+      SIGNATURE,
+  };
+}
+
+function summaryLine(changeSummary: string | null | undefined): string {
+  return changeSummary?.trim() ? `What changed, in the author's words: ${changeSummary.trim()}\n` : '';
+}
+
+/** "2 December 2026, 14:05 UTC": mails are read in many time zones. */
+export function formatUtc(date: Date): string {
+  const months = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${date.getUTCDate()} ${months[date.getUTCMonth()]} ${date.getUTCFullYear()}, ${pad(date.getUTCHours())}:${pad(date.getUTCMinutes())} UTC`;
+}
