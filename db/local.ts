@@ -19,17 +19,23 @@ export const INSTANCE_PORTS: Record<InstanceName, number> = {
 interface LocalSecrets {
   dbPassword: string;
   sessionSecret: string;
+  /** SIGNING_KEY_SECRET of the local server: encrypts the operators' signing keys at rest. */
+  signingKeySecret: string;
 }
 
 export function localSecrets(): LocalSecrets {
   const file = join(projectRoot, '.data', 'local-secrets.json');
-  if (existsSync(file)) return JSON.parse(readFileSync(file, 'utf8')) as LocalSecrets;
-  mkdirSync(join(projectRoot, '.data'), { recursive: true });
+  const stored: Partial<LocalSecrets> = existsSync(file) ? (JSON.parse(readFileSync(file, 'utf8')) as Partial<LocalSecrets>) : {};
+  // A secret added in a later version is made once and written beside the older ones.
   const secrets: LocalSecrets = {
-    dbPassword: randomBytes(18).toString('base64url'),
-    sessionSecret: randomBytes(32).toString('base64url'),
+    dbPassword: stored.dbPassword ?? randomBytes(18).toString('base64url'),
+    sessionSecret: stored.sessionSecret ?? randomBytes(32).toString('base64url'),
+    signingKeySecret: stored.signingKeySecret ?? randomBytes(32).toString('base64url'),
   };
-  writeFileSync(file, JSON.stringify(secrets, null, 2), { mode: 0o600 });
+  if (Object.keys(stored).length !== Object.keys(secrets).length) {
+    mkdirSync(join(projectRoot, '.data'), { recursive: true });
+    writeFileSync(file, JSON.stringify(secrets, null, 2), { mode: 0o600 });
+  }
   return secrets;
 }
 

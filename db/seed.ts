@@ -5,8 +5,18 @@
  */
 import type { Sequelize } from 'sequelize';
 import type { Role } from '../shared/auth/roles';
+import type { AircraftCategory, RevisionContent } from '../shared/speed-book/revision-content';
+import {
+  demoLightTwinJetContent,
+  demoPistonTrainerContent,
+  demoPistonTrainerContentRevised,
+  demoTwinTurbopropContent,
+} from '../shared/speed-book/demo-content';
+import type { Actor } from '../server/audit/actor';
 import { hashPassword } from '../server/auth/passwords';
-import { Operator, User } from '../server/models';
+import { AircraftType, Airframe, Operator, Revision, SpeedBook, User } from '../server/models';
+import { approveRevision, createRevision, submitRevision } from '../server/revisions/revisions.service';
+import { localSecrets } from './local';
 
 export const DEFAULT_DEMO_PASSWORD = 'speedwright-demo';
 
@@ -16,10 +26,27 @@ interface SeedPerson {
   role: Role;
 }
 
+interface SeedRevision {
+  content: RevisionContent;
+  changeSummary: string;
+}
+
+interface SeedType {
+  designator: string;
+  name: string;
+  category: AircraftCategory;
+  engines: number;
+  ceilingFt: number;
+  airframes: { registration: string; serial: string; active?: boolean }[];
+  /** The speed book and its revisions, oldest first; each is published by the approver. */
+  speedBook?: { title: string; revisions: SeedRevision[] };
+}
+
 interface SeedOperator {
   slug: string;
   name: string;
   people: SeedPerson[];
+  fleet: SeedType[];
 }
 
 export const DEMO_OPERATORS: SeedOperator[] = [
@@ -33,6 +60,54 @@ export const DEMO_OPERATORS: SeedOperator[] = [
       { email: 'admin@demo.speedwright.example', displayName: 'Priya Halden', role: 'admin' },
       { email: 'inspector@demo.speedwright.example', displayName: 'Jonas Brightwater', role: 'inspector' },
     ],
+    fleet: [
+      {
+        designator: 'ZZP1',
+        name: 'Sedgeling 4 (invented four-seat trainer)',
+        category: 'piston-single',
+        engines: 1,
+        ceilingFt: 14000,
+        airframes: [
+          { registration: 'ZZ-KFA', serial: 'SG4-0012' },
+          { registration: 'ZZ-KFB', serial: 'SG4-0031' },
+          { registration: 'ZZ-KFC', serial: 'SG4-0047', active: false },
+        ],
+        speedBook: {
+          title: 'Sedgeling 4 speed book',
+          revisions: [
+            { content: demoPistonTrainerContent(), changeSummary: 'First issue from the flight manual (invented demo data — not for flight).' },
+            { content: demoPistonTrainerContentRevised(), changeSummary: 'Corrects VR, VX and the flaps-30° VFE; adds an approach speed (invented demo data — not for flight).' },
+          ],
+        },
+      },
+      {
+        designator: 'ZZT2',
+        name: 'Marshlight T2 (invented twin turboprop)',
+        category: 'turboprop',
+        engines: 2,
+        ceilingFt: 30000,
+        airframes: [
+          { registration: 'ZZ-KFT', serial: 'MT2-104' },
+          { registration: 'ZZ-KFU', serial: 'MT2-117' },
+        ],
+        speedBook: {
+          title: 'Marshlight T2 speed book',
+          revisions: [{ content: demoTwinTurbopropContent(), changeSummary: 'First issue (invented demo data — not for flight).' }],
+        },
+      },
+      {
+        designator: 'ZZJ2',
+        name: 'Heronbolt J2 (invented light twin-jet)',
+        category: 'jet',
+        engines: 2,
+        ceilingFt: 41000,
+        airframes: [{ registration: 'ZZ-KFJ', serial: 'HJ2-0009' }],
+        speedBook: {
+          title: 'Heronbolt J2 speed book',
+          revisions: [{ content: demoLightTwinJetContent(), changeSummary: 'First issue (invented demo data — not for flight).' }],
+        },
+      },
+    ],
   },
   {
     slug: 'second-demo',
@@ -41,10 +116,26 @@ export const DEMO_OPERATORS: SeedOperator[] = [
       { email: 'pilot@second.speedwright.example', displayName: 'Mara Quell', role: 'pilot' },
       { email: 'admin@second.speedwright.example', displayName: 'Oskar Fenwick', role: 'admin' },
     ],
+    fleet: [
+      {
+        designator: 'ZZP2',
+        name: 'Tern Twin 6 (invented piston twin)',
+        category: 'piston-twin',
+        engines: 2,
+        ceilingFt: 20000,
+        airframes: [{ registration: 'ZZ-LAT', serial: 'TT6-221' }],
+      },
+    ],
   },
 ];
 
-export async function seedDemo(sequelize: Sequelize, password: string): Promise<void> {
+export interface SeedOptions {
+  /** The server's SIGNING_KEY_SECRET: the demo revisions are signed like any other. */
+  signingKeySecret?: string;
+}
+
+export async function seedDemo(sequelize: Sequelize, password: string, options: SeedOptions = {}): Promise<void> {
+  const signingKeySecret = options.signingKeySecret ?? process.env['SIGNING_KEY_SECRET'] ?? localSecrets().signingKeySecret;
   const passwordHash = await hashPassword(password);
   await sequelize.transaction(async (transaction) => {
     for (const seedOperator of DEMO_OPERATORS) {
@@ -62,5 +153,49 @@ export async function seedDemo(sequelize: Sequelize, password: string): Promise<
         if (!created) await user.update({ passwordHash, failedSignIns: 0, lockedUntil: null }, { transaction });
       }
     }
-  });
+  });  for (const seedOperator of DEMO_OPERATORS) await seedFleet(sequelize, seedOperator, signingKeySecret);
+}
+
+/** Types, airframes and speed books by natural key; revisions only for a book that has none. */
+async function seedFleet(sequelize: Sequelize, seedOperator: SeedOperator, signingKeySecret: string): Promise<void> {
+  const operator = await Operator.findOne({ where: { slug: seedOperator.slug }, rejectOnEmpty: true });
+  const byRole = async (role: Role): Promise<Actor | undefined> => {
+    const email = seedOperator.people.find((person) => person.role === role)?.email;
+    const user = email ? await User.findOne({ where: { email } }) : null;
+    return user ? { operatorId: operator.id, userId: user.id, role } : undefined;
+  };
+  const engineer = await byRole('engineer');
+  const approver = await byRole('approver');
+  for (const seedType of seedOperator.fleet) {
+    const book = await sequelize.transaction(async (transaction) => {
+      const { airframes, speedBook, ...typeFields } = seedType;
+      const [type] = await AircraftType.findOrCreate({
+        where: { operatorId: operator.id, designator: seedType.designator },
+        defaults: { ...typeFields, operatorId: operator.id },
+        transaction,
+      });
+      for (const airframe of airframes) {
+        await Airframe.findOrCreate({
+          where: { operatorId: operator.id, registration: airframe.registration },
+          defaults: { ...airframe, operatorId: operator.id, aircraftTypeId: type.id },
+          transaction,
+        });
+      }
+      if (!speedBook) return undefined;
+      const [book] = await SpeedBook.findOrCreate({
+        where: { operatorId: operator.id, aircraftTypeId: type.id },
+        defaults: { operatorId: operator.id, aircraftTypeId: type.id, title: speedBook.title },
+        transaction,
+      });
+      return book;
+    });
+    const revisions = seedType.speedBook?.revisions ?? [];
+    if (!book || !engineer || !approver || (await Revision.count({ where: { speedBookId: book.id } })) > 0) continue;
+    // Through the same service as the API: written by the engineer, published by the approver.
+    for (const revision of revisions) {
+      const draft = await createRevision(engineer, book.id, revision);
+      await submitRevision(engineer, draft.id);
+      await approveRevision(approver, draft.id, signingKeySecret);
+    }
+  }
 }

@@ -31,7 +31,9 @@ async function launch(): Promise<void> {
   const sequelize = createSequelize(databaseUrl);
   initModels(sequelize);
   await createMigrator(sequelize, undefined).up();
-  await seedDemo(sequelize, process.env['DEMO_PASSWORD'] ?? DEFAULT_DEMO_PASSWORD);
+  await seedDemo(sequelize, process.env['DEMO_PASSWORD'] ?? DEFAULT_DEMO_PASSWORD, {
+    signingKeySecret: process.env['SIGNING_KEY_SECRET'] ?? localSecrets().signingKeySecret,
+  });
   await sequelize.close();
 
   if (process.env['SKIP_BUILD'] !== '1') {
@@ -47,6 +49,7 @@ async function launch(): Promise<void> {
   const server = await serve({
     NODE_ENV: 'production',
     SESSION_SECRET: localSecrets().sessionSecret,
+    SIGNING_KEY_SECRET: localSecrets().signingKeySecret,
     ...process.env,
     DATABASE_URL: databaseUrl,
     APP_DIST: process.env['APP_DIST'] ?? join(projectRoot, 'dist/app/browser'),

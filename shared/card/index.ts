@@ -1,2 +1,4 @@
 /** The speed card model: types, inputs schema, refusal, `buildCard` and `cardDigest`. */
 export * from './card';
+export { buildCard, takeoffConfigurationKeys, HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT, HIGH_DENSITY_ALTITUDE_FT } from './build-card';
+export { cardDigest } from './card-digest';

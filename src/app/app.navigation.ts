@@ -28,7 +28,7 @@ export const APP_NAVIGATION: readonly NavigationEntry[] = [
     label: 'People',
     icon: 'group',
     capability: 'manage-people',
-    purpose: "See your operator's people, their roles, locked accounts and when each last signed in.",
+    purpose: "Invite your operator's people, change their roles, lock and unlock accounts, and see when each last signed in.",
     title: 'People · Speedwright',
     loadComponent: () => import('./people/people-page').then((m) => m.PeoplePage),
   },

@@ -1,4 +1,5 @@
 import { Route, Routes } from '@angular/router';
+import { ACCOUNT_ROUTES } from './account/account.routes';
 import { APP_NAVIGATION } from './app.navigation';
 import { capabilityGuard } from './core/auth/capability-guard';
 import { sessionKnownGuard, signedInGuard, signedOutGuard } from './core/auth/signed-in-guard';
@@ -21,6 +22,7 @@ export const routes: Routes = [
     canActivate: [signedOutGuard],
     loadComponent: () => import('./sign-in/sign-in-page').then((m) => m.SignInPage),
   },
+  ...ACCOUNT_ROUTES,
   ...APP_NAVIGATION.map(routeFor),
   {
     path: 'not-allowed',

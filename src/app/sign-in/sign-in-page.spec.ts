@@ -129,4 +129,9 @@ describe('SignInPage', () => {
     answerLogin({ user: admin }, 200);
     expect(navigateByUrl).toHaveBeenCalledWith('/home');
   });
+
+  it('links to the request for a password reset', () => {
+    const link = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('a')).find((a) => a.textContent?.includes('Forgot your password?'));
+    expect(link?.getAttribute('href')).toBe('/forgot-password');
+  });
 });

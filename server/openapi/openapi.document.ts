@@ -1,0 +1,147 @@
+/**
+ * The API description served at `GET /api/openapi.json`, generated from the same zod schemas
+ * the routes validate with. A new route: add one `route(...)` line below (the API test checks
+ * that every route of the app is listed).
+ */
+import { OpenAPIRegistry, OpenApiGeneratorV31, type ResponseConfig, type RouteConfig } from '@asteasolutions/zod-to-openapi';
+import * as z from 'zod';
+import { auditPageSchema, auditQuerySchema } from '../../shared/api/audit';
+import {
+  apiErrorSchema,
+  csrfResponseSchema,
+  healthSchema,
+  loginRequestSchema,
+  loginResponseSchema,
+  operatorPeopleSchema,
+  sessionUserSchema,
+} from '../../shared/api/auth';
+import {
+  aircraftTypeListSchema,
+  aircraftTypeResponseSchema,
+  airframeListSchema,
+  airframeResponseSchema,
+  createAircraftTypeSchema,
+  createAirframeSchema,
+  updateAircraftTypeSchema,
+  updateAirframeSchema,
+} from '../../shared/api/fleet';
+import {
+  createRevisionSchema,
+  createSpeedBookSchema,
+  diffQuerySchema,
+  reasonSchema,
+  revisionDiffSchema,
+  revisionResponseSchema,
+  signingKeyResponseSchema,
+  speedBookListSchema,
+  speedBookResponseSchema,
+  updateRevisionSchema,
+} from '../../shared/api/revisions';
+import { revisionContentSchema } from '../../shared/speed-book/revision-content';
+
+type Method = RouteConfig['method'];
+
+const idParams = z.object({ id: z.string().regex(/^[1-9]\d*$/).describe('Record id') });
+const json = (schema: z.ZodType) => ({ content: { 'application/json': { schema } } });
+
+const ERRORS: Record<number, string> = {
+  400: 'The request is not valid; `fields` names each field at fault.',
+  401: 'Not signed in.',
+  403: 'The role may not do this, or the CSRF token is missing.',
+  404: 'No such record for this operator.',
+  409: 'The record is not in a state that allows this.',
+  422: 'The content is not complete or consistent; `fields` names each problem.',
+};
+
+interface RouteSpec {
+  summary: string;
+  tags: string[];
+  /** Capability needed, for the description; `public` for no sign-in. */
+  who: string;
+  params?: boolean;
+  query?: z.ZodObject;
+  body?: z.ZodType;
+  ok: { status: number; schema?: z.ZodType; description?: string };
+  errors?: number[];
+}
+
+/** The OpenAPI 3.1 document of the whole API. */
+export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generateDocument']> {
+  const registry = new OpenAPIRegistry();
+  // Named components come from zod's own JSON Schema output: `registry.register` needs schemas
+  // made after `extendZodWithOpenApi`, and the shared ones are made at import, before it.
+  const component = (name: string, schema: z.ZodType) =>
+    registry.registerComponent('schemas', name, z.toJSONSchema(schema, { unrepresentable: 'any', io: 'input' }) as Record<string, unknown>);
+  component('ApiError', apiErrorSchema);
+  component('RevisionContent', revisionContentSchema);
+  component('SessionUser', sessionUserSchema);
+
+  const route = (method: Method, path: string, spec: RouteSpec) => {
+    const responses: Record<number, ResponseConfig> = {
+      [spec.ok.status]: { description: spec.ok.description ?? 'OK', ...(spec.ok.schema ? json(spec.ok.schema) : {}) },
+    };
+    const errors = new Set([...(spec.who === 'public' ? [] : [401]), ...(spec.params ? [404] : []), ...(spec.body || spec.query ? [400] : []), ...(spec.errors ?? [])]);
+    if (spec.who !== 'public' && spec.who !== 'signed-in') errors.add(403);
+    for (const status of [...errors].sort()) responses[status] = { description: ERRORS[status] ?? 'Error', ...json(apiErrorSchema) };
+    registry.registerPath({
+      method,
+      path: path.replace(/:(\w+)/g, '{$1}'),
+      summary: spec.summary,
+      description: spec.who === 'public' ? 'No sign-in needed.' : `Needs: ${spec.who}. Writes need the x-csrf-token header.`,
+      tags: spec.tags,
+      request: {
+        ...(spec.params ? { params: idParams } : {}),
+        ...(spec.query ? { query: spec.query } : {}),
+        ...(spec.body ? { body: { required: true, ...json(spec.body) } } : {}),
+      },
+      responses,
+    });
+  };
+
+  route('get', '/api/health', { summary: 'Whether the server and its database answer', tags: ['health'], who: 'public', ok: { status: 200, schema: healthSchema }, errors: [503] });
+  route('get', '/api/openapi.json', { summary: 'This document', tags: ['meta'], who: 'public', ok: { status: 200, description: 'OpenAPI 3.1' } });
+
+  route('get', '/api/auth/csrf', { summary: 'A CSRF token for this session', tags: ['auth'], who: 'public', ok: { status: 200, schema: csrfResponseSchema } });
+  route('post', '/api/auth/login', { summary: 'Sign in', tags: ['auth'], who: 'public', body: loginRequestSchema, ok: { status: 200, schema: loginResponseSchema }, errors: [400, 401, 423, 429] });
+  route('post', '/api/auth/logout', { summary: 'Sign out', tags: ['auth'], who: 'public', ok: { status: 204, description: 'Signed out' } });
+  route('get', '/api/auth/me', { summary: 'Who is signed in', tags: ['auth'], who: 'signed-in', ok: { status: 200, schema: loginResponseSchema } });
+  route('get', '/api/users', { summary: 'The operator’s people', tags: ['people'], who: 'manage-people', ok: { status: 200, schema: operatorPeopleSchema } });
+
+  route('get', '/api/aircraft-types', { summary: 'The operator’s aircraft types', tags: ['fleet'], who: 'read-published', ok: { status: 200, schema: aircraftTypeListSchema } });
+  route('post', '/api/aircraft-types', { summary: 'Add an aircraft type', tags: ['fleet'], who: 'manage-fleet', body: createAircraftTypeSchema, ok: { status: 201, schema: aircraftTypeResponseSchema }, errors: [409] });
+  route('get', '/api/aircraft-types/:id', { summary: 'One aircraft type', tags: ['fleet'], who: 'read-published', params: true, ok: { status: 200, schema: aircraftTypeResponseSchema } });
+  route('patch', '/api/aircraft-types/:id', { summary: 'Change an aircraft type', tags: ['fleet'], who: 'manage-fleet', params: true, body: updateAircraftTypeSchema, ok: { status: 200, schema: aircraftTypeResponseSchema }, errors: [409] });
+  route('get', '/api/airframes', { summary: 'The operator’s airframes', tags: ['fleet'], who: 'read-published', ok: { status: 200, schema: airframeListSchema } });
+  route('post', '/api/airframes', { summary: 'Add an airframe', tags: ['fleet'], who: 'manage-fleet', body: createAirframeSchema, ok: { status: 201, schema: airframeResponseSchema }, errors: [409, 422] });
+  route('get', '/api/airframes/:id', { summary: 'One airframe', tags: ['fleet'], who: 'read-published', params: true, ok: { status: 200, schema: airframeResponseSchema } });
+  route('patch', '/api/airframes/:id', { summary: 'Change an airframe', tags: ['fleet'], who: 'manage-fleet', params: true, body: updateAirframeSchema, ok: { status: 200, schema: airframeResponseSchema }, errors: [409, 422] });
+
+  route('get', '/api/speed-books', { summary: 'Speed books with their published revision', tags: ['speed books'], who: 'read-published', ok: { status: 200, schema: speedBookListSchema } });
+  route('post', '/api/speed-books', { summary: 'Start the speed book of a type', tags: ['speed books'], who: 'edit-speed-books', body: createSpeedBookSchema, ok: { status: 201, schema: speedBookResponseSchema }, errors: [409, 422] });
+  route('get', '/api/speed-books/:id', { summary: 'A speed book and its revisions', tags: ['speed books'], who: 'read-published', params: true, ok: { status: 200, schema: speedBookResponseSchema } });
+  route('post', '/api/speed-books/:id/revisions', {
+    summary: 'A new draft revision (a copy of the latest published content when none is given)',
+    tags: ['revisions'], who: 'edit-speed-books', params: true, body: createRevisionSchema, ok: { status: 201, schema: revisionResponseSchema }, errors: [409, 422],
+  });
+
+  route('get', '/api/revisions/:id', { summary: 'A revision with its content', tags: ['revisions'], who: 'read-published (drafts: edit-speed-books)', params: true, ok: { status: 200, schema: revisionResponseSchema } });
+  route('patch', '/api/revisions/:id', { summary: 'Change a draft', tags: ['revisions'], who: 'edit-speed-books', params: true, body: updateRevisionSchema, ok: { status: 200, schema: revisionResponseSchema }, errors: [409] });
+  route('post', '/api/revisions/:id/submit', { summary: 'Draft → in review (content must be valid)', tags: ['revisions'], who: 'edit-speed-books', params: true, ok: { status: 200, schema: revisionResponseSchema }, errors: [409, 422] });
+  route('post', '/api/revisions/:id/approve', { summary: 'In review → published, signed; supersedes the previous', tags: ['revisions'], who: 'publish-revisions (not the author)', params: true, ok: { status: 200, schema: revisionResponseSchema }, errors: [409, 422] });
+  route('post', '/api/revisions/:id/return', { summary: 'In review → draft, with a reason', tags: ['revisions'], who: 'publish-revisions (not the author)', params: true, body: reasonSchema, ok: { status: 200, schema: revisionResponseSchema }, errors: [409] });
+  route('post', '/api/revisions/:id/withdraw', { summary: 'Published → withdrawn, with a reason', tags: ['revisions'], who: 'publish-revisions', params: true, body: reasonSchema, ok: { status: 200, schema: revisionResponseSchema }, errors: [409] });
+  route('get', '/api/revisions/:id/diff', { summary: 'Field-by-field changes from ?against to this revision', tags: ['revisions'], who: 'read-published', params: true, query: diffQuerySchema, ok: { status: 200, schema: revisionDiffSchema } });
+
+  route('get', '/api/operator/signing-key', { summary: 'The operator’s Ed25519 public key', tags: ['operator'], who: 'read-published', ok: { status: 200, schema: signingKeyResponseSchema } });
+  route('get', '/api/audit', { summary: 'The audit trail, newest first, filtered and paginated', tags: ['audit'], who: 'read-audit', query: auditQuerySchema, ok: { status: 200, schema: auditPageSchema } });
+
+  return new OpenApiGeneratorV31(registry.definitions).generateDocument({
+    openapi: '3.1.0',
+    info: {
+      title: 'Speedwright API',
+      version: '1',
+      description: 'Speed books, signed revisions, fleet and audit of one operator. Every request is scoped to the signed-in person’s operator.',
+    },
+    servers: [{ url: '/' }],
+  });
+}

@@ -1,0 +1,44 @@
+import { Router } from 'express';
+import { diffQuerySchema, reasonSchema, updateRevisionSchema } from '../../shared/api/revisions';
+import { actorOf } from '../audit/actor';
+import { requireCapability } from '../middleware/authorize';
+import { parseOrThrow } from '../middleware/validate';
+import { recordId } from '../speed-books/record-id';
+import * as revisions from './revisions.service';
+
+/** `/api/revisions/:id` and its workflow steps. */
+export function revisionsRoutes({ signingKeySecret }: { signingKeySecret: string }): Router {
+  const router = Router();
+  const id = (value: string | string[] | undefined) => recordId(value, 'That revision');
+
+  router.get('/:id', requireCapability('read-published'), async (req, res) => {
+    res.json({ revision: await revisions.getRevision(actorOf(req), id(req.params['id'])) });
+  });
+  router.get('/:id/diff', requireCapability('read-published'), async (req, res) => {
+    const revisionId = id(req.params['id']);
+    const { against } = parseOrThrow(diffQuerySchema, req.query, 'comparison');
+    res.json(await revisions.diffRevisions(actorOf(req), revisionId, Number(against)));
+  });
+  router.patch('/:id', requireCapability('edit-speed-books'), async (req, res) => {
+    const revisionId = id(req.params['id']);
+    const input = parseOrThrow(updateRevisionSchema, req.body, 'revision');
+    res.json({ revision: await revisions.updateRevision(actorOf(req), revisionId, input) });
+  });
+  router.post('/:id/submit', requireCapability('edit-speed-books'), async (req, res) => {
+    res.json({ revision: await revisions.submitRevision(actorOf(req), id(req.params['id'])) });
+  });
+  router.post('/:id/approve', requireCapability('publish-revisions'), async (req, res) => {
+    res.json({ revision: await revisions.approveRevision(actorOf(req), id(req.params['id']), signingKeySecret) });
+  });
+  router.post('/:id/return', requireCapability('publish-revisions'), async (req, res) => {
+    const revisionId = id(req.params['id']);
+    const { reason } = parseOrThrow(reasonSchema, req.body, 'return');
+    res.json({ revision: await revisions.returnRevision(actorOf(req), revisionId, reason) });
+  });
+  router.post('/:id/withdraw', requireCapability('publish-revisions'), async (req, res) => {
+    const revisionId = id(req.params['id']);
+    const { reason } = parseOrThrow(reasonSchema, req.body, 'withdrawal');
+    res.json({ revision: await revisions.withdrawRevision(actorOf(req), revisionId, reason) });
+  });
+  return router;
+}

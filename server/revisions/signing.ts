@@ -1,0 +1,71 @@
+/**
+ * The operators' Ed25519 signing keys: made on first need, the private key kept only as
+ * AES-256-GCM ciphertext under a key derived with HKDF-SHA-256 from SIGNING_KEY_SECRET and a
+ * salt of its own, so the database alone cannot sign. The public key is the raw 32 bytes in
+ * standard base64, as WebCrypto (`importKey('raw', …)`) and @noble/ed25519 take it.
+ */
+import { createCipheriv, createDecipheriv, createPrivateKey, createPublicKey, generateKeyPairSync, hkdfSync, randomBytes, sign, verify, type KeyObject } from 'node:crypto';
+import type { Transaction } from 'sequelize';
+import { Operator, SigningKey } from '../models';
+
+const FORMAT = 'v1';
+const HKDF_INFO = 'speedwright signing key v1';
+
+function wrappingKey(secret: string, salt: Buffer): Buffer {
+  return Buffer.from(hkdfSync('sha256', Buffer.from(secret, 'utf8'), salt, HKDF_INFO, 32));
+}
+
+/** `v1.<salt>.<iv>.<tag>.<ciphertext>`, each part base64: the PKCS#8 DER private key, encrypted. */
+export function encryptPrivateKey(privateKey: KeyObject, secret: string): string {
+  const salt = randomBytes(16);
+  const iv = randomBytes(12);
+  const cipher = createCipheriv('aes-256-gcm', wrappingKey(secret, salt), iv);
+  const ciphertext = Buffer.concat([cipher.update(privateKey.export({ format: 'der', type: 'pkcs8' })), cipher.final()]);
+  return [FORMAT, salt, iv, cipher.getAuthTag(), ciphertext].map((part) => (typeof part === 'string' ? part : part.toString('base64'))).join('.');
+}
+
+export function decryptPrivateKey(sealed: string, secret: string): KeyObject {
+  const [format, ...parts] = sealed.split('.');
+  if (format !== FORMAT || parts.length !== 4) throw new Error('The stored signing key has an unknown format.');
+  const [salt, iv, tag, ciphertext] = parts.map((part) => Buffer.from(part, 'base64'));
+  const decipher = createDecipheriv('aes-256-gcm', wrappingKey(secret, salt), iv);
+  decipher.setAuthTag(tag);
+  const der = Buffer.concat([decipher.update(ciphertext), decipher.final()]);
+  return createPrivateKey({ key: der, format: 'der', type: 'pkcs8' });
+}
+
+/** The raw 32-byte public key, standard base64. */
+function rawPublicKey(publicKey: KeyObject): string {
+  const jwk = publicKey.export({ format: 'jwk' });
+  return Buffer.from(String(jwk.x), 'base64url').toString('base64');
+}
+
+/** A Node key object for a raw 32-byte Ed25519 public key in base64. */
+export function publicKeyFromRaw(publicKeyBase64: string): KeyObject {
+  return createPublicKey({ key: { kty: 'OKP', crv: 'Ed25519', x: Buffer.from(publicKeyBase64, 'base64').toString('base64url') }, format: 'jwk' });
+}
+
+/**
+ * The operator's active key, made (and stored encrypted) when it has none. Locks the operator's
+ * row so two first publications at once make one key.
+ */
+export async function activeSigningKey(operatorId: number, secret: string, transaction: Transaction): Promise<SigningKey> {
+  await Operator.findByPk(operatorId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
+  const existing = await SigningKey.findOne({ where: { operatorId, active: true }, order: [['id', 'DESC']], transaction });
+  if (existing) return existing;
+  const { publicKey, privateKey } = generateKeyPairSync('ed25519');
+  return SigningKey.create(
+    { operatorId, publicKey: rawPublicKey(publicKey), encryptedPrivateKey: encryptPrivateKey(privateKey, secret), active: true },
+    { transaction },
+  );
+}
+
+/** Ed25519 signature (64 bytes, standard base64) of the UTF-8 bytes of `statement`. */
+export function signStatement(key: SigningKey, secret: string, statement: string): string {
+  return sign(null, Buffer.from(statement, 'utf8'), decryptPrivateKey(key.encryptedPrivateKey, secret)).toString('base64');
+}
+
+/** Whether `signatureBase64` is the key's signature of `statement`. */
+export function verifyStatement(publicKeyBase64: string, statement: string, signatureBase64: string): boolean {
+  return verify(null, Buffer.from(statement, 'utf8'), publicKeyFromRaw(publicKeyBase64), Buffer.from(signatureBase64, 'base64'));
+}

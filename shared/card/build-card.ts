@@ -1,0 +1,566 @@
+/**
+ * `buildCard`: the speed card for one day's weight and atmosphere, from a revision's content.
+ * Pure and deterministic (no clock, no I/O, no Node or DOM APIs), so the device computes it
+ * offline and the server re-derives the same card, to the digest, from the same inputs.
+ *
+ * Methods (all numeric work is the flight-physics library's, shared/aero):
+ * - pressure altitude from elevation and QNH by the ISA altimeter relation, density altitude
+ *   with the virtual temperature (flight-physics.md, "Altimetry");
+ * - weight-scaled speeds V = Vref·√(W/Wref), applied to the calibrated airspeed (the lift at a
+ *   fixed angle of attack follows the dynamic pressure, which CAS stands for at these speeds —
+ *   common practice), then IAS through the configuration's position-error table;
+ * - tabulated speeds read by linear interpolation, never extrapolated;
+ * - stall speed in a level turn Vs·√n, n = 1/cos(bank);
+ * - CAS/EAS/TAS/Mach by the pitot–static relations of NASA RP 1046; crossover of VMO and MMO;
+ * - rounding as printed: limits down, stall speeds up, others nearest (flight-physics.md).
+ *
+ * Anything outside the flight manual's data or the modelled atmosphere refuses the card with a
+ * `CardRefusedError` naming the input at fault.
+ */
+import * as aero from '../aero';
+import { AeroInputError, type PositionErrorTable, type SpeedTable } from '../aero';
+import { contentSha256 } from '../speed-book/canonical';
+import {
+  revisionContentSchema,
+  type Configuration,
+  type RevisionContent,
+  type Speed,
+  type SpeedBasis,
+} from '../speed-book/revision-content';
+import {
+  CARD_VERSION,
+  CardRefusedError,
+  STALL_TURN_BANKS_DEG,
+  cardInputsSchema,
+  type AerodromeConditions,
+  type CardAerodrome,
+  type CardAltitudeRow,
+  type CardContext,
+  type CardFlapLimit,
+  type CardIndicator,
+  type CardIndicatorArc,
+  type CardIndicatorLine,
+  type CardInputs,
+  type CardLimitKind,
+  type CardLimitSpeed,
+  type CardLimits,
+  type CardRefusalCode,
+  type CardRevision,
+  type CardSpeed,
+  type CardStallInTurn,
+  type SpeedCard,
+} from './card';
+import { cardDigest } from './card-digest';
+
+// Bound once (see shared/aero/airspeed.ts: tsx's CommonJS output reads imported names through
+// getters on every use).
+const {
+  casToIasKt,
+  convertAirspeed,
+  crossoverAltitudeFt,
+  densityAltitudeFt,
+  iasToCasKt,
+  isaDeviationC,
+  isaTemperatureC,
+  loadFactorInTurn,
+  pressureAltitudeFt,
+  roundLimitKt,
+  roundSpeedKt,
+  roundStallKt,
+  interpolateSpeedTableKt,
+} = aero;
+
+/**
+ * The card cautions about density altitude from 5,000 ft, or from 2,000 ft above the field's
+ * elevation. The product's own thresholds (no outside source): where takeoff and climb
+ * performance falls off noticeably for light aircraft (common practice).
+ */
+export const HIGH_DENSITY_ALTITUDE_FT = 5000;
+export const HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT = 2000;
+
+/** Stall speeds are rounded up on the card (flight-physics.md). */
+const STALL_CODES = new Set(['VS0', 'VS1', 'VS']);
+
+/**
+ * The speed card for `inputs`, from `revision` (content checked against its hash first) for
+ * the airframe, type, speed book and operator of `context`.
+ *
+ * @example buildCard(revision, { airframeId: 7, weightKg: 1000, configuration: 'takeoff-flap',
+ *   departure: { elevationFt: 500, qnhHpa: 1013, oatC: 20 }, isaDeviationC: 5,
+ *   cruise: { iasKt: 110 }, altitudeStepFt: 1000 }, context)
+ * @throws CardRefusedError when the card cannot be given (see `CARD_REFUSAL_CODES`)
+ */
+export function buildCard(revision: CardRevision, rawInputs: CardInputs, context: CardContext): SpeedCard {
+  const inputs = parseInputs(rawInputs);
+  const content = checkedContent(revision);
+  if (context.airframe.id !== inputs.airframeId) {
+    refuse('airframe-mismatch', 'airframeId', `These inputs are for airframe ${inputs.airframeId}, not ${context.airframe.registration}.`);
+  }
+  const book = new SpeedBook(content);
+  const takeoffConfiguration = book.takeoffConfiguration(inputs.configuration);
+  checkWeights(content, inputs);
+
+  const departure = aerodrome(inputs.departure, 'departure');
+  const arrival = inputs.arrival ? aerodrome(inputs.arrival, 'arrival') : null;
+  const speeds = book.speeds(inputs, takeoffConfiguration.key, departure, arrival);
+  const limits = book.limits();
+  const cruise = book.cruise(inputs.cruise);
+
+  const body: Omit<SpeedCard, 'digest'> = {
+    cardVersion: CARD_VERSION,
+    demo: context.demo,
+    revision: { id: revision.id, number: revision.number, publishedAt: revision.publishedAt, contentSha256: revision.contentSha256 },
+    speedBook: { id: context.speedBook.id, title: context.speedBook.title },
+    airframe: { id: context.airframe.id, registration: context.airframe.registration },
+    aircraftType: {
+      designator: context.aircraftType.designator,
+      name: context.aircraftType.name,
+      category: content.aircraft.category,
+      engines: content.aircraft.engines,
+      ceilingFt: content.aircraft.ceilingFt,
+    },
+    inputs,
+    takeoffConfiguration: { key: takeoffConfiguration.key, label: takeoffConfiguration.label },
+    departure: departure.card,
+    arrival: arrival?.card ?? null,
+    speeds: speeds.map((speed) => speed.card),
+    stallInTurn: book.stallInTurn(speeds),
+    limits: limits.card,
+    crossoverAltitudeFt: limits.crossoverFt,
+    cruise: cruise.card,
+    altitudeTable: book.altitudeTable(inputs, cruise, limits),
+    indicator: book.indicator(speeds, limits),
+  };
+  return { digest: cardDigest(body), ...body };
+}
+
+/**
+ * The configurations a card may be built for: those with takeoff speeds, or every
+ * configuration when the speed book has none (for the screen's choice of takeoff configuration).
+ */
+export function takeoffConfigurationKeys(content: RevisionContent): string[] {
+  const withTakeoffSpeeds = new Set(content.speeds.filter((speed) => speed.phase === 'takeoff').map((speed) => speed.configurationKey));
+  const keys = content.configurations.map((configuration) => configuration.key);
+  return withTakeoffSpeeds.size ? keys.filter((key) => withTakeoffSpeeds.has(key)) : keys;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Refusals
+
+function refuse(code: CardRefusalCode, field: string, message: string): never {
+  throw new CardRefusedError(code, field, message);
+}
+
+/**
+ * Runs `work`; an `AeroInputError` becomes a refusal at the input `fieldOf(error.field)`
+ * carrying the library's sentence (after `prefix`, e.g. the speed's code).
+ */
+function guarded<T>(work: () => T, fieldOf: (aeroField: string) => string, prefix = ''): T {
+  try {
+    return work();
+  } catch (error) {
+    if (!(error instanceof AeroInputError)) throw error;
+    const code: CardRefusalCode =
+      error.code === 'outside-table' ? 'outside-flight-manual-data' : error.code === 'invalid-table' ? 'invalid-content' : 'out-of-envelope';
+    throw new CardRefusedError(code, fieldOf(error.field), prefix + error.message);
+  }
+}
+
+function parseInputs(raw: unknown): CardInputs {
+  const result = cardInputsSchema.safeParse(raw);
+  if (result.success) return result.data;
+  const issue = result.error.issues[0];
+  const path = issue.path.map(String).join('.');
+  if (issue.code === 'unrecognized_keys') {
+    refuse('invalid-inputs', [path, issue.keys[0]].filter(Boolean).join('.'), `The input ${issue.keys[0]} is not expected.`);
+  }
+  refuse('invalid-inputs', path || '(inputs)', issue.message);
+}
+
+function checkedContent(revision: CardRevision): RevisionContent {
+  if (contentSha256(revision.content) !== revision.contentSha256) {
+    refuse(
+      'content-hash-mismatch',
+      'revision',
+      `The data of revision ${revision.number} does not match its published hash; it may have been altered. Sync again before using it.`,
+    );
+  }
+  const parsed = revisionContentSchema.safeParse(revision.content);
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0];
+    refuse('invalid-content', 'revision', `Revision ${revision.number} is not complete (${issue.path.join('.')}: ${issue.message})`);
+  }
+  return parsed.data;
+}
+
+const kg = (value: number) => `${group(Math.round(value))} kg`;
+
+/** Whole numbers with thousands separators, without the locale (identical everywhere). */
+function group(value: number): string {
+  return String(value).replace(/\B(?=(\d{3})+(?!\d))/g, ',');
+}
+
+function checkWeights(content: RevisionContent, inputs: CardInputs): void {
+  const { minimumKg, maximumTakeoffKg, maximumLandingKg } = content.weights;
+  const { weightKg, landingWeightKg } = inputs;
+  if (weightKg > maximumTakeoffKg) {
+    refuse('weight-out-of-range', 'weightKg', `The takeoff weight ${kg(weightKg)} is above the maximum takeoff weight of ${kg(maximumTakeoffKg)}.`);
+  }
+  if (weightKg < minimumKg) {
+    refuse('weight-out-of-range', 'weightKg', `The takeoff weight ${kg(weightKg)} is below the flight manual's lowest weight of ${kg(minimumKg)}.`);
+  }
+  if (landingWeightKg === undefined) return;
+  if (landingWeightKg > maximumLandingKg) {
+    refuse('landing-weight-out-of-range', 'landingWeightKg', `The landing weight ${kg(landingWeightKg)} is above the maximum landing weight of ${kg(maximumLandingKg)}.`);
+  }
+  if (landingWeightKg < minimumKg) {
+    refuse('landing-weight-out-of-range', 'landingWeightKg', `The landing weight ${kg(landingWeightKg)} is below the flight manual's lowest weight of ${kg(minimumKg)}.`);
+  }
+  if (landingWeightKg > weightKg) {
+    refuse('landing-weight-out-of-range', 'landingWeightKg', `The landing weight ${kg(landingWeightKg)} cannot be above the takeoff weight ${kg(weightKg)}.`);
+  }
+}
+
+// ---------------------------------------------------------------------------------------------
+// Aerodromes
+
+const round1 = (value: number) => Math.round(value * 10) / 10 + 0; // + 0 turns −0 into 0
+const round2 = (value: number) => Math.round(value * 100) / 100 + 0;
+const round3 = (value: number) => Math.round(value * 1000) / 1000 + 0;
+const roundFt = (value: number) => Math.round(value) + 0;
+
+interface Aerodrome {
+  readonly pressureAltitudeFt: number;
+  readonly oatC: number;
+  readonly card: CardAerodrome;
+}
+
+const AERODROME_FIELDS = new Set(['elevationFt', 'qnhHpa', 'oatC', 'dewPointC']);
+
+function aerodrome(conditions: AerodromeConditions, where: 'departure' | 'arrival'): Aerodrome {
+  const fieldOf = (field: string) => `${where}.${AERODROME_FIELDS.has(field) ? field : 'elevationFt'}`;
+  return guarded(
+    () => {
+      const { elevationFt, qnhHpa, oatC, dewPointC } = conditions;
+      const pressureFt = pressureAltitudeFt(elevationFt, qnhHpa);
+      const deviationC = isaDeviationC(pressureFt, oatC);
+      const densityFt = densityAltitudeFt(pressureFt, oatC, dewPointC);
+      return {
+        pressureAltitudeFt: pressureFt,
+        oatC,
+        card: {
+          pressureAltitudeFt: roundFt(pressureFt),
+          densityAltitudeFt: roundFt(densityFt),
+          isaDeviationC: round1(deviationC),
+          highDensityAltitude: densityFt >= HIGH_DENSITY_ALTITUDE_FT || densityFt - elevationFt >= HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT,
+        },
+      };
+    },
+    fieldOf,
+    where === 'departure' ? 'Departure: ' : 'Arrival: ',
+  );
+}
+
+// ---------------------------------------------------------------------------------------------
+// The speed book's figures
+
+/** A speed of the card with its unrounded CAS, which the stall-in-turn lines start from. */
+interface ComputedSpeed {
+  readonly card: CardSpeed;
+  readonly casKt: number;
+  readonly table: PositionErrorTable;
+}
+
+interface ComputedLimits {
+  readonly card: CardLimits;
+  readonly crossoverFt: number | null;
+  /** Unrounded CAS of VMO, VNE (for the altitude table's limit column). */
+  readonly vmoCasKt: number | null;
+  readonly vneCasKt: number | null;
+  readonly mmo: number | null;
+}
+
+interface ComputedCruise {
+  readonly card: SpeedCard['cruise'];
+  /** CAS of an IAS cruise (null for a Mach cruise). */
+  readonly casKt: number | null;
+}
+
+/** Reads the figures of one revision's content. */
+class SpeedBook {
+  private readonly byKey = new Map<string, Configuration>();
+  /** The first configuration is the cruise configuration (revision-content.ts). */
+  private readonly cruiseTable: PositionErrorTable;
+
+  constructor(private readonly content: RevisionContent) {
+    for (const configuration of content.configurations) this.byKey.set(configuration.key, configuration);
+    this.cruiseTable = content.configurations[0].positionError;
+  }
+
+  takeoffConfiguration(key: string): Configuration {
+    const configuration = this.byKey.get(key);
+    const allowed = takeoffConfigurationKeys(this.content);
+    if (!configuration || !allowed.includes(key)) {
+      const labels = allowed.map((k) => `${this.byKey.get(k)!.label} (${k})`).join(', ');
+      refuse(
+        'unknown-configuration',
+        'configuration',
+        configuration
+          ? `The speed book gives no takeoff speeds for ${configuration.label}; choose ${labels}.`
+          : `The speed book has no configuration ${key}; choose ${labels}.`,
+      );
+    }
+    return configuration;
+  }
+
+  /** The card's V-speeds: takeoff speeds of the takeoff configuration, every other speed as published. */
+  speeds(inputs: CardInputs, takeoffKey: string, departure: Aerodrome, arrival: Aerodrome | null): ComputedSpeed[] {
+    const result: ComputedSpeed[] = [];
+    for (const speed of this.content.speeds) {
+      if (speed.phase === 'takeoff' && speed.configurationKey !== takeoffKey) continue;
+      result.push(this.speed(speed, inputs, departure, arrival));
+    }
+    return result;
+  }
+
+  /** Approach and landing speeds at the landing weight (when given) and arrival (when given). */
+  private speed(speed: Speed, inputs: CardInputs, departure: Aerodrome, arrival: Aerodrome | null): ComputedSpeed {
+    const configuration = this.byKey.get(speed.configurationKey)!;
+    const table = configuration.positionError;
+    const landing = speed.phase === 'landing' || speed.phase === 'approach';
+    const weightField = landing && inputs.landingWeightKg !== undefined ? 'landingWeightKg' : 'weightKg';
+    const weightKg = inputs[weightField]!;
+    const where = landing && arrival ? 'arrival' : 'departure';
+    const atmosphere = where === 'arrival' ? arrival! : departure;
+    const fieldOf = (field: string) =>
+      field === 'pressureAltitudeFt' ? `${where}.elevationFt` : field === 'oatC' ? `${where}.oatC` : weightField;
+
+    return guarded(
+      () => {
+        let casKt: number;
+        if (speed.kind === 'scaled') {
+          const referenceCasKt = speed.basis === 'ias' ? iasToCasKt(table, speed.referenceKt) : speed.referenceKt;
+          casKt = referenceCasKt * Math.sqrt(weightKg / this.content.weights.referenceKg!);
+        } else {
+          const valueKt =
+            speed.kind === 'fixed'
+              ? speed.valueKt
+              : interpolateSpeedTableKt(speed as unknown as SpeedTable, {
+                  weightKg,
+                  pressureAltitudeFt: atmosphere.pressureAltitudeFt,
+                  oatC: atmosphere.oatC,
+                });
+          casKt = speed.basis === 'ias' ? iasToCasKt(table, valueKt) : valueKt;
+        }
+        const iasKt = casToIasKt(table, casKt);
+        const stall = STALL_CODES.has(speed.code.toUpperCase());
+        const round = stall ? roundStallKt : roundSpeedKt;
+        return {
+          casKt,
+          table,
+          card: {
+            code: speed.code,
+            label: speed.label,
+            phase: speed.phase,
+            configurationKey: speed.configurationKey,
+            configurationLabel: configuration.label,
+            kind: speed.kind,
+            basis: speed.basis,
+            weightKg,
+            iasKt: round(iasKt),
+            casKt: round(casKt),
+            rounding: stall ? 'stall-up' : 'nearest',
+          },
+        };
+      },
+      fieldOf,
+      `${speed.code} (${speed.label}): `,
+    );
+  }
+
+  /** Stall speed at each bank from VS1 (or VS) at the weight it was computed at, in its configuration. */
+  stallInTurn(speeds: readonly ComputedSpeed[]): CardStallInTurn[] {
+    const vs1 =
+      speeds.find((speed) => speed.card.code.toUpperCase() === 'VS1') ?? speeds.find((speed) => speed.card.code.toUpperCase() === 'VS');
+    if (!vs1) return [];
+    return STALL_TURN_BANKS_DEG.map((bankDeg) =>
+      guarded(
+        () => {
+          const loadFactor = loadFactorInTurn(bankDeg);
+          const casKt = vs1.casKt * Math.sqrt(loadFactor);
+          return { bankDeg, loadFactor: round2(loadFactor), iasKt: roundStallKt(casToIasKt(vs1.table, casKt)), casKt: roundStallKt(casKt) };
+        },
+        () => 'weightKg',
+        `${vs1.card.code} in a ${bankDeg}° bank: `,
+      ),
+    );
+  }
+
+  limits(): ComputedLimits {
+    const { limits, indicatorMarkingBasis: basis, configurations } = this.content;
+    const cruise = configurations[0];
+    const vmc = limits.vmcKt === undefined ? null : this.limit('VMC', limits.vmcKt, cruise, basis, roundStallKt);
+    const vfe: CardFlapLimit[] = [];
+    for (const configuration of configurations) {
+      const valueKt = limits.vfeKt[configuration.key];
+      if (valueKt === undefined) continue;
+      vfe.push({ configurationKey: configuration.key, configurationLabel: configuration.label, ...this.limit('VFE', valueKt, configuration, basis).card });
+    }
+    const vmo = limits.vmoKt === undefined ? null : this.limit('VMO', limits.vmoKt, cruise, basis);
+    const vne = limits.vneKt === undefined ? null : this.limit('VNE', limits.vneKt, cruise, basis);
+    const mmo = limits.mmo ?? null;
+    const crossoverFt =
+      vmo && mmo !== null ? roundFt(guarded(() => crossoverAltitudeFt(vmo.casKt, mmo), () => 'revision', 'VMO and MMO: ')) : null;
+    const optional = (code: string, valueKt: number | undefined, round = roundLimitKt) =>
+      valueKt === undefined ? null : this.limit(code, valueKt, cruise, basis, round).card;
+    return {
+      card: {
+        basis,
+        vno: optional('VNO', limits.vnoKt),
+        vne: vne?.card ?? null,
+        vmo: vmo?.card ?? null,
+        mmo: mmo === null ? null : round3(mmo),
+        vfe,
+        vle: optional('VLE', limits.vleKt),
+        vlo: optional('VLO', limits.vloKt),
+        // VMC is a minimum: rounding it down would promise control below it, so it is rounded
+        // up like a stall speed (the reason limits are rounded down, turned the other way).
+        vmc: vmc?.card ?? null,
+        // VYSE is a target speed, not a limit: nearest knot.
+        vyse: optional('VYSE', limits.vyseKt, roundSpeedKt),
+      },
+      crossoverFt,
+      vmoCasKt: vmo?.casKt ?? null,
+      vneCasKt: vne?.casKt ?? null,
+      mmo,
+    };
+  }
+
+  /** A limit speed given in `basis`, both ways through `configuration`'s table, rounded by `round`. */
+  private limit(
+    code: string,
+    valueKt: number,
+    configuration: Configuration,
+    basis: SpeedBasis,
+    round: (kt: number) => number = roundLimitKt,
+  ): { card: CardLimitSpeed; casKt: number } {
+    return guarded(
+      () => {
+        const table = configuration.positionError;
+        const casKt = basis === 'cas' ? valueKt : iasToCasKt(table, valueKt);
+        const iasKt = basis === 'ias' ? valueKt : casToIasKt(table, valueKt);
+        return { casKt, card: { iasKt: round(iasKt), casKt: round(casKt) } };
+      },
+      () => 'revision',
+      `${code} through the ${configuration.label} position-error table: `,
+    );
+  }
+
+  cruise(cruise: CardInputs['cruise']): ComputedCruise {
+    if ('mach' in cruise) return { card: { mach: cruise.mach }, casKt: null };
+    const casKt = guarded(() => iasToCasKt(this.cruiseTable, cruise.iasKt), () => 'cruise.iasKt', 'Cruise: ');
+    return { card: { iasKt: cruise.iasKt, casKt: roundSpeedKt(casKt) }, casKt };
+  }
+
+  /** Rows from 0 ft every `altitudeStepFt` below the ceiling, then the ceiling, on the day's ISA deviation. */
+  altitudeTable(inputs: CardInputs, cruise: ComputedCruise, limits: ComputedLimits): CardAltitudeRow[] {
+    const { ceilingFt } = this.content.aircraft;
+    const rows: CardAltitudeRow[] = [];
+    const cruiseField = cruise.casKt === null ? 'cruise.mach' : 'cruise.iasKt';
+    const fieldOf = (field: string) => (field === 'oatC' || field === 'isaDeviationC' ? 'isaDeviationC' : cruiseField);
+    for (let altitudeFt = 0; ; altitudeFt += inputs.altitudeStepFt) {
+      const rowFt = Math.min(altitudeFt, ceilingFt);
+      rows.push(guarded(() => this.altitudeRow(rowFt, inputs, cruise, limits), fieldOf, `At ${group(rowFt)} ft: `));
+      if (rowFt >= ceilingFt) break;
+    }
+    return rows;
+  }
+
+  private altitudeRow(pressureAltitudeFt: number, inputs: CardInputs, cruise: ComputedCruise, limits: ComputedLimits): CardAltitudeRow {
+    const oatC = isaTemperatureC(pressureAltitudeFt, inputs.isaDeviationC);
+    const speeds =
+      cruise.casKt === null
+        ? convertAirspeed({ pressureAltitudeFt, oatC, mach: (inputs.cruise as { mach: number }).mach })
+        : convertAirspeed({ pressureAltitudeFt, oatC, casKt: cruise.casKt });
+    const iasKt = cruise.casKt === null ? this.iasWithinTable(speeds.casKt, roundSpeedKt) : (inputs.cruise as { iasKt: number }).iasKt;
+
+    let limitCasKt: number | null = null;
+    let limitKind: CardLimitKind | null = null;
+    if (limits.vmoCasKt !== null) {
+      limitCasKt = limits.vmoCasKt;
+      limitKind = 'vmo';
+      if (limits.mmo !== null) {
+        const mmoCasKt = convertAirspeed({ pressureAltitudeFt, oatC, mach: limits.mmo }).casKt;
+        if (mmoCasKt < limitCasKt) {
+          limitCasKt = mmoCasKt;
+          limitKind = 'mmo';
+        }
+      }
+    } else if (limits.vneCasKt !== null) {
+      limitCasKt = limits.vneCasKt;
+      limitKind = 'vne';
+    }
+    return {
+      pressureAltitudeFt,
+      oatC: round1(oatC),
+      iasKt,
+      casKt: roundSpeedKt(speeds.casKt),
+      easKt: roundSpeedKt(speeds.easKt),
+      tasKt: roundSpeedKt(speeds.tasKt),
+      mach: round3(speeds.mach),
+      limitIasKt: limitCasKt === null ? null : this.iasWithinTable(limitCasKt, roundLimitKt),
+      limitCasKt: limitCasKt === null ? null : roundLimitKt(limitCasKt),
+      limitKind,
+      aboveLimit: limitCasKt !== null && speeds.casKt > limitCasKt + 1e-9,
+    };
+  }
+
+  /** IAS of `casKt` through the cruise table, or null where the table gives no correction. */
+  private iasWithinTable(casKt: number, round: (kt: number) => number): number | null {
+    const first = this.cruiseTable[0].casKt;
+    const last = this.cruiseTable[this.cruiseTable.length - 1].casKt;
+    if (casKt < first || casKt > last) return null;
+    return round(casToIasKt(this.cruiseTable, casKt));
+  }
+
+  /** Arcs and radial lines on the basis the speed book states, with this card's stall speeds. */
+  indicator(speeds: readonly ComputedSpeed[], limits: ComputedLimits): CardIndicator {
+    const basis = this.content.indicatorMarkingBasis;
+    const inBasis = (speed: CardLimitSpeed | CardSpeed | null | undefined) =>
+      speed ? (basis === 'ias' ? speed.iasKt : speed.casKt) : null;
+    const stall = (code: string) => inBasis(speeds.find((speed) => speed.card.code.toUpperCase() === code)?.card);
+    const vs0 = stall('VS0');
+    const vs1 = stall('VS1') ?? stall('VS');
+    const vfeTop = limits.card.vfe.length ? Math.max(...limits.card.vfe.map((vfe) => inBasis(vfe)!)) : null;
+    const vno = inBasis(limits.card.vno);
+    const vne = inBasis(limits.card.vne);
+    const vmo = inBasis(limits.card.vmo);
+    const { category } = this.content.aircraft;
+    const piston = category === 'piston-single' || category === 'piston-twin';
+
+    const arcs: CardIndicatorArc[] = [];
+    const arc = (colour: CardIndicatorArc['colour'], fromKt: number | null, toKt: number | null) => {
+      if (fromKt !== null && toKt !== null && fromKt < toKt) arcs.push({ colour, fromKt, toKt });
+    };
+    const lines: CardIndicatorLine[] = [];
+    const line = (colour: CardIndicatorLine['colour'], code: CardIndicatorLine['code'], kt: number | null) => {
+      if (kt !== null) lines.push({ colour, code, kt });
+    };
+
+    arc('white', vs0, vfeTop);
+    if (piston) {
+      arc('green', vs1, vno);
+      arc('yellow', vno, vne);
+      line('red', 'VNE', vne);
+      if (this.content.aircraft.engines > 1) {
+        line('red', 'VMC', inBasis(limits.card.vmc));
+        line('blue', 'VYSE', inBasis(limits.card.vyse));
+      }
+    } else if (vmo !== null) {
+      line('red', 'VMO', vmo);
+    } else {
+      line('red', 'VNE', vne);
+    }
+    return { basis, arcs, lines };
+  }
+}

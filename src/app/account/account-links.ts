@@ -1,0 +1,30 @@
+import { Injectable, inject } from '@angular/core';
+import { Observable, map } from 'rxjs';
+import {
+  AcceptInvitationRequest,
+  PasswordResetConfirm,
+  PasswordResetRequest,
+  passwordSetResponseSchema,
+} from '../../../shared/api/auth';
+import { passwordResetRequestedSchema } from '../../../shared/api/account-links';
+import { API_PATHS } from '../core/api/api-paths';
+import { ApiClient } from '../core/api/api-client';
+
+/** The account links people get by mail; nobody is signed in for these. */
+@Injectable({ providedIn: 'root' })
+export class AccountLinks {
+  private readonly api = inject(ApiClient);
+
+  acceptInvitation(request: AcceptInvitationRequest): Observable<{ email: string }> {
+    return this.api.post(API_PATHS.acceptInvitation, request, passwordSetResponseSchema);
+  }
+
+  confirmPasswordReset(request: PasswordResetConfirm): Observable<{ email: string }> {
+    return this.api.post(API_PATHS.passwordResetConfirm, request, passwordSetResponseSchema);
+  }
+
+  /** Answers the server's sentence, which is the same whether or not the account exists. */
+  requestPasswordReset(request: PasswordResetRequest): Observable<string> {
+    return this.api.post(API_PATHS.passwordReset, request, passwordResetRequestedSchema).pipe(map(({ message }) => message));
+  }
+}

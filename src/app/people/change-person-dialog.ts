@@ -1,0 +1,73 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { finalize, map } from 'rxjs';
+import { OperatorPerson, UpdatePersonRequest, invitePersonRequestSchema } from '../../../shared/api/auth';
+import { ROLES, ROLE_LABELS, ROLE_SUMMARIES, Role } from '../../../shared/auth/roles';
+import { ApiRequestError } from '../core/api/api-request-error';
+import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
+import { zodValidator } from '../core/forms/zod-validator';
+import { OperatorPeople } from './operator-people';
+
+const fields = invitePersonRequestSchema.shape;
+
+/** Changes a person's role or name; closes with the person as the server saved them. */
+@Component({
+  selector: 'sw-change-person-dialog',
+  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  templateUrl: './change-person-dialog.html',
+  styleUrl: './people-dialog.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ChangePersonDialog {
+  private readonly people = inject(OperatorPeople);
+  private readonly dialogRef = inject<MatDialogRef<ChangePersonDialog, OperatorPerson>>(MatDialogRef);
+  private readonly destroyRef = inject(DestroyRef);
+  protected readonly person = inject<OperatorPerson>(MAT_DIALOG_DATA);
+
+  protected readonly roles = ROLES.map((role) => ({ role, label: ROLE_LABELS[role] }));
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    displayName: [this.person.displayName, zodValidator(fields.displayName)],
+    role: [this.person.role as Role, zodValidator(fields.role)],
+  });
+  protected readonly roleSummary = toSignal(this.form.controls.role.valueChanges.pipe(map((role) => ROLE_SUMMARIES[role])), {
+    initialValue: ROLE_SUMMARIES[this.person.role],
+  });
+  protected readonly saving = signal(false);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly message = (path: string) => controlMessage(this.form, path);
+
+  protected saveChange(): void {
+    if (this.saving()) return;
+    this.form.markAllAsTouched();
+    if (this.form.invalid) return;
+    const { displayName, role } = this.form.getRawValue();
+    const change: UpdatePersonRequest = {};
+    if (role !== this.person.role) change.role = role;
+    if (displayName.trim() !== this.person.displayName) change.displayName = displayName.trim();
+    if (Object.keys(change).length === 0) {
+      this.dialogRef.close();
+      return;
+    }
+    this.saving.set(true);
+    this.problem.set(null);
+    this.people
+      .change(this.person.id, change)
+      .pipe(
+        finalize(() => this.saving.set(false)),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe({
+        next: (saved) => this.dialogRef.close(saved),
+        error: (error: ApiRequestError) => {
+          if (showServerFieldErrors(this.form, error)) this.problem.set(error.message);
+        },
+      });
+  }
+}

@@ -1,0 +1,68 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { finalize, map } from 'rxjs';
+import { invitePersonRequestSchema } from '../../../shared/api/auth';
+import { InvitationSent } from '../../../shared/api/people';
+import { ROLES, ROLE_LABELS, ROLE_SUMMARIES, Role } from '../../../shared/auth/roles';
+import { ApiRequestError } from '../core/api/api-request-error';
+import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
+import { zodValidator } from '../core/forms/zod-validator';
+import { OperatorPeople } from './operator-people';
+
+const fields = invitePersonRequestSchema.shape;
+
+/** Adds a person by e-mail; the server mails them a link to choose a password. */
+@Component({
+  selector: 'sw-invite-person-dialog',
+  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  templateUrl: './invite-person-dialog.html',
+  styleUrl: './people-dialog.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class InvitePersonDialog {
+  private readonly people = inject(OperatorPeople);
+  private readonly dialogRef = inject<MatDialogRef<InvitePersonDialog, InvitationSent>>(MatDialogRef);
+  private readonly destroyRef = inject(DestroyRef);
+
+  protected readonly roles = ROLES.map((role) => ({ role, label: ROLE_LABELS[role] }));
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    email: ['', zodValidator(fields.email)],
+    displayName: ['', zodValidator(fields.displayName)],
+    role: [null as Role | null, zodValidator(fields.role)],
+  });
+  protected readonly roleSummary = toSignal(
+    this.form.controls.role.valueChanges.pipe(map((role) => (role ? ROLE_SUMMARIES[role] : null))),
+    { initialValue: null },
+  );
+  protected readonly sending = signal(false);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly message = (path: string) => controlMessage(this.form, path);
+
+  protected sendInvitation(): void {
+    if (this.sending()) return;
+    this.form.markAllAsTouched();
+    const parsed = invitePersonRequestSchema.safeParse(this.form.getRawValue());
+    if (this.form.invalid || !parsed.success) return;
+    this.sending.set(true);
+    this.problem.set(null);
+    this.people
+      .invite(parsed.data)
+      .pipe(
+        finalize(() => this.sending.set(false)),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe({
+        next: (sent) => this.dialogRef.close(sent),
+        error: (error: ApiRequestError) => {
+          if (showServerFieldErrors(this.form, error)) this.problem.set(error.message);
+        },
+      });
+  }
+}
