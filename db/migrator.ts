@@ -3,6 +3,7 @@ import { SequelizeStorage, Umzug, type MigrationFn } from 'umzug';
 import * as operatorsAndUsers from './migrations/20261201-0001-operators-and-users';
 import * as sessionsAndRateLimits from './migrations/20261201-0002-sessions-and-rate-limits';
 import * as auditEvents from './migrations/20261201-0101-audit-events';
+import * as fleetSpeedBooksRevisions from './migrations/20261201-0102-fleet-speed-books-revisions';
 import * as invitationsAndPasswordResets from './migrations/20261201-0201-invitations-and-password-resets';
 
 export type Migration = MigrationFn<QueryInterface>;
@@ -16,6 +17,7 @@ const MIGRATIONS: { name: string; module: { up: Migration; down: Migration } }[]
   { name: '20261201-0001-operators-and-users', module: operatorsAndUsers },
   { name: '20261201-0002-sessions-and-rate-limits', module: sessionsAndRateLimits },
   { name: '20261201-0101-audit-events', module: auditEvents },
+  { name: '20261201-0102-fleet-speed-books-revisions', module: fleetSpeedBooksRevisions },
   { name: '20261201-0201-invitations-and-password-resets', module: invitationsAndPasswordResets },
 ];
 

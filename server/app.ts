@@ -22,6 +22,12 @@ import { createOutbox, setOutbox } from './mail/outbox';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { uploadsRoutes } from './uploads/uploads.routes';
 import { usersRoutes } from './users/users.routes';
+import { auditRoutes } from './audit/audit.routes';
+import { aircraftTypesRoutes, airframesRoutes } from './fleet/fleet.routes';
+import { openApiRoutes } from './openapi/openapi.routes';
+import { operatorRoutes } from './operator/operator.routes';
+import { revisionsRoutes } from './revisions/revisions.routes';
+import { speedBooksRoutes } from './speed-books/speed-books.routes';
 
 export const SESSION_COOKIE = 'speedwright.sid';
 const SESSION_HOURS = 12;
@@ -138,6 +144,13 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
 
   app.use('/api/auth', authRoutes({ passport, generateCsrfToken: generateToken, loginLimiter, sessionCookieName: SESSION_COOKIE }));
   app.use('/api/users', usersRoutes());
+  app.use('/api/aircraft-types', aircraftTypesRoutes());
+  app.use('/api/airframes', airframesRoutes());
+  app.use('/api/speed-books', speedBooksRoutes());
+  app.use('/api/revisions', revisionsRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
+  app.use('/api/operator', operatorRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
+  app.use('/api/audit', auditRoutes());
+  app.use('/api/openapi.json', openApiRoutes());
   const accountLinkLimiter = rateLimit({
     windowMs: 15 * 60_000,
     limit: config.LOGIN_RATE_LIMIT_PER_15_MIN,

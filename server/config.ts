@@ -13,6 +13,11 @@ const envSchema = z.object({
   /** Read replicas, comma-separated mariadb:// URLs (Sequelize sends reads there, writes to DATABASE_URL). */
   DATABASE_READ_URLS: z.string().optional(),
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters'),
+  /**
+   * Encrypts the operators' Ed25519 private keys at rest (AES-256-GCM under a key derived from
+   * it with HKDF-SHA-256). The same on every instance; changing it makes existing keys unusable.
+   */
+  SIGNING_KEY_SECRET: z.string().min(32, 'SIGNING_KEY_SECRET must be at least 32 characters'),
   /** `auto` sets the Secure flag whenever the request arrived over HTTPS (directly or via a trusted proxy). */
   COOKIE_SECURE: z.enum(['auto', 'true', 'false']).default('auto'),
   /** Express "trust proxy" setting: hop count or a list of proxy addresses. */

@@ -1,23 +1,44 @@
 import type { Sequelize } from 'sequelize';
+import { AircraftType } from './aircraft-type';
+import { Airframe } from './airframe';
 import { AuditEvent } from './audit-event';
 import { Invitation } from './invitation';
 import { Operator } from './operator';
 import { PasswordResetToken } from './password-reset-token';
+import { Revision } from './revision';
+import { SigningKey } from './signing-key';
+import { SpeedBook } from './speed-book';
 import { User } from './user';
 
 export { AuditEvent, Invitation, Operator, PasswordResetToken, User };
+
+export { AircraftType, Airframe, Revision, SigningKey, SpeedBook };
 
 /** Registers every model and, in one place, every association. */
 export function initModels(sequelize: Sequelize): void {
   Operator.initModel(sequelize);
   User.initModel(sequelize);
   AuditEvent.initModel(sequelize);
+  AircraftType.initModel(sequelize);
+  Airframe.initModel(sequelize);
+  SpeedBook.initModel(sequelize);
+  SigningKey.initModel(sequelize);
+  Revision.initModel(sequelize);
   Invitation.initModel(sequelize);
   PasswordResetToken.initModel(sequelize);
 
   Operator.hasMany(User, { foreignKey: 'operatorId', as: 'users' });
   User.belongsTo(Operator, { foreignKey: 'operatorId', as: 'operator' });
   AuditEvent.belongsTo(User, { foreignKey: 'actorId', as: 'actor' });
+  AircraftType.hasMany(Airframe, { foreignKey: 'aircraftTypeId', as: 'airframes' });
+  Airframe.belongsTo(AircraftType, { foreignKey: 'aircraftTypeId', as: 'aircraftType' });
+  AircraftType.hasOne(SpeedBook, { foreignKey: 'aircraftTypeId', as: 'speedBook' });
+  SpeedBook.belongsTo(AircraftType, { foreignKey: 'aircraftTypeId', as: 'aircraftType' });
+  SpeedBook.hasMany(Revision, { foreignKey: 'speedBookId', as: 'revisions' });
+  Revision.belongsTo(SpeedBook, { foreignKey: 'speedBookId', as: 'speedBook' });
+  Revision.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
+  Revision.belongsTo(User, { foreignKey: 'approverId', as: 'approver' });
+  Revision.belongsTo(SigningKey, { foreignKey: 'signingKeyId', as: 'signingKey' });
   Invitation.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   Invitation.belongsTo(Operator, { foreignKey: 'operatorId', as: 'operator' });
   Invitation.belongsTo(User, { foreignKey: 'invitedById', as: 'invitedBy' });

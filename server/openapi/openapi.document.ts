@@ -5,15 +5,23 @@
  */
 import { OpenAPIRegistry, OpenApiGeneratorV31, type ResponseConfig, type RouteConfig } from '@asteasolutions/zod-to-openapi';
 import * as z from 'zod';
+import { passwordResetRequestedSchema } from '../../shared/api/account-links';
 import { auditPageSchema, auditQuerySchema } from '../../shared/api/audit';
 import {
+  acceptInvitationRequestSchema,
   apiErrorSchema,
   csrfResponseSchema,
   healthSchema,
+  invitePersonRequestSchema,
   loginRequestSchema,
   loginResponseSchema,
   operatorPeopleSchema,
+  operatorPersonResponseSchema,
+  passwordResetConfirmSchema,
+  passwordResetRequestSchema,
+  passwordSetResponseSchema,
   sessionUserSchema,
+  updatePersonRequestSchema,
 } from '../../shared/api/auth';
 import {
   aircraftTypeListSchema,
@@ -25,6 +33,8 @@ import {
   updateAircraftTypeSchema,
   updateAirframeSchema,
 } from '../../shared/api/fleet';
+import { mailboxResponseSchema } from '../../shared/api/mailbox';
+import { invitationSentSchema } from '../../shared/api/people';
 import {
   createRevisionSchema,
   createSpeedBookSchema,
@@ -37,12 +47,24 @@ import {
   speedBookResponseSchema,
   updateRevisionSchema,
 } from '../../shared/api/revisions';
+import { speedTableUploadSchema } from '../../shared/api/uploads';
 import { revisionContentSchema } from '../../shared/speed-book/revision-content';
+import {
+  cardIssueBatchResponseSchema,
+  cardIssueBatchSchema,
+  cardIssuePageSchema,
+  cardIssueQuerySchema,
+  cardIssueResponseSchema,
+  cardPreviewRequestSchema,
+  cardPreviewResponseSchema,
+} from '../../shared/card/card-api';
 
 type Method = RouteConfig['method'];
 
 const idParams = z.object({ id: z.string().regex(/^[1-9]\d*$/).describe('Record id') });
 const json = (schema: z.ZodType) => ({ content: { 'application/json': { schema } } });
+/** A recursive schema (z.lazy) as zod's own JSON Schema; zod-to-openapi recurses on those without end. */
+const jsonSchemaOf = (schema: z.ZodType) => z.toJSONSchema(schema, { unrepresentable: 'any', io: 'output' }) as Record<string, unknown>;
 
 const ERRORS: Record<number, string> = {
   400: 'The request is not valid; `fields` names each field at fault.',
@@ -61,7 +83,9 @@ interface RouteSpec {
   params?: boolean;
   query?: z.ZodObject;
   body?: z.ZodType;
-  ok: { status: number; schema?: z.ZodType; description?: string };
+  /** A multipart upload of one file in the field `file`, instead of a JSON body. */
+  upload?: string;
+  ok: { status: number; schema?: z.ZodType; description?: string; recursive?: boolean };
   errors?: number[];
 }
 
@@ -78,7 +102,11 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
 
   const route = (method: Method, path: string, spec: RouteSpec) => {
     const responses: Record<number, ResponseConfig> = {
-      [spec.ok.status]: { description: spec.ok.description ?? 'OK', ...(spec.ok.schema ? json(spec.ok.schema) : {}) },
+      [spec.ok.status]: {
+        description: spec.ok.description ?? 'OK',
+        ...(spec.ok.schema && spec.ok.recursive ? { content: { 'application/json': { schema: jsonSchemaOf(spec.ok.schema) } } } : {}),
+        ...(spec.ok.schema && !spec.ok.recursive ? json(spec.ok.schema) : {}),
+      },
     };
     const errors = new Set([...(spec.who === 'public' ? [] : [401]), ...(spec.params ? [404] : []), ...(spec.body || spec.query ? [400] : []), ...(spec.errors ?? [])]);
     if (spec.who !== 'public' && spec.who !== 'signed-in') errors.add(403);
@@ -93,6 +121,15 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
         ...(spec.params ? { params: idParams } : {}),
         ...(spec.query ? { query: spec.query } : {}),
         ...(spec.body ? { body: { required: true, ...json(spec.body) } } : {}),
+        ...(spec.upload
+          ? {
+              body: {
+                required: true,
+                description: spec.upload,
+                content: { 'multipart/form-data': { schema: { type: 'object' as const, properties: { file: { type: 'string' as const, format: 'binary' } }, required: ['file'] } } },
+              },
+            }
+          : {}),
       },
       responses,
     });
@@ -106,6 +143,17 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   route('post', '/api/auth/logout', { summary: 'Sign out', tags: ['auth'], who: 'public', ok: { status: 204, description: 'Signed out' } });
   route('get', '/api/auth/me', { summary: 'Who is signed in', tags: ['auth'], who: 'signed-in', ok: { status: 200, schema: loginResponseSchema } });
   route('get', '/api/users', { summary: 'The operator’s people', tags: ['people'], who: 'manage-people', ok: { status: 200, schema: operatorPeopleSchema } });
+  route('post', '/api/users', { summary: 'Invite a person by e-mail', tags: ['people'], who: 'manage-people', body: invitePersonRequestSchema, ok: { status: 201, schema: invitationSentSchema }, errors: [409] });
+  route('patch', '/api/users/:id', { summary: 'Change a person’s name or role, lock or unlock', tags: ['people'], who: 'manage-people', params: true, body: updatePersonRequestSchema, ok: { status: 200, schema: operatorPersonResponseSchema }, errors: [409] });
+  route('post', '/api/users/:id/invitation', { summary: 'Send the invitation again', tags: ['people'], who: 'manage-people', params: true, ok: { status: 201, schema: invitationSentSchema }, errors: [409] });
+  route('post', '/api/auth/invitations/accept', { summary: 'Accept an invitation: choose a password', tags: ['auth'], who: 'public', body: acceptInvitationRequestSchema, ok: { status: 200, schema: passwordSetResponseSchema }, errors: [400, 410, 429] });
+  route('post', '/api/auth/password-reset', { summary: 'Ask for a password-reset link by e-mail', tags: ['auth'], who: 'public', body: passwordResetRequestSchema, ok: { status: 202, schema: passwordResetRequestedSchema }, errors: [400, 429] });
+  route('post', '/api/auth/password-reset/confirm', { summary: 'Choose a new password with a reset link', tags: ['auth'], who: 'public', body: passwordResetConfirmSchema, ok: { status: 200, schema: passwordSetResponseSchema }, errors: [400, 410, 429] });
+  route('get', '/api/dev/mailbox', { summary: 'The local fake mailbox (only when MAILBOX_DIR is set)', tags: ['people'], who: 'manage-people', ok: { status: 200, schema: mailboxResponseSchema } });
+  route('post', '/api/uploads/speed-table', {
+    summary: 'Parse a CSV speed or position-error table for a preview (nothing is stored)',
+    tags: ['revisions'], who: 'edit-speed-books', upload: 'One CSV file, at most 256 kB.', ok: { status: 200, schema: speedTableUploadSchema, recursive: true }, errors: [400, 413, 415, 422],
+  });
 
   route('get', '/api/aircraft-types', { summary: 'The operator’s aircraft types', tags: ['fleet'], who: 'read-published', ok: { status: 200, schema: aircraftTypeListSchema } });
   route('post', '/api/aircraft-types', { summary: 'Add an aircraft type', tags: ['fleet'], who: 'manage-fleet', body: createAircraftTypeSchema, ok: { status: 201, schema: aircraftTypeResponseSchema }, errors: [409] });
@@ -134,6 +182,17 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
 
   route('get', '/api/operator/signing-key', { summary: 'The operator’s Ed25519 public key', tags: ['operator'], who: 'read-published', ok: { status: 200, schema: signingKeyResponseSchema } });
   route('get', '/api/audit', { summary: 'The audit trail, newest first, filtered and paginated', tags: ['audit'], who: 'read-audit', query: auditQuerySchema, ok: { status: 200, schema: auditPageSchema } });
+
+  route('post', '/api/cards/preview', {
+    summary: 'A speed card computed from a revision and inputs (422 `card_refused` with the input at fault)',
+    tags: ['cards'], who: 'prepare-cards (drafts: edit-speed-books)', body: cardPreviewRequestSchema, ok: { status: 200, schema: cardPreviewResponseSchema }, errors: [404, 409, 422],
+  });
+  route('post', '/api/card-issues', {
+    summary: 'Report issued cards (idempotent by entry id; each card re-derived; one result per entry)',
+    tags: ['cards'], who: 'prepare-cards', body: cardIssueBatchSchema, ok: { status: 200, schema: cardIssueBatchResponseSchema },
+  });
+  route('get', '/api/card-issues', { summary: 'The card log, newest first (pilots: their own cards)', tags: ['cards'], who: 'read-card-log or prepare-cards', query: cardIssueQuerySchema, ok: { status: 200, schema: cardIssuePageSchema } });
+  route('get', '/api/card-issues/:id', { summary: 'One card log entry', tags: ['cards'], who: 'read-card-log or prepare-cards', params: true, ok: { status: 200, schema: cardIssueResponseSchema } });
 
   return new OpenApiGeneratorV31(registry.definitions).generateDocument({
     openapi: '3.1.0',

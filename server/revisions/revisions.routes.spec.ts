@@ -9,12 +9,15 @@ import { AuditEvent, Revision } from '../models';
 import { newPerson, newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
 import { verifyStatement } from './signing';
 
+// Every step hashes or checks passwords or signs; on a busy two-core machine 5 s is short.
+jest.setTimeout(30_000);
+
 let harness: Harness;
 let as: SessionsByRole;
 beforeAll(async () => {
   harness = startHarness();
   as = await signInEveryone(harness.app);
-});
+}, 60_000);
 afterAll(() => harness.close());
 
 const write = (who: Session, method: 'post' | 'patch', path: string) => who.agent[method](path).set('x-csrf-token', who.token);

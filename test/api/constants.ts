@@ -3,6 +3,9 @@ import { join } from 'node:path';
 /** The demo password as the API tests seed it. */
 export const TEST_PASSWORD = 'speedwright-test-password';
 
+/** SIGNING_KEY_SECRET of the API tests; the seed encrypts the demo signing keys with it too. */
+export const TEST_SIGNING_KEY_SECRET = 'test-signing-key-secret-that-is-long-enough-0123';
+
 /**
  * The API tests' own database on the private test instance. Two people running the API tests
  * at once on one machine give each run its own name (API_TEST_DATABASE=speedwright_api_mine).

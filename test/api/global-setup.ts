@@ -9,6 +9,7 @@ import { seedDemo } from '../../db/seed';
 import { createSequelize } from '../../server/database';
 import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
 import { initModels } from '../../server/models';
+import { TEST_SIGNING_KEY_SECRET } from './constants';
 import { API_TEST_DATABASE, apiTestAttachmentsDir, apiTestEnvFile, apiTestMailboxDir, TEST_PASSWORD } from './constants';
 
 declare global {
@@ -28,7 +29,7 @@ export default async function globalSetup(): Promise<void> {
   const sequelize = createSequelize(url);
   initModels(sequelize);
   await createMigrator(sequelize).up();
-  await seedDemo(sequelize, TEST_PASSWORD);
+  await seedDemo(sequelize, TEST_PASSWORD, { signingKeySecret: TEST_SIGNING_KEY_SECRET });
   await sequelize.close();
   rmSync(apiTestMailboxDir(), { recursive: true, force: true });
   rmSync(apiTestAttachmentsDir(), { recursive: true, force: true });

@@ -10,9 +10,10 @@ import { loadConfig, type ServerConfig } from '../../server/config';
 import { createSequelize } from '../../server/database';
 import { readMailbox, waitForMail, type MailboxEntry } from '../../server/mail/mailbox';
 import { initModels } from '../../server/models';
+import { TEST_SIGNING_KEY_SECRET } from './constants';
 import { apiTestAttachmentsDir, apiTestMailboxDir, TEST_PASSWORD } from './constants';
 
-export { TEST_PASSWORD };
+export { TEST_PASSWORD, TEST_SIGNING_KEY_SECRET };
 
 /** The address links in the tests' mails start with. */
 export const TEST_PUBLIC_URL = 'http://speedwright.test';
@@ -28,6 +29,7 @@ export function startHarness(overrides: Partial<Record<keyof ServerConfig, strin
     NODE_ENV: 'test',
     DATABASE_URL: process.env['DATABASE_URL'],
     SESSION_SECRET: 'test-session-secret-that-is-long-enough-0123456789',
+    SIGNING_KEY_SECRET: TEST_SIGNING_KEY_SECRET,
     LOG_LEVEL: 'silent',
     LOGIN_RATE_LIMIT_PER_15_MIN: '1000',
     APP_DIST: 'dist/app/browser',
