@@ -32,4 +32,23 @@ export const APP_NAVIGATION: readonly NavigationEntry[] = [
     title: 'People · Speedwright',
     loadComponent: () => import('./people/people-page').then((m) => m.PeoplePage),
   },
+  {
+    path: 'audit',
+    label: 'Audit trail',
+    icon: 'history',
+    capability: 'read-audit',
+    purpose: 'Look up who changed which record and when, filtered by record, action, person and dates.',
+    title: 'Audit trail · Speedwright',
+    loadComponent: () => import('./audit/audit-page').then((m) => m.AuditPage),
+  },
+  {
+    path: 'mailbox',
+    label: 'Mailbox',
+    icon: 'inbox',
+    // The server answers only administrators, and only while its local fake mail server runs.
+    capability: 'manage-people',
+    purpose: 'Read the mails sent while Speedwright runs without a real mail server, and follow their links.',
+    title: 'Mailbox · Speedwright',
+    loadComponent: () => import('./mailbox/mailbox-page').then((m) => m.MailboxPage),
+  },
 ];

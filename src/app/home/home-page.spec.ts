@@ -2,7 +2,7 @@ import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import { SessionUser } from '../../../shared/api/auth';
-import { ROLE_SUMMARIES, Role } from '../../../shared/auth/roles';
+import { ROLE_SUMMARIES, Role, can } from '../../../shared/auth/roles';
 import { APP_NAVIGATION } from '../app.navigation';
 import { AuthService } from '../core/auth/auth-service';
 import { NAVIGATION_ENTRIES } from '../core/navigation/navigation-entry';
@@ -66,7 +66,11 @@ describe('HomePage', () => {
 
   it('offers a pilot no page their role may not open', async () => {
     const steps = (await render('pilot')).querySelector('[data-testid="next-steps"]')!;
-    expect(steps.querySelectorAll('a')).toHaveLength(0);
+    const hrefs = Array.from(steps.querySelectorAll('a')).map((a) => a.getAttribute('href'));
+    const mayOpen = APP_NAVIGATION.filter((entry) => entry.path !== 'home' && (entry.capability === null || can('pilot', entry.capability)));
+    expect(hrefs).toEqual(mayOpen.map((entry) => `/${entry.path}`));
+    expect(hrefs).toContain('/fleet');
+    expect(hrefs).not.toContain('/people');
     expect(steps.textContent).toContain('Use the night theme');
   });
 

@@ -2,7 +2,7 @@ import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import { SessionUser } from '../../../shared/api/auth';
-import { Role } from '../../../shared/auth/roles';
+import { Role, can } from '../../../shared/auth/roles';
 import { APP_NAVIGATION } from '../app.navigation';
 import { AuthService } from '../core/auth/auth-service';
 import { NAVIGATION_ENTRIES } from '../core/navigation/navigation-entry';
@@ -34,17 +34,36 @@ describe('NavigationList', () => {
     });
   });
 
-  it('shows People to an admin', async () => {
-    expect(await linksFor(personWith('admin'))).toEqual([
-      { label: expect.stringContaining('Home'), href: '/home' },
-      { label: expect.stringContaining('People'), href: '/people' },
-    ]);
+  it('shows the admin People, Fleet, the audit trail and the mailbox', async () => {
+    const hrefs = (await linksFor(personWith('admin'))).map((l) => l.href);
+    expect(hrefs[0]).toBe('/home');
+    expect(hrefs).toEqual(expect.arrayContaining(['/fleet', '/people', '/audit', '/mailbox']));
   });
 
-  it.each<Role>(['pilot', 'engineer', 'approver', 'inspector'])('does not show People to a %s', async (role) => {
-    const links = await linksFor(personWith(role));
-    expect(links.map((l) => l.href)).toEqual(['/home']);
+  it.each<Role>(['pilot', 'engineer', 'approver', 'inspector'])('shows a %s Fleet but not People or the mailbox', async (role) => {
+    const hrefs = (await linksFor(personWith(role))).map((l) => l.href);
+    expect(hrefs).toContain('/fleet');
+    expect(hrefs).not.toContain('/people');
+    expect(hrefs).not.toContain('/mailbox');
   });
+
+  it.each<[Role, boolean]>([
+    ['pilot', false],
+    ['engineer', false],
+    ['approver', true],
+    ['inspector', true],
+  ])('shows a %s the audit trail: %s', async (role, shown) => {
+    const hrefs = (await linksFor(personWith(role))).map((l) => l.href);
+    expect(hrefs.includes('/audit')).toBe(shown);
+  });
+
+  it.each<Role>(['pilot', 'engineer', 'approver', 'admin', 'inspector'])(
+    'lists for a %s exactly the entries their role may open, in declared order',
+    async (role) => {
+      const expected = APP_NAVIGATION.filter((entry) => entry.capability === null || can(role, entry.capability)).map((entry) => `/${entry.path}`);
+      expect((await linksFor(personWith(role))).map((l) => l.href)).toEqual(expected);
+    },
+  );
 
   it('shows nothing when nobody is signed in', async () => {
     expect(await linksFor(null)).toEqual([]);
@@ -54,9 +73,10 @@ describe('NavigationList', () => {
     user.set(personWith('pilot'));
     const fixture = TestBed.createComponent(NavigationList);
     await fixture.whenStable();
-    expect(fixture.nativeElement.querySelectorAll('a')).toHaveLength(1);
+    const hrefs = () => Array.from<HTMLAnchorElement>(fixture.nativeElement.querySelectorAll('a')).map((a) => a.getAttribute('href'));
+    expect(hrefs()).not.toContain('/people');
     user.set(personWith('admin'));
     await fixture.whenStable();
-    expect(fixture.nativeElement.querySelectorAll('a')).toHaveLength(2);
+    expect(hrefs()).toContain('/people');
   });
 });

@@ -1,0 +1,78 @@
+import { DOCUMENT } from '@angular/common';
+import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { formatDate } from '@angular/common';
+import { MailboxMessage } from '../../../shared/api/mailbox';
+import { ApiRequestError } from '../core/api/api-request-error';
+import { DevMailbox } from './dev-mailbox';
+import { MailTextPart, splitMailText } from './mail-text';
+
+interface ShownMessage {
+  readonly id: string;
+  readonly subject: string;
+  readonly to: string;
+  readonly receivedLabel: string;
+  readonly parts: readonly MailTextPart[];
+}
+
+/** Said when the server sends real mail: then there is no mailbox to show. */
+export const NO_FAKE_MAILBOX =
+  'This server sends real e-mail, so there is no development mailbox: invitations and password-reset links go to each person’s own inbox.';
+
+/** The mails Speedwright sent while it runs with its local fake mail server, links clickable. */
+@Component({
+  selector: 'sw-mailbox-page',
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule],
+  templateUrl: './mailbox-page.html',
+  styleUrl: './mailbox-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class MailboxPage {
+  private readonly mailbox = inject(DevMailbox);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly origin = inject(DOCUMENT).location.origin;
+
+  protected readonly loading = signal(true);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly messages = signal<readonly ShownMessage[]>([]);
+
+  constructor() {
+    this.loadMessages();
+  }
+
+  protected loadMessages(): void {
+    this.loading.set(true);
+    this.problem.set(null);
+    this.mailbox
+      .messages()
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (messages) => {
+          this.messages.set(messages.map((message) => this.toShown(message)));
+          this.loading.set(false);
+        },
+        error: (error: ApiRequestError) => {
+          this.problem.set(error.status === 404 ? NO_FAKE_MAILBOX : error.message);
+          this.loading.set(false);
+        },
+      });
+  }
+
+  protected isLink(part: MailTextPart): part is { link: string; href: string } {
+    return 'link' in part;
+  }
+
+  private toShown(message: MailboxMessage): ShownMessage {
+    const received = Date.parse(message.receivedAt);
+    return {
+      id: message.id,
+      subject: message.subject || '(no subject)',
+      to: message.to.join(', '),
+      receivedLabel: Number.isFinite(received) ? `${formatDate(received, 'd MMM y, HH:mm:ss', 'en-US', 'UTC')} UTC` : message.receivedAt,
+      parts: splitMailText(message.text, message.links, this.origin),
+    };
+  }
+}
