@@ -11,6 +11,7 @@ import { createMigrator } from '../db/migrator';
 import { DEFAULT_DEMO_PASSWORD, seedDemo } from '../db/seed';
 import { createSequelize } from './database';
 import { initModels } from './models';
+import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { serve } from './main';
 
 function step(text: string): void {
@@ -36,6 +37,14 @@ async function launch(): Promise<void> {
   });
   await sequelize.close();
 
+  // Without a real mail server, invitations and reset links land in a local mailbox that the
+  // administrator can read in the app.
+  let mailbox: FakeSmtp | undefined;
+  if (!process.env['SMTP_URL']) {
+    step('Starting the local fake mail server (nothing is delivered; messages are kept in .data/mailbox/)');
+    mailbox = await startFakeSmtp({ dir: join(projectRoot, '.data', 'mailbox'), port: Number(process.env['FAKE_SMTP_PORT'] ?? 0) });
+  }
+
   if (process.env['SKIP_BUILD'] !== '1') {
     step('Building the web app (production)');
     const build = spawnSync(process.execPath, [join(projectRoot, 'node_modules/@angular/cli/bin/ng.js'), 'build'], {
@@ -48,19 +57,23 @@ async function launch(): Promise<void> {
 
   const server = await serve({
     NODE_ENV: 'production',
+    PUBLIC_URL: `http://localhost:${process.env['PORT'] ?? 4300}`,
     SESSION_SECRET: localSecrets().sessionSecret,
     SIGNING_KEY_SECRET: localSecrets().signingKeySecret,
     ...process.env,
     DATABASE_URL: databaseUrl,
+    ...(mailbox ? { SMTP_URL: mailbox.url, MAILBOX_DIR: mailbox.dir } : {}),
     APP_DIST: process.env['APP_DIST'] ?? join(projectRoot, 'dist/app/browser'),
   });
   console.log(`\nSpeedwright is running: http://localhost:${server.port}/`);
   console.log(`Demo accounts: pilot@demo.speedwright.example (and engineer@, approver@, admin@, inspector@), password ${process.env['DEMO_PASSWORD'] ? 'from DEMO_PASSWORD' : DEFAULT_DEMO_PASSWORD}`);
+  if (mailbox) console.log('Mail goes to the local fake mailbox: sign in as admin@demo.speedwright.example to read it.');
   console.log('Press Ctrl-C to stop.\n');
 
   const shutdown = async () => {
     step('Stopping');
     await server.stop();
+    await mailbox?.stop();
     if (stopDatabase) await stopLocalInstance('dev');
     process.exit(0);
   };

@@ -21,6 +21,8 @@ export interface SingleFileOptions {
 export function singleFileUpload({ maxBytes, maxLabel, acceptType, typeMessage }: SingleFileOptions): RequestHandler {
   const upload = multer({
     storage: multer.memoryStorage(),
+    // Browsers send file names as raw UTF-8 in the part header.
+    defParamCharset: 'utf8',
     limits: { fileSize: maxBytes, files: 1, fields: 10, parts: 12, fieldSize: 10_000 },
     fileFilter: (_req, file, callback) => {
       if (file.fieldname !== 'file') return callback(new HttpError(400, 'invalid_upload', 'Send the file in the form field "file".', { file: 'Send the file in this field.' }));

@@ -2,13 +2,14 @@
  * Before the end-to-end tests: a fresh e2e database on the private test instance, migrated
  * and seeded, and the real server (production build of the app) on a free loopback port.
  */
-import { writeFileSync } from 'node:fs';
+import { rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { projectRoot } from '../../db/instance';
 import { localSecrets, openLocalDatabase } from '../../db/local';
 import { createMigrator } from '../../db/migrator';
 import { seedDemo } from '../../db/seed';
 import { createSequelize } from '../../server/database';
+import { startFakeSmtp } from '../../server/mail/fake-smtp';
 import { serve } from '../../server/main';
 import { initModels } from '../../server/models';
 import { E2E_PASSWORD } from './constants';
@@ -26,8 +27,16 @@ export default async function globalSetup(): Promise<void> {
   await seedDemo(sequelize, E2E_PASSWORD, { signingKeySecret: localSecrets().signingKeySecret });
   await sequelize.close();
 
+  // Mail of the e2e run lands here; tests read it with readMailbox() and follow the links
+  // (PUBLIC_URL stays at its default, so they take the path and token and use E2E_BASE_URL).
+  const mailboxDir = join(projectRoot, '.data', 'mailbox-e2e');
+  rmSync(mailboxDir, { recursive: true, force: true });
+  const smtp = await startFakeSmtp({ dir: mailboxDir });
   const server = await serve({
     NODE_ENV: 'test',
+    SMTP_URL: smtp.url,
+    MAILBOX_DIR: mailboxDir,
+    ATTACHMENTS_DIR: join(projectRoot, '.data', 'attachments-e2e'),
     PORT: '0',
     HOST: '127.0.0.1',
     DATABASE_URL: url,
@@ -37,7 +46,11 @@ export default async function globalSetup(): Promise<void> {
     LOGIN_RATE_LIMIT_PER_15_MIN: '1000',
     APP_DIST: join(projectRoot, 'dist/app/browser'),
   });
-  globalThis.speedwrightE2e = { stop: server.stop, startedDb: instance.startedHere };
+  const stop = async () => {
+    await server.stop();
+    await smtp.stop();
+  };
+  globalThis.speedwrightE2e = { stop, startedDb: instance.startedHere };
   const baseUrl = `http://localhost:${server.port}`;
   process.env['E2E_BASE_URL'] = baseUrl;
   writeFileSync(join(projectRoot, '.data', 'e2e-env.json'), JSON.stringify({ baseUrl }));
