@@ -1,5 +1,8 @@
-/** A piece of a mail's text: plain words, or one of the links the server found in it. */
-export type MailTextPart = { readonly text: string } | { readonly link: string; readonly href: string };
+/** A piece of a mail's text: plain words (`href` null), or one of the links the server found in it. */
+export interface MailTextPart {
+  readonly text: string;
+  readonly href: string | null;
+}
 
 /**
  * Splits a mail's text around its links. A link to this app under another address (the
@@ -11,11 +14,11 @@ export function splitMailText(text: string, links: readonly string[], appOrigin:
   for (const link of links) {
     const at = rest.indexOf(link);
     if (at < 0) continue;
-    if (at > 0) parts.push({ text: rest.slice(0, at) });
-    parts.push({ link, href: hereIfOurs(link, appOrigin) });
+    if (at > 0) parts.push({ text: rest.slice(0, at), href: null });
+    parts.push({ text: link, href: hereIfOurs(link, appOrigin) });
     rest = rest.slice(at + link.length);
   }
-  if (rest) parts.push({ text: rest });
+  if (rest) parts.push({ text: rest, href: null });
   return parts;
 }
 

@@ -1,10 +1,9 @@
-import { DOCUMENT } from '@angular/common';
+import { DOCUMENT, formatDate } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { formatDate } from '@angular/common';
 import { MailboxMessage } from '../../../shared/api/mailbox';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { DevMailbox } from './dev-mailbox';
@@ -59,10 +58,6 @@ export class MailboxPage {
           this.loading.set(false);
         },
       });
-  }
-
-  protected isLink(part: MailTextPart): part is { link: string; href: string } {
-    return 'link' in part;
   }
 
   private toShown(message: MailboxMessage): ShownMessage {
