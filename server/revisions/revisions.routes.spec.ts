@@ -4,7 +4,7 @@ import { revisionResponseSchema, signingKeyResponseSchema, speedBookListSchema, 
 import { contentSha256 } from '../../shared/speed-book/canonical';
 import { demoPistonTrainerContent, demoPistonTrainerContentRevised } from '../../shared/speed-book/demo-content';
 import { signedRevisionStatement } from '../../shared/speed-book/signature';
-import { startHarness, type Harness } from '../../test/api/harness';
+import { mailTo, startHarness, type Harness } from '../../test/api/harness';
 import { AuditEvent, Revision } from '../models';
 import { newPerson, newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
 import { verifyStatement } from './signing';
@@ -59,6 +59,18 @@ describe('the revision workflow', () => {
     expect(withdrawn.body.revision).toMatchObject({ status: 'withdrawn', withdrawReason: 'VR figure under query', withdrawnAt: expect.any(String) });
     const after = (await as.pilot.agent.get('/api/speed-books').expect(200)).body.speedBooks.find((b: { id: number }) => b.id === speedBookId);
     expect(after.currentRevision).toBeNull();
+  });
+
+  it('tells the approvers when a revision is submitted and the pilots when it is published or withdrawn', async () => {
+    const { speedBookId } = await newSpeedBook(as.admin, as.engineer);
+    const title = (await as.engineer.agent.get(`/api/speed-books/${speedBookId}`).expect(200)).body.speedBook.title as string;
+    const id = await publish(as.engineer, as.approver, speedBookId);
+    const titled = (entry: { subject: string; text: string }) => `${entry.subject}\n${entry.text}`.includes(title);
+    await mailTo('approver@demo.speedwright.example', titled);
+    await mailTo('pilot@demo.speedwright.example', (entry) => titled(entry) && /publish/i.test(`${entry.subject} ${entry.text}`));
+    await write(as.approver, 'post', `/api/revisions/${id}/withdraw`).send({ reason: 'Under query' }).expect(200);
+    const withdrawn = await mailTo('pilot@demo.speedwright.example', (entry) => titled(entry) && /withdraw/i.test(`${entry.subject} ${entry.text}`));
+    expect(withdrawn.text).toContain('Under query');
   });
 
   it('returns a revision in review to its author with a reason, and it can be edited again', async () => {

@@ -14,6 +14,7 @@ import { signedRevisionStatement } from '../../shared/speed-book/signature';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { forbidden, HttpError, notFound } from '../http-error';
+import { notifyRevisionPublished, notifyRevisionSubmitted, notifyRevisionWithdrawn } from '../mail/notifications';
 import { AircraftType, Revision, SpeedBook } from '../models';
 import { EVER_PUBLISHED_STATUSES, OPEN_STATUSES, peopleNames, revisionDetail, statusWords } from './revision-views';
 import { activeSigningKey, signStatement } from './signing';
@@ -37,6 +38,14 @@ function audit(actor: Actor, action: string, revision: Revision, details: Record
     { operatorId: actor.operatorId, actorId: actor.userId, action, entityType: 'revision', entityId: revision.id, details: { speedBookId: revision.speedBookId, number: revision.number, ...details }, req: actor.req },
     transaction,
   );
+}
+
+/**
+ * Mail goes out once the change commits, and only for changes made through the API (an actor
+ * with a request): the demo seed runs these services before any app, and sends nothing.
+ */
+function mailing(actor: Actor, transaction: Transaction) {
+  return actor.req ? { transaction, actorId: actor.userId } : undefined;
 }
 
 function wrongStatus(revision: Revision, needed: string): HttpError {
@@ -180,6 +189,8 @@ export async function submitRevision(actor: Actor, id: number): Promise<Revision
     if (Object.keys(fields).length) throw new HttpError(422, 'content_invalid', 'The revision cannot be submitted until these fields are right.', fields);
     await revision.update({ status: 'in_review', submittedAt: new Date() }, { transaction });
     await audit(actor, 'revision.submitted', revision, {}, transaction);
+    const mail = mailing(actor, transaction);
+    if (mail) await notifyRevisionSubmitted(revision, actor.operatorId, mail);
     return revision;
   });
   return detail(actor.operatorId, revision);
@@ -224,6 +235,8 @@ export async function approveRevision(actor: Actor, id: number, signingKeySecret
       { transaction },
     );
     await audit(actor, 'revision.approved', revision, { contentSha256: sha256, signingKeyId: key.id, supersededRevisionIds: previous.map((old) => old.id) }, transaction);
+    const mail = mailing(actor, transaction);
+    if (mail) await notifyRevisionPublished({ ...revision.get(), speedBookTitle: book.title }, actor.operatorId, mail);
     return revision;
   });
   return detail(actor.operatorId, revision);
@@ -249,6 +262,8 @@ export async function withdrawRevision(actor: Actor, id: number, reason: string)
     if (revision.status !== 'published') throw wrongStatus(revision, 'only the published revision can be withdrawn');
     await revision.update({ status: 'withdrawn', withdrawnAt: new Date(), withdrawnById: actor.userId, withdrawReason: reason }, { transaction });
     await audit(actor, 'revision.withdrawn', revision, { reason }, transaction);
+    const mail = mailing(actor, transaction);
+    if (mail) await notifyRevisionWithdrawn(revision, actor.operatorId, reason, mail);
     return revision;
   });
   return detail(actor.operatorId, revision);
