@@ -153,7 +153,12 @@ export async function seedDemo(sequelize: Sequelize, password: string, options: 
         if (!created) await user.update({ passwordHash, failedSignIns: 0, lockedUntil: null }, { transaction });
       }
     }
-  });  for (const seedOperator of DEMO_OPERATORS) await seedFleet(sequelize, seedOperator, signingKeySecret);
+  });  await seedDemoFleet(sequelize, signingKeySecret);
+}
+
+/** The demo operators' fleets and speed books (the people must exist already). */
+export async function seedDemoFleet(sequelize: Sequelize, signingKeySecret: string): Promise<void> {
+  for (const seedOperator of DEMO_OPERATORS) await seedFleet(sequelize, seedOperator, signingKeySecret);
 }
 
 /** Types, airframes and speed books by natural key; revisions only for a book that has none. */
