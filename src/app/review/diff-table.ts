@@ -1,0 +1,120 @@
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { MatIconModule } from '@angular/material/icon';
+import type { RevisionDiff } from '../speed-books/revisions-api';
+import { changeLocation, changeValue } from './change-location';
+
+const KIND_WORDS = { added: 'Added', removed: 'Removed', changed: 'Changed' } as const;
+
+/** The field-by-field changes from the published revision to the one under review. */
+@Component({
+  selector: 'sw-diff-table',
+  imports: [MatIconModule],
+  template: `
+    @if (rows().length === 0) {
+      <p class="same" data-testid="diff-empty"><mat-icon>check</mat-icon>The content is the same as revision {{ againstNumber() }}.</p>
+    } @else {
+      <p class="count">{{ rows().length }} {{ rows().length === 1 ? 'change' : 'changes' }} from revision {{ againstNumber() }}</p>
+      <div class="frame">
+        <table aria-label="Changes against the published revision" data-testid="diff-table">
+          <thead>
+            <tr>
+              <th scope="col">Field</th>
+              <th scope="col">Change</th>
+              <th scope="col">Revision {{ againstNumber() }}</th>
+              <th scope="col">Revision {{ revisionNumber() }}</th>
+            </tr>
+          </thead>
+          <tbody>
+            @for (row of rows(); track row.path) {
+              <tr [class]="row.kind">
+                <th scope="row">
+                  {{ row.location }}
+                  <span class="path sw-mono">{{ row.path }}</span>
+                </th>
+                <td>{{ row.kindWord }}</td>
+                <td class="before">{{ row.before }}</td>
+                <td class="after">{{ row.after }}</td>
+              </tr>
+            }
+          </tbody>
+        </table>
+      </div>
+    }
+  `,
+  styles: `
+    .count,
+    .same {
+      display: flex;
+      gap: 8px;
+      align-items: center;
+      margin: 0 0 8px;
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .frame {
+      overflow-x: auto;
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 8px;
+    }
+    table {
+      width: 100%;
+      border-collapse: collapse;
+      font-variant-numeric: tabular-nums;
+    }
+    th,
+    td {
+      padding: 8px 10px;
+      text-align: left;
+      vertical-align: top;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+      overflow-wrap: anywhere;
+    }
+    thead th {
+      font: var(--mat-sys-label-large);
+      background: var(--mat-sys-surface-container);
+    }
+    tbody th {
+      font: var(--mat-sys-body-medium);
+      font-weight: 500;
+    }
+    .path {
+      display: block;
+      font-size: 0.75rem;
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .before {
+      text-decoration: line-through;
+      text-decoration-color: var(--mat-sys-error);
+    }
+    .removed .before,
+    .added .after,
+    .changed .after {
+      font-weight: 700;
+    }
+    .added .after,
+    .changed .after {
+      background: var(--mat-sys-primary-container);
+      color: var(--mat-sys-on-primary-container);
+    }
+    .removed .before {
+      background: var(--mat-sys-error-container);
+      color: var(--mat-sys-on-error-container);
+    }
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class DiffTable {
+  readonly diff = input.required<RevisionDiff>();
+  readonly revisionNumber = input.required<number>();
+  readonly againstNumber = input.required<number>();
+
+  protected readonly rows = computed(() =>
+    this.diff().changes.map((change) => ({
+      path: change.path,
+      kind: change.kind,
+      kindWord: KIND_WORDS[change.kind],
+      location: changeLocation(change.path),
+      before: changeValue(change.before),
+      after: changeValue(change.after),
+    })),
+  );
+}

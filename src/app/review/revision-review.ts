@@ -1,0 +1,145 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import { forkJoin, of, switchMap } from 'rxjs';
+import type { AttachmentView } from '../../../shared/api/attachments';
+import { reasonSchema, type RevisionView } from '../../../shared/api/revisions';
+import { ApiRequestError } from '../core/api/api-request-error';
+import { AuthService } from '../core/auth/auth-service';
+import { zodValidator } from '../core/forms/zod-validator';
+import { RevisionContentView } from '../speed-books/revision-content-view';
+import { RevisionStatusChip } from '../speed-books/revision-status-chip';
+import { RevisionsApi, type RevisionDiff, type SpeedBook } from '../speed-books/revisions-api';
+import { UtcDatePipe } from '../speed-books/utc-date-pipe';
+import { DiffTable } from './diff-table';
+import { SourcePages } from './source-pages';
+
+/**
+ * The approver's review of one revision: the diff against the published revision beside the
+ * source pages, then publish or return with a reason. Nobody approves their own revision; the
+ * server refuses it too, and its sentence is shown when it does.
+ */
+@Component({
+  selector: 'sw-revision-review',
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    RevisionContentView,
+    RevisionStatusChip,
+    UtcDatePipe,
+    DiffTable,
+    SourcePages,
+  ],
+  templateUrl: './revision-review.html',
+  styleUrl: './revision-review.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class RevisionReview {
+  private readonly api = inject(RevisionsApi);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly user = inject(AuthService).user;
+
+  /** NaN when the address does not name a revision. */
+  readonly revisionId = input.required<number>();
+
+  protected readonly loading = signal(true);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly revision = signal<RevisionView | null>(null);
+  protected readonly book = signal<SpeedBook | null>(null);
+  protected readonly diff = signal<RevisionDiff | null>(null);
+  protected readonly attachments = signal<readonly AttachmentView[]>([]);
+  protected readonly busy = signal(false);
+  protected readonly actionProblem = signal<string | null>(null);
+  protected readonly outcome = signal<string | null>(null);
+  protected readonly returnReason = new FormControl('', { nonNullable: true, validators: zodValidator(reasonSchema.shape.reason) });
+
+  protected readonly published = computed(() => this.book()?.currentRevision ?? null);
+  protected readonly ownRevision = computed(() => this.revision()?.authorId === this.user()?.id);
+  protected readonly inReview = computed(() => this.revision()?.status === 'in_review');
+
+  constructor() {
+    effect(() => this.loadReview(this.revisionId()));
+  }
+
+  protected reload(): void {
+    this.loadReview(this.revisionId());
+  }
+
+  protected publishRevision(): void {
+    const revision = this.revision();
+    if (!revision || this.ownRevision()) return;
+    this.act(this.api.approve(revision.id), (published) => `Revision ${published.number} is published and signed; it is now the current revision of ${this.book()?.title ?? 'its speed book'}.`);
+  }
+
+  protected returnRevision(): void {
+    const revision = this.revision();
+    this.returnReason.markAsTouched();
+    if (!revision || this.ownRevision() || this.returnReason.invalid) return;
+    this.act(this.api.returnToAuthor(revision.id, this.returnReason.value.trim()), (returned) => `Revision ${returned.number} went back to ${returned.authorName} as a draft, with your reason.`);
+  }
+
+  private act(request: ReturnType<RevisionsApi['approve']>, sentence: (revision: RevisionView) => string): void {
+    this.busy.set(true);
+    this.actionProblem.set(null);
+    request.pipe(takeUntilDestroyed(this.destroyRef)).subscribe({
+      next: (revision) => {
+        this.busy.set(false);
+        this.revision.set(revision);
+        this.outcome.set(sentence(revision));
+      },
+      error: (error: ApiRequestError) => {
+        this.busy.set(false);
+        this.actionProblem.set(error.fields['reason'] ?? error.message);
+      },
+    });
+  }
+
+  private loadReview(id: number): void {
+    this.loading.set(true);
+    this.problem.set(null);
+    this.outcome.set(null);
+    this.actionProblem.set(null);
+    if (!Number.isFinite(id)) {
+      this.problem.set('This address does not name a revision. Choose one from the list of revisions in review.');
+      this.loading.set(false);
+      return;
+    }
+    this.api
+      .revision(id)
+      .pipe(
+        switchMap((revision) =>
+          forkJoin({ revision: of(revision), book: this.api.speedBook(revision.speedBookId), attachments: this.api.attachments(revision.id) }),
+        ),
+        switchMap(({ revision, book, attachments }) => {
+          const against = book.currentRevision;
+          const diff = against && against.id !== revision.id ? this.api.diff(revision.id, against.id) : of(null);
+          return forkJoin({ revision: of(revision), book: of(book), attachments: of(attachments), diff });
+        }),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe({
+        next: ({ revision, book, attachments, diff }) => {
+          this.revision.set(revision);
+          this.book.set(book);
+          this.attachments.set(attachments);
+          this.diff.set(diff);
+          this.loading.set(false);
+        },
+        error: (error: ApiRequestError) => {
+          this.problem.set(error.message);
+          this.loading.set(false);
+        },
+      });
+  }
+}

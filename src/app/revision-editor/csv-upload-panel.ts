@@ -1,0 +1,106 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, output, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import type { CsvRowError, SpeedTableUploadResponse } from '../../../shared/api/uploads';
+import { ApiRequestError } from '../core/api/api-request-error';
+import { RevisionsApi } from '../speed-books/revisions-api';
+
+/** Units of the CSV layouts' columns, for the preview's headers. */
+const COLUMN_HEADINGS: Readonly<Record<string, string>> = {
+  configuration_key: 'Configuration',
+  ias_kt: 'IAS (kt)',
+  cas_kt: 'CAS (kt)',
+  speed_code: 'Speed code',
+  weight_kg: 'Weight (kg)',
+  pressure_altitude_ft: 'Pressure altitude (ft)',
+  oat_c: 'OAT (°C)',
+  value_kt: 'Speed (kt)',
+};
+
+/**
+ * CSV upload into a table of the draft: the server parses the file, this shows every row with
+ * the bad ones marked and their reasons, and only an accepted preview reaches the draft.
+ */
+@Component({
+  selector: 'sw-csv-upload-panel',
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule],
+  templateUrl: './csv-upload-panel.html',
+  styleUrl: './csv-upload-panel.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class CsvUploadPanel {
+  private readonly api = inject(RevisionsApi);
+  private readonly destroyRef = inject(DestroyRef);
+
+  /** True while the editor saves an accepted preview. */
+  readonly busy = input(false);
+  readonly accepted = output<SpeedTableUploadResponse>();
+
+  protected readonly uploading = signal(false);
+  protected readonly fileName = signal<string | null>(null);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly preview = signal<SpeedTableUploadResponse | null>(null);
+
+  protected readonly headings = computed(() => (this.preview()?.columns ?? []).map((column) => ({ column, heading: COLUMN_HEADINGS[column] ?? column })));
+  protected readonly errorsByLine = computed(() => {
+    const byLine = new Map<number, CsvRowError[]>();
+    for (const error of this.preview()?.errors ?? []) byLine.set(error.line, [...(byLine.get(error.line) ?? []), error]);
+    return byLine;
+  });
+  protected readonly badRowCount = computed(() => (this.preview()?.rows ?? []).filter((row) => this.errorsByLine().has(row.line)).length);
+  protected readonly tableCount = computed(() => {
+    const preview = this.preview();
+    if (!preview) return 0;
+    return preview.layout === 'position-error' ? preview.configurations.length : preview.speeds.length;
+  });
+  protected readonly acceptable = computed(() => {
+    const preview = this.preview();
+    return preview !== null && preview.errors.length === 0 && this.tableCount() > 0;
+  });
+
+  protected uploadFile(event: Event): void {
+    const field = event.target as HTMLInputElement;
+    const file = field.files?.[0];
+    field.value = ''; // the same file, corrected, can be chosen again
+    if (!file) return;
+    this.fileName.set(file.name);
+    this.problem.set(null);
+    this.preview.set(null);
+    this.uploading.set(true);
+    this.api
+      .uploadSpeedTable(file)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (preview) => {
+          this.preview.set(preview);
+          this.uploading.set(false);
+        },
+        error: (error: ApiRequestError) => {
+          this.problem.set(error.message);
+          this.uploading.set(false);
+        },
+      });
+  }
+
+  protected acceptPreview(): void {
+    const preview = this.preview();
+    if (!preview || !this.acceptable()) return;
+    this.accepted.emit(preview);
+    this.discardPreview();
+  }
+
+  protected discardPreview(): void {
+    this.preview.set(null);
+    this.fileName.set(null);
+  }
+
+  protected columnReasons(line: number): string[] {
+    return (this.errorsByLine().get(line) ?? []).map((error) => (error.column ? `${COLUMN_HEADINGS[error.column] ?? error.column}: ${error.reason}` : error.reason));
+  }
+
+  protected cellBad(line: number, column: string): boolean {
+    return (this.errorsByLine().get(line) ?? []).some((error) => error.column === column);
+  }
+}

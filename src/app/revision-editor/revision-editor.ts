@@ -1,0 +1,291 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, computed, effect, inject, input, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { Router, RouterLink } from '@angular/router';
+import { Observable, Subscription, forkJoin, of, switchMap } from 'rxjs';
+import { createRevisionSchema, type RevisionView } from '../../../shared/api/revisions';
+import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
+import { revisionContentShape } from '../../../shared/speed-book/content-shape';
+import { AIRCRAFT_CATEGORIES, SPEED_BASES, SPEED_PHASES, revisionContentProblems } from '../../../shared/speed-book/revision-content';
+import { ApiRequestError } from '../core/api/api-request-error';
+import { zodValidator } from '../core/forms/zod-validator';
+import { RevisionStatusChip } from '../speed-books/revision-status-chip';
+import { RevisionsApi, type SpeedBook } from '../speed-books/revisions-api';
+import { AttachmentsPanel } from './attachments-panel';
+import { CsvUploadPanel } from './csv-upload-panel';
+import { PositionErrorEditor } from './position-error-editor';
+import { problemLocation } from './problem-location';
+import { RevisionForm, type LimitKey } from './revision-form';
+import { TabulatedSpeedGrid } from './tabulated-speed-grid';
+
+const LIMIT_FIELDS: readonly { key: LimitKey; label: string }[] = [
+  { key: 'vnoKt', label: 'VNO (kt)' },
+  { key: 'vneKt', label: 'VNE (kt)' },
+  { key: 'vmoKt', label: 'VMO (kt)' },
+  { key: 'mmo', label: 'MMO (Mach)' },
+  { key: 'vleKt', label: 'VLE (kt)' },
+  { key: 'vloKt', label: 'VLO (kt)' },
+  { key: 'vmcKt', label: 'VMC (kt)' },
+  { key: 'vyseKt', label: 'VYSE (kt)' },
+];
+
+const WEIGHT_FIELDS = [
+  { key: 'minimumKg', label: 'Minimum weight (kg)' },
+  { key: 'maximumTakeoffKg', label: 'Maximum takeoff weight (kg)' },
+  { key: 'maximumLandingKg', label: 'Maximum landing weight (kg)' },
+  { key: 'referenceKg', label: 'Reference weight (kg)' },
+] as const;
+
+/**
+ * The revision editor: a draft's whole content as a reactive form, checked as it is typed with
+ * the shared revision-content schema (the sentences the server would give), saved with PATCH and
+ * submitted for review. CSV previews and source pages join the draft from here.
+ */
+@Component({
+  selector: 'sw-revision-editor',
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    RevisionStatusChip,
+    PositionErrorEditor,
+    TabulatedSpeedGrid,
+    CsvUploadPanel,
+    AttachmentsPanel,
+  ],
+  templateUrl: './revision-editor.html',
+  styleUrl: './revision-editor.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class RevisionEditor {
+  private readonly api = inject(RevisionsApi);
+  private readonly router = inject(Router);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
+
+  /** NaN when the address does not name a revision. */
+  readonly revisionId = input.required<number>();
+
+  protected readonly categories = AIRCRAFT_CATEGORIES;
+  protected readonly phases = SPEED_PHASES;
+  protected readonly bases = SPEED_BASES;
+  protected readonly limitFields = LIMIT_FIELDS;
+  protected readonly weightFields = WEIGHT_FIELDS;
+
+  protected readonly form = new RevisionForm();
+  protected readonly changeSummary = new FormControl('', { nonNullable: true, validators: zodValidator(createRevisionSchema.shape.changeSummary) });
+
+  protected readonly loading = signal(true);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly revision = signal<RevisionView | null>(null);
+  protected readonly book = signal<SpeedBook | null>(null);
+  protected readonly saving = signal(false);
+  protected readonly saveProblem = signal<string | null>(null);
+  protected readonly notice = signal<string | null>(null);
+  protected readonly uploadChanges = signal<readonly string[]>([]);
+  protected readonly dirty = signal(false);
+
+  private readonly localProblems = signal<Readonly<Record<string, string>>>({});
+  /** The server's word from the last save or submit; it counts until the next edit. */
+  private readonly serverProblems = signal<Readonly<Record<string, string>>>({});
+  protected readonly problems = computed<Readonly<Record<string, string>>>(() => ({ ...this.localProblems(), ...this.serverProblems() }));
+  protected readonly problemList = computed(() => {
+    const content = this.form.content();
+    return Object.entries(this.problems()).map(([path, sentence]) => ({ path, where: problemLocation(path, content), sentence }));
+  });
+  protected readonly configurationKeys = signal<readonly string[]>([]);
+  private formChanges: Subscription | null = null;
+
+  constructor() {
+    effect(() => this.loadDraft(this.revisionId()));
+  }
+
+  protected problemAt(path: string): string | undefined {
+    return this.problems()[path];
+  }
+
+  protected limitPath(key: string): string {
+    return `limits.${key}`;
+  }
+
+  protected addConfiguration(): void {
+    this.form.addConfiguration();
+  }
+
+  protected removeConfiguration(i: number): void {
+    this.form.configurations.removeAt(i);
+  }
+
+  protected addSpeed(): void {
+    this.form.addSpeed();
+  }
+
+  protected removeSpeed(i: number): void {
+    this.form.speeds.removeAt(i);
+  }
+
+  /** Moves the focus to the field a listed problem is about, when it has one. */
+  protected goToProblem(path: string): void {
+    const field = this.host.nativeElement.querySelector<HTMLElement>(`[data-path="${CSS.escape(path)}"]`);
+    field?.focus();
+    field?.scrollIntoView({ block: 'center' });
+  }
+
+  protected saveDraft(): void {
+    this.persist().subscribe();
+  }
+
+  protected submitForReview(): void {
+    this.form.group.markAllAsTouched();
+    this.changeSummary.markAsTouched();
+    this.persist()
+      .pipe(switchMap((saved) => (saved ? this.api.submit(saved.id) : of(null))))
+      .subscribe({
+        next: (submitted) => {
+          if (!submitted) return;
+          void this.router.navigate(['/speed-books'], { queryParams: { book: submitted.speedBookId } });
+        },
+        error: (error: ApiRequestError) => this.showServerRefusal(error),
+      });
+  }
+
+  /** Saves an accepted CSV preview into the draft at once: accepting is the engineer's decision. */
+  protected acceptUpload(upload: SpeedTableUploadResponse): void {
+    const changes = this.form.acceptUpload(upload);
+    this.uploadChanges.set(changes);
+    this.persist().subscribe();
+  }
+
+  /**
+   * PATCHes the content and change summary; emits the saved revision, or null (and says why on
+   * screen) when the server refused.
+   */
+  private persist(): Observable<RevisionView | null> {
+    const revision = this.revision();
+    if (!revision) return of(null);
+    if (this.changeSummary.invalid) {
+      this.saveProblem.set('Give the change summary before saving.');
+      return of(null);
+    }
+    this.saving.set(true);
+    this.saveProblem.set(null);
+    this.notice.set(null);
+    return new Observable<RevisionView | null>((subscriber) => {
+      const request = this.api
+        .updateDraft(revision.id, { content: this.form.content(), changeSummary: this.changeSummary.value.trim() })
+        .pipe(takeUntilDestroyed(this.destroyRef))
+        .subscribe({
+          next: (saved) => {
+            this.saving.set(false);
+            this.revision.set(saved);
+            this.dirty.set(false);
+            this.notice.set(`Draft saved. ${Object.keys(saved.problems).length ? 'It can be submitted once the problems listed are fixed.' : 'It is complete and can be submitted for review.'}`);
+            subscriber.next(saved);
+            subscriber.complete();
+          },
+          error: (error: ApiRequestError) => {
+            this.showServerRefusal(error);
+            subscriber.next(null);
+            subscriber.complete();
+          },
+        });
+      return () => request.unsubscribe();
+    });
+  }
+
+  private showServerRefusal(error: ApiRequestError): void {
+    this.saving.set(false);
+    const content: Record<string, string> = {};
+    for (const [path, sentence] of Object.entries(error.fields)) {
+      if (path === 'changeSummary') this.changeSummary.setErrors({ schema: sentence });
+      else content[path.replace(/^content\./, '')] = sentence;
+    }
+    this.serverProblems.set(content);
+    this.placeProblems();
+    this.form.group.markAllAsTouched();
+    this.saveProblem.set(error.message);
+  }
+
+  private loadDraft(id: number): void {
+    this.loading.set(true);
+    this.problem.set(null);
+    if (!Number.isFinite(id)) {
+      this.problem.set('This address does not name a revision. Choose a draft from the list.');
+      this.loading.set(false);
+      return;
+    }
+    this.api
+      .revision(id)
+      .pipe(
+        switchMap((revision) => forkJoin({ revision: of(revision), book: this.api.speedBook(revision.speedBookId) })),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe({
+        next: ({ revision, book }) => {
+          this.revision.set(revision);
+          this.book.set(book);
+          this.fillForm(revision);
+          this.loading.set(false);
+        },
+        error: (error: ApiRequestError) => {
+          this.problem.set(error.message);
+          this.loading.set(false);
+        },
+      });
+  }
+
+  private fillForm(revision: RevisionView): void {
+    this.formChanges?.unsubscribe();
+    this.form.load(revision.content);
+    this.changeSummary.setValue(revision.changeSummary);
+    this.checkContent();
+    this.formChanges = this.form.group.valueChanges.pipe(takeUntilDestroyed(this.destroyRef)).subscribe(() => {
+      this.dirty.set(true);
+      this.serverProblems.set({});
+      this.checkContent();
+    });
+    this.changeSummary.valueChanges.pipe(takeUntilDestroyed(this.destroyRef)).subscribe(() => this.dirty.set(true));
+  }
+
+  /** The shared schema's sentences for the content as it stands, placed at their fields. */
+  private checkContent(): void {
+    this.localProblems.set(contentProblems(this.form.content()));
+    this.configurationKeys.set(this.form.configurations.controls.map((c) => c.controls.key.value).filter(Boolean));
+    this.placeProblems();
+  }
+
+  private placeProblems(): void {
+    const problems = this.problems();
+    for (const [path, control] of this.form.fieldControls()) {
+      const sentence = problems[path];
+      control.setErrors(sentence ? { schema: sentence } : null, { emitEvent: false });
+    }
+  }
+}
+
+/**
+ * The schema's problems of `content`. The cross-field rules can throw on a table emptied while
+ * editing (they expect the two points the shape asks for); the shape's own sentences then say
+ * what is missing.
+ */
+function contentProblems(content: Record<string, unknown>): Record<string, string> {
+  try {
+    return revisionContentProblems(content);
+  } catch {
+    const result = revisionContentShape.safeParse(content);
+    const fields: Record<string, string> = {};
+    for (const issue of result.error?.issues ?? []) fields[issue.path.map(String).join('.') || '(content)'] ??= issue.message;
+    return fields;
+  }
+}

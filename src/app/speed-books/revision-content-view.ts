@@ -1,0 +1,81 @@
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { MatIconModule } from '@angular/material/icon';
+import { revisionContentShape } from '../../../shared/speed-book/content-shape';
+import type { RevisionContent, Speed } from '../../../shared/speed-book/revision-content';
+import { gridPages } from './tabulated-grid';
+
+const CATEGORY_LABELS: Record<RevisionContent['aircraft']['category'], string> = {
+  'piston-single': 'Single-engine piston',
+  'piston-twin': 'Piston twin',
+  turboprop: 'Turboprop',
+  jet: 'Jet',
+};
+
+const LIMIT_ROWS: readonly { key: keyof Omit<RevisionContent['limits'], 'vfeKt'>; label: string; unit: 'kt' | 'Mach' }[] = [
+  { key: 'vnoKt', label: 'VNO', unit: 'kt' },
+  { key: 'vneKt', label: 'VNE', unit: 'kt' },
+  { key: 'vmoKt', label: 'VMO', unit: 'kt' },
+  { key: 'mmo', label: 'MMO', unit: 'Mach' },
+  { key: 'vleKt', label: 'VLE', unit: 'kt' },
+  { key: 'vloKt', label: 'VLO', unit: 'kt' },
+  { key: 'vmcKt', label: 'VMC', unit: 'kt' },
+  { key: 'vyseKt', label: 'VYSE', unit: 'kt' },
+];
+
+/**
+ * A revision's content, read-only: aircraft, weights, configurations with their position-error
+ * tables, speeds, limits and notes. The speed book page and the review page show it.
+ */
+@Component({
+  selector: 'sw-revision-content-view',
+  imports: [DecimalPipe, MatIconModule],
+  templateUrl: './revision-content-view.html',
+  styleUrl: './revision-content-view.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class RevisionContentView {
+  readonly content = input.required<Record<string, unknown>>();
+
+  private readonly parsed = computed(() => revisionContentShape.safeParse(this.content()));
+  protected readonly view = computed(() => {
+    const result = this.parsed();
+    return result.success ? result.data : null;
+  });
+  protected readonly categoryLabel = computed(() => {
+    const view = this.view();
+    return view ? CATEGORY_LABELS[view.aircraft.category] : '';
+  });
+  protected readonly limits = computed(() => {
+    const view = this.view();
+    if (!view) return [];
+    return LIMIT_ROWS.filter((row) => view.limits[row.key] !== undefined).map((row) => ({ ...row, value: view.limits[row.key]! }));
+  });
+  protected readonly vfe = computed(() => {
+    const view = this.view();
+    if (!view) return [];
+    return Object.entries(view.limits.vfeKt).map(([key, valueKt]) => ({
+      key,
+      label: view.configurations.find((c) => c.key === key)?.label ?? key,
+      valueKt,
+    }));
+  });
+  protected readonly tabulated = computed(() =>
+    (this.view()?.speeds ?? []).flatMap((speed) => (speed.kind === 'tabulated' ? [{ speed, pages: gridPages(speed) }] : [])),
+  );
+
+  protected configurationLabel(key: string): string {
+    return this.view()?.configurations.find((c) => c.key === key)?.label ?? key;
+  }
+
+  protected speedValue(speed: Speed): string {
+    switch (speed.kind) {
+      case 'fixed':
+        return `${speed.valueKt} kt`;
+      case 'scaled':
+        return `${speed.referenceKt} kt at ${this.view()?.weights.referenceKg ?? '?'} kg, scaled by √(W/Wref)`;
+      case 'tabulated':
+        return `Table against ${['weight', speed.byPressureAltitudeFt ? 'pressure altitude' : '', speed.byOatC ? 'OAT' : ''].filter(Boolean).join(' × ')}`;
+    }
+  }
+}

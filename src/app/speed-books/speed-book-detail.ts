@@ -1,0 +1,169 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { Router, RouterLink } from '@angular/router';
+import { forkJoin } from 'rxjs';
+import type { AircraftTypeView } from '../../../shared/api/fleet';
+import { createRevisionSchema, reasonSchema, type RevisionSummary } from '../../../shared/api/revisions';
+import { can } from '../../../shared/auth/roles';
+import { REVISION_SCHEMA_VERSION } from '../../../shared/speed-book/revision-content';
+import { ApiRequestError } from '../core/api/api-request-error';
+import { AuthService } from '../core/auth/auth-service';
+import { zodValidator } from '../core/forms/zod-validator';
+import { RevisionStatusChip } from './revision-status-chip';
+import { RevisionsApi, type SpeedBook } from './revisions-api';
+import { UtcDatePipe } from './utc-date-pipe';
+
+
+/** One speed book: its current revision, its revision history, and the next step for the person's role. */
+@Component({
+  selector: 'sw-speed-book-detail',
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    RevisionStatusChip,
+    UtcDatePipe,
+  ],
+  templateUrl: './speed-book-detail.html',
+  styleUrl: './speed-books.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SpeedBookDetail {
+  private readonly api = inject(RevisionsApi);
+  private readonly router = inject(Router);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly user = inject(AuthService).user;
+
+  /** NaN when the address does not name a speed book. */
+  readonly bookId = input.required<number>();
+
+  protected readonly loading = signal(true);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly book = signal<SpeedBook | null>(null);
+  protected readonly type = signal<AircraftTypeView | null>(null);
+  protected readonly mayEdit = computed(() => this.userMay('edit-speed-books'));
+  protected readonly mayPublish = computed(() => this.userMay('publish-revisions'));
+  protected readonly openRevision = computed(() => this.book()?.revisions.find((r) => r.status === 'draft' || r.status === 'in_review') ?? null);
+
+  protected readonly changeSummary = new FormControl('', { nonNullable: true, validators: zodValidator(createRevisionSchema.shape.changeSummary) });
+  protected readonly startingDraft = signal(false);
+  protected readonly draftProblem = signal<string | null>(null);
+
+  protected readonly withdrawing = signal<RevisionSummary | null>(null);
+  protected readonly withdrawReason = new FormControl('', { nonNullable: true, validators: zodValidator(reasonSchema.shape.reason) });
+  protected readonly withdrawBusy = signal(false);
+  protected readonly withdrawProblem = signal<string | null>(null);
+
+  constructor() {
+    effect(() => this.loadSpeedBook(this.bookId()));
+  }
+
+  protected reload(): void {
+    this.loadSpeedBook(this.bookId());
+  }
+
+  protected startDraft(): void {
+    const book = this.book();
+    this.changeSummary.markAsTouched();
+    if (!book || this.changeSummary.invalid) return;
+    this.startingDraft.set(true);
+    this.draftProblem.set(null);
+    const changeSummary = this.changeSummary.value.trim();
+    // With nothing published to copy, the first draft starts from the type's own figures.
+    const content = book.revisions.some((r) => r.publishedAt !== null) ? undefined : this.emptyContent();
+    this.api
+      .startDraft(book.id, { changeSummary, ...(content ? { content } : {}) })
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (revision) => void this.router.navigate(['/drafts'], { queryParams: { revision: revision.id } }),
+        error: (error: ApiRequestError) => {
+          this.startingDraft.set(false);
+          this.draftProblem.set(error.fields['changeSummary'] ?? error.message);
+        },
+      });
+  }
+
+  protected askWithdrawReason(revision: RevisionSummary): void {
+    this.withdrawing.set(revision);
+    this.withdrawReason.reset('');
+    this.withdrawProblem.set(null);
+  }
+
+  protected cancelWithdrawal(): void {
+    this.withdrawing.set(null);
+  }
+
+  protected withdrawRevision(): void {
+    const revision = this.withdrawing();
+    this.withdrawReason.markAsTouched();
+    if (!revision || this.withdrawReason.invalid) return;
+    this.withdrawBusy.set(true);
+    this.withdrawProblem.set(null);
+    this.api
+      .withdraw(revision.id, this.withdrawReason.value.trim())
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: () => {
+          this.withdrawBusy.set(false);
+          this.withdrawing.set(null);
+          this.reload();
+        },
+        error: (error: ApiRequestError) => {
+          this.withdrawBusy.set(false);
+          this.withdrawProblem.set(error.fields['reason'] ?? error.message);
+        },
+      });
+  }
+
+  private loadSpeedBook(id: number): void {
+    this.loading.set(true);
+    this.problem.set(null);
+    if (!Number.isFinite(id)) {
+      this.problem.set('This address does not name a speed book. Choose one from the list.');
+      this.loading.set(false);
+      return;
+    }
+    forkJoin({ book: this.api.speedBook(id), types: this.api.aircraftTypes() })
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: ({ book, types }) => {
+          this.book.set(book);
+          this.type.set(types.find((t) => t.id === book.aircraftTypeId) ?? null);
+          this.loading.set(false);
+        },
+        error: (error: ApiRequestError) => {
+          this.problem.set(error.message);
+          this.loading.set(false);
+        },
+      });
+  }
+
+  private emptyContent(): Record<string, unknown> {
+    const type = this.type();
+    return {
+      schemaVersion: REVISION_SCHEMA_VERSION,
+      aircraft: type ? { category: type.category, engines: type.engines, ceilingFt: type.ceilingFt } : {},
+      weights: {},
+      configurations: [],
+      speeds: [],
+      limits: { vfeKt: {} },
+      indicatorMarkingBasis: 'ias',
+      notes: '',
+    };
+  }
+
+  private userMay(capability: 'edit-speed-books' | 'publish-revisions'): boolean {
+    const user = this.user();
+    return user !== null && can(user.role, capability);
+  }
+}

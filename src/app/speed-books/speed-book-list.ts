@@ -1,0 +1,111 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { Router, RouterLink } from '@angular/router';
+import { forkJoin } from 'rxjs';
+import type { AircraftTypeView } from '../../../shared/api/fleet';
+import { createSpeedBookSchema, type SpeedBookSummary } from '../../../shared/api/revisions';
+import { can } from '../../../shared/auth/roles';
+import { ApiRequestError } from '../core/api/api-request-error';
+import { AuthService } from '../core/auth/auth-service';
+import { zodValidator } from '../core/forms/zod-validator';
+import { RevisionsApi } from './revisions-api';
+import { UtcDatePipe } from './utc-date-pipe';
+
+/** The operator's speed books with their current published revision; engineers add one per type. */
+@Component({
+  selector: 'sw-speed-book-list',
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    UtcDatePipe,
+  ],
+  templateUrl: './speed-book-list.html',
+  styleUrl: './speed-books.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SpeedBookList {
+  private readonly api = inject(RevisionsApi);
+  private readonly router = inject(Router);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly user = inject(AuthService).user;
+
+  protected readonly loading = signal(true);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly books = signal<readonly SpeedBookSummary[]>([]);
+  protected readonly types = signal<readonly AircraftTypeView[]>([]);
+  protected readonly mayEdit = computed(() => {
+    const user = this.user();
+    return user !== null && can(user.role, 'edit-speed-books');
+  });
+  /** A type has at most one speed book, so only types without one can get a new one. */
+  protected readonly typesWithoutBook = computed(() => this.types().filter((type) => !this.books().some((book) => book.aircraftTypeId === type.id)));
+  protected readonly creating = signal(false);
+  protected readonly createProblem = signal<string | null>(null);
+  protected readonly newBook = new FormGroup({
+    aircraftTypeId: new FormControl<number | null>(null, zodValidator(createSpeedBookSchema.shape.aircraftTypeId)),
+    title: new FormControl('', { nonNullable: true, validators: zodValidator(createSpeedBookSchema.shape.title) }),
+  });
+
+  constructor() {
+    this.loadSpeedBooks();
+  }
+
+  protected typeName(aircraftTypeId: number): string {
+    const type = this.types().find((t) => t.id === aircraftTypeId);
+    return type ? `${type.designator} · ${type.name}` : `Type ${aircraftTypeId}`;
+  }
+
+  protected loadSpeedBooks(): void {
+    this.loading.set(true);
+    this.problem.set(null);
+    forkJoin({ books: this.api.speedBooks(), types: this.api.aircraftTypes() })
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: ({ books, types }) => {
+          this.books.set(books);
+          this.types.set(types);
+          this.loading.set(false);
+        },
+        error: (error: ApiRequestError) => {
+          this.problem.set(error.message);
+          this.loading.set(false);
+        },
+      });
+  }
+
+  protected suggestTitle(): void {
+    const type = this.types().find((t) => t.id === this.newBook.controls.aircraftTypeId.value);
+    if (type && !this.newBook.controls.title.dirty) this.newBook.controls.title.setValue(`${type.name} speed book`);
+  }
+
+  protected createSpeedBook(): void {
+    this.newBook.markAllAsTouched();
+    if (this.newBook.invalid) return;
+    const { aircraftTypeId, title } = this.newBook.getRawValue();
+    this.creating.set(true);
+    this.createProblem.set(null);
+    this.api
+      .createSpeedBook({ aircraftTypeId: aircraftTypeId!, title: title.trim() })
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (book) => void this.router.navigate(['/speed-books'], { queryParams: { book: book.id } }),
+        error: (error: ApiRequestError) => {
+          this.creating.set(false);
+          this.createProblem.set(error.fields['aircraftTypeId'] ?? error.fields['title'] ?? error.message);
+        },
+      });
+  }
+}
