@@ -106,30 +106,32 @@ export function buildCard(revision: CardRevision, rawInputs: CardInputs, context
   const limits = book.limits();
   const cruise = book.cruise(inputs.cruise);
 
+  // Every object of the card is written with its keys in RFC 8785 order, so that the digest
+  // can use JSON.stringify as it is (card-digest.ts); the order is checked there, not trusted.
   const body: Omit<SpeedCard, 'digest'> = {
-    cardVersion: CARD_VERSION,
-    demo: context.demo,
-    revision: { id: revision.id, number: revision.number, publishedAt: revision.publishedAt, contentSha256: revision.contentSha256 },
-    speedBook: { id: context.speedBook.id, title: context.speedBook.title },
-    airframe: { id: context.airframe.id, registration: context.airframe.registration },
     aircraftType: {
-      designator: context.aircraftType.designator,
-      name: context.aircraftType.name,
       category: content.aircraft.category,
-      engines: content.aircraft.engines,
       ceilingFt: content.aircraft.ceilingFt,
+      designator: context.aircraftType.designator,
+      engines: content.aircraft.engines,
+      name: context.aircraftType.name,
     },
-    inputs,
-    takeoffConfiguration: { key: takeoffConfiguration.key, label: takeoffConfiguration.label },
-    departure: departure.card,
+    airframe: { id: context.airframe.id, registration: context.airframe.registration },
+    altitudeTable: book.altitudeTable(inputs, cruise, limits),
     arrival: arrival?.card ?? null,
-    speeds: speeds.map((speed) => speed.card),
-    stallInTurn: book.stallInTurn(speeds),
-    limits: limits.card,
+    cardVersion: CARD_VERSION,
     crossoverAltitudeFt: limits.crossoverFt,
     cruise: cruise.card,
-    altitudeTable: book.altitudeTable(inputs, cruise, limits),
+    demo: context.demo,
+    departure: departure.card,
     indicator: book.indicator(speeds, limits),
+    inputs: sortedKeys(inputs),
+    limits: limits.card,
+    revision: { contentSha256: revision.contentSha256, id: revision.id, number: revision.number, publishedAt: revision.publishedAt },
+    speedBook: { id: context.speedBook.id, title: context.speedBook.title },
+    speeds: speeds.map((speed) => speed.card),
+    stallInTurn: book.stallInTurn(speeds),
+    takeoffConfiguration: { key: takeoffConfiguration.key, label: takeoffConfiguration.label },
   };
   return { digest: cardDigest(body), ...body };
 }
@@ -177,7 +179,25 @@ function parseInputs(raw: unknown): CardInputs {
   refuse('invalid-inputs', path || '(inputs)', issue.message);
 }
 
+/**
+ * Content already checked, by the content object it was read from: a live card is rebuilt on
+ * every keystroke from the same revision, and hashing and parsing the content is most of the
+ * work. The card is always computed from the parsed, frozen copy taken when the hash matched,
+ * so a later change to the caller's object cannot reach a card; a different published hash is
+ * checked afresh.
+ */
+const checkedContents = new WeakMap<object, { contentSha256: string; content: RevisionContent }>();
+
 function checkedContent(revision: CardRevision): RevisionContent {
+  const raw = revision.content;
+  const cached = typeof raw === 'object' && raw !== null ? checkedContents.get(raw) : undefined;
+  if (cached && cached.contentSha256 === revision.contentSha256) return cached.content;
+  const content = verifiedContent(revision);
+  if (typeof raw === 'object' && raw !== null) checkedContents.set(raw, { contentSha256: revision.contentSha256, content });
+  return content;
+}
+
+function verifiedContent(revision: CardRevision): RevisionContent {
   if (contentSha256(revision.content) !== revision.contentSha256) {
     refuse(
       'content-hash-mismatch',
@@ -190,7 +210,16 @@ function checkedContent(revision: CardRevision): RevisionContent {
     const issue = parsed.error.issues[0];
     refuse('invalid-content', 'revision', `Revision ${revision.number} is not complete (${issue.path.join('.')}: ${issue.message})`);
   }
-  return parsed.data;
+  return deepFreeze(parsed.data);
+}
+
+/** Freezes `value` and everything in it (zod's parse output is a fresh copy, so nothing of the caller's). */
+function deepFreeze<T>(value: T): T {
+  if (typeof value === 'object' && value !== null && !Object.isFrozen(value)) {
+    Object.freeze(value);
+    for (const item of Object.values(value)) deepFreeze(item);
+  }
+  return value;
 }
 
 const kg = (value: number) => `${group(Math.round(value))} kg`;
@@ -221,6 +250,18 @@ function checkWeights(content: RevisionContent, inputs: CardInputs): void {
   }
 }
 
+/** A copy of plain data with every object's keys in UTF-16 order (the inputs, as zod returns them in schema order). */
+function sortedKeys<T>(value: T): T {
+  if (Array.isArray(value)) return value.map(sortedKeys) as T;
+  if (typeof value !== 'object' || value === null) return value;
+  const sorted: Record<string, unknown> = {};
+  for (const key of Object.keys(value).sort()) {
+    const item = (value as Record<string, unknown>)[key];
+    if (item !== undefined) sorted[key] = sortedKeys(item);
+  }
+  return sorted as T;
+}
+
 // ---------------------------------------------------------------------------------------------
 // Aerodromes
 
@@ -249,10 +290,10 @@ function aerodrome(conditions: AerodromeConditions, where: 'departure' | 'arriva
         pressureAltitudeFt: pressureFt,
         oatC,
         card: {
-          pressureAltitudeFt: roundFt(pressureFt),
           densityAltitudeFt: roundFt(densityFt),
-          isaDeviationC: round1(deviationC),
           highDensityAltitude: densityFt >= HIGH_DENSITY_ALTITUDE_FT || densityFt - elevationFt >= HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT,
+          isaDeviationC: round1(deviationC),
+          pressureAltitudeFt: roundFt(pressureFt),
         },
       };
     },
@@ -359,17 +400,17 @@ class SpeedBook {
           casKt,
           table,
           card: {
+            basis: speed.basis,
+            casKt: round(casKt),
             code: speed.code,
-            label: speed.label,
-            phase: speed.phase,
             configurationKey: speed.configurationKey,
             configurationLabel: configuration.label,
-            kind: speed.kind,
-            basis: speed.basis,
-            weightKg,
             iasKt: round(iasKt),
-            casKt: round(casKt),
+            kind: speed.kind,
+            label: speed.label,
+            phase: speed.phase,
             rounding: stall ? 'stall-up' : 'nearest',
+            weightKg,
           },
         };
       },
@@ -388,7 +429,7 @@ class SpeedBook {
         () => {
           const loadFactor = loadFactorInTurn(bankDeg);
           const casKt = vs1.casKt * Math.sqrt(loadFactor);
-          return { bankDeg, loadFactor: round2(loadFactor), iasKt: roundStallKt(casToIasKt(vs1.table, casKt)), casKt: roundStallKt(casKt) };
+          return { bankDeg, casKt: roundStallKt(casKt), iasKt: roundStallKt(casToIasKt(vs1.table, casKt)), loadFactor: round2(loadFactor) };
         },
         () => 'weightKg',
         `${vs1.card.code} in a ${bankDeg}° bank: `,
@@ -404,7 +445,8 @@ class SpeedBook {
     for (const configuration of configurations) {
       const valueKt = limits.vfeKt[configuration.key];
       if (valueKt === undefined) continue;
-      vfe.push({ configurationKey: configuration.key, configurationLabel: configuration.label, ...this.limit('VFE', valueKt, configuration, basis).card });
+      const { casKt, iasKt } = this.limit('VFE', valueKt, configuration, basis).card;
+      vfe.push({ casKt, configurationKey: configuration.key, configurationLabel: configuration.label, iasKt });
     }
     const vmo = limits.vmoKt === undefined ? null : this.limit('VMO', limits.vmoKt, cruise, basis);
     const vne = limits.vneKt === undefined ? null : this.limit('VNE', limits.vneKt, cruise, basis);
@@ -416,9 +458,6 @@ class SpeedBook {
     return {
       card: {
         basis,
-        vno: optional('VNO', limits.vnoKt),
-        vne: vne?.card ?? null,
-        vmo: vmo?.card ?? null,
         mmo: mmo === null ? null : round3(mmo),
         vfe,
         vle: optional('VLE', limits.vleKt),
@@ -426,6 +465,9 @@ class SpeedBook {
         // VMC is a minimum: rounding it down would promise control below it, so it is rounded
         // up like a stall speed (the reason limits are rounded down, turned the other way).
         vmc: vmc?.card ?? null,
+        vmo: vmo?.card ?? null,
+        vne: vne?.card ?? null,
+        vno: optional('VNO', limits.vnoKt),
         // VYSE is a target speed, not a limit: nearest knot.
         vyse: optional('VYSE', limits.vyseKt, roundSpeedKt),
       },
@@ -449,7 +491,7 @@ class SpeedBook {
         const table = configuration.positionError;
         const casKt = basis === 'cas' ? valueKt : iasToCasKt(table, valueKt);
         const iasKt = basis === 'ias' ? valueKt : casToIasKt(table, valueKt);
-        return { casKt, card: { iasKt: round(iasKt), casKt: round(casKt) } };
+        return { casKt, card: { casKt: round(casKt), iasKt: round(iasKt) } };
       },
       () => 'revision',
       `${code} through the ${configuration.label} position-error table: `,
@@ -459,7 +501,7 @@ class SpeedBook {
   cruise(cruise: CardInputs['cruise']): ComputedCruise {
     if ('mach' in cruise) return { card: { mach: cruise.mach }, casKt: null };
     const casKt = guarded(() => iasToCasKt(this.cruiseTable, cruise.iasKt), () => 'cruise.iasKt', 'Cruise: ');
-    return { card: { iasKt: cruise.iasKt, casKt: roundSpeedKt(casKt) }, casKt };
+    return { card: { casKt: roundSpeedKt(casKt), iasKt: cruise.iasKt }, casKt };
   }
 
   /** Rows from 0 ft every `altitudeStepFt` below the ceiling, then the ceiling, on the day's ISA deviation. */
@@ -501,17 +543,17 @@ class SpeedBook {
       limitKind = 'vne';
     }
     return {
-      pressureAltitudeFt,
-      oatC: round1(oatC),
-      iasKt,
+      aboveLimit: limitCasKt !== null && speeds.casKt > limitCasKt + 1e-9,
       casKt: roundSpeedKt(speeds.casKt),
       easKt: roundSpeedKt(speeds.easKt),
-      tasKt: roundSpeedKt(speeds.tasKt),
-      mach: round3(speeds.mach),
-      limitIasKt: limitCasKt === null ? null : this.iasWithinTable(limitCasKt, roundLimitKt),
+      iasKt,
       limitCasKt: limitCasKt === null ? null : roundLimitKt(limitCasKt),
+      limitIasKt: limitCasKt === null ? null : this.iasWithinTable(limitCasKt, roundLimitKt),
       limitKind,
-      aboveLimit: limitCasKt !== null && speeds.casKt > limitCasKt + 1e-9,
+      mach: round3(speeds.mach),
+      oatC: round1(oatC),
+      pressureAltitudeFt,
+      tasKt: roundSpeedKt(speeds.tasKt),
     };
   }
 
@@ -544,7 +586,7 @@ class SpeedBook {
     };
     const lines: CardIndicatorLine[] = [];
     const line = (colour: CardIndicatorLine['colour'], code: CardIndicatorLine['code'], kt: number | null) => {
-      if (kt !== null) lines.push({ colour, code, kt });
+      if (kt !== null) lines.push({ code, colour, kt });
     };
 
     arc('white', vs0, vfeTop);
@@ -561,6 +603,6 @@ class SpeedBook {
     } else {
       line('red', 'VNE', vne);
     }
-    return { basis, arcs, lines };
+    return { arcs, basis, lines };
   }
 }

@@ -2,3 +2,4 @@
 export * from './card';
 export { buildCard, takeoffConfigurationKeys, HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT, HIGH_DENSITY_ALTITUDE_FT } from './build-card';
 export { cardDigest } from './card-digest';
+export * from './card-api';
