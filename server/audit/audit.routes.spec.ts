@@ -83,6 +83,14 @@ describe('GET /api/audit', () => {
     expect(demo.events.some((e) => e.details?.['designator'] === 'LKS9')).toBe(false);
   });
 
+  it('records the making of an operator’s signing key once, however many ask for it at once', async () => {
+    const [a, b] = await Promise.all([as.secondPilot.agent.get('/api/operator/signing-key').expect(200), as.secondAdmin.agent.get('/api/operator/signing-key').expect(200)]);
+    expect(a.body.signingKey).toEqual(b.body.signingKey);
+    const made = auditPageSchema.parse((await as.secondAdmin.agent.get('/api/audit?action=signing-key.created').expect(200)).body);
+    expect(made.events).toHaveLength(1);
+    expect(made.events[0]).toMatchObject({ entityType: 'signing-key', entityId: String(a.body.signingKey.id), details: { algorithm: 'Ed25519', publicKey: a.body.signingKey.publicKey } });
+  });
+
   it('names a bad filter field by field', async () => {
     const res = await as.admin.agent.get('/api/audit?limit=0&from=yesterday&cursor=abc&colour=red').expect(400);
     expect(res.body.error.fields).toEqual({

@@ -1,5 +1,6 @@
 import { Router } from 'express';
-import { requireCapability, operatorScope } from '../middleware/authorize';
+import { actorOf } from '../audit/actor';
+import { requireCapability } from '../middleware/authorize';
 import { Revision } from '../models';
 import { activeSigningKey } from '../revisions/signing';
 
@@ -7,9 +8,9 @@ import { activeSigningKey } from '../revisions/signing';
 export function operatorRoutes({ signingKeySecret }: { signingKeySecret: string }): Router {
   const router = Router();
   router.get('/signing-key', requireCapability('read-published'), async (req, res) => {
-    const operatorId = operatorScope(req);
+    const actor = actorOf(req);
     // Made on first need, like at the first publication; locked so two first calls make one.
-    const key = await Revision.sequelize!.transaction((transaction) => activeSigningKey(operatorId, signingKeySecret, transaction));
+    const key = await Revision.sequelize!.transaction((transaction) => activeSigningKey(actor.operatorId, signingKeySecret, transaction, actor));
     res.json({
       signingKey: { id: key.id, algorithm: 'Ed25519', publicKey: key.publicKey, publicKeyEncoding: 'raw-base64', createdAt: key.createdAt.toISOString() },
     });

@@ -29,7 +29,9 @@ export const seesOpenRevisions = (role: Role) => can(role, 'edit-speed-books');
 
 const transact = <T>(work: (transaction: Transaction) => Promise<T>) => Revision.sequelize!.transaction(work);
 
+/** The revision as stored (timestamps in whole seconds), the same as any later GET shows it. */
 async function detail(operatorId: number, revision: Revision): Promise<RevisionView> {
+  await revision.reload();
   return revisionDetail(revision, await peopleNames(operatorId, [revision]));
 }
 
@@ -210,7 +212,7 @@ export async function approveRevision(actor: Actor, id: number, signingKeySecret
     const fields = await contentProblems(revision, book, transaction);
     if (Object.keys(fields).length) throw new HttpError(422, 'content_invalid', 'The revision’s content is not valid; return it to its author.', fields);
 
-    const key = await activeSigningKey(actor.operatorId, signingKeySecret, transaction);
+    const key = await activeSigningKey(actor.operatorId, signingKeySecret, transaction, actor);
     // Whole seconds: what is signed must survive the round trip through a DATETIME column.
     const publishedAt = new Date(Math.floor(Date.now() / 1000) * 1000);
     const content = revisionContentSchema.parse(JSON.parse(revision.content));

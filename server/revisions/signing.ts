@@ -6,6 +6,8 @@
  */
 import { createCipheriv, createDecipheriv, createPrivateKey, createPublicKey, generateKeyPairSync, hkdfSync, randomBytes, sign, verify, type KeyObject } from 'node:crypto';
 import type { Transaction } from 'sequelize';
+import type { Actor } from '../audit/actor';
+import { recordAudit } from '../audit/audit.service';
 import { Operator, SigningKey } from '../models';
 
 const FORMAT = 'v1';
@@ -49,15 +51,22 @@ export function publicKeyFromRaw(publicKeyBase64: string): KeyObject {
  * The operator's active key, made (and stored encrypted) when it has none. Locks the operator's
  * row so two first publications at once make one key.
  */
-export async function activeSigningKey(operatorId: number, secret: string, transaction: Transaction): Promise<SigningKey> {
+export async function activeSigningKey(operatorId: number, secret: string, transaction: Transaction, actor?: Actor): Promise<SigningKey> {
   await Operator.findByPk(operatorId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
   const existing = await SigningKey.findOne({ where: { operatorId, active: true }, order: [['id', 'DESC']], transaction });
   if (existing) return existing;
   const { publicKey, privateKey } = generateKeyPairSync('ed25519');
-  return SigningKey.create(
+  const key = await SigningKey.create(
     { operatorId, publicKey: rawPublicKey(publicKey), encryptedPrivateKey: encryptPrivateKey(privateKey, secret), active: true },
     { transaction },
   );
+  // As stored (whole seconds), so the first answer matches every later one.
+  await key.reload({ transaction });
+  await recordAudit(
+    { operatorId, actorId: actor?.userId ?? null, action: 'signing-key.created', entityType: 'signing-key', entityId: key.id, details: { algorithm: 'Ed25519', publicKey: key.publicKey }, req: actor?.req },
+    transaction,
+  );
+  return key;
 }
 
 /** Ed25519 signature (64 bytes, standard base64) of the UTF-8 bytes of `statement`. */
