@@ -5,6 +5,7 @@ import * as sessionsAndRateLimits from './migrations/20261201-0002-sessions-and-
 import * as auditEvents from './migrations/20261201-0101-audit-events';
 import * as fleetSpeedBooksRevisions from './migrations/20261201-0102-fleet-speed-books-revisions';
 import * as invitationsAndPasswordResets from './migrations/20261201-0201-invitations-and-password-resets';
+import * as attachments from './migrations/20261201-0202-attachments';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -19,6 +20,7 @@ const MIGRATIONS: { name: string; module: { up: Migration; down: Migration } }[]
   { name: '20261201-0101-audit-events', module: auditEvents },
   { name: '20261201-0102-fleet-speed-books-revisions', module: fleetSpeedBooksRevisions },
   { name: '20261201-0201-invitations-and-password-resets', module: invitationsAndPasswordResets },
+  { name: '20261201-0202-attachments', module: attachments },
 ];
 
 export function createMigrator(sequelize: Sequelize, logger: Umzug<QueryInterface>['options']['logger'] = undefined): Umzug<QueryInterface> {

@@ -10,6 +10,7 @@ import helmet from 'helmet';
 import type { Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 import type { Sequelize } from 'sequelize';
+import { attachmentsRoutes } from './attachments/attachments.routes';
 import { accountLinksRoutes } from './auth/account-links.routes';
 import { authRoutes } from './auth/auth.routes';
 import { configurePassport } from './auth/passport';
@@ -163,6 +164,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   app.use('/api/auth', accountLinksRoutes({ limiter: accountLinkLimiter }));
   if (config.MAILBOX_DIR) app.use('/api/dev/mailbox', mailboxRoutes(resolve(config.MAILBOX_DIR)));
   app.use('/api/uploads', uploadsRoutes());
+  app.use('/api', attachmentsRoutes({ attachmentsDir: config.ATTACHMENTS_DIR }));
   app.use('/api', apiNotFound);
 
   serveWebApp(app, resolve(config.APP_DIST));

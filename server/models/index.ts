@@ -1,5 +1,6 @@
 import type { Sequelize } from 'sequelize';
 import { AircraftType } from './aircraft-type';
+import { Attachment } from './attachment';
 import { Airframe } from './airframe';
 import { AuditEvent } from './audit-event';
 import { Invitation } from './invitation';
@@ -10,7 +11,7 @@ import { SigningKey } from './signing-key';
 import { SpeedBook } from './speed-book';
 import { User } from './user';
 
-export { AuditEvent, Invitation, Operator, PasswordResetToken, User };
+export { Attachment, AuditEvent, Invitation, Operator, PasswordResetToken, User };
 
 export { AircraftType, Airframe, Revision, SigningKey, SpeedBook };
 
@@ -26,6 +27,7 @@ export function initModels(sequelize: Sequelize): void {
   Revision.initModel(sequelize);
   Invitation.initModel(sequelize);
   PasswordResetToken.initModel(sequelize);
+  Attachment.initModel(sequelize);
 
   Operator.hasMany(User, { foreignKey: 'operatorId', as: 'users' });
   User.belongsTo(Operator, { foreignKey: 'operatorId', as: 'operator' });
@@ -43,4 +45,7 @@ export function initModels(sequelize: Sequelize): void {
   Invitation.belongsTo(Operator, { foreignKey: 'operatorId', as: 'operator' });
   Invitation.belongsTo(User, { foreignKey: 'invitedById', as: 'invitedBy' });
   PasswordResetToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  Revision.hasMany(Attachment, { foreignKey: 'revisionId', as: 'attachments' });
+  Attachment.belongsTo(Revision, { foreignKey: 'revisionId', as: 'revision' });
+  Attachment.belongsTo(User, { foreignKey: 'uploadedById', as: 'uploadedBy' });
 }

@@ -47,6 +47,7 @@ import {
   speedBookResponseSchema,
   updateRevisionSchema,
 } from '../../shared/api/revisions';
+import { attachmentListSchema, attachmentResponseSchema } from '../../shared/api/attachments';
 import { speedTableUploadSchema } from '../../shared/api/uploads';
 import { revisionContentSchema } from '../../shared/speed-book/revision-content';
 
@@ -170,6 +171,13 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   route('post', '/api/revisions/:id/return', { summary: 'In review → draft, with a reason', tags: ['revisions'], who: 'publish-revisions (not the author)', params: true, body: reasonSchema, ok: { status: 200, schema: revisionResponseSchema }, errors: [409] });
   route('post', '/api/revisions/:id/withdraw', { summary: 'Published → withdrawn, with a reason', tags: ['revisions'], who: 'publish-revisions', params: true, body: reasonSchema, ok: { status: 200, schema: revisionResponseSchema }, errors: [409] });
   route('get', '/api/revisions/:id/diff', { summary: 'Field-by-field changes from ?against to this revision', tags: ['revisions'], who: 'read-published', params: true, query: diffQuerySchema, ok: { status: 200, schema: revisionDiffSchema } });
+  route('get', '/api/revisions/:id/attachments', { summary: 'The source pages of a revision', tags: ['revisions'], who: 'read-published (drafts: edit-speed-books)', params: true, ok: { status: 200, schema: attachmentListSchema } });
+  route('post', '/api/revisions/:id/attachments', {
+    summary: 'Attach a source page (PDF, PNG or JPEG, recognised by content) while draft or in review',
+    tags: ['revisions'], who: 'edit-speed-books', params: true, upload: 'One PDF, PNG or JPEG file, at most 10 MB.', ok: { status: 201, schema: attachmentResponseSchema }, errors: [400, 409, 413, 415],
+  });
+  route('get', '/api/attachments/:id', { summary: 'The file of a source page, inline, with its content type', tags: ['revisions'], who: 'read-published (drafts: edit-speed-books)', params: true, ok: { status: 200, description: 'The file (application/pdf, image/png or image/jpeg)' }, errors: [410] });
+  route('delete', '/api/attachments/:id', { summary: 'Remove a source page while the revision is a draft', tags: ['revisions'], who: 'edit-speed-books', params: true, ok: { status: 204, description: 'Removed' }, errors: [409] });
 
   route('get', '/api/operator/signing-key', { summary: 'The operator’s Ed25519 public key', tags: ['operator'], who: 'read-published', ok: { status: 200, schema: signingKeyResponseSchema } });
   route('get', '/api/audit', { summary: 'The audit trail, newest first, filtered and paginated', tags: ['audit'], who: 'read-audit', query: auditQuerySchema, ok: { status: 200, schema: auditPageSchema } });
