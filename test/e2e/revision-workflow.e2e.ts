@@ -13,7 +13,7 @@ import { expectText, signInThroughPage as signIn } from './page-helpers';
  */
 const BOOK = 'Sedgeling 4 speed book';
 
-/** The trainer's flaps-up table with three CAS figures changed; the bad one has a decimal comma. */
+/** The trainer's flaps-up table with four CAS figures changed; the bad one has a decimal comma. */
 const positionErrorCsv = (cas100: string) =>
   ['configuration_key,ias_kt,cas_kt', 'clean,35,44', 'clean,60,63', 'clean,80,81', `clean,100,${cas100}`, 'clean,120,118', 'clean,140,137', 'clean,160,156', ''].join('\n');
 
@@ -85,7 +85,7 @@ describe('revision workflow in Chromium', () => {
     const row = diff.locator('tr', { hasText: 'configurations[clean].positionError.3.casKt' });
     expect(await row.locator('td.before').innerText()).toBe('100');
     expect(await row.locator('td.after').innerText()).toBe('99.5');
-    expect(await diff.locator('tbody tr').count()).toBe(3);
+    expect(await diff.locator('tbody tr').count()).toBe(4);
     await approver.getByTestId('publish').click();
     await expectText(approver.getByTestId('review-outcome'), 'Revision 3 is published and signed');
     await approver.context().close();
