@@ -6,6 +6,7 @@ import * as auditEvents from './migrations/20261201-0101-audit-events';
 import * as fleetSpeedBooksRevisions from './migrations/20261201-0102-fleet-speed-books-revisions';
 import * as invitationsAndPasswordResets from './migrations/20261201-0201-invitations-and-password-resets';
 import * as attachments from './migrations/20261201-0202-attachments';
+import * as cardIssues from './migrations/20261201-0501-card-issues';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -21,6 +22,7 @@ const MIGRATIONS: { name: string; module: { up: Migration; down: Migration } }[]
   { name: '20261201-0102-fleet-speed-books-revisions', module: fleetSpeedBooksRevisions },
   { name: '20261201-0201-invitations-and-password-resets', module: invitationsAndPasswordResets },
   { name: '20261201-0202-attachments', module: attachments },
+  { name: '20261201-0501-card-issues', module: cardIssues },
 ];
 
 export function createMigrator(sequelize: Sequelize, logger: Umzug<QueryInterface>['options']['logger'] = undefined): Umzug<QueryInterface> {

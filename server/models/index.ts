@@ -3,6 +3,7 @@ import { AircraftType } from './aircraft-type';
 import { Attachment } from './attachment';
 import { Airframe } from './airframe';
 import { AuditEvent } from './audit-event';
+import { CardIssue } from './card-issue';
 import { Invitation } from './invitation';
 import { Operator } from './operator';
 import { PasswordResetToken } from './password-reset-token';
@@ -14,6 +15,8 @@ import { User } from './user';
 export { Attachment, AuditEvent, Invitation, Operator, PasswordResetToken, User };
 
 export { AircraftType, Airframe, Revision, SigningKey, SpeedBook };
+
+export { CardIssue };
 
 /** Registers every model and, in one place, every association. */
 export function initModels(sequelize: Sequelize): void {
@@ -28,6 +31,7 @@ export function initModels(sequelize: Sequelize): void {
   Invitation.initModel(sequelize);
   PasswordResetToken.initModel(sequelize);
   Attachment.initModel(sequelize);
+  CardIssue.initModel(sequelize);
 
   Operator.hasMany(User, { foreignKey: 'operatorId', as: 'users' });
   User.belongsTo(Operator, { foreignKey: 'operatorId', as: 'operator' });
@@ -48,4 +52,7 @@ export function initModels(sequelize: Sequelize): void {
   Revision.hasMany(Attachment, { foreignKey: 'revisionId', as: 'attachments' });
   Attachment.belongsTo(Revision, { foreignKey: 'revisionId', as: 'revision' });
   Attachment.belongsTo(User, { foreignKey: 'uploadedById', as: 'uploadedBy' });
+  CardIssue.belongsTo(Airframe, { foreignKey: 'airframeId', as: 'airframe' });
+  CardIssue.belongsTo(Revision, { foreignKey: 'revisionId', as: 'revision' });
+  CardIssue.belongsTo(User, { foreignKey: 'issuedById', as: 'issuedBy' });
 }

@@ -50,6 +50,15 @@ import {
 import { attachmentListSchema, attachmentResponseSchema } from '../../shared/api/attachments';
 import { speedTableUploadSchema } from '../../shared/api/uploads';
 import { revisionContentSchema } from '../../shared/speed-book/revision-content';
+import {
+  cardIssueBatchResponseSchema,
+  cardIssueBatchSchema,
+  cardIssuePageSchema,
+  cardIssueQuerySchema,
+  cardIssueResponseSchema,
+  cardPreviewRequestSchema,
+  cardPreviewResponseSchema,
+} from '../../shared/card/card-api';
 
 type Method = RouteConfig['method'];
 
@@ -182,6 +191,16 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   route('get', '/api/operator/signing-key', { summary: 'The operator’s Ed25519 public key', tags: ['operator'], who: 'read-published', ok: { status: 200, schema: signingKeyResponseSchema } });
   route('get', '/api/audit', { summary: 'The audit trail, newest first, filtered and paginated', tags: ['audit'], who: 'read-audit', query: auditQuerySchema, ok: { status: 200, schema: auditPageSchema } });
 
+  route('post', '/api/cards/preview', {
+    summary: 'A speed card computed from a revision and inputs (422 `card_refused` with the input at fault)',
+    tags: ['cards'], who: 'prepare-cards (drafts: edit-speed-books)', body: cardPreviewRequestSchema, ok: { status: 200, schema: cardPreviewResponseSchema }, errors: [404, 409, 422],
+  });
+  route('post', '/api/card-issues', {
+    summary: 'Report issued cards (idempotent by entry id; each card re-derived; one result per entry)',
+    tags: ['cards'], who: 'prepare-cards', body: cardIssueBatchSchema, ok: { status: 200, schema: cardIssueBatchResponseSchema },
+  });
+  route('get', '/api/card-issues', { summary: 'The card log, newest first (pilots: their own cards)', tags: ['cards'], who: 'read-card-log or prepare-cards', query: cardIssueQuerySchema, ok: { status: 200, schema: cardIssuePageSchema } });
+  route('get', '/api/card-issues/:id', { summary: 'One card log entry', tags: ['cards'], who: 'read-card-log or prepare-cards', params: true, ok: { status: 200, schema: cardIssueResponseSchema } });
 
   return new OpenApiGeneratorV31(registry.definitions).generateDocument({
     openapi: '3.1.0',
