@@ -84,7 +84,7 @@ describe('people and fleet in Chromium', () => {
     await again.getByLabel('New password', { exact: true }).fill(password);
     await again.getByLabel('New password again').fill(password);
     await again.getByRole('button', { name: 'Set password' }).click();
-    await expectText(again.getByTestId('account-error'), 'This invitation has already been used.');
+    await expectText(again.getByTestId('link-problem'), 'This invitation has already been used.');
 
     // Back on the admin's list, the person is active now.
     await openFromNavigation(admin, 'People', '/people');

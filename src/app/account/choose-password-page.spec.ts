@@ -81,13 +81,26 @@ describe('ChoosePasswordPage', () => {
     expect(page().querySelector('form')).toBeNull();
   });
 
-  it('shows the server’s sentence when the invitation is spent, and keeps the form for another try', async () => {
+  it('shows the server’s sentence when the invitation is spent, with no form left to try again', async () => {
     await harness.navigateByUrl(`/invitation#token=${TOKEN}`);
     await type('New password', PASSWORD);
     await type('New password again', PASSWORD);
     await submit();
     const sentence = 'This invitation has already been used. Sign in with the password you chose, or ask for a password reset.';
     backend.expectOne(API_PATHS.acceptInvitation).flush({ error: { code: 'link_used', message: sentence } }, { status: 410, statusText: 'Gone' });
+    await harness.fixture.whenStable();
+    expect(page().querySelector('[data-testid="link-problem"]')?.textContent?.trim()).toBe(sentence);
+    expect(page().querySelector('form')).toBeNull();
+    expect(page().querySelector('a[href="/sign-in"]')?.textContent?.trim()).toBe('Go to sign-in');
+  });
+
+  it('keeps the form when the server refuses for a reason a second try can fix', async () => {
+    await harness.navigateByUrl(`/reset-password#token=${TOKEN}`);
+    await type('New password', PASSWORD);
+    await type('New password again', PASSWORD);
+    await submit();
+    const sentence = 'Too many requests from this device. Wait 15 minutes and try again.';
+    backend.expectOne(API_PATHS.passwordResetConfirm).flush({ error: { code: 'too_many_attempts', message: sentence } }, { status: 429, statusText: 'x' });
     await harness.fixture.whenStable();
     expect(page().querySelector('[data-testid="account-error"]')?.textContent?.trim()).toBe(sentence);
     expect(page().querySelector('form')).not.toBeNull();

@@ -33,6 +33,9 @@ const WORDING: Readonly<Record<PasswordLinkKind, { title: string; lead: string; 
   },
 };
 
+/** The server's codes for a link that no second try can make work (`server/auth/link-tokens.ts`). */
+const DEAD_LINK_CODES = new Set(['invalid_link', 'link_used', 'link_replaced', 'link_expired']);
+
 /** Whoever holds the token from the mail chooses a password here, without signing in first. */
 @Component({
   selector: 'sw-choose-password-page',
@@ -50,7 +53,9 @@ export class ChoosePasswordPage {
   readonly kind = input<PasswordLinkKind>('invitation');
 
   protected readonly wording = computed(() => WORDING[this.kind()]);
-  protected readonly link = readLinkToken(this.route.snapshot.fragment, this.route.snapshot.queryParamMap.get('token'));
+  private readonly link = readLinkToken(this.route.snapshot.fragment, this.route.snapshot.queryParamMap.get('token'));
+  /** Why this link cannot set a password: incomplete, unknown, used, replaced or expired. */
+  protected readonly linkProblem = signal('problem' in this.link ? this.link.problem : null);
   protected readonly form = inject(NonNullableFormBuilder).group({
     password: ['', zodValidator(newPasswordSchema)],
     repeat: ['', sameAsPassword],
@@ -87,7 +92,11 @@ export class ChoosePasswordPage {
       .subscribe({
         next: ({ email }) => this.doneFor.set(email),
         error: (error: ApiRequestError) => {
-          if (showServerFieldErrors(this.form, error)) this.problem.set(error.message);
+          if (DEAD_LINK_CODES.has(error.code)) {
+            this.linkProblem.set(error.message);
+          } else if (showServerFieldErrors(this.form, error)) {
+            this.problem.set(error.message);
+          }
         },
       });
   }

@@ -128,7 +128,7 @@ describe('AuditPage', () => {
     toggle.click();
     await fixture.whenStable();
     const details = Array.from(page.querySelectorAll('[data-testid="audit-details"] dt')).map((dt) => `${dt.textContent!.trim()}: ${dt.nextElementSibling!.textContent!.trim()}`);
-    expect(details).toEqual(['active: true → false', 'From address: 192.0.2.7', 'Browser or device: Mozilla/5.0 (X11; Linux x86_64)']);
+    expect(details).toEqual(['Active: true → false', 'From address: 192.0.2.7', 'Browser or device: Mozilla/5.0 (X11; Linux x86_64)']);
     expect(toggle.getAttribute('aria-expanded')).toBe('true');
   });
 

@@ -29,7 +29,7 @@ export function toAuditRow(event: AuditEventView): AuditRow {
     personLabel: event.actorName ?? (event.actorId === null ? 'Nobody signed in' : `Person #${event.actorId}`),
     actionLabel: actionLabel(event.action),
     recordLabel: event.entityId === null ? entityLabel(event.entityType) : `${entityLabel(event.entityType)} #${event.entityId}`,
-    details: Object.entries(event.details ?? {}).map(([name, value]) => ({ name, value: describe(value) })),
+    details: Object.entries(event.details ?? {}).map(([name, value]) => ({ name: inWords(name), value: describe(value) })),
     ip: event.ip,
     userAgent: event.userAgent,
   };
@@ -38,7 +38,8 @@ export function toAuditRow(event: AuditEventView): AuditRow {
 /** A change recorded as `{ before, after }` reads "before → after"; anything else as compact JSON. */
 function describe(value: unknown): string {
   if (isChange(value)) return `${describe(value.before)} → ${describe(value.after)}`;
-  if (value === null || value === undefined) return 'none';
+  if (value === null || value === undefined || (Array.isArray(value) && value.length === 0)) return 'none';
+  if (Array.isArray(value) && value.every((item) => typeof item !== 'object')) return value.join(', ');
   if (typeof value === 'string') return value;
   if (typeof value === 'number' || typeof value === 'boolean') return String(value);
   return JSON.stringify(value);
@@ -46,4 +47,10 @@ function describe(value: unknown): string {
 
 function isChange(value: unknown): value is { before: unknown; after: unknown } {
   return typeof value === 'object' && value !== null && 'before' in value && 'after' in value && Object.keys(value).length === 2;
+}
+
+/** `supersededRevisionIds` → "Superseded revision ids". */
+function inWords(name: string): string {
+  const words = name.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase();
+  return words.charAt(0).toUpperCase() + words.slice(1);
 }

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { AbstractControl, NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -35,7 +35,7 @@ export class InvitePersonDialog {
   protected readonly form = inject(NonNullableFormBuilder).group({
     email: ['', zodValidator(fields.email)],
     displayName: ['', zodValidator(fields.displayName)],
-    role: [null as Role | null, zodValidator(fields.role)],
+    role: [null as Role | null, (control: AbstractControl<Role | null>) => (control.value ? null : { schema: 'Choose the role this person will have.' })],
   });
   protected readonly roleSummary = toSignal(
     this.form.controls.role.valueChanges.pipe(map((role) => (role ? ROLE_SUMMARIES[role] : null))),

@@ -166,7 +166,7 @@ describe('PeoplePage', () => {
     await fixture.whenStable();
     expect(dialog.textContent).toContain('Enter an e-mail address such as name@example.com.');
     expect(dialog.textContent).toContain('Enter the name colleagues know this person by.');
-    expect(dialog.textContent).toContain('Choose one of the roles');
+    expect(dialog.textContent).toContain('Choose the role this person will have.');
 
     const [email, name] = Array.from(dialog.querySelectorAll<HTMLInputElement>('input[matinput]'));
     await type(email, ' Lee.Quarry@Demo.Speedwright.Example ');
