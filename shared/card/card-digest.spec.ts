@@ -11,14 +11,7 @@ import type { RevisionContent } from '../speed-book/revision-content';
 import { buildCard, takeoffConfigurationKeys } from './build-card';
 import { CardRefusedError, type CardInputs, type SpeedCard } from './card';
 import { canonicalCardJson, cardDigest } from './card-digest';
-import { handPistonContent, handPistonInputs, HAND_CONTEXT, revisionOf } from './test-fixtures';
-
-/**
- * The digest of the hand-worked piston card (test-fixtures.ts). It changes whenever anything
- * on that card changes: when it does on purpose, update it here, in test/e2e/card-digest.e2e.ts,
- * and raise CARD_VERSION if a field changed its meaning.
- */
-export const HAND_PISTON_CARD_DIGEST = '4cc69e6bb6b1e1a3ac6724e82638cb45bde6a349459ff76776a1f7913cfdae62';
+import { HAND_PISTON_CARD_DIGEST, handPistonContent, handPistonInputs, HAND_CONTEXT, revisionOf } from './test-fixtures';
 
 describe('cardDigest', () => {
   it('is the SHA-256 of the canonical JSON of the card without its digest', () => {

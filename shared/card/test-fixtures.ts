@@ -88,3 +88,11 @@ export function handPistonInputs(): CardInputs {
     altitudeStepFt: 2500,
   };
 }
+
+/**
+ * The digest of the card of `handPistonInputs()` on `handPistonContent()` (revision 11, number 3,
+ * `HAND_CONTEXT`). It changes whenever anything on that card changes: when it does on purpose,
+ * update it here (card-digest.spec.ts checks it in Node, test/e2e/card-digest.e2e.ts in
+ * Chromium) and raise CARD_VERSION if a field changed its meaning.
+ */
+export const HAND_PISTON_CARD_DIGEST = '4cc69e6bb6b1e1a3ac6724e82638cb45bde6a349459ff76776a1f7913cfdae62';
