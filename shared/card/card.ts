@@ -203,8 +203,13 @@ export interface CardAltitudeRow {
   readonly easKt: number;
   readonly tasKt: number;
   readonly mach: number;
-  /** The speed limit at this altitude as IAS, rounded down; null when the type has no VNE or VMO. */
+  /**
+   * The speed limit at this altitude as IAS, rounded down: VMO or the CAS of MMO at this altitude,
+   * whichever is lower, or VNE. Null when the type has neither VNE nor VMO, or when the limit's
+   * CAS lies outside the cruise configuration's position-error table (never extrapolated).
+   */
   readonly limitIasKt: number | null;
+  /** The same limit as CAS, rounded down; null when the type has neither VNE nor VMO. */
   readonly limitCasKt: number | null;
   readonly limitKind: CardLimitKind | null;
   /** The planned cruise exceeds the limit at this altitude. */
