@@ -1,0 +1,247 @@
+import 'fake-indexeddb/auto';
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { Component, input, signal } from '@angular/core';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import type { SessionUser } from '../../../shared/api/auth';
+import type { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
+import type { RevisionView } from '../../../shared/api/revisions';
+import { buildCard, type CardInputs, type SpeedCard } from '../../../shared/card';
+import { contentSha256 } from '../../../shared/speed-book/canonical';
+import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
+import { AuthService } from '../core/auth/auth-service';
+import { DeviceStore, SpeedwrightDeviceDatabase } from '../core/storage/device-store';
+import { AltitudeChart } from './altitude-chart';
+import { CARD_DEBOUNCE_MS, CardsPage } from './cards-page';
+import { CARD_PATHS } from './card-sources';
+import { SpeedCardView } from './speed-card-view';
+
+/** jsdom has no canvas; the chart has its own checks (altitude-series), the page test needs only its place. */
+@Component({ selector: 'sw-altitude-chart', template: '' })
+class ChartPlaceholder {
+  readonly card = input.required<SpeedCard>();
+}
+
+const stamp = '2026-11-01T00:00:00.000Z';
+const PILOT: SessionUser = { id: 3, email: 'pilot@demo.example', displayName: 'Ines Marlow', role: 'pilot', operatorId: 1, operatorName: 'Kestrel Fen Aviation (demo)' };
+const TYPE: AircraftTypeView = { id: 1, designator: 'ZZP1', name: 'Sedgeling 4', category: 'piston-single', engines: 1, ceilingFt: 14000, createdAt: stamp, updatedAt: stamp };
+const AIRFRAME: AirframeView = { id: 7, registration: 'ZZ-KFA', serial: 'SG4-0012', aircraftTypeId: 1, active: true, createdAt: stamp, updatedAt: stamp };
+const content = demoPistonTrainerContent();
+const REVISION: RevisionView = {
+  id: 21,
+  speedBookId: 4,
+  number: 1,
+  status: 'published',
+  changeSummary: 'First issue.',
+  authorId: 2,
+  authorName: 'Tobias Wren',
+  submittedAt: stamp,
+  approverId: 5,
+  approverName: 'Ada Okonjo',
+  publishedAt: '2026-11-30T08:00:00.000Z',
+  supersededAt: null,
+  withdrawnAt: null,
+  contentSha256: contentSha256(content),
+  createdAt: stamp,
+  updatedAt: stamp,
+  content: content as unknown as Record<string, unknown>,
+  returnedAt: null,
+  returnReason: null,
+  withdrawnById: null,
+  withdrawReason: null,
+  signature: null,
+  signingKeyId: null,
+  problems: {},
+};
+const CONTEXT = {
+  airframe: { id: 7, registration: 'ZZ-KFA' },
+  aircraftType: { designator: 'ZZP1', name: 'Sedgeling 4' },
+  speedBook: { id: 4, title: 'Sedgeling 4 speed book' },
+  demo: true,
+};
+const card = (inputs: CardInputs) => buildCard({ id: 21, number: 1, publishedAt: REVISION.publishedAt, contentSha256: REVISION.contentSha256!, content }, inputs, CONTEXT);
+
+jest.setTimeout(30_000);
+
+const pause = (ms: number) => new Promise((done) => setTimeout(done, ms));
+
+describe('CardsPage', () => {
+  let fixture: ComponentFixture<CardsPage>;
+  let backend: HttpTestingController;
+  let page: HTMLElement;
+  let db: SpeedwrightDeviceDatabase;
+
+  beforeEach(async () => {
+    localStorage.clear();
+    db = new SpeedwrightDeviceDatabase(`speedwright-test-${Math.random()}`);
+    TestBed.configureTestingModule({
+      imports: [CardsPage],
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+        { provide: AuthService, useValue: { user: signal(PILOT) } },
+        { provide: DeviceStore, useValue: { db } },
+      ],
+    });
+    TestBed.overrideComponent(SpeedCardView, { remove: { imports: [AltitudeChart] }, add: { imports: [ChartPlaceholder] } });
+    backend = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(CardsPage);
+    page = fixture.nativeElement;
+    await fixture.whenStable();
+    backend.expectOne(CARD_PATHS.airframes).flush({ airframes: [AIRFRAME] });
+    backend.expectOne(CARD_PATHS.aircraftTypes).flush({ aircraftTypes: [TYPE] });
+    backend.expectOne(CARD_PATHS.speedBooks).flush({
+      speedBooks: [{ id: 4, title: 'Sedgeling 4 speed book', aircraftTypeId: 1, currentRevision: REVISION }],
+    });
+    await fixture.whenStable();
+    // The only airframe in service is chosen; its type's current revision is fetched.
+    backend.expectOne(CARD_PATHS.revision(21)).flush({ revision: REVISION });
+    await settle();
+    answerDemoQuestion();
+    await settle();
+  });
+
+  afterEach(async () => {
+    backend.verify();
+    db.close();
+    await db.delete();
+  });
+
+  /** Past the debounce, then Angular's rendering. */
+  async function settle(): Promise<void> {
+    await pause(CARD_DEBOUNCE_MS + 60);
+    await fixture.whenStable();
+  }
+
+  /** The first card asks the server once whether the operator is a demo operator. */
+  function answerDemoQuestion(): void {
+    const preview = backend.expectOne(CARD_PATHS.preview);
+    const { inputs } = preview.request.body as { inputs: CardInputs };
+    preview.flush({ card: card(inputs) });
+  }
+
+  function field(testId: string): HTMLInputElement {
+    return page.querySelector<HTMLInputElement>(`[data-testid="${testId}"]`)!;
+  }
+
+  async function type(testId: string, value: string): Promise<void> {
+    const input = field(testId);
+    input.value = value;
+    input.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+  }
+
+  function speed(code: string, column: 'ias' | 'cas'): number {
+    return Number(page.querySelector(`[data-testid="card-speeds"] tr[data-code="${code}"] td[data-column="${column}"]`)!.textContent);
+  }
+
+  async function until(check: () => boolean): Promise<void> {
+    let done = false;
+    for (let i = 0; i < 250 && !(done = check()); i++) {
+      await pause(20);
+      await fixture.whenStable();
+    }
+    expect(done).toBe(true);
+  }
+
+  it('builds the card on the device from the revision, with the caution and the demo mark', () => {
+    const shown = page.querySelector('[data-testid="speed-card"]')!;
+    // Starting values: the reference weight 1,100 kg, ISA at sea level.
+    const expected = card({
+      airframeId: 7,
+      weightKg: 1100,
+      configuration: 'takeoff-flap',
+      departure: { elevationFt: 0, qnhHpa: 1013, oatC: 15 },
+      isaDeviationC: 0,
+      cruise: { iasKt: 100 },
+      altitudeStepFt: 1000,
+    });
+    expect(shown.getAttribute('data-digest')).toBe(expected.digest);
+    expect(page.querySelector('[data-testid="card-registration"]')!.textContent).toBe('ZZ-KFA');
+    expect(page.querySelector('[data-testid="card-revision"]')!.textContent).toContain('revision 1, published 30 Nov 2026, 08:00 UTC');
+    expect(page.querySelector('[data-testid="card-caution"]')!.textContent).toContain(
+      "Planning aid. The approved flight manual and the operator's procedures govern.",
+    );
+    expect(page.querySelector('[data-testid="card-demo-mark"]')!.textContent).toContain('invented demo data — not for flight');
+    expect(page.textContent).not.toContain('NaN');
+  });
+
+  it('updates the card only after the pause in typing, and the weight-scaled speeds follow √(W/Wref)', async () => {
+    const vs1Before = speed('VS1', 'cas');
+    await type('input-weight', '800');
+    // Still the old card straight after typing (debounced).
+    expect(speed('VS1', 'cas')).toBe(vs1Before);
+    await settle();
+    // VS1: 50 KIAS at 1,100 kg → CAS 44 + (50 − 35)·(63 − 44)/(60 − 35) = 55.4 kt through the flaps-up table (demo content),
+    // × √(800/1100) = 47.246 → 48 kt rounded up (stall speeds round up, flight-physics.md).
+    expect(speed('VS1', 'cas')).toBe(Math.ceil(55.4 * Math.sqrt(800 / 1100)));
+    expect(speed('VS1', 'cas')).toBeLessThan(vs1Before);
+  });
+
+  it('shows the refusal sentence at the weight field and no card figures', async () => {
+    await type('input-weight', '1500');
+    await settle();
+    expect(page.querySelector('[data-testid="problem-weight"]')!.textContent).toContain(
+      'The takeoff weight 1,500 kg is above the maximum takeoff weight of 1,100 kg.',
+    );
+    expect(page.querySelector('[data-testid="speed-card"]')).toBeNull();
+    expect(page.querySelector('[data-testid="card-refusal"]')!.textContent).toContain('No card for these inputs');
+    expect(page.textContent).not.toContain('NaN');
+  });
+
+  it('switches a field to another unit, converts what is typed and remembers the choice per user', async () => {
+    const digestBefore = page.querySelector('[data-testid="speed-card"]')!.getAttribute('data-digest');
+    field('unit-weight').click();
+    await settle();
+    // 1,100 kg / 0.45359237 kg/lb (international pound) = 2,425.08 lb, shown to the pound.
+    expect(field('input-weight').value).toBe('2425');
+    expect(field('input-weight').closest('mat-form-field')!.querySelector('mat-label')!.textContent).toContain('Takeoff weight (lb)');
+    expect(JSON.parse(localStorage.getItem(`speedwright.card-units.${PILOT.id}`)!).weight).toBe('lb');
+    // 2,425 lb is 1,099.96 kg: a new card, with the entered unit and its kilograms in the header.
+    expect(page.querySelector('[data-testid="speed-card"]')!.getAttribute('data-digest')).not.toBe(digestBefore);
+    expect(page.querySelector('[data-testid="speed-card"] .inputs')!.textContent).toContain('2,425 lb (1,100 kg)');
+
+    field('unit-departure.qnh').click();
+    await settle();
+    // 1013 hPa / 33.8639 hPa/inHg = 29.914 inHg, to the hundredth.
+    expect(field('input-departure.qnh').value).toBe('29.91');
+  });
+
+  it('issues the card: stores it on the device, posts it and marks it sent', async () => {
+    const shown = page.querySelector('[data-testid="speed-card"]')!.getAttribute('data-digest')!;
+    (page.querySelector('[data-testid="issue-card"]') as HTMLButtonElement).click();
+    await until(() => {
+      const requests = backend.match((request) => request.url === CARD_PATHS.cardIssues && request.method === 'POST');
+      if (requests.length === 0) return false;
+      const { entries } = requests[0].request.body as { entries: { id: string; digest: string; airframeId: number; revisionId: number; issuedAt: string }[] };
+      expect(entries).toHaveLength(1);
+      expect(entries[0]).toEqual({ id: expect.stringMatching(/^[0-9a-f-]{36}$/), airframeId: 7, revisionId: 21, inputs: expect.any(Object), digest: shown, issuedAt: expect.any(String) });
+      requests[0].flush({ results: [{ id: entries[0].id, outcome: 'recorded', status: 201, digest: shown, receivedAt: '2026-12-01T10:00:00.000Z' }] });
+      return true;
+    });
+    await until(() => page.querySelector('[data-testid="issue-status"]')?.textContent?.includes("recorded in the operator's card log") ?? false);
+    const stored = await db.cardLog.toArray();
+    expect(stored).toHaveLength(1);
+    expect(stored[0]).toMatchObject({ digest: shown, sentAt: '2026-12-01T10:00:00.000Z', issuedById: PILOT.id, refusal: null });
+    await until(() => page.querySelector('[data-testid="device-card-log"] li')?.getAttribute('data-state') === 'sent');
+  });
+
+  it('keeps an issued card unsent on the device when the server cannot be reached, and says so', async () => {
+    (page.querySelector('[data-testid="issue-card"]') as HTMLButtonElement).click();
+    await until(() => {
+      const requests = backend.match(CARD_PATHS.cardIssues);
+      if (requests.length === 0) return false;
+      requests[0].error(new ProgressEvent('error'), { status: 0 });
+      return true;
+    });
+    await until(() => page.querySelector('[data-testid="issue-status"]')?.textContent?.includes('Not sent yet') ?? false);
+    expect(page.querySelector('[data-testid="issue-status"]')!.textContent).toContain('kept on this device');
+    const stored = await db.cardLog.toArray();
+    expect(stored).toHaveLength(1);
+    expect(stored[0].sentAt).toBeNull();
+    await until(() => page.querySelector('[data-testid="device-card-log"] li')?.getAttribute('data-state') === 'waiting');
+    expect(page.querySelector('[data-testid="send-waiting"]')!.textContent).toContain('Send waiting cards (1)');
+  });
+});

@@ -1,0 +1,463 @@
+import { NgTemplateOutlet } from '@angular/common';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { FormControl, NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { ErrorStateMatcher } from '@angular/material/core';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { EMPTY, Subject, catchError, debounceTime, merge, switchMap, tap } from 'rxjs';
+import type { RevisionSummary, RevisionView } from '../../../shared/api/revisions';
+import { can } from '../../../shared/auth/roles';
+import { CardRefusedError, buildCard, takeoffConfigurationKeys, type CardInputs, type SpeedCard } from '../../../shared/card';
+import { revisionContentSchema, type RevisionContent } from '../../../shared/speed-book/revision-content';
+import { ApiRequestError } from '../core/api/api-request-error';
+import { AuthService } from '../core/auth/auth-service';
+import {
+  ALTITUDE_STEPS_FT,
+  cardInputsFrom,
+  createCardForm,
+  formFieldOfRefusal,
+  parseTyped,
+  startingValues,
+  type CardFormValue,
+  type FormFieldPath,
+} from './card-form';
+import { CardLog } from './card-log';
+import { CardNumberPipe, cardNumber } from './card-number-pipe';
+import { CardSources, cardContextOf, cardRevisionOf, type AirframeChoice } from './card-sources';
+import {
+  CANONICAL_UNITS,
+  UNIT_FIELDS,
+  UnitPreferences,
+  formatInUnit,
+  fromCanonical,
+  otherUnit,
+  toCanonical,
+  type AnyUnit,
+  type UnitChoice,
+  type UnitField,
+} from './card-units';
+import { DeviceCardLog } from './device-card-log';
+import { SpeedCardView, utcDate, type EnteredInput } from './speed-card-view';
+
+/** Long enough that typing "1050" builds one card, short enough to feel live. */
+export const CARD_DEBOUNCE_MS = 300;
+
+/** The current published revision of the airframe's book, or an open revision an engineer previews. */
+const PUBLISHED = 0;
+
+type Outcome =
+  | { readonly kind: 'card'; readonly card: SpeedCard }
+  | { readonly kind: 'refused'; readonly field: string; readonly message: string }
+  | { readonly kind: 'incomplete'; readonly problems: Partial<Record<FormFieldPath, string>> };
+
+interface Snapshot {
+  readonly value: CardFormValue;
+  readonly units: UnitChoice;
+}
+
+/** Which form field each unit choice belongs to. */
+const UNIT_CONTROL: Readonly<Record<UnitField, FormFieldPath>> = {
+  weight: 'weight',
+  landingWeight: 'landingWeight',
+  departureElevation: 'departure.elevation',
+  departureQnh: 'departure.qnh',
+  departureOat: 'departure.oat',
+  departureDewPoint: 'departure.dewPoint',
+  arrivalElevation: 'arrival.elevation',
+  arrivalQnh: 'arrival.qnh',
+  arrivalOat: 'arrival.oat',
+  arrivalDewPoint: 'arrival.dewPoint',
+  isaDeviation: 'isaDeviation',
+  cruiseIas: 'cruiseIas',
+};
+
+/**
+ * The speed card: choose the airframe, type the day's weight and atmosphere in the units you
+ * like, and read the card as you type. The card is computed on this device with the same
+ * `buildCard` the server runs, so it needs no network once the revision is here.
+ */
+@Component({
+  selector: 'sw-cards-page',
+  imports: [
+    NgTemplateOutlet,
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatCheckboxModule,
+    MatIconModule,
+    MatProgressBarModule,
+    CardNumberPipe,
+    SpeedCardView,
+    DeviceCardLog,
+  ],
+  templateUrl: './cards-page.html',
+  styleUrl: './cards-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class CardsPage {
+  private readonly sources = inject(CardSources);
+  private readonly cardLog = inject(CardLog);
+  private readonly unitPreferences = inject(UnitPreferences);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly user = inject(AuthService).user;
+
+  protected readonly altitudeSteps = ALTITUDE_STEPS_FT;
+  protected readonly canPreviewDrafts = computed(() => {
+    const user = this.user();
+    return user !== null && can(user.role, 'edit-speed-books');
+  });
+
+  protected readonly choices = signal<readonly AirframeChoice[]>([]);
+  protected readonly loadingFleet = signal(true);
+  protected readonly fleetProblem = signal<string | null>(null);
+  protected readonly airframeControl = new FormControl<number | null>(null);
+  protected readonly revisionControl = new FormControl<number>(PUBLISHED, { nonNullable: true });
+  protected readonly openRevisions = signal<readonly RevisionSummary[]>([]);
+  protected readonly revision = signal<RevisionView | null>(null);
+  protected readonly loadingRevision = signal(false);
+  protected readonly revisionProblem = signal<string | null>(null);
+
+  protected readonly form = createCardForm(inject(NonNullableFormBuilder));
+  protected readonly units = signal<UnitChoice>(CANONICAL_UNITS);
+  private readonly snapshot = signal<Snapshot | null>(null);
+  private readonly recompute = new Subject<void>();
+  private readonly demo = signal<boolean | null>(null);
+  private askingDemo = false;
+
+  protected readonly issuing = signal(false);
+  protected readonly issued = signal<{ digest: string; sentence: string; ok: boolean } | null>(null);
+
+  protected readonly choice = computed(() => this.choices().find((choice) => choice.airframe.id === this.selectedAirframeId()) ?? null);
+  private readonly selectedAirframeId = signal<number | null>(null);
+
+  protected readonly content = computed<RevisionContent | null>(() => {
+    const revision = this.revision();
+    if (!revision) return null;
+    const parsed = revisionContentSchema.safeParse(revision.content);
+    return parsed.success ? parsed.data : null;
+  });
+
+  protected readonly configurations = computed(() => {
+    const content = this.content();
+    if (!content) return [];
+    const keys = takeoffConfigurationKeys(content);
+    return content.configurations.filter((configuration) => keys.includes(configuration.key));
+  });
+
+  protected readonly isDraft = computed(() => {
+    const revision = this.revision();
+    return revision !== null && revision.status !== 'published';
+  });
+
+  protected readonly outcome = computed<Outcome | null>(() => {
+    const snapshot = this.snapshot();
+    const revision = this.revision();
+    const choice = this.choice();
+    if (!snapshot || !revision || !choice?.book) return null;
+    const reading = cardInputsFrom(snapshot.value, snapshot.units, choice.airframe.id);
+    if (reading.inputs === null) return { kind: 'incomplete', problems: reading.problems };
+    return this.build(revision, choice, reading.inputs);
+  });
+
+  protected readonly card = computed(() => {
+    const outcome = this.outcome();
+    return outcome?.kind === 'card' ? outcome.card : null;
+  });
+
+  /** The sentence at each field: a typing problem, or the card's refusal at the input at fault. */
+  private readonly fieldProblems = computed<Partial<Record<FormFieldPath, string>>>(() => {
+    const outcome = this.outcome();
+    if (!outcome || outcome.kind === 'card') return {};
+    if (outcome.kind === 'incomplete') return outcome.problems;
+    const path = formFieldOfRefusal(outcome.field);
+    return path ? { [path]: outcome.message } : {};
+  });
+
+  /** A refusal that belongs to no field of the form (the revision, the airframe). */
+  protected readonly generalRefusal = computed(() => {
+    const outcome = this.outcome();
+    return outcome?.kind === 'refused' && formFieldOfRefusal(outcome.field) === null ? outcome.message : null;
+  });
+
+  protected readonly refusalSentence = computed(() => {
+    const outcome = this.outcome();
+    if (outcome?.kind === 'refused') return outcome.message;
+    if (outcome?.kind === 'incomplete') return Object.values(outcome.problems)[0] ?? null;
+    return null;
+  });
+
+  protected readonly entered = computed<EnteredInput[]>(() => {
+    const snapshot = this.snapshot();
+    return snapshot && this.card() ? enteredInputs(snapshot) : [];
+  });
+
+  protected readonly weightRange = computed(() => {
+    const content = this.content();
+    if (!content) return '';
+    const unit = this.units().weight;
+    const show = (kg: number) => cardNumber(fromCanonical(unit, kg, 'mass'));
+    return `${show(content.weights.minimumKg)} to ${show(content.weights.maximumTakeoffKg)} ${unit}`;
+  });
+
+  protected readonly landingWeightRange = computed(() => {
+    const content = this.content();
+    if (!content) return '';
+    const unit = this.units().landingWeight;
+    return `Up to ${cardNumber(fromCanonical(unit, content.weights.maximumLandingKg, 'mass'))} ${unit}; empty: the takeoff weight`;
+  });
+
+  protected readonly publishedWords = computed(() => {
+    const revision = this.revision();
+    if (!revision) return '';
+    return revision.publishedAt ? `Revision ${revision.number}, published ${utcDate(revision.publishedAt)}` : `Revision ${revision.number} (${revision.status.replace('_', ' ')}), preview only`;
+  });
+
+  constructor() {
+    this.loadUnits();
+    this.loadFleet();
+    this.followSelection();
+    this.followForm();
+    void this.cardLog.refresh();
+  }
+
+  protected control(path: FormFieldPath): FormControl<string> {
+    return this.form.get(path) as FormControl<string>;
+  }
+
+  protected problemAt(path: FormFieldPath): string | null {
+    return this.fieldProblems()[path] ?? null;
+  }
+
+  /** Marks a field as in error while it has a sentence, whether or not it was touched. */
+  protected matcherFor(path: FormFieldPath): ErrorStateMatcher {
+    this.matchers[path] ??= { isErrorState: () => this.problemAt(path) !== null };
+    return this.matchers[path]!;
+  }
+  private readonly matchers: Partial<Record<FormFieldPath, ErrorStateMatcher>> = {};
+
+  protected unitOf(field: UnitField): AnyUnit {
+    return this.units()[field];
+  }
+
+  protected nextUnitOf(field: UnitField): AnyUnit {
+    return otherUnit(UNIT_FIELDS[field], this.units()[field] as never);
+  }
+
+  /** Switches one field to its other unit, converting what is typed so the card stays the same. */
+  protected switchUnit(field: UnitField): void {
+    const quantity = UNIT_FIELDS[field];
+    const from = this.units()[field];
+    const to = otherUnit(quantity, from as never) as AnyUnit;
+    const control = this.form.get(UNIT_CONTROL[field]) as FormControl<string>;
+    const typed = parseTyped(control.value);
+    this.units.update((units) => ({ ...units, [field]: to }));
+    const user = this.user();
+    if (user) this.unitPreferences.save(user.id, this.units());
+    if (typed !== null) {
+      try {
+        control.setValue(formatInUnit(to, fromCanonical(to, toCanonical(from, typed, quantity), quantity)));
+      } catch {
+        // A value the conversion refuses stays as typed; its sentence appears at the field.
+      }
+    }
+    this.recompute.next();
+  }
+
+  protected async issueCard(): Promise<void> {
+    const card = this.card();
+    const user = this.user();
+    if (!card || !user || this.isDraft() || this.issuing()) return;
+    this.issuing.set(true);
+    try {
+      const { entry, outcome } = await this.cardLog.issue(card, user.id);
+      const at = utcDate(entry.issuedAt);
+      this.issued.set(
+        outcome.problem === null
+          ? { digest: card.digest, ok: true, sentence: `Card issued at ${at} and recorded in the operator's card log.` }
+          : { digest: card.digest, ok: false, sentence: `Card issued at ${at} on this device. ${outcome.problem}` },
+      );
+    } catch {
+      this.issued.set({ digest: card.digest, ok: false, sentence: 'This device could not store the card, so it was not issued. Check the browser allows site storage, then try again.' });
+    } finally {
+      this.issuing.set(false);
+    }
+  }
+
+  protected readonly issuedForThisCard = computed(() => {
+    const issued = this.issued();
+    return issued && issued.digest === this.card()?.digest ? issued : null;
+  });
+
+  private build(revision: RevisionView, choice: AirframeChoice, inputs: CardInputs): Outcome {
+    const demo = this.demo();
+    try {
+      const card = buildCard(cardRevisionOf(revision), inputs, cardContextOf(choice, demo ?? true));
+      if (demo === null) this.askDemo(revision.id, inputs);
+      return { kind: 'card', card };
+    } catch (error) {
+      if (error instanceof CardRefusedError) return { kind: 'refused', field: error.field, message: error.message };
+      throw error;
+    }
+  }
+
+  /** Once per operator and device: whether the card must say it is demo data (see CardSources.askDemo). */
+  private askDemo(revisionId: number, inputs: CardInputs): void {
+    const user = this.user();
+    if (!user || this.askingDemo) return;
+    this.askingDemo = true;
+    queueMicrotask(() =>
+      this.sources
+        .askDemo(revisionId, inputs)
+        .pipe(takeUntilDestroyed(this.destroyRef))
+        .subscribe({
+          next: (demo) => {
+            this.sources.rememberDemo(user.operatorId, demo);
+            this.demo.set(demo);
+          },
+          // Offline or refused: the card keeps saying "demo" until the server has answered once.
+          error: () => (this.askingDemo = false),
+        }),
+    );
+  }
+
+  private loadUnits(): void {
+    const user = this.user();
+    if (!user) return;
+    this.units.set(this.unitPreferences.load(user.id));
+    this.demo.set(this.sources.rememberedDemo(user.operatorId));
+  }
+
+  protected loadFleet(): void {
+    this.loadingFleet.set(true);
+    this.fleetProblem.set(null);
+    this.sources
+      .airframeChoices()
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (choices) => {
+          this.choices.set(choices);
+          this.loadingFleet.set(false);
+          if (choices.length === 1) this.airframeControl.setValue(choices[0].airframe.id);
+        },
+        error: (error: ApiRequestError) => {
+          this.fleetProblem.set(error.message);
+          this.loadingFleet.set(false);
+        },
+      });
+  }
+
+  private followSelection(): void {
+    this.airframeControl.valueChanges
+      .pipe(
+        tap((airframeId) => {
+          this.selectedAirframeId.set(airframeId);
+          this.openRevisions.set([]);
+          this.revisionControl.setValue(PUBLISHED, { emitEvent: false });
+        }),
+        switchMap(() => this.loadRevision()),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe();
+    this.revisionControl.valueChanges
+      .pipe(
+        switchMap(() => this.loadRevision()),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe();
+  }
+
+  private loadRevision() {
+    const choice = this.choice();
+    this.revisionProblem.set(null);
+    if (!choice) {
+      this.revision.set(null);
+      return EMPTY;
+    }
+    if (!choice.book) {
+      this.revision.set(null);
+      this.revisionProblem.set(`There is no speed book for the ${choice.type.name} yet, so no card can be prepared for ${choice.airframe.registration}.`);
+      return EMPTY;
+    }
+    if (this.canPreviewDrafts() && this.openRevisions().length === 0) this.loadOpenRevisions(choice.book.id);
+    const revisionId = this.revisionControl.value === PUBLISHED ? choice.book.currentRevision?.id : this.revisionControl.value;
+    if (revisionId === undefined) {
+      this.revision.set(null);
+      this.revisionProblem.set(`${choice.book.title} has no published revision, so no card can be prepared for ${choice.airframe.registration}.`);
+      return EMPTY;
+    }
+    this.loadingRevision.set(true);
+    return this.sources.revision(revisionId).pipe(
+      tap((revision) => {
+        const previous = this.revision();
+        this.revision.set(revision);
+        this.loadingRevision.set(false);
+        if (!previous || previous.speedBookId !== revision.speedBookId) this.startForm();
+        else this.recompute.next();
+      }),
+      catchError((error: ApiRequestError) => {
+        this.revision.set(null);
+        this.loadingRevision.set(false);
+        this.revisionProblem.set(error.message);
+        return EMPTY;
+      }),
+    );
+  }
+
+  private loadOpenRevisions(bookId: number): void {
+    this.sources
+      .openRevisions(bookId)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({ next: (revisions) => this.openRevisions.set(revisions), error: () => this.openRevisions.set([]) });
+  }
+
+  private startForm(): void {
+    const content = this.content();
+    if (content) this.form.setValue(startingValues(content, this.units()));
+    else this.recompute.next();
+  }
+
+  private followForm(): void {
+    merge(this.form.valueChanges, this.recompute)
+      .pipe(debounceTime(CARD_DEBOUNCE_MS), takeUntilDestroyed(this.destroyRef))
+      .subscribe(() => this.snapshot.set({ value: this.form.getRawValue(), units: this.units() }));
+  }
+}
+
+/** The inputs as typed, with the canonical figure beside any typed in another unit. */
+function enteredInputs({ value, units }: Snapshot): EnteredInput[] {
+  const items: EnteredInput[] = [];
+  const add = (label: string, field: UnitField, text: string) => {
+    const typed = parseTyped(text);
+    if (typed === null) return;
+    const unit = units[field];
+    const canonicalUnit = CANONICAL_UNITS[field];
+    const decimals = (u: AnyUnit) => (u === 'inHg' ? 2 : u === '°C' || u === '°F' || u === 'hPa' ? 1 : 0);
+    let shown = `${cardNumber(typed, decimals(unit))} ${unit}`;
+    if (unit !== canonicalUnit) shown += ` (${cardNumber(toCanonical(unit, typed, UNIT_FIELDS[field]), decimals(canonicalUnit))} ${canonicalUnit})`;
+    items.push({ label, value: shown });
+  };
+  add('Takeoff weight', 'weight', value.weight);
+  add('Landing weight', 'landingWeight', value.landingWeight);
+  add('Departure elevation', 'departureElevation', value.departure.elevation);
+  add('Departure QNH', 'departureQnh', value.departure.qnh);
+  add('Departure OAT', 'departureOat', value.departure.oat);
+  add('Departure dew point', 'departureDewPoint', value.departure.dewPoint);
+  if (value.hasArrival) {
+    add('Arrival elevation', 'arrivalElevation', value.arrival.elevation);
+    add('Arrival QNH', 'arrivalQnh', value.arrival.qnh);
+    add('Arrival OAT', 'arrivalOat', value.arrival.oat);
+    add('Arrival dew point', 'arrivalDewPoint', value.arrival.dewPoint);
+  }
+  add('ISA deviation (en route)', 'isaDeviation', value.isaDeviation);
+  return items;
+}
