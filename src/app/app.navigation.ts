@@ -15,6 +15,15 @@ export const APP_NAVIGATION: readonly NavigationEntry[] = [
     loadComponent: () => import('./home/home-page').then((m) => m.HomePage),
   },
   {
+    path: 'cards',
+    label: 'Speed card',
+    icon: 'speed',
+    capability: 'prepare-cards',
+    purpose: "Build today's speed card for an airframe from its published revision, on this device, and issue it.",
+    title: 'Speed card · Speedwright',
+    loadComponent: () => import('./cards/cards-page').then((m) => m.CardsPage),
+  },
+  {
     path: 'speed-books',
     label: 'Speed books',
     icon: 'menu_book',
@@ -40,6 +49,15 @@ export const APP_NAVIGATION: readonly NavigationEntry[] = [
     purpose: 'Compare revisions in review with the published one and the source pages, then publish or return them.',
     title: 'Review · Speedwright',
     loadComponent: () => import('./review/review-page').then((m) => m.ReviewPage),
+  },
+  {
+    path: 'card-log',
+    label: 'Card log',
+    icon: 'receipt_long',
+    capability: 'read-card-log',
+    purpose: "See every speed card your operator's people issued, by airframe and date.",
+    title: 'Card log · Speedwright',
+    loadComponent: () => import('./cards/card-log-page').then((m) => m.CardLogPage),
   },
   {
     path: 'fleet',
