@@ -28,9 +28,13 @@ describe('the demo seed', () => {
       ['ZZT2', 'turboprop', 2],
     ]);
     expect(types.every((t) => t.name.includes('invented'))).toBe(true);
-    const airframes = await Airframe.findAll({ where: { operatorId: operator.id, aircraftTypeId: types.map((t) => t.id) } });
-    expect(airframes.length).toBeGreaterThanOrEqual(6);
-    expect(airframes.every((a) => /^ZZ-[A-Z]{3}$/.test(a.registration))).toBe(true);
+    // The seed's own airframes (other test files add airframes of their own meanwhile).
+    const seeded = DEMO_OPERATORS[0].fleet.flatMap((t) => t.airframes.map((a) => a.registration));
+    expect(seeded).toHaveLength(6);
+    expect(seeded.every((registration) => /^ZZ-[A-Z]{3}$/.test(registration))).toBe(true);
+    const airframes = await Airframe.findAll({ where: { operatorId: operator.id, registration: seeded } });
+    expect(airframes.map((a) => a.registration).sort()).toEqual([...seeded].sort());
+    expect(airframes.every((a) => types.some((t) => t.id === a.aircraftTypeId))).toBe(true);
     expect(await SpeedBook.count({ where: { operatorId: operator.id, aircraftTypeId: types.map((t) => t.id) } })).toBe(3);
   });
 
