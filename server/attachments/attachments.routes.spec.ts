@@ -6,6 +6,7 @@ import { attachmentListSchema, attachmentResponseSchema } from '../../shared/api
 import type { RevisionStatus } from '../../shared/api/revisions';
 import { apiTestAttachmentsDir } from '../../test/api/constants';
 import { csrfAgent, demoEmail, signIn, startHarness, type Harness } from '../../test/api/harness';
+import { sessionOf } from '../../test/api/role-sessions';
 import { AircraftType, Attachment, AuditEvent, Operator, Revision, SpeedBook, User } from '../models';
 
 // Each check signs in afresh, and argon2id takes a moment per sign-in.
@@ -69,7 +70,7 @@ async function revisionIn(status: RevisionStatus, slug = 'kestrel-fen'): Promise
 }
 
 async function attach(role: Parameters<typeof demoEmail>[0], revisionId: number, body: Buffer, filename: string, contentType = 'application/pdf', domain = 'demo') {
-  const { agent, token } = await signIn(harness.app, demoEmail(role, domain));
+  const { agent, token } = await sessionOf(harness.app, role, domain as 'demo' | 'second');
   return agent.post(`/api/revisions/${revisionId}/attachments`).set('x-csrf-token', token).attach('file', body, { filename, contentType });
 }
 
@@ -180,7 +181,7 @@ describe('attachments', () => {
     expect(intoTheirs.body.error.message).toBe('That revision does not exist.');
     await engineer.agent.get(`/api/revisions/${theirs.id}/attachments`).expect(404);
 
-    const pilotTwo = await signIn(harness.app, demoEmail('pilot', 'second'));
+    const pilotTwo = await sessionOf(harness.app, 'pilot', 'second');
     const published = await revisionIn('published');
     const onPublished = await Attachment.create({ ...added.body.attachment, id: undefined, revisionId: published.id, operatorId: published.operatorId, storageName: randomBytes(16).toString('hex'), uploadedById: null });
     for (const session of [second, pilotTwo]) {
@@ -198,7 +199,7 @@ describe('attachments', () => {
     const draft = await revisionIn('draft');
     const added = await attach('engineer', draft.id, PDF, 'draft.pdf');
     for (const role of ['pilot', 'inspector'] as const) {
-      const { agent } = await signIn(harness.app, demoEmail(role));
+      const { agent } = await sessionOf(harness.app, role);
       await agent.get(`/api/revisions/${draft.id}/attachments`).expect(404);
       await agent.get(`/api/attachments/${added.body.attachment.id}`).expect(404);
     }
@@ -206,7 +207,7 @@ describe('attachments', () => {
     const kept = await attach('engineer', review.id, PDF, 'source.pdf');
     await review.update({ status: 'published', publishedAt: new Date() });
     for (const role of ['pilot', 'inspector', 'admin'] as const) {
-      const { agent } = await signIn(harness.app, demoEmail(role));
+      const { agent } = await sessionOf(harness.app, role);
       await agent.get(`/api/revisions/${review.id}/attachments`).expect(200);
       const served = await agent.get(`/api/attachments/${kept.body.attachment.id}`);
       expect(served.status).toBe(200);
@@ -226,7 +227,7 @@ describe('attachments', () => {
 
     const id = (await Attachment.findOne({ where: { revisionId: revision.id }, rejectOnEmpty: true })).id;
     for (const role of ['pilot', 'admin', 'inspector'] as const) {
-      const { agent, token } = await signIn(harness.app, demoEmail(role));
+      const { agent, token } = await sessionOf(harness.app, role);
       expect((await agent.delete(`/api/attachments/${id}`).set('x-csrf-token', token)).status).toBe(403);
     }
     const { agent, token } = await csrfAgent(harness.app);

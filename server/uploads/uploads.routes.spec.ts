@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { speedTableUploadSchema } from '../../shared/api/uploads';
 import { csrfAgent, demoEmail, signIn, startHarness, type Harness } from '../../test/api/harness';
+import { sessionOf } from '../../test/api/role-sessions';
 
 let harness: Harness;
 beforeAll(() => {
@@ -11,7 +12,7 @@ afterAll(() => harness.close());
 const GOOD_TABLE = 'configuration_key,ias_kt,cas_kt\nclean,60,63\nclean,80,81\nclean,120,119\n';
 
 async function upload(role: Parameters<typeof demoEmail>[0], body: Buffer | string, filename = 'table.csv', contentType = 'text/csv', domain = 'demo') {
-  const { agent, token } = await signIn(harness.app, demoEmail(role, domain));
+  const { agent, token } = await sessionOf(harness.app, role, domain as 'demo' | 'second');
   return agent.post('/api/uploads/speed-table').set('x-csrf-token', token).attach('file', Buffer.from(body), { filename, contentType });
 }
 

@@ -3,6 +3,7 @@ import { operatorPeopleSchema, operatorPersonResponseSchema } from '../../shared
 import { mailboxResponseSchema } from '../../shared/api/mailbox';
 import { csrfAgent, demoEmail, mailTo, mailsTo, signIn, startHarness, TEST_PASSWORD, TEST_PUBLIC_URL, type Harness } from '../../test/api/harness';
 import { AuditEvent, Invitation, PasswordResetToken, User } from '../models';
+import { sessionOf } from '../../test/api/role-sessions';
 
 // argon2id takes a noticeable moment per password, and these tests set many.
 jest.setTimeout(30_000);
@@ -363,7 +364,7 @@ describe('who may do what', () => {
 
   for (const [name, call] of Object.entries(routes)) {
     it.each(roles)(`${name} answers 403 to a %s`, async (role) => {
-      const { agent, token } = await signIn(harness.app, demoEmail(role));
+      const { agent, token } = await sessionOf(harness.app, role);
       const res = await call(agent, token);
       expect(res.status).toBe(403);
       expect(res.body.error.code).toBe('forbidden');

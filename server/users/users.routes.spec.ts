@@ -2,6 +2,7 @@ import request from 'supertest';
 import { operatorPeopleSchema } from '../../shared/api/auth';
 import { ROLES } from '../../shared/auth/roles';
 import { demoEmail, signIn, startHarness, type Harness } from '../../test/api/harness';
+import { sessionOf } from '../../test/api/role-sessions';
 import { User } from '../models';
 
 let harness: Harness;
@@ -32,7 +33,7 @@ describe('GET /api/users', () => {
   });
 
   it.each(ROLES.filter((role) => role !== 'admin'))('answers 403 to a %s', async (role) => {
-    const { agent } = await signIn(harness.app, demoEmail(role));
+    const { agent } = await sessionOf(harness.app, role);
     const res = await agent.get('/api/users');
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('forbidden');
