@@ -3,8 +3,16 @@ import { setupZonelessTestEnv } from 'jest-preset-angular/setup-env/zoneless';
 setupZonelessTestEnv();
 
 // jsdom has no structuredClone; fake-indexeddb (Dexie's store under jsdom) clones every record
-// with it. Node's serializer clones plain records the same way.
-import { deserialize, serialize } from 'v8';
+// with it. The records kept on the device are plain data (objects, arrays, strings, numbers,
+// booleans, null, dates), which this copies the way structuredClone does.
+function clonePlainData<T>(value: T): T {
+  if (value === null || typeof value !== 'object') return value;
+  if (value instanceof Date) return new Date(value.getTime()) as T;
+  if (Array.isArray(value)) return value.map(clonePlainData) as T;
+  const copy: Record<string, unknown> = {};
+  for (const [key, entry] of Object.entries(value)) copy[key] = clonePlainData(entry);
+  return copy as T;
+}
 if (typeof globalThis.structuredClone !== 'function') {
-  globalThis.structuredClone = <T>(value: T): T => deserialize(serialize(value)) as T;
+  globalThis.structuredClone = clonePlainData as typeof structuredClone;
 }
