@@ -6,7 +6,7 @@ import { demoPistonTrainerContent, demoPistonTrainerContentRevised } from '../..
 import { signedRevisionStatement } from '../../shared/speed-book/signature';
 import { mailTo, startHarness, type Harness } from '../../test/api/harness';
 import { AuditEvent, Revision } from '../models';
-import { newPerson, newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
+import { newSpeedBook, newTeam, publish, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
 import { verifyStatement } from './signing';
 
 // Every step hashes or checks passwords or signs; on a busy two-core machine 5 s is short.
@@ -85,9 +85,9 @@ describe('the revision workflow', () => {
   });
 
   it('lets any engineer of the operator edit a draft, not only its author', async () => {
-    const { speedBookId } = await newSpeedBook(as.admin, as.engineer);
-    const draft = await write(as.engineer, 'post', `/api/speed-books/${speedBookId}/revisions`).send({ content: { notes: 'start' }, changeSummary: 'First issue' }).expect(201);
-    const colleague = await newPerson(harness.app, 'engineer');
+    const [admin, engineer, colleague] = await newTeam(harness.app, ['admin', 'engineer', 'engineer']);
+    const { speedBookId } = await newSpeedBook(admin, engineer);
+    const draft = await write(engineer, 'post', `/api/speed-books/${speedBookId}/revisions`).send({ content: { notes: 'start' }, changeSummary: 'First issue' }).expect(201);
     await write(colleague, 'patch', `/api/revisions/${draft.body.revision.id}`).send({ content: { notes: 'more' } }).expect(200);
   });
 
@@ -133,15 +133,15 @@ describe('the revision workflow', () => {
   });
 
   it('refuses an approver their own revision, and returning it', async () => {
-    const { speedBookId } = await newSpeedBook(as.admin, as.engineer);
-    const draft = await write(as.approver, 'post', `/api/speed-books/${speedBookId}/revisions`).send({ content: demoPistonTrainerContent(), changeSummary: 'By the approver' }).expect(201);
+    const [admin, engineer, approver, colleague] = await newTeam(harness.app, ['admin', 'engineer', 'approver', 'approver']);
+    const { speedBookId } = await newSpeedBook(admin, engineer);
+    const draft = await write(approver, 'post', `/api/speed-books/${speedBookId}/revisions`).send({ content: demoPistonTrainerContent(), changeSummary: 'By the approver' }).expect(201);
     const id = draft.body.revision.id;
-    await write(as.approver, 'post', `/api/revisions/${id}/submit`).expect(200);
-    const own = await write(as.approver, 'post', `/api/revisions/${id}/approve`).expect(403);
+    await write(approver, 'post', `/api/revisions/${id}/submit`).expect(200);
+    const own = await write(approver, 'post', `/api/revisions/${id}/approve`).expect(403);
     expect(own.body.error.message).toBe('Nobody approves their own revision; another approver must.');
-    await write(as.approver, 'post', `/api/revisions/${id}/return`).send({ reason: 'mine' }).expect(403);
+    await write(approver, 'post', `/api/revisions/${id}/return`).send({ reason: 'mine' }).expect(403);
     expect((await Revision.findByPk(id, { rejectOnEmpty: true })).status).toBe('in_review');
-    const colleague = await newPerson(harness.app, 'approver');
     await write(colleague, 'post', `/api/revisions/${id}/approve`).expect(200);
   });
 
@@ -269,14 +269,15 @@ describe('the signature', () => {
 
 describe('two approvals at once', () => {
   it('publish once; the other answers 409', async () => {
-    const second = await newPerson(harness.app, 'approver');
-    const { speedBookId } = await newSpeedBook(as.admin, as.engineer);
-    const earlier = await publish(as.engineer, as.approver, speedBookId);
-    const draft = await write(as.engineer, 'post', `/api/speed-books/${speedBookId}/revisions`).send({ content: demoPistonTrainerContentRevised(), changeSummary: 'Race' }).expect(201);
+    // The demo operator has one approver; this race needs two, in an operator of its own.
+    const [admin, engineer, approver, second] = await newTeam(harness.app, ['admin', 'engineer', 'approver', 'approver']);
+    const { speedBookId } = await newSpeedBook(admin, engineer);
+    const earlier = await publish(engineer, approver, speedBookId);
+    const draft = await write(engineer, 'post', `/api/speed-books/${speedBookId}/revisions`).send({ content: demoPistonTrainerContentRevised(), changeSummary: 'Race' }).expect(201);
     const id = draft.body.revision.id;
-    await write(as.engineer, 'post', `/api/revisions/${id}/submit`).expect(200);
+    await write(engineer, 'post', `/api/revisions/${id}/submit`).expect(200);
 
-    const results = await Promise.all([write(as.approver, 'post', `/api/revisions/${id}/approve`), write(second, 'post', `/api/revisions/${id}/approve`)]);
+    const results = await Promise.all([write(approver, 'post', `/api/revisions/${id}/approve`), write(second, 'post', `/api/revisions/${id}/approve`)]);
     expect(results.map((res) => res.status).sort()).toEqual([200, 409]);
     expect(await Revision.count({ where: { speedBookId, status: 'published' } })).toBe(1);
     expect((await Revision.findByPk(earlier, { rejectOnEmpty: true })).status).toBe('superseded');

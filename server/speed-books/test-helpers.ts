@@ -30,20 +30,22 @@ export async function signInEveryone(app: Harness['app']): Promise<SessionsByRol
 
 const unique = () => randomBytes(3).toString('hex').toUpperCase();
 
-/** A new person of the demo operator (password TEST_PASSWORD), signed in. */
-export async function newPerson(app: Harness['app'], role: Role, operatorSlug = 'kestrel-fen'): Promise<Session & { id: number }> {
-  const operator = await Operator.findOne({ where: { slug: operatorSlug }, rejectOnEmpty: true });
-  const email = `${role}-${unique().toLowerCase()}@test.speedwright.example`;
-  const user = await User.create({
-    operatorId: operator.id,
-    email,
-    displayName: `Test ${role} ${email.slice(0, 12)}`,
-    role,
-    passwordHash: await hashPassword(TEST_PASSWORD),
-    lockedUntil: null,
-    lastSignInAt: null,
-  });
-  return { ...(await signIn(app, email)), id: user.id };
+/**
+ * A new operator of its own with one person per entry of `roles` (password TEST_PASSWORD),
+ * each signed in. Tests that need extra people make them here, never in the demo operator,
+ * whose list of people other test files check.
+ */
+export async function newTeam(app: Harness['app'], roles: Role[]): Promise<(Session & { id: number })[]> {
+  const slug = `test-team-${unique().toLowerCase()}`;
+  const operator = await Operator.create({ slug, name: `Test team ${slug} (invented)`, isDemo: true });
+  const passwordHash = await hashPassword(TEST_PASSWORD);
+  const team: (Session & { id: number })[] = [];
+  for (const [i, role] of roles.entries()) {
+    const email = `${role}-${i}@${slug}.speedwright.example`;
+    const user = await User.create({ operatorId: operator.id, email, displayName: `Test ${role} ${i}`, role, passwordHash, lockedUntil: null, lastSignInAt: null });
+    team.push({ ...(await signIn(app, email)), id: user.id });
+  }
+  return team;
 }
 
 /** A new piston-single type (admin) and its empty speed book (engineer); ids of both. */
