@@ -228,4 +228,19 @@ describe('AuditPage', () => {
     await flush(auditRequest(), { events, nextCursor: null });
     expect(rows()).toHaveLength(3);
   });
+
+  it('names card and signing-key events in words and files card issues under speed cards', async () => {
+    await open('inspector');
+    await flush(auditRequest(), {
+      events: [{ ...events[0], id: 50, action: 'card.issued', entityType: 'card-issue', entityId: 'KF-7Q2', details: null }],
+      nextCursor: null,
+    });
+    expect(rows()[0].slice(2)).toEqual(['Issued a speed card', 'Speed card #KF-7Q2']);
+    await choose('Record', 'Speed card');
+    await afterPause();
+    await flush(auditRequest(), { events: [], nextCursor: null });
+    await choose('Action', 'Issued a speed card');
+    await afterPause();
+    expect(query(auditRequest())).toEqual({ limit: '25', entityType: 'card-issue', action: 'card.issued' });
+  });
 });

@@ -10,6 +10,8 @@ export const AUDIT_ENTITY_LABELS: Readonly<Record<string, string>> = {
   'speed-book': 'Speed book',
   revision: 'Revision',
   attachment: 'Source page',
+  'card-issue': 'Speed card',
+  'signing-key': 'Signing key',
 };
 
 export const AUDIT_ACTION_LABELS: Readonly<Record<string, string>> = {
@@ -36,12 +38,17 @@ export const AUDIT_ACTION_LABELS: Readonly<Record<string, string>> = {
   'revision.withdrawn': 'Withdrew a revision',
   'attachment.added': 'Attached a source page',
   'attachment.removed': 'Removed a source page',
+  'card.issued': 'Issued a speed card',
+  'signing-key.created': 'Made the operator’s signing key',
 };
+
+/** Actions whose name begins with another word than their record's type. */
+const ENTITY_OF_PREFIX: Readonly<Record<string, string>> = { invitation: 'user', card: 'card-issue' };
 
 /** The record an action belongs to is named before its first dot. */
 export function entityTypeOfAction(action: string): string {
   const prefix = action.slice(0, action.indexOf('.'));
-  return prefix === 'invitation' ? 'user' : prefix;
+  return ENTITY_OF_PREFIX[prefix] ?? prefix;
 }
 
 export function actionLabel(action: string): string {
