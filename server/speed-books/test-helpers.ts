@@ -31,6 +31,25 @@ export async function signInEveryone(app: Harness['app']): Promise<SessionsByRol
 const unique = () => randomBytes(3).toString('hex').toUpperCase();
 
 /**
+ * A new person of an existing operator (password TEST_PASSWORD), signed in. Mind that other
+ * test files list the demo operators' people; `newTeam` keeps extra people apart.
+ */
+export async function newPerson(app: Harness['app'], role: Role, operatorSlug = 'kestrel-fen'): Promise<Session & { id: number }> {
+  const operator = await Operator.findOne({ where: { slug: operatorSlug }, rejectOnEmpty: true });
+  const email = `${role}-${unique().toLowerCase()}@test.speedwright.example`;
+  const user = await User.create({
+    operatorId: operator.id,
+    email,
+    displayName: `Test ${role} ${email.slice(0, 12)}`,
+    role,
+    passwordHash: await hashPassword(TEST_PASSWORD),
+    lockedUntil: null,
+    lastSignInAt: null,
+  });
+  return { ...(await signIn(app, email)), id: user.id };
+}
+
+/**
  * A new operator of its own with one person per entry of `roles` (password TEST_PASSWORD),
  * each signed in. Tests that need extra people make them here, never in the demo operator,
  * whose list of people other test files check.
