@@ -75,8 +75,7 @@ export function createCardForm(fb: NonNullableFormBuilder): CardForm {
 
 /**
  * Starting values for a revision, in the pilot's units: the reference weight, a standard day at
- * sea level, and a cruise a little below the limits (IAS for pistons and turboprops, Mach for
- * jets with an MMO). Only a start: the pilot types the day's figures over them.
+ * sea level, and a cruise IAS a little below VNO or VMO. Only a start: the pilot types the day's figures over them.
  */
 export function startingValues(content: RevisionContent, units: UnitChoice): CardFormValue {
   const shown = (field: UnitField, canonical: number) => formatInUnit(units[field], fromCanonical(units[field], canonical, UNIT_FIELDS[field]));
@@ -87,7 +86,6 @@ export function startingValues(content: RevisionContent, units: UnitChoice): Car
     dewPoint: '',
   });
   const { limits, aircraft, weights, configurations } = content;
-  const jet = aircraft.category === 'jet' && limits.mmo !== undefined;
   const cruiseTable = configurations[0].positionError;
   const topIasKt = cruiseTable[cruiseTable.length - 1].iasKt;
   const limitKt = limits.vnoKt ?? limits.vmoKt ?? limits.vneKt ?? topIasKt;
@@ -100,9 +98,9 @@ export function startingValues(content: RevisionContent, units: UnitChoice): Car
     hasArrival: false,
     arrival: aerodrome('arrival'),
     isaDeviation: shown('isaDeviation', 0),
-    cruiseKind: jet ? 'mach' : 'ias',
+    cruiseKind: 'ias',
     cruiseIas: shown('cruiseIas', cruiseIasKt),
-    cruiseMach: jet ? String(Math.round((limits.mmo! - 0.05) * 100) / 100) : '0.3',
+    cruiseMach: limits.mmo === undefined ? '0.3' : String(Math.round((limits.mmo - 0.05) * 100) / 100),
     altitudeStepFt: aircraft.ceilingFt > 20_000 ? 2000 : 1000,
   };
 }

@@ -201,7 +201,7 @@ describe('CardsPage', () => {
     expect(JSON.parse(localStorage.getItem(`speedwright.card-units.${PILOT.id}`)!).weight).toBe('lb');
     // 2,425 lb is 1,099.96 kg: a new card, with the entered unit and its kilograms in the header.
     expect(page.querySelector('[data-testid="speed-card"]')!.getAttribute('data-digest')).not.toBe(digestBefore);
-    expect(page.querySelector('[data-testid="speed-card"] .inputs')!.textContent).toContain('2,425 lb (1,100 kg)');
+    expect(page.querySelector('[data-testid="speed-card"] .inputs')!.textContent).toContain('2425 lb (1100 kg)');
 
     field('unit-departure.qnh').click();
     await settle();

@@ -120,7 +120,7 @@ export class CardsPage {
   protected readonly choices = signal<readonly AirframeChoice[]>([]);
   protected readonly loadingFleet = signal(true);
   protected readonly fleetProblem = signal<string | null>(null);
-  protected readonly airframeControl = new FormControl<number | null>(null);
+  protected readonly airframeControl = new FormControl<number | null>({ value: null, disabled: true });
   protected readonly revisionControl = new FormControl<number>(PUBLISHED, { nonNullable: true });
   protected readonly openRevisions = signal<readonly RevisionSummary[]>([]);
   protected readonly revision = signal<RevisionView | null>(null);
@@ -213,7 +213,7 @@ export class CardsPage {
     const content = this.content();
     if (!content) return '';
     const unit = this.units().landingWeight;
-    return `Up to ${cardNumber(fromCanonical(unit, content.weights.maximumLandingKg, 'mass'))} ${unit}; empty: the takeoff weight`;
+    return `Optional, up to ${cardNumber(fromCanonical(unit, content.weights.maximumLandingKg, 'mass'))} ${unit}; empty: the takeoff weight`;
   });
 
   protected readonly publishedWords = computed(() => {
@@ -347,6 +347,7 @@ export class CardsPage {
         next: (choices) => {
           this.choices.set(choices);
           this.loadingFleet.set(false);
+          this.airframeControl.enable({ emitEvent: false });
           if (choices.length === 1) this.airframeControl.setValue(choices[0].airframe.id);
         },
         error: (error: ApiRequestError) => {
@@ -441,9 +442,9 @@ function enteredInputs({ value, units }: Snapshot): EnteredInput[] {
     if (typed === null) return;
     const unit = units[field];
     const canonicalUnit = CANONICAL_UNITS[field];
-    const decimals = (u: AnyUnit) => (u === 'inHg' ? 2 : u === '°C' || u === '°F' || u === 'hPa' ? 1 : 0);
-    let shown = `${cardNumber(typed, decimals(unit))} ${unit}`;
-    if (unit !== canonicalUnit) shown += ` (${cardNumber(toCanonical(unit, typed, UNIT_FIELDS[field]), decimals(canonicalUnit))} ${canonicalUnit})`;
+    // As typed (a comma read as the decimal point), and in the card's unit when typed in another.
+    let shown = `${text.trim().replace(',', '.')} ${unit}`;
+    if (unit !== canonicalUnit) shown += ` (${formatInUnit(canonicalUnit, toCanonical(unit, typed, UNIT_FIELDS[field]))} ${canonicalUnit})`;
     items.push({ label, value: shown });
   };
   add('Takeoff weight', 'weight', value.weight);

@@ -74,13 +74,13 @@ export class SpeedCardView {
       if (speed) rows.push({ code, meaning, iasKt: speed.iasKt, casKt: speed.casKt });
     };
     add('VNE', 'Never exceed', limits.vne);
-    add('VNO', 'Maximum structural cruising', limits.vno);
+    add('VNO', 'Max. structural cruising', limits.vno);
     add('VMO', 'Maximum operating', limits.vmo);
-    for (const vfe of limits.vfe) add('VFE', `Flaps extended, ${vfe.configurationLabel}`, vfe);
-    add('VLE', 'Landing gear extended', limits.vle);
-    add('VLO', 'Landing gear operating', limits.vlo);
-    add('VMC', 'Minimum control, one engine inoperative (rounded up)', limits.vmc);
-    add('VYSE', 'Best rate of climb, one engine (target)', limits.vyse);
+    for (const vfe of limits.vfe) add('VFE', `Flap limit, ${vfe.configurationLabel}`, vfe);
+    add('VLE', 'Gear extended', limits.vle);
+    add('VLO', 'Gear operating', limits.vlo);
+    add('VMC', 'Min. control, one engine out (rounded up)', limits.vmc);
+    add('VYSE', 'Best rate, one engine (target)', limits.vyse);
     return rows;
   });
 

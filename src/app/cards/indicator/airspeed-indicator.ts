@@ -6,7 +6,11 @@ const C = 120;
 const TICK_OUTER = 112;
 const COLOUR_ARC_RADIUS = 95;
 const WHITE_ARC_RADIUS = 84;
-const NUMBER_RADIUS = 66;
+const NUMBER_RADIUS = 64;
+/** Radial lines cross both arc tracks and stop short of the numbers. */
+const LINE_INNER_RADIUS = 77;
+/** Line codes sit outside the bezel, beside the line's outer end, clear of the numbers. */
+const LINE_LABEL_RADIUS = 126;
 
 /** Words for each marking, so colour is never the only cue. */
 const ARC_WORDS: Readonly<Record<CardIndicatorArc['colour'], string>> = {
@@ -40,6 +44,7 @@ interface DrawnLine {
   readonly y2: number;
   readonly labelX: number;
   readonly labelY: number;
+  readonly labelAnchor: 'start' | 'middle' | 'end';
   readonly words: string;
   readonly kt: number;
 }
@@ -86,7 +91,7 @@ export class AirspeedIndicator {
     const scale = this.scale();
     const numbers: { x: number; y: number; text: string }[] = [];
     for (let kt = scale.minKt; kt <= scale.maxKt; kt += scale.majorStepKt) {
-      const point = polar(C, C, NUMBER_RADIUS + 12, angleOfKt(kt, scale));
+      const point = polar(C, C, NUMBER_RADIUS, angleOfKt(kt, scale));
       numbers.push({ x: point.x, y: point.y, text: String(kt) });
     }
     return numbers;
@@ -107,9 +112,11 @@ export class AirspeedIndicator {
     return this.indicator().lines.map((line) => {
       const deg = angleOfKt(line.kt, scale);
       const outer = polar(C, C, TICK_OUTER, deg);
-      const inner = polar(C, C, WHITE_ARC_RADIUS - 6, deg);
-      const label = polar(C, C, NUMBER_RADIUS - 16, deg);
-      return { colour: line.colour, code: line.code, deg, x1: outer.x, y1: outer.y, x2: inner.x, y2: inner.y, labelX: label.x, labelY: label.y, words: LINE_WORDS[line.code], kt: line.kt };
+      const inner = polar(C, C, LINE_INNER_RADIUS, deg);
+      const label = polar(C, C, LINE_LABEL_RADIUS, deg);
+      const side = Math.sin((deg * Math.PI) / 180);
+      const labelAnchor = side > 0.25 ? 'start' : side < -0.25 ? 'end' : 'middle';
+      return { colour: line.colour, code: line.code, deg, x1: outer.x, y1: outer.y, x2: inner.x, y2: inner.y, labelX: label.x, labelY: label.y, labelAnchor, words: LINE_WORDS[line.code], kt: line.kt };
     });
   });
 
