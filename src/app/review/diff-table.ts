@@ -19,9 +19,8 @@ const KIND_WORDS = { added: 'Added', removed: 'Removed', changed: 'Changed' } as
           <thead>
             <tr>
               <th scope="col">Field</th>
-              <th scope="col">Change</th>
-              <th scope="col">Revision {{ againstNumber() }}</th>
-              <th scope="col">Revision {{ revisionNumber() }}</th>
+              <th scope="col">Rev. {{ againstNumber() }}</th>
+              <th scope="col">Rev. {{ revisionNumber() }}</th>
             </tr>
           </thead>
           <tbody>
@@ -29,9 +28,9 @@ const KIND_WORDS = { added: 'Added', removed: 'Removed', changed: 'Changed' } as
               <tr [class]="row.kind">
                 <th scope="row">
                   {{ row.location }}
+                  <span class="kind">{{ row.kindWord }}</span>
                   <span class="path sw-mono">{{ row.path }}</span>
                 </th>
-                <td>{{ row.kindWord }}</td>
                 <td class="before">{{ row.before }}</td>
                 <td class="after">{{ row.after }}</td>
               </tr>
@@ -66,7 +65,21 @@ const KIND_WORDS = { added: 'Added', removed: 'Removed', changed: 'Changed' } as
       text-align: left;
       vertical-align: top;
       border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
+    td {
+      min-width: 4rem;
       overflow-wrap: anywhere;
+    }
+    thead th {
+      white-space: nowrap;
+    }
+    .kind {
+      display: inline-block;
+      margin-left: 6px;
+      padding: 0 6px;
+      border-radius: 4px;
+      font: var(--mat-sys-label-small);
+      background: var(--mat-sys-surface-container-high);
     }
     thead th {
       font: var(--mat-sys-label-large);
@@ -78,6 +91,7 @@ const KIND_WORDS = { added: 'Added', removed: 'Removed', changed: 'Changed' } as
     }
     .path {
       display: block;
+      overflow-wrap: anywhere;
       font-size: 0.75rem;
       color: var(--mat-sys-on-surface-variant);
     }

@@ -53,7 +53,7 @@ import { UtcDatePipe } from '../speed-books/utc-date-pipe';
                       <span class="muted">(you; another approver reviews it)</span>
                     }
                   </td>
-                  <td>{{ entry.revision.submittedAt | utcDate }}</td>
+                  <td>{{ entry.revision.submittedAt | utcDate: false }}</td>
                   <td>{{ entry.revision.changeSummary }}</td>
                 </tr>
               } @empty {

@@ -68,9 +68,12 @@ describe('RevisionReview', () => {
   const button = (testId: string) => page.querySelector<HTMLButtonElement>(`[data-testid="${testId}"]`);
 
   function diffRows(): string[][] {
-    return Array.from(page.querySelectorAll('[data-testid="diff-table"] tbody tr')).map((row) =>
-      Array.from(row.children).map((cell) => cell.firstChild!.textContent!.trim()),
-    );
+    return Array.from(page.querySelectorAll('[data-testid="diff-table"] tbody tr')).map((row) => [
+      row.querySelector('th')!.firstChild!.textContent!.trim(),
+      row.querySelector('.kind')!.textContent!.trim(),
+      row.querySelector('td.before')!.textContent!.trim(),
+      row.querySelector('td.after')!.textContent!.trim(),
+    ]);
   }
 
   it('shows the field-by-field diff against the published revision, in words', async () => {

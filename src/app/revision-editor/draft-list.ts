@@ -54,7 +54,7 @@ import { UtcDatePipe } from '../speed-books/utc-date-pipe';
                   <td>{{ entry.revision.number }}</td>
                   <td><sw-revision-status-chip [status]="entry.revision.status" /></td>
                   <td>{{ entry.revision.authorName }}</td>
-                  <td>{{ entry.revision.updatedAt | utcDate }}</td>
+                  <td>{{ entry.revision.updatedAt | utcDate: false }}</td>
                   <td>{{ entry.revision.changeSummary }}</td>
                 </tr>
               } @empty {

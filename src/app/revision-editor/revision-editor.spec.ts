@@ -193,6 +193,17 @@ describe('RevisionEditor', () => {
     await fixture.whenStable();
   });
 
+  it('says what is missing when a position-error table is emptied row by row', async () => {
+    await openDraft(demoPistonTrainerContent() as unknown as Record<string, unknown>);
+    const removeButtons = () => Array.from(page.querySelectorAll<HTMLButtonElement>('[data-testid="configuration-editor"]:nth-of-type(1) button[aria-label^="Remove row"]'));
+    while (removeButtons().length) {
+      removeButtons()[0]!.click();
+      await fixture.whenStable();
+    }
+    expect(page.querySelector('[data-testid="position-error-problems"]')?.textContent).toContain('A position-error table needs at least two IAS/CAS points.');
+    expect(submitButton().disabled).toBe(true);
+  });
+
   it('refuses to edit a revision that is no longer a draft', async () => {
     fixture.componentRef.setInput('revisionId', DRAFT_ID);
     await fixture.whenStable();

@@ -4,9 +4,10 @@ import { Pipe, PipeTransform } from '@angular/core';
 /** An API timestamp as "30 Nov 2026, 08:12 UTC": flight operations keep time in UTC. */
 @Pipe({ name: 'utcDate' })
 export class UtcDatePipe implements PipeTransform {
-  transform(value: string | null | undefined, empty = '—'): string {
-    if (!value) return empty;
+  /** `zone` false where a column heading already says UTC. */
+  transform(value: string | null | undefined, zone = true): string {
+    if (!value) return '—';
     const ms = Date.parse(value);
-    return Number.isFinite(ms) ? `${formatDate(ms, 'd MMM y, HH:mm', 'en-US', 'UTC')} UTC` : empty;
+    return Number.isFinite(ms) ? `${formatDate(ms, 'd MMM y, HH:mm', 'en-US', 'UTC')}${zone ? ' UTC' : ''}` : '—';
   }
 }
