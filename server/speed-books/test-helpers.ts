@@ -8,7 +8,8 @@ import type TestAgent from 'supertest/lib/agent';
 import type { Role } from '../../shared/auth/roles';
 import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
 import type { RevisionContent } from '../../shared/speed-book/revision-content';
-import { demoEmail, signIn, TEST_PASSWORD, type Harness } from '../../test/api/harness';
+import { signIn, TEST_PASSWORD, type Harness } from '../../test/api/harness';
+import { sessionOf } from '../../test/api/role-sessions';
 import { hashPassword } from '../auth/passwords';
 import { Operator, User } from '../models';
 
@@ -19,12 +20,17 @@ export interface Session {
 
 export type SessionsByRole = Record<Role, Session> & { secondAdmin: Session; secondPilot: Session };
 
+/**
+ * One session per demo role and for the second operator's admin and pilot, through
+ * test/api/role-sessions.ts (which gives the two people the lockout tests lock a person of
+ * their own).
+ */
 export async function signInEveryone(app: Harness['app']): Promise<SessionsByRole> {
   const roles: Role[] = ['pilot', 'engineer', 'approver', 'admin', 'inspector'];
   const sessions = {} as SessionsByRole;
-  for (const role of roles) sessions[role] = await signIn(app, demoEmail(role));
-  sessions.secondAdmin = await signIn(app, demoEmail('admin', 'second'));
-  sessions.secondPilot = await signIn(app, demoEmail('pilot', 'second'));
+  for (const role of roles) sessions[role] = await sessionOf(app, role);
+  sessions.secondAdmin = await sessionOf(app, 'admin', 'second');
+  sessions.secondPilot = await sessionOf(app, 'pilot', 'second');
   return sessions;
 }
 
