@@ -17,7 +17,6 @@ import { CardLog, type CardLogFilter } from './card-log';
 import { cardNumber } from './card-number-pipe';
 import { CardSources } from './card-sources';
 import { DeviceCardLog } from './device-card-log';
-import { utcDate } from './speed-card-view';
 
 export const CARD_LOG_PAGE_SIZE = 25;
 const FILTER_PAUSE_MS = 300;
@@ -86,8 +85,10 @@ export class CardLogPage {
     void this.loadPage(this.currentCursor());
   }
 
+  /** "2026-12-01 23:45", UTC: short enough for two time columns on a tablet. */
   protected when(iso: string): string {
-    return utcDate(iso);
+    const date = new Date(iso);
+    return Number.isNaN(date.getTime()) ? iso : `${date.toISOString().slice(0, 10)} ${date.toISOString().slice(11, 16)}`;
   }
 
   protected weightOf(entry: CardIssueView): string {
