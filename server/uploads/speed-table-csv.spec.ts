@@ -36,6 +36,17 @@ describe('position-error layout', () => {
     expect(result.rows[0]!.values).toEqual({ configuration_key: 'clean', ias_kt: '60', cas_kt: '63' });
   });
 
+  it('refuses keys and codes that the revision content would refuse later (upper case, underscores)', () => {
+    const result = positionError('configuration_key,ias_kt,cas_kt\nTakeoff_Flap,60,63\nTakeoff_Flap,80,81\n');
+    expect(result.configurations).toEqual([]);
+    expect(result.errors).toEqual([
+      { line: 2, column: 'configuration_key', reason: expect.stringMatching(/lower-case letters and digits joined by hyphens/) },
+      { line: 3, column: 'configuration_key', reason: expect.stringMatching(/lower-case letters and digits joined by hyphens/) },
+    ]);
+    const speeds = tabulated('speed_code,configuration_key,weight_kg,value_kt\nV_R,clean,900,55\nV_R,clean,1000,58\n');
+    expect(speeds.errors.map((error) => error.column)).toEqual(['speed_code', 'speed_code']);
+  });
+
   it('reports each bad row with its line, column and a reason, and leaves the group out', () => {
     const result = positionError(
       [

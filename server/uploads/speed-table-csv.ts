@@ -31,6 +31,7 @@
  * `{ line, column, reason }` (line 1 is the header); a group with any problem is left out of
  * the parsed structure so that nothing half-checked reaches a draft.
  */
+import { configurationKeySchema, speedCodeSchema } from '../../shared/speed-book/content-shape';
 import Papa from 'papaparse';
 import { HttpError } from '../http-error';
 
@@ -103,8 +104,10 @@ const RANGES = {
 const POSITION_ERROR_COLUMNS = ['configuration_key', 'ias_kt', 'cas_kt'];
 const TABULATED_REQUIRED = ['speed_code', 'configuration_key', 'weight_kg', 'value_kt'];
 const TABULATED_OPTIONAL = ['pressure_altitude_ft', 'oat_c'];
-const CONFIGURATION_KEY = /^[A-Za-z0-9][A-Za-z0-9_-]{0,39}$/;
-const SPEED_CODE = /^[A-Za-z0-9][A-Za-z0-9_-]{0,15}$/;
+// Keys and codes follow the revision content's own rules, so a preview that passes here is
+// not refused later by the content schema.
+const CONFIGURATION_KEY = { test: (key: string) => configurationKeySchema.safeParse(key).success };
+const SPEED_CODE = { test: (code: string) => speedCodeSchema.safeParse(code).success };
 
 export const LAYOUT_HELP =
   'Use one of the two layouts: a position-error table with the columns configuration_key,ias_kt,cas_kt, ' +
@@ -237,7 +240,7 @@ function parseTabulated(
     const configurationKey = row.values['configuration_key']!;
     let identified = true;
     if (!SPEED_CODE.test(code)) {
-      errors.push({ line: row.line, column: 'speed_code', reason: code ? `"${code}" is not a speed code: use letters and digits (up to 16), e.g. VR or VREF.` : 'Enter the speed code, e.g. VR.' });
+      errors.push({ line: row.line, column: 'speed_code', reason: code ? `"${code}" is not a speed code: ${schemaMessage(speedCodeSchema, code)}` : 'Enter the speed code, e.g. VR.' });
       identified = false;
     }
     if (!CONFIGURATION_KEY.test(configurationKey)) {
@@ -395,8 +398,13 @@ function describePoint(code: string, columns: readonly string[], axes: number[])
 
 function configurationKeyReason(key: string): string {
   return key
-    ? `"${key}" is not a configuration key: use letters, digits, - or _ (up to 40), e.g. takeoff-flap.`
+    ? `"${key}" is not a configuration key: ${schemaMessage(configurationKeySchema, key)}`
     : 'Enter the configuration key, e.g. clean or landing-flap.';
+}
+
+function schemaMessage(schema: typeof configurationKeySchema | typeof speedCodeSchema, value: string): string {
+  const result = schema.safeParse(value);
+  return result.success ? '' : (result.error.issues[0]?.message ?? '');
 }
 
 function sameSet(a: string[], b: string[]): boolean {
