@@ -1,5 +1,5 @@
 import { NgTemplateOutlet } from '@angular/common';
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl, NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -227,6 +227,7 @@ export class CardsPage {
     this.loadFleet();
     this.followSelection();
     this.followForm();
+    this.askDemoWithFirstCard();
     void this.cardLog.refresh();
   }
 
@@ -301,33 +302,35 @@ export class CardsPage {
   private build(revision: RevisionView, choice: AirframeChoice, inputs: CardInputs): Outcome {
     const demo = this.demo();
     try {
-      const card = buildCard(cardRevisionOf(revision), inputs, cardContextOf(choice, demo ?? true));
-      if (demo === null) this.askDemo(revision.id, inputs);
-      return { kind: 'card', card };
+      return { kind: 'card', card: buildCard(cardRevisionOf(revision), inputs, cardContextOf(choice, demo ?? true)) };
     } catch (error) {
       if (error instanceof CardRefusedError) return { kind: 'refused', field: error.field, message: error.message };
       throw error;
     }
   }
 
-  /** Once per operator and device: whether the card must say it is demo data (see CardSources.askDemo). */
-  private askDemo(revisionId: number, inputs: CardInputs): void {
-    const user = this.user();
-    if (!user || this.askingDemo) return;
-    this.askingDemo = true;
-    queueMicrotask(() =>
+  /**
+   * Once per operator and device, with the first card built: whether the card must say it is
+   * demo data (see CardSources.askDemo). Until the server has answered, the card says it is.
+   */
+  private askDemoWithFirstCard(): void {
+    effect(() => {
+      const card = this.card();
+      const user = this.user();
+      if (!card || !user || this.demo() !== null || this.askingDemo) return;
+      this.askingDemo = true;
       this.sources
-        .askDemo(revisionId, inputs)
+        .askDemo(card.revision.id, card.inputs)
         .pipe(takeUntilDestroyed(this.destroyRef))
         .subscribe({
           next: (demo) => {
             this.sources.rememberDemo(user.operatorId, demo);
             this.demo.set(demo);
           },
-          // Offline or refused: the card keeps saying "demo" until the server has answered once.
+          // Offline or refused: asked again with the next card.
           error: () => (this.askingDemo = false),
-        }),
-    );
+        });
+    });
   }
 
   private loadUnits(): void {
