@@ -69,11 +69,16 @@ function checkConfigurations({ configurations }: Content, add: Add): Map<string,
   return byKey;
 }
 
-/** The first and last speed of a position-error table's column for `basis`. */
-function tableRange(configuration: Configuration, basis: Basis): [number, number] {
+/**
+ * The first and last speed of a position-error table's column for `basis`; undefined for a
+ * table too short to have a range (the shape rule already reports it), so that range rules
+ * skip it instead of failing.
+ */
+function tableRange(configuration: Configuration, basis: Basis): [number, number] | undefined {
   const column = basis === 'ias' ? 'iasKt' : 'casKt';
   const points = configuration.positionError;
-  return [points[0][column], points[points.length - 1][column]];
+  if (points.length < 2) return undefined;
+  return [points[0]![column], points[points.length - 1]![column]];
 }
 
 function flatValues(values: unknown): number[] {
@@ -107,13 +112,14 @@ function checkSpeeds({ speeds, weights, aircraft }: Content, configurations: Map
     seen.add(id);
     if (speed.kind === 'tabulated') checkTable(speed, i, weights, aircraft, add);
     const span = speedSpan(speed, weights);
-    if (configuration && span && !tabulatedShapeBroken(speed)) {
-      const [low, high] = tableRange(configuration, speed.basis);
+    const range = configuration && tableRange(configuration, speed.basis);
+    if (range && span && !tabulatedShapeBroken(speed)) {
+      const [low, high] = range;
       if (span[0] < low - 1e-9 || span[1] > high + 1e-9) {
         const field = speed.kind === 'fixed' ? 'valueKt' : speed.kind === 'scaled' ? 'referenceKt' : 'valuesKt';
         add(
           ['speeds', i, field],
-          `${speed.code} runs from ${fmt(span[0])} to ${fmt(span[1])} kt ${speed.basis.toUpperCase()} over the weight range, outside the ${configuration.key} position-error table (${fmt(low)} to ${fmt(high)} kt ${speed.basis.toUpperCase()}).`,
+          `${speed.code} runs from ${fmt(span[0])} to ${fmt(span[1])} kt ${speed.basis.toUpperCase()} over the weight range, outside the ${speed.configurationKey} position-error table (${fmt(low)} to ${fmt(high)} kt ${speed.basis.toUpperCase()}).`,
         );
       }
     }
@@ -227,8 +233,9 @@ function checkLimits(content: Content, configurations: Map<string, Configuration
   const cruise = content.configurations[0];
   for (const key of ['vnoKt', 'vneKt', 'vmoKt'] as const) {
     const valueKt = limits[key];
-    if (valueKt === undefined || !cruise) continue;
-    const [low, high] = tableRange(cruise, basis);
+    const range = cruise && tableRange(cruise, basis);
+    if (valueKt === undefined || !cruise || !range) continue;
+    const [low, high] = range;
     if (valueKt < low || valueKt > high) {
       add(['limits', key], `${fmt(valueKt)} kt is outside the ${cruise.key} position-error table (${fmt(low)} to ${fmt(high)} kt ${basis.toUpperCase()}); the first configuration is the cruise configuration.`);
     }
@@ -240,8 +247,9 @@ function checkLimits(content: Content, configurations: Map<string, Configuration
       add(['limits', 'vfeKt', key], `There is no configuration ${key} for this VFE.`);
       continue;
     }
-    const [low, high] = tableRange(configuration, basis);
-    if (vfeKt < low || vfeKt > high) {
+    const range = tableRange(configuration, basis);
+    if (range && (vfeKt < range[0] || vfeKt > range[1])) {
+      const [low, high] = range;
       add(['limits', 'vfeKt', key], `${fmt(vfeKt)} kt is outside the ${key} position-error table (${fmt(low)} to ${fmt(high)} kt ${basis.toUpperCase()}).`);
     }
     for (const speed of content.speeds) {

@@ -55,6 +55,14 @@ describe('revision content schema', () => {
     });
   });
 
+  it('refuses an empty position-error table with a sentence instead of failing (cruise and flap configurations)', () => {
+    for (const index of [0, 1]) {
+      expect(problemsAfter((c) => (c.configurations[index].positionError = []))).toEqual({
+        [`configurations.${index}.positionError`]: 'A position-error table needs at least two IAS/CAS points.',
+      });
+    }
+  });
+
   it('refuses a table axis that does not rise strictly', () => {
     const problems = problemsAfter((c) => {
       (c.speeds[speedIndex(c, 'V1')] as TabulatedSpeed).byPressureAltitudeFt = [0, 8000, 4000];
