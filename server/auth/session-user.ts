@@ -19,5 +19,6 @@ export function toSessionUser(user: User): SessionUser {
     role: user.role,
     operatorId: user.operatorId,
     operatorName: user.operator?.name ?? '',
+    operatorIsDemo: user.operator?.isDemo ?? false,
   };
 }

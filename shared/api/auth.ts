@@ -9,6 +9,8 @@ export const sessionUserSchema = z.object({
   role: z.enum(ROLES),
   operatorId: z.number().int().positive(),
   operatorName: z.string(),
+  /** A demo operator's figures are invented; its cards say so (and the flag is part of their digest). */
+  operatorIsDemo: z.boolean(),
 });
 export type SessionUser = z.infer<typeof sessionUserSchema>;
 

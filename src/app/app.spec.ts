@@ -16,7 +16,7 @@ const approver: SessionUser = {
   displayName: 'Mira Castell',
   role: 'approver',
   operatorId: 1,
-  operatorName: 'Kestrel Fen Aviation (demo)',
+  operatorName: 'Kestrel Fen Aviation (demo)', operatorIsDemo: true,
 };
 
 describe('App shell', () => {

@@ -32,7 +32,6 @@ export interface AirframeChoice {
   readonly book: SpeedBookSummary | null;
 }
 
-const DEMO_KEY_PREFIX = 'speedwright.operator-demo.';
 
 /** What a card is built from, fetched once; the card itself is computed on the device. */
 @Injectable({ providedIn: 'root' })
@@ -75,33 +74,6 @@ export class CardSources {
 
   revision(id: number): Observable<RevisionView> {
     return this.api.get(CARD_PATHS.revision(id), revisionResponseSchema).pipe(map((body) => body.revision));
-  }
-
-  /**
-   * Asks the server once whether the operator is a demo operator (the card says so, and the
-   * flag is part of the digest the server checks). The session does not carry it, so the
-   * server's own preview of the device's first card answers it.
-   */
-  askDemo(revisionId: number, inputs: CardInputs): Observable<boolean> {
-    return this.api.post(CARD_PATHS.preview, { revisionId, inputs }, cardPreviewResponseSchema).pipe(map(({ card }) => card.demo));
-  }
-
-  /** The last answer of `askDemo` for the operator on this device, or null before the first. */
-  rememberedDemo(operatorId: number): boolean | null {
-    try {
-      const stored = this.window?.localStorage.getItem(DEMO_KEY_PREFIX + operatorId);
-      return stored === 'true' ? true : stored === 'false' ? false : null;
-    } catch {
-      return null;
-    }
-  }
-
-  rememberDemo(operatorId: number, demo: boolean): void {
-    try {
-      this.window?.localStorage.setItem(DEMO_KEY_PREFIX + operatorId, String(demo));
-    } catch {
-      // Asked again on the next visit.
-    }
   }
 }
 

@@ -24,7 +24,7 @@ class ChartPlaceholder {
 }
 
 const stamp = '2026-11-01T00:00:00.000Z';
-const PILOT: SessionUser = { id: 3, email: 'pilot@demo.example', displayName: 'Ines Marlow', role: 'pilot', operatorId: 1, operatorName: 'Kestrel Fen Aviation (demo)' };
+const PILOT: SessionUser = { id: 3, email: 'pilot@demo.example', displayName: 'Ines Marlow', role: 'pilot', operatorId: 1, operatorName: 'Kestrel Fen Aviation (demo)', operatorIsDemo: true };
 const TYPE: AircraftTypeView = { id: 1, designator: 'ZZP1', name: 'Sedgeling 4', category: 'piston-single', engines: 1, ceilingFt: 14000, createdAt: stamp, updatedAt: stamp };
 const AIRFRAME: AirframeView = { id: 7, registration: 'ZZ-KFA', serial: 'SG4-0012', aircraftTypeId: 1, active: true, createdAt: stamp, updatedAt: stamp };
 const content = demoPistonTrainerContent();
@@ -99,7 +99,7 @@ describe('CardsPage', () => {
     // The only airframe in service is chosen; its type's current revision is fetched.
     backend.expectOne(CARD_PATHS.revision(21)).flush({ revision: REVISION });
     await settle();
-    answerDemoQuestion();
+    // And the device card log's first read (IndexedDB, which Angular does not wait for).
     await settle();
   });
 
@@ -113,13 +113,6 @@ describe('CardsPage', () => {
   async function settle(): Promise<void> {
     await pause(CARD_DEBOUNCE_MS + 60);
     await fixture.whenStable();
-  }
-
-  /** The first card asks the server once whether the operator is a demo operator. */
-  function answerDemoQuestion(): void {
-    const preview = backend.expectOne(CARD_PATHS.preview);
-    const { inputs } = preview.request.body as { inputs: CardInputs };
-    preview.flush({ card: card(inputs) });
   }
 
   function field(testId: string): HTMLInputElement {

@@ -131,8 +131,6 @@ export class CardsPage {
   protected readonly units = signal<UnitChoice>(CANONICAL_UNITS);
   private readonly snapshot = signal<Snapshot | null>(null);
   private readonly recompute = new Subject<void>();
-  private readonly demo = signal<boolean | null>(null);
-  private askingDemo = false;
 
   protected readonly issuing = signal(false);
   protected readonly issued = signal<{ digest: string; sentence: string; ok: boolean } | null>(null);
@@ -227,7 +225,6 @@ export class CardsPage {
     this.loadFleet();
     this.followSelection();
     this.followForm();
-    this.askDemoWithFirstCard();
     void this.cardLog.refresh();
   }
 
@@ -300,44 +297,18 @@ export class CardsPage {
   });
 
   private build(revision: RevisionView, choice: AirframeChoice, inputs: CardInputs): Outcome {
-    const demo = this.demo();
     try {
-      return { kind: 'card', card: buildCard(cardRevisionOf(revision), inputs, cardContextOf(choice, demo ?? true)) };
+      return { kind: 'card', card: buildCard(cardRevisionOf(revision), inputs, cardContextOf(choice, this.user()?.operatorIsDemo ?? true)) };
     } catch (error) {
       if (error instanceof CardRefusedError) return { kind: 'refused', field: error.field, message: error.message };
       throw error;
     }
   }
 
-  /**
-   * Once per operator and device, with the first card built: whether the card must say it is
-   * demo data (see CardSources.askDemo). Until the server has answered, the card says it is.
-   */
-  private askDemoWithFirstCard(): void {
-    effect(() => {
-      const card = this.card();
-      const user = this.user();
-      if (!card || !user || this.demo() !== null || this.askingDemo) return;
-      this.askingDemo = true;
-      this.sources
-        .askDemo(card.revision.id, card.inputs)
-        .pipe(takeUntilDestroyed(this.destroyRef))
-        .subscribe({
-          next: (demo) => {
-            this.sources.rememberDemo(user.operatorId, demo);
-            this.demo.set(demo);
-          },
-          // Offline or refused: asked again with the next card.
-          error: () => (this.askingDemo = false),
-        });
-    });
-  }
-
   private loadUnits(): void {
     const user = this.user();
     if (!user) return;
     this.units.set(this.unitPreferences.load(user.id));
-    this.demo.set(this.sources.rememberedDemo(user.operatorId));
   }
 
   protected loadFleet(): void {

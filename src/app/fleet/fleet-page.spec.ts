@@ -22,7 +22,7 @@ const airframes: AirframeView[] = [
 ];
 
 function personWith(role: Role): SessionUser {
-  return { id: 1, email: `${role}@demo.example`, displayName: 'Robin Aldane', role, operatorId: 1, operatorName: 'Kestrel Fen Aviation (demo)' };
+  return { id: 1, email: `${role}@demo.example`, displayName: 'Robin Aldane', role, operatorId: 1, operatorName: 'Kestrel Fen Aviation (demo)', operatorIsDemo: true };
 }
 
 describe('FleetPage', () => {

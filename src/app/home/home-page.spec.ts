@@ -10,7 +10,7 @@ import { ThemePreference } from '../core/theme/theme-preference';
 import { HomePage } from './home-page';
 
 function personWith(role: Role): SessionUser {
-  return { id: 9, email: `${role}@demo.speedwright.example`, displayName: 'Alex Thorne', role, operatorId: 1, operatorName: 'Kestrel Fen Aviation (demo)' };
+  return { id: 9, email: `${role}@demo.speedwright.example`, displayName: 'Alex Thorne', role, operatorId: 1, operatorName: 'Kestrel Fen Aviation (demo)', operatorIsDemo: true };
 }
 
 describe('HomePage', () => {

@@ -9,7 +9,7 @@ import { NAVIGATION_ENTRIES } from '../core/navigation/navigation-entry';
 import { NavigationList } from './navigation-list';
 
 function personWith(role: Role): SessionUser {
-  return { id: 1, email: `${role}@demo.speedwright.example`, displayName: 'Test Person', role, operatorId: 1, operatorName: 'Kestrel Fen Aviation (demo)' };
+  return { id: 1, email: `${role}@demo.speedwright.example`, displayName: 'Test Person', role, operatorId: 1, operatorName: 'Kestrel Fen Aviation (demo)', operatorIsDemo: true };
 }
 
 describe('NavigationList', () => {

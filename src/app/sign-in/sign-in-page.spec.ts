@@ -14,7 +14,7 @@ const admin: SessionUser = {
   displayName: 'Robin Aldane',
   role: 'admin',
   operatorId: 1,
-  operatorName: 'Kestrel Fen Aviation (demo)',
+  operatorName: 'Kestrel Fen Aviation (demo)', operatorIsDemo: true,
 };
 
 describe('SignInPage', () => {

@@ -10,7 +10,7 @@ import type { SpeedBook } from './revisions-api';
 export const PEOPLE = { engineer: 3, approver: 4, otherApprover: 6 } as const;
 
 export function sessionUser(role: Role, id: number = role === 'approver' ? PEOPLE.approver : role === 'engineer' ? PEOPLE.engineer : 2): SessionUser {
-  return { id, email: `${role}@demo.speedwright.example`, displayName: `Demo ${role}`, role, operatorId: 1, operatorName: 'Kestrel Fen Aviation (demo)' };
+  return { id, email: `${role}@demo.speedwright.example`, displayName: `Demo ${role}`, role, operatorId: 1, operatorName: 'Kestrel Fen Aviation (demo)', operatorIsDemo: true };
 }
 
 export function revisionSummary(overrides: Partial<RevisionSummary> = {}): RevisionSummary {

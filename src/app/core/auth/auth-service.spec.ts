@@ -13,7 +13,7 @@ const engineer: SessionUser = {
   displayName: 'Ines Marlow',
   role: 'engineer',
   operatorId: 1,
-  operatorName: 'Kestrel Fen Aviation (demo)',
+  operatorName: 'Kestrel Fen Aviation (demo)', operatorIsDemo: true,
 };
 
 describe('AuthService', () => {

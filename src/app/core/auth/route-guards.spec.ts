@@ -12,7 +12,7 @@ const pilot: SessionUser = {
   displayName: 'Sam Hollis',
   role: 'pilot',
   operatorId: 1,
-  operatorName: 'Kestrel Fen Aviation (demo)',
+  operatorName: 'Kestrel Fen Aviation (demo)', operatorIsDemo: true,
 };
 
 describe('signedInGuard, signedOutGuard and capabilityGuard', () => {
