@@ -27,6 +27,7 @@ module.exports = {
       globalSetup: '<rootDir>/test/api/global-setup.ts',
       globalTeardown: '<rootDir>/test/api/global-teardown.ts',
       setupFiles: ['<rootDir>/test/api/env.ts'],
+      setupFilesAfterEnv: ['<rootDir>/test/api/timeouts.ts'],
     },
     {
       displayName: 'e2e',
