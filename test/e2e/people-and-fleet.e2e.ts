@@ -38,9 +38,11 @@ describe('people and fleet in Chromium', () => {
     await dialog.getByRole('combobox', { name: 'Role' }).click();
     await admin.getByRole('option', { name: 'Pilot' }).click();
     await dialog.getByRole('button', { name: 'Send invitation' }).click();
-    await expectText(admin.locator('simple-snack-bar'), `An invitation is on its way to ${email}.`);
+    // Inviting writes the person and hands the mail to the SMTP server before it answers; on a
+    // busy 2-core CI machine that can take longer than the helper's default 10 s.
+    await expectText(admin.locator('simple-snack-bar'), `An invitation is on its way to ${email}.`, 30_000);
     const row = admin.getByRole('row').filter({ hasText: email });
-    await expectText(row, 'Invited, no password yet');
+    await expectText(row, 'Invited, no password yet', 30_000);
 
     // The mail reaches the fake mail server a moment after the answer; look until it is listed.
     await openFromNavigation(admin, 'Mailbox', '/mailbox');
