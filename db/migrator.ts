@@ -7,6 +7,7 @@ import * as fleetSpeedBooksRevisions from './migrations/20261201-0102-fleet-spee
 import * as invitationsAndPasswordResets from './migrations/20261201-0201-invitations-and-password-resets';
 import * as attachments from './migrations/20261201-0202-attachments';
 import * as cardIssues from './migrations/20261201-0501-card-issues';
+import * as syncChangesAndCurrencyLimit from './migrations/20261202-0601-sync-changes-and-currency-limit';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -23,6 +24,7 @@ const MIGRATIONS: { name: string; module: { up: Migration; down: Migration } }[]
   { name: '20261201-0201-invitations-and-password-resets', module: invitationsAndPasswordResets },
   { name: '20261201-0202-attachments', module: attachments },
   { name: '20261201-0501-card-issues', module: cardIssues },
+  { name: '20261202-0601-sync-changes-and-currency-limit', module: syncChangesAndCurrencyLimit },
 ];
 
 export function createMigrator(sequelize: Sequelize, logger: Umzug<QueryInterface>['options']['logger'] = undefined): Umzug<QueryInterface> {

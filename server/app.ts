@@ -30,6 +30,7 @@ import { operatorRoutes } from './operator/operator.routes';
 import { revisionsRoutes } from './revisions/revisions.routes';
 import { speedBooksRoutes } from './speed-books/speed-books.routes';
 import { cardIssuesRoutes, cardsRoutes } from './cards/cards.routes';
+import { syncRoutes } from './sync/sync.routes';
 
 export const SESSION_COOKIE = 'speedwright.sid';
 const SESSION_HOURS = 12;
@@ -151,6 +152,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   app.use('/api/speed-books', speedBooksRoutes());
   app.use('/api/revisions', revisionsRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
   app.use('/api/operator', operatorRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
+  app.use('/api/sync', syncRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
   app.use('/api/audit', auditRoutes());
   app.use('/api/cards', cardsRoutes());
   app.use('/api/card-issues', cardIssuesRoutes());

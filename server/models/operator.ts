@@ -7,6 +7,8 @@ export class Operator extends Model<InferAttributes<Operator>, InferCreationAttr
   declare name: string;
   /** Demo operators' figures are invented; every screen and card says so. */
   declare isDemo: CreationOptional<boolean>;
+  /** How many days a device's synced data may age before it refuses to build cards. */
+  declare currencyLimitDays: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -17,6 +19,7 @@ export class Operator extends Model<InferAttributes<Operator>, InferCreationAttr
         slug: { type: DataTypes.STRING(64), allowNull: false, unique: true },
         name: { type: DataTypes.STRING(200), allowNull: false },
         isDemo: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        currencyLimitDays: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 30 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -1,0 +1,61 @@
+/**
+ * `GET /api/sync`: what a device stores to work offline, as changes since its last cursor; and
+ * the operator settings an administrator changes (`PATCH /api/operator/settings`).
+ */
+import * as z from 'zod';
+import { aircraftTypeSchema, airframeSchema } from './fleet';
+
+const id = z.number().int().positive();
+
+export const syncQuerySchema = z.strictObject({
+  cursor: z.string({ error: 'The cursor must be the text the previous sync answered.' }).max(200, 'The cursor is not one this server gave out.').optional(),
+});
+
+export const syncRevisionSchema = z.object({
+  id,
+  speedBookId: id,
+  speedBookTitle: z.string(),
+  aircraftTypeId: id,
+  number: z.number().int().positive(),
+  status: z.enum(['published', 'superseded', 'withdrawn']),
+  publishedAt: z.string(),
+  supersededAt: z.string().nullable(),
+  withdrawnAt: z.string().nullable(),
+  content: z.record(z.string(), z.unknown()),
+  contentSha256: z.string(),
+  signature: z.string(),
+  signingKeyId: id,
+});
+export type SyncRevision = z.infer<typeof syncRevisionSchema>;
+
+export const syncOperatorSchema = z.object({
+  id,
+  name: z.string(),
+  isDemo: z.boolean(),
+  /** Raw 32-byte Ed25519 public key, standard base64, as `GET /api/operator/signing-key` serves it. */
+  publicKey: z.string(),
+  signingKeyId: id,
+  currencyLimitDays: z.number().int(),
+});
+
+export const syncResponseSchema = z.object({
+  cursor: z.string(),
+  operator: syncOperatorSchema,
+  aircraftTypes: z.array(aircraftTypeSchema),
+  airframes: z.array(airframeSchema),
+  revisions: z.array(syncRevisionSchema),
+});
+export type SyncResponse = z.infer<typeof syncResponseSchema>;
+
+export const CURRENCY_LIMIT_DAYS = { min: 1, max: 365 } as const;
+
+export const operatorSettingsSchema = z.strictObject({
+  currencyLimitDays: z
+    .number({ error: 'Give the currency limit as a whole number of days.' })
+    .int('Give the currency limit as a whole number of days.')
+    .min(CURRENCY_LIMIT_DAYS.min, `At least ${CURRENCY_LIMIT_DAYS.min} day.`)
+    .max(CURRENCY_LIMIT_DAYS.max, `At most ${CURRENCY_LIMIT_DAYS.max} days.`),
+});
+export type OperatorSettings = z.infer<typeof operatorSettingsSchema>;
+
+export const operatorSettingsResponseSchema = z.object({ settings: z.object({ currencyLimitDays: z.number().int() }) });
