@@ -11,7 +11,9 @@ const SYNCED = ['aircraft_types', 'airframes', 'revisions'];
  * see server/sync/sync-cursor.ts for why a counter rather than `updated_at`.
  */
 export const up: Migration = async ({ context: queryInterface }) => {
-  const sql = (text: string) => queryInterface.sequelize.query(text, { type: QueryTypes.RAW });
+  // Not QueryTypes.RAW: Sequelize 6 then deletes the mariadb connector's non-configurable
+  // `meta` and throws (DEVELOPERS.md, pitfalls); UPDATE only reads affectedRows.
+  const sql = (text: string) => queryInterface.sequelize.query(text, { type: QueryTypes.UPDATE });
   await queryInterface.addColumn('operators', 'currency_limit_days', { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 30 });
   await sql('CREATE SEQUENCE sync_change_seq START WITH 1 INCREMENT BY 1 NOCACHE');
   for (const table of SYNCED) {
@@ -24,13 +26,16 @@ export const up: Migration = async ({ context: queryInterface }) => {
 };
 
 export const down: Migration = async ({ context: queryInterface }) => {
-  const sql = (text: string) => queryInterface.sequelize.query(text, { type: QueryTypes.RAW });
+  // Not QueryTypes.RAW: Sequelize 6 then deletes the mariadb connector's non-configurable
+  // `meta` and throws (DEVELOPERS.md, pitfalls); UPDATE only reads affectedRows.
+  const sql = (text: string) => queryInterface.sequelize.query(text, { type: QueryTypes.UPDATE });
   for (const table of SYNCED) {
     await sql(`DROP TRIGGER IF EXISTS ${table}_change_seq_insert`);
     await sql(`DROP TRIGGER IF EXISTS ${table}_change_seq_update`);
-    await queryInterface.removeIndex(table, `${table}_operator_change_seq`);
-    await queryInterface.removeColumn(table, 'change_seq');
+    // Plain ALTER TABLE: queryInterface.removeColumn first runs a RAW foreign-key lookup, which
+    // meets the same connector `meta` problem.
+    await sql(`ALTER TABLE ${table} DROP INDEX ${table}_operator_change_seq, DROP COLUMN change_seq`);
   }
   await sql('DROP SEQUENCE IF EXISTS sync_change_seq');
-  await queryInterface.removeColumn('operators', 'currency_limit_days');
+  await sql('ALTER TABLE operators DROP COLUMN currency_limit_days');
 };
