@@ -19,6 +19,12 @@ async function signInAsAdmin(): Promise<Page> {
   return page;
 }
 
+/** A select's option panel closes with an animation; a click during it lands on its backdrop. */
+async function selectPanelClosed(page: Page): Promise<void> {
+  await page.getByRole('listbox').waitFor({ state: 'detached' });
+  await page.locator('.cdk-overlay-transparent-backdrop').waitFor({ state: 'detached' });
+}
+
 async function openFromNavigation(page: Page, label: string, path: string): Promise<void> {
   await page.getByTestId('nav-list').getByRole('link', { name: label }).click();
   await page.waitForURL(`**${path}`);
@@ -37,6 +43,7 @@ describe('people and fleet in Chromium', () => {
     await dialog.getByLabel('Name').fill(name);
     await dialog.getByRole('combobox', { name: 'Role' }).click();
     await admin.getByRole('option', { name: 'Pilot' }).click();
+    await selectPanelClosed(admin);
     await dialog.getByRole('button', { name: 'Send invitation' }).click();
     // Inviting writes the person and hands the mail to the SMTP server before it answers; on a
     // busy 2-core CI machine that can take longer than the helper's default 10 s.
@@ -107,21 +114,26 @@ describe('people and fleet in Chromium', () => {
     await dialog.getByLabel('Serial number').fill(`E2E-${RUN}`);
     await dialog.getByRole('combobox', { name: 'Aircraft type' }).click();
     await admin.getByRole('option').first().click();
+    await selectPanelClosed(admin);
     await dialog.getByRole('button', { name: 'Add airframe' }).click();
     await expectText(dialog.locator('mat-error'), 'A registration looks like ZZ-KFA');
 
     await dialog.getByLabel('Registration').fill(registration.toLowerCase());
     await dialog.getByRole('button', { name: 'Add airframe' }).click();
     await expectText(admin.locator('simple-snack-bar'), `${registration} is now in your fleet.`);
+    // The first dialog must be gone (its closing animation too) before the next one is filled.
+    await dialog.waitFor({ state: 'detached' });
     await admin.getByLabel('Filter airframes').fill(registration);
     await expectText(admin.getByRole('row').filter({ hasText: registration }), `E2E-${RUN}`);
 
     // The same registration again: the server's sentence appears under the registration field.
     await admin.getByRole('button', { name: 'Add airframe' }).click();
     await dialog.getByLabel('Registration').fill(registration);
+    expect(await dialog.getByLabel('Registration').inputValue()).toBe(registration);
     await dialog.getByLabel('Serial number').fill(`E2E-${RUN}-2`);
     await dialog.getByRole('combobox', { name: 'Aircraft type' }).click();
     await admin.getByRole('option').first().click();
+    await selectPanelClosed(admin);
     await dialog.getByRole('button', { name: 'Add airframe' }).click();
     await expectText(dialog.locator('mat-error'), `${registration} is already in your fleet.`);
     await dialog.getByRole('button', { name: 'Cancel' }).click();
