@@ -1,7 +1,12 @@
 /**
  * Before the end-to-end tests: a fresh e2e database on the private test instance, migrated
  * and seeded, and the real server (production build of the app) on a free loopback port.
+ *
+ * The server runs in a process of its own: jest's main process also runs the API tests'
+ * global setup, which binds the shared Sequelize models to a connection it then closes.
  */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { createServer } from 'node:net';
 import { rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { projectRoot } from '../../db/instance';
@@ -10,7 +15,6 @@ import { createMigrator } from '../../db/migrator';
 import { seedDemo } from '../../db/seed';
 import { createSequelize } from '../../server/database';
 import { startFakeSmtp } from '../../server/mail/fake-smtp';
-import { serve } from '../../server/main';
 import { initModels } from '../../server/models';
 import { E2E_PASSWORD } from './constants';
 
@@ -32,12 +36,17 @@ export default async function globalSetup(): Promise<void> {
   const mailboxDir = join(projectRoot, '.data', 'mailbox-e2e');
   rmSync(mailboxDir, { recursive: true, force: true });
   const smtp = await startFakeSmtp({ dir: mailboxDir });
-  const server = await serve({
+  const port = await freePort();
+  const server = spawn(process.execPath, ['--import', 'tsx', join(projectRoot, 'server/main.ts')], {
+    cwd: projectRoot,
+    stdio: ['ignore', 'inherit', 'inherit'],
+    env: {
+    ...process.env,
     NODE_ENV: 'test',
     SMTP_URL: smtp.url,
     MAILBOX_DIR: mailboxDir,
     ATTACHMENTS_DIR: join(projectRoot, '.data', 'attachments-e2e'),
-    PORT: '0',
+    PORT: String(port),
     HOST: '127.0.0.1',
     DATABASE_URL: url,
     SESSION_SECRET: localSecrets().sessionSecret,
@@ -45,13 +54,54 @@ export default async function globalSetup(): Promise<void> {
     LOG_LEVEL: 'warn',
     LOGIN_RATE_LIMIT_PER_15_MIN: '1000',
     APP_DIST: join(projectRoot, 'dist/app/browser'),
+    },
   });
+  const baseUrl = `http://localhost:${port}`;
+  await waitUntilHealthy(server, baseUrl);
   const stop = async () => {
-    await server.stop();
+    await stopProcess(server);
     await smtp.stop();
   };
   globalThis.speedwrightE2e = { stop, startedDb: instance.startedHere };
-  const baseUrl = `http://localhost:${server.port}`;
   process.env['E2E_BASE_URL'] = baseUrl;
   writeFileSync(join(projectRoot, '.data', 'e2e-env.json'), JSON.stringify({ baseUrl }));
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const address = probe.address();
+      const port = typeof address === 'object' && address ? address.port : 0;
+      probe.close(() => resolve(port));
+    });
+  });
+}
+
+async function waitUntilHealthy(server: ChildProcess, baseUrl: string): Promise<void> {
+  const deadline = Date.now() + 60_000;
+  while (Date.now() < deadline) {
+    if (server.exitCode !== null) throw new Error(`The e2e server exited with code ${server.exitCode}.`);
+    try {
+      if ((await fetch(`${baseUrl}/api/health`)).ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((done) => setTimeout(done, 200));
+  }
+  server.kill('SIGKILL');
+  throw new Error('The e2e server did not answer /api/health within 60 s.');
+}
+
+function stopProcess(server: ChildProcess): Promise<void> {
+  if (server.exitCode !== null) return Promise.resolve();
+  return new Promise((resolve) => {
+    const kill = setTimeout(() => server.kill('SIGKILL'), 10_000);
+    server.once('exit', () => {
+      clearTimeout(kill);
+      resolve();
+    });
+    server.kill('SIGTERM');
+  });
 }
