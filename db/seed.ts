@@ -20,18 +20,18 @@ import { localSecrets } from './local';
 
 export const DEFAULT_DEMO_PASSWORD = 'speedwright-demo';
 
-interface SeedPerson {
+export interface SeedPerson {
   email: string;
   displayName: string;
   role: Role;
 }
 
-interface SeedRevision {
+export interface SeedRevision {
   content: RevisionContent;
   changeSummary: string;
 }
 
-interface SeedType {
+export interface SeedType {
   designator: string;
   name: string;
   category: AircraftCategory;
@@ -42,7 +42,7 @@ interface SeedType {
   speedBook?: { title: string; revisions: SeedRevision[] };
 }
 
-interface SeedOperator {
+export interface SeedOperator {
   slug: string;
   name: string;
   people: SeedPerson[];
@@ -135,10 +135,18 @@ export interface SeedOptions {
 }
 
 export async function seedDemo(sequelize: Sequelize, password: string, options: SeedOptions = {}): Promise<void> {
+  await seedOperators(sequelize, DEMO_OPERATORS, password, options);
+}
+
+/**
+ * Operators with their people, fleets and speed books, idempotent by natural keys. The demo
+ * seed uses it with `DEMO_OPERATORS`; the benchmarks with generated operators of their own.
+ */
+export async function seedOperators(sequelize: Sequelize, operators: readonly SeedOperator[], password: string, options: SeedOptions = {}): Promise<void> {
   const signingKeySecret = options.signingKeySecret ?? process.env['SIGNING_KEY_SECRET'] ?? localSecrets().signingKeySecret;
   const passwordHash = await hashPassword(password);
   await sequelize.transaction(async (transaction) => {
-    for (const seedOperator of DEMO_OPERATORS) {
+    for (const seedOperator of operators) {
       const [operator] = await Operator.findOrCreate({
         where: { slug: seedOperator.slug },
         defaults: { slug: seedOperator.slug, name: seedOperator.name, isDemo: true },
@@ -153,7 +161,8 @@ export async function seedDemo(sequelize: Sequelize, password: string, options: 
         if (!created) await user.update({ passwordHash, failedSignIns: 0, lockedUntil: null }, { transaction });
       }
     }
-  });  await seedDemoFleet(sequelize, signingKeySecret);
+  });
+  for (const seedOperator of operators) await seedFleet(sequelize, seedOperator, signingKeySecret);
 }
 
 /** The demo operators' fleets and speed books (the people must exist already). */

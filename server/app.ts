@@ -6,6 +6,7 @@ import { csrfSync } from 'csrf-sync';
 import express, { type Express } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import session from 'express-session';
+import compression from 'compression';
 import helmet from 'helmet';
 import type { Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
@@ -76,6 +77,9 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
       crossOriginEmbedderPolicy: false,
     }),
   );
+
+  // gzip for JSON answers (a full sync is mostly revision content) and the app's files.
+  app.use(compression());
 
   app.use(
     pinoHttp({

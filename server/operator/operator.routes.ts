@@ -5,7 +5,7 @@ import { operatorSettingsSchema } from '../../shared/api/sync';
 import { recordAudit } from '../audit/audit.service';
 import { parseOrThrow } from '../middleware/validate';
 import { Operator, Revision } from '../models';
-import { activeSigningKey } from '../revisions/signing';
+import { publicSigningKey } from '../revisions/signing';
 
 /**
  * `/api/operator/signing-key`: the public key devices verify published revisions with;
@@ -16,7 +16,7 @@ export function operatorRoutes({ signingKeySecret }: { signingKeySecret: string 
   router.get('/signing-key', requireCapability('read-published'), async (req, res) => {
     const actor = actorOf(req);
     // Made on first need, like at the first publication; locked so two first calls make one.
-    const key = await Revision.sequelize!.transaction((transaction) => activeSigningKey(actor.operatorId, signingKeySecret, transaction, actor));
+    const key = await publicSigningKey(actor.operatorId, signingKeySecret, actor);
     res.json({
       signingKey: { id: key.id, algorithm: 'Ed25519', publicKey: key.publicKey, publicKeyEncoding: 'raw-base64', createdAt: key.createdAt.toISOString() },
     });

@@ -69,6 +69,16 @@ export async function activeSigningKey(operatorId: number, secret: string, trans
   return key;
 }
 
+/**
+ * The operator's active key for reading its public half (sync, the public-key route): a plain
+ * read, so that devices syncing at once do not queue on the operator row; only an operator
+ * without a key yet goes through `activeSigningKey`'s locked creation.
+ */
+export async function publicSigningKey(operatorId: number, secret: string, actor?: Actor): Promise<SigningKey> {
+  const existing = await SigningKey.findOne({ where: { operatorId, active: true }, order: [['id', 'DESC']] });
+  return existing ?? SigningKey.sequelize!.transaction((transaction) => activeSigningKey(operatorId, secret, transaction, actor));
+}
+
 /** Ed25519 signature (64 bytes, standard base64) of the UTF-8 bytes of `statement`. */
 export function signStatement(key: SigningKey, secret: string, statement: string): string {
   return sign(null, Buffer.from(statement, 'utf8'), decryptPrivateKey(key.encryptedPrivateKey, secret)).toString('base64');

@@ -81,6 +81,12 @@ describe('GET /api/sync', () => {
     expect(other.airframes.every((a) => !full.airframes.some((b) => b.id === a.id))).toBe(true);
   });
 
+  it('sends a full sync gzip-compressed to a device that accepts it', async () => {
+    const res = await as.pilot.agent.get('/api/sync').set('accept-encoding', 'gzip').expect(200);
+    expect(res.headers['content-encoding']).toBe('gzip');
+    expect(syncResponseSchema.parse(res.body).revisions.length).toBeGreaterThan(0);
+  });
+
   it('answers 401 signed out and 400 with a field message for a cursor it did not give out', async () => {
     const { agent } = await import('supertest').then((s) => ({ agent: s.default(harness.app) }));
     await agent.get('/api/sync').expect(401);

@@ -3,7 +3,7 @@ import type { SyncResponse, SyncRevision } from '../../shared/api/sync';
 import type { Actor } from '../audit/actor';
 import { aircraftTypeView } from '../fleet/fleet.service';
 import { AircraftType, Airframe, Operator, Revision, SpeedBook } from '../models';
-import { activeSigningKey } from '../revisions/signing';
+import { publicSigningKey } from '../revisions/signing';
 import { decodeCursor, encodeCursor } from './sync-cursor';
 
 /** Only what a device may hold: never drafts or revisions in review. */
@@ -31,11 +31,15 @@ async function changedRows(table: 'aircraft_types' | 'airframes' | 'revisions', 
 export async function syncSince(actor: Actor, cursor: string | undefined, signingKeySecret: string): Promise<SyncResponse> {
   const since = decodeCursor(cursor);
   const { operatorId } = actor;
-  const [types, frames, revs] = await Promise.all([changedRows('aircraft_types', operatorId, since), changedRows('airframes', operatorId, since), changedRows('revisions', operatorId, since)]);
+  const [types, frames, revs, operator, key] = await Promise.all([
+    changedRows('aircraft_types', operatorId, since),
+    changedRows('airframes', operatorId, since),
+    changedRows('revisions', operatorId, since),
+    Operator.findByPk(operatorId, { rejectOnEmpty: true }),
+    publicSigningKey(operatorId, signingKeySecret, actor),
+  ]);
   const high = Math.max(since, ...[...types, ...frames, ...revs].map((row) => Number(row.change_seq)));
 
-  const operator = await Operator.findByPk(operatorId, { rejectOnEmpty: true });
-  const key = await Revision.sequelize!.transaction((transaction) => activeSigningKey(operatorId, signingKeySecret, transaction, actor));
   const idsOf = (rows: Changed[]) => rows.map((row) => row.id);
   const [aircraftTypes, airframes, revisions] = await Promise.all([
     types.length ? AircraftType.findAll({ where: { operatorId, id: { [Op.in]: idsOf(types) } }, order: [['id', 'ASC']] }) : [],
