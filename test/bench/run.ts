@@ -1,7 +1,8 @@
 /**
  * `npm run bench`: every benchmark in this folder (`*.bench.ts`), one process each so that
  * none warms the JIT for another. Each prints its figures and exits non-zero when it misses
- * a target; this runner exits non-zero when any did.
+ * a target; this runner exits non-zero when any did. The Chromium ones (`*.browser.bench.ts`)
+ * need the production build: the runner builds it first unless SKIP_BUILD=1.
  */
 import { spawnSync } from 'node:child_process';
 import { readdirSync } from 'node:fs';
@@ -13,6 +14,13 @@ const benches = readdirSync(dir)
   .filter((name) => name.endsWith('.bench.ts'))
   .filter((name) => !only || name.includes(only))
   .sort();
+
+// Benchmarks that drive Chromium (`*.browser.bench.ts`) run against the production build.
+if (benches.some((name) => name.endsWith('.browser.bench.ts')) && process.env['SKIP_BUILD'] !== '1') {
+  console.log('\u203a Building the web app (production) for the Chromium benchmarks (SKIP_BUILD=1 skips)');
+  const build = spawnSync(process.execPath, [join(dir, '..', '..', 'node_modules/@angular/cli/bin/ng.js'), 'build'], { stdio: 'inherit' });
+  if (build.status !== 0) process.exit(1);
+}
 
 let failed = 0;
 for (const name of benches) {
