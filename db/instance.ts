@@ -25,7 +25,7 @@ const SEARCH_PATH = ['/usr/sbin', '/usr/bin', '/usr/local/sbin', '/usr/local/bin
 /** The repository root, whatever the current directory. */
 export const projectRoot = resolve(__dirname, '..');
 
-export function instanceSpec(name: 'dev' | 'test', port: number): InstanceSpec {
+export function instanceSpec(name: string, port: number): InstanceSpec {
   return { dir: join(projectRoot, '.data', `mariadb-${name}`), port };
 }
 

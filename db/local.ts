@@ -8,12 +8,17 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { createDatabase, instanceSpec, projectRoot, recreateDatabase, startInstance, stopInstance, type RunningInstance } from './instance';
 
-export type InstanceName = 'dev' | 'test';
+/**
+ * `dev` for the start command, `test` for the test suites, `fault` for the one test that stops
+ * its database on purpose (its own instance, so no other test loses the database under it).
+ */
+export type InstanceName = 'dev' | 'test' | 'fault';
 
 /** Ports of the private instances: away from 3306 so a system MariaDB can run beside them. */
 export const INSTANCE_PORTS: Record<InstanceName, number> = {
   dev: Number(process.env['DB_PORT'] ?? 4306),
   test: Number(process.env['TEST_DB_PORT'] ?? 4307),
+  fault: Number(process.env['FAULT_DB_PORT'] ?? Number(process.env['TEST_DB_PORT'] ?? 4307) + 1),
 };
 
 interface LocalSecrets {
