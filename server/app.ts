@@ -154,7 +154,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   app.use('/api/aircraft-types', aircraftTypesRoutes());
   app.use('/api/airframes', airframesRoutes());
   app.use('/api/speed-books', speedBooksRoutes());
-  app.use('/api/revisions', revisionsRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
+  app.use('/api/revisions', revisionsRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET, attachmentsDir: config.ATTACHMENTS_DIR }));
   app.use('/api/operator', operatorRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
   app.use('/api/sync', syncRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
   app.use('/api/audit', auditRoutes());

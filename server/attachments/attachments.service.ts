@@ -108,8 +108,14 @@ export class AttachmentStore {
       await audit(actor, 'attachment.removed', found, revision, transaction);
       return found;
     });
-    // The row is gone; a file left behind by a failed removal is harmless and logged.
-    await rm(this.pathOf(attachment), { force: true }).catch((error: unknown) => actor.req?.log?.warn({ err: error }, 'attachment file not removed'));
+    await this.removeFiles(actor, [attachment]);
+  }
+
+  /** The files of attachments whose rows are gone; a file left behind by a failed removal is harmless and logged. */
+  async removeFiles(actor: Actor, attachments: Pick<Attachment, 'operatorId' | 'storageName'>[]): Promise<void> {
+    for (const attachment of attachments) {
+      await rm(this.pathOf(attachment), { force: true }).catch((error: unknown) => actor.req?.log?.warn({ err: error }, 'attachment file not removed'));
+    }
   }
 
   private async openRevision(operatorId: number, revisionId: number, transaction?: Transaction): Promise<Revision> {

@@ -86,8 +86,12 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
           beforeBulkUpdate: () => {
             throw new Error('Revisions change one at a time, through their service.');
           },
-          beforeDestroy: () => {
-            throw new Error('Revisions are never deleted.');
+          // Only a draft may go (discarded by its engineers); the audit trail keeps its history.
+          beforeDestroy: (revision) => {
+            if (revision.status !== 'draft' || revision.publishedAt != null) throw new Error('Only a draft is ever deleted.');
+          },
+          beforeBulkDestroy: () => {
+            throw new Error('Revisions are deleted one at a time, through their service.');
           },
         },
       },

@@ -176,6 +176,7 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
 
   route('get', '/api/revisions/:id', { summary: 'A revision with its content', tags: ['revisions'], who: 'read-published (drafts: edit-speed-books)', params: true, ok: { status: 200, schema: revisionResponseSchema } });
   route('patch', '/api/revisions/:id', { summary: 'Change a draft', tags: ['revisions'], who: 'edit-speed-books', params: true, body: updateRevisionSchema, ok: { status: 200, schema: revisionResponseSchema }, errors: [409] });
+  route('delete', '/api/revisions/:id', { summary: 'Discard a draft and its source pages (audited)', tags: ['revisions'], who: 'edit-speed-books', params: true, ok: { status: 204, description: 'Discarded' }, errors: [409] });
   route('post', '/api/revisions/:id/submit', { summary: 'Draft → in review (content must be valid)', tags: ['revisions'], who: 'edit-speed-books', params: true, ok: { status: 200, schema: revisionResponseSchema }, errors: [409, 422] });
   route('post', '/api/revisions/:id/approve', { summary: 'In review → published, signed; supersedes the previous', tags: ['revisions'], who: 'publish-revisions (not the author)', params: true, ok: { status: 200, schema: revisionResponseSchema }, errors: [409, 422] });
   route('post', '/api/revisions/:id/return', { summary: 'In review → draft, with a reason', tags: ['revisions'], who: 'publish-revisions (not the author)', params: true, body: reasonSchema, ok: { status: 200, schema: revisionResponseSchema }, errors: [409] });

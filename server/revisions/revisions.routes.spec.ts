@@ -5,7 +5,10 @@ import { contentSha256 } from '../../shared/speed-book/canonical';
 import { demoPistonTrainerContent, demoPistonTrainerContentRevised } from '../../shared/speed-book/demo-content';
 import { signedRevisionStatement } from '../../shared/speed-book/signature';
 import { mailTo, startHarness, type Harness } from '../../test/api/harness';
-import { AuditEvent, Revision } from '../models';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { apiTestAttachmentsDir } from '../../test/api/constants';
+import { Attachment, AuditEvent, Revision } from '../models';
 import { newSpeedBook, newTeam, publish, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
 import { verifyStatement } from './signing';
 
@@ -173,6 +176,41 @@ describe('the revision workflow', () => {
   });
 });
 
+describe('discarding a draft', () => {
+  const PDF = Buffer.from('%PDF-1.4\n1 0 obj<</Type/Catalog>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n');
+
+  it('removes the draft and its source pages, audited, and lets a new draft start; nothing else can be discarded', async () => {
+    const { speedBookId } = await newSpeedBook(as.admin, as.engineer);
+    const publishedId = await publish(as.engineer, as.approver, speedBookId);
+    const created = await write(as.engineer, 'post', `/api/speed-books/${speedBookId}/revisions`).send({ changeSummary: 'Abandoned idea' }).expect(201);
+    const draftId = created.body.revision.id as number;
+    const page = await as.engineer.agent.post(`/api/revisions/${draftId}/attachments`).set('x-csrf-token', as.engineer.token).attach('file', PDF, { filename: 'p12.pdf', contentType: 'application/pdf' }).expect(201);
+    const stored = await Attachment.findByPk(page.body.attachment.id, { rejectOnEmpty: true });
+    const file = join(apiTestAttachmentsDir(), String(stored.operatorId), stored.storageName);
+    expect(existsSync(file)).toBe(true);
+
+    // A pilot may not, another operator's engineer finds nothing, a published revision stays.
+    await as.pilot.agent.delete(`/api/revisions/${draftId}`).set('x-csrf-token', as.pilot.token).expect(403);
+    const [stranger] = await newTeam(harness.app, ['engineer']);
+    await stranger!.agent.delete(`/api/revisions/${draftId}`).set('x-csrf-token', stranger!.token).expect(404);
+    const kept = await as.engineer.agent.delete(`/api/revisions/${publishedId}`).set('x-csrf-token', as.engineer.token).expect(409);
+    expect(kept.body.error.message).toBe('Revision 1 is published; only a draft can be discarded.');
+
+    await as.engineer.agent.delete(`/api/revisions/${draftId}`).set('x-csrf-token', as.engineer.token).expect(204);
+    await as.engineer.agent.get(`/api/revisions/${draftId}`).expect(404);
+    expect(await Attachment.findByPk(stored.id)).toBeNull();
+    expect(existsSync(file)).toBe(false);
+    const event = await AuditEvent.findOne({ where: { action: 'revision.discarded', entityId: String(draftId) }, rejectOnEmpty: true });
+    expect(JSON.parse(event.details as unknown as string)).toMatchObject({ number: 2, changeSummary: 'Abandoned idea', sourcePages: 1 });
+
+    // The book is free for a new draft again, under the same number.
+    const next = await write(as.engineer, 'post', `/api/speed-books/${speedBookId}/revisions`).send({ changeSummary: 'Second try' }).expect(201);
+    expect(next.body.revision).toMatchObject({ number: 2, status: 'draft' });
+    await write(as.engineer, 'post', `/api/revisions/${next.body.revision.id}/submit`).expect(200);
+    await as.engineer.agent.delete(`/api/revisions/${next.body.revision.id}`).set('x-csrf-token', as.engineer.token).expect(409);
+  });
+});
+
 describe('a published revision', () => {
   it('does not change by any route', async () => {
     const { speedBookId } = await newSpeedBook(as.admin, as.engineer);
@@ -210,7 +248,8 @@ describe('a published revision', () => {
     const revision = await Revision.findByPk(await publish(as.engineer, as.approver, speedBookId), { rejectOnEmpty: true });
     await expect(revision.update({ content: '{}' })).rejects.toThrow('A published revision cannot change: content.');
     await expect(Revision.update({ content: '{}' }, { where: { id: revision.id } })).rejects.toThrow(/one at a time/);
-    await expect(revision.destroy()).rejects.toThrow('Revisions are never deleted.');
+    await expect(revision.destroy()).rejects.toThrow('Only a draft is ever deleted.');
+    await expect(Revision.destroy({ where: { id: revision.id } })).rejects.toThrow(/one at a time/);
   });
 });
 

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { diffQuerySchema, reasonSchema, updateRevisionSchema } from '../../shared/api/revisions';
+import { AttachmentStore } from '../attachments/attachments.service';
 import { actorOf } from '../audit/actor';
 import { requireCapability } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
@@ -7,8 +8,9 @@ import { recordId } from '../speed-books/record-id';
 import * as revisions from './revisions.service';
 
 /** `/api/revisions/:id` and its workflow steps. */
-export function revisionsRoutes({ signingKeySecret }: { signingKeySecret: string }): Router {
+export function revisionsRoutes({ signingKeySecret, attachmentsDir }: { signingKeySecret: string; attachmentsDir: string }): Router {
   const router = Router();
+  const attachments = new AttachmentStore(attachmentsDir);
   const id = (value: string | string[] | undefined) => recordId(value, 'That revision');
 
   router.get('/:id', requireCapability('read-published'), async (req, res) => {
@@ -23,6 +25,10 @@ export function revisionsRoutes({ signingKeySecret }: { signingKeySecret: string
     const revisionId = id(req.params['id']);
     const input = parseOrThrow(updateRevisionSchema, req.body, 'revision');
     res.json({ revision: await revisions.updateRevision(actorOf(req), revisionId, input) });
+  });
+  router.delete('/:id', requireCapability('edit-speed-books'), async (req, res) => {
+    await revisions.discardDraft(actorOf(req), id(req.params['id']), attachments);
+    res.status(204).end();
   });
   router.post('/:id/submit', requireCapability('edit-speed-books'), async (req, res) => {
     res.json({ revision: await revisions.submitRevision(actorOf(req), id(req.params['id'])) });

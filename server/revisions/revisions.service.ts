@@ -15,7 +15,8 @@ import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { forbidden, HttpError, notFound } from '../http-error';
 import { notifyRevisionPublished, notifyRevisionSubmitted, notifyRevisionWithdrawn } from '../mail/notifications';
-import { AircraftType, Revision, SpeedBook } from '../models';
+import type { AttachmentStore } from '../attachments/attachments.service';
+import { AircraftType, Attachment, Revision, SpeedBook } from '../models';
 import { EVER_PUBLISHED_STATUSES, OPEN_STATUSES, peopleNames, revisionDetail, statusWords } from './revision-views';
 import { activeSigningKey, signStatement } from './signing';
 
@@ -166,6 +167,24 @@ export async function updateRevision(actor: Actor, id: number, input: RevisionCh
     return revision;
   });
   return detail(actor.operatorId, revision);
+}
+
+/**
+ * Discards a draft nobody will submit: the revision and its source pages go, in one
+ * transaction, audited with its number and summary; the pages' files are removed after the
+ * commit. Anything but a draft answers 409 (what was submitted or published stays on record).
+ */
+export async function discardDraft(actor: Actor, id: number, store: AttachmentStore): Promise<void> {
+  const pages = await transact(async (transaction) => {
+    const { revision } = await lockBookAndRevision(actor.operatorId, id, transaction);
+    if (revision.status !== 'draft') throw wrongStatus(revision, 'only a draft can be discarded');
+    const attachments = await Attachment.findAll({ where: { revisionId: revision.id, operatorId: actor.operatorId }, transaction });
+    await Attachment.destroy({ where: { revisionId: revision.id, operatorId: actor.operatorId }, transaction });
+    await revision.destroy({ transaction });
+    await audit(actor, 'revision.discarded', revision, { changeSummary: revision.changeSummary, sourcePages: attachments.length }, transaction);
+    return attachments;
+  });
+  await store.removeFiles(actor, pages);
 }
 
 /** The content's problems, and whether it describes the speed book's own type, as 422 fields. */

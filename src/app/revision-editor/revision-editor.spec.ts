@@ -2,7 +2,8 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
-import { provideRouter } from '@angular/router';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import { Router, provideRouter } from '@angular/router';
 import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
 import { AuthService } from '../core/auth/auth-service';
 import { revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/revision-fixtures';
@@ -26,6 +27,7 @@ describe('RevisionEditor', () => {
         provideHttpClientTesting(),
         provideRouter([]),
         { provide: AuthService, useValue: { user: signal(sessionUser('engineer')) } },
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
       ],
     });
     backend = TestBed.inject(HttpTestingController);
@@ -202,6 +204,37 @@ describe('RevisionEditor', () => {
     }
     expect(page.querySelector('[data-testid="position-error-problems"]')?.textContent).toContain('A position-error table needs at least two IAS/CAS points.');
     expect(submitButton().disabled).toBe(true);
+  });
+
+  // A closing dialog reports after its (disabled) exit animation: a macrotask later.
+  const settle = async () => {
+    await new Promise((done) => setTimeout(done, 50));
+    await fixture.whenStable();
+  };
+
+  it('discards the draft only once the engineer confirms, then goes back to the drafts', async () => {
+    const router = TestBed.inject(Router);
+    const navigate = jest.spyOn(router, 'navigate').mockResolvedValue(true);
+    await openDraft(demoPistonTrainerContent() as unknown as Record<string, unknown>);
+    const discard = () => page.querySelector<HTMLButtonElement>('[data-testid="discard-draft"]')!;
+    const dialogButton = (text: string) => Array.from(document.querySelectorAll<HTMLButtonElement>('mat-dialog-container button')).find((b) => b.textContent?.includes(text))!;
+
+    discard().click();
+    await fixture.whenStable();
+    expect(document.querySelector('[data-testid="discard-draft-sentence"]')?.textContent).toContain('Draft 3 of');
+    dialogButton('Keep the draft').click();
+    await settle();
+    backend.expectNone(REVISION_PATHS.revision(DRAFT_ID));
+
+    discard().click();
+    await fixture.whenStable();
+    dialogButton('Discard draft').click();
+    await settle();
+    const request = backend.expectOne(REVISION_PATHS.revision(DRAFT_ID));
+    expect(request.request.method).toBe('DELETE');
+    request.flush('', { status: 204, statusText: 'No Content' });
+    await fixture.whenStable();
+    expect(navigate).toHaveBeenCalledWith(['/drafts']);
   });
 
   it('refuses to edit a revision that is no longer a draft', async () => {

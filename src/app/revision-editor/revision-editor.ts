@@ -2,13 +2,14 @@ import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, computed, e
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MAT_FORM_FIELD_DEFAULT_OPTIONS, MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
-import { Observable, Subscription, forkJoin, of, switchMap } from 'rxjs';
+import { Observable, Subscription, forkJoin, map, of, switchMap } from 'rxjs';
 import { createRevisionSchema, type RevisionView } from '../../../shared/api/revisions';
 import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
 import { revisionContentShape } from '../../../shared/speed-book/content-shape';
@@ -18,6 +19,7 @@ import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionStatusChip } from '../speed-books/revision-status-chip';
 import { RevisionsApi, type SpeedBook } from '../speed-books/revisions-api';
 import { AttachmentsPanel } from './attachments-panel';
+import { DiscardDraftDialog, type DiscardDraftData } from './discard-draft-dialog';
 import { CsvUploadPanel } from './csv-upload-panel';
 import { PositionErrorEditor } from './position-error-editor';
 import { problemLocation } from './problem-location';
@@ -73,6 +75,7 @@ const WEIGHT_FIELDS = [
 export class RevisionEditor {
   private readonly api = inject(RevisionsApi);
   private readonly router = inject(Router);
+  private readonly dialog = inject(MatDialog);
   private readonly destroyRef = inject(DestroyRef);
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
 
@@ -159,6 +162,26 @@ export class RevisionEditor {
           void this.router.navigate(['/speed-books'], { queryParams: { book: submitted.speedBookId } });
         },
         error: (error: ApiRequestError) => this.showServerRefusal(error),
+      });
+  }
+
+  /** Deletes the draft (after asking) and goes back to the drafts; a refusal is said in the status line. */
+  protected discardDraft(): void {
+    const revision = this.revision();
+    if (!revision) return;
+    const data: DiscardDraftData = { number: revision.number, bookTitle: this.book()?.title ?? 'this speed book', changeSummary: revision.changeSummary };
+    this.dialog
+      .open<DiscardDraftDialog, DiscardDraftData, boolean>(DiscardDraftDialog, { data, autoFocus: 'dialog' })
+      .afterClosed()
+      .pipe(
+        switchMap((confirmed) => (confirmed ? this.api.discardDraft(revision.id).pipe(map(() => true)) : of(false))),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe({
+        next: (discarded) => {
+          if (discarded) void this.router.navigate(['/drafts']);
+        },
+        error: (error: ApiRequestError) => this.saveProblem.set(error.message),
       });
   }
 

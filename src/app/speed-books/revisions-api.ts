@@ -143,6 +143,15 @@ export class RevisionsApi {
     );
   }
 
+  /** Deletes a draft and its source pages (the server refuses anything but a draft). */
+  discardDraft(id: number): Observable<void> {
+    return this.http.delete(REVISION_PATHS.revision(id), { responseType: 'text' }).pipe(
+      timeout({ first: UPLOAD_TIMEOUT_MS }),
+      map(() => undefined),
+      catchError((error: unknown) => throwError(() => ApiRequestError.from(error))),
+    );
+  }
+
   private answered<S extends z.ZodType>(request: Observable<unknown>, schema: S, timeoutMs: number): Observable<z.output<S>> {
     return request.pipe(
       timeout({ first: timeoutMs }),
