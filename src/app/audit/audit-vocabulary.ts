@@ -12,6 +12,7 @@ export const AUDIT_ENTITY_LABELS: Readonly<Record<string, string>> = {
   attachment: 'Source page',
   'card-issue': 'Speed card',
   'signing-key': 'Signing key',
+  operator: 'Operator',
 };
 
 export const AUDIT_ACTION_LABELS: Readonly<Record<string, string>> = {
@@ -36,10 +37,12 @@ export const AUDIT_ACTION_LABELS: Readonly<Record<string, string>> = {
   'revision.approved': 'Approved and published a revision',
   'revision.superseded': 'Superseded a revision',
   'revision.withdrawn': 'Withdrew a revision',
+  'revision.discarded': 'Discarded a draft revision',
   'attachment.added': 'Attached a source page',
   'attachment.removed': 'Removed a source page',
   'card.issued': 'Issued a speed card',
   'signing-key.created': 'Made the operator’s signing key',
+  'operator.settings-updated': 'Changed the operator’s settings',
 };
 
 /** Actions whose name begins with another word than their record's type. */
