@@ -21,6 +21,10 @@ export function operatorRoutes({ signingKeySecret }: { signingKeySecret: string 
       signingKey: { id: key.id, algorithm: 'Ed25519', publicKey: key.publicKey, publicKeyEncoding: 'raw-base64', createdAt: key.createdAt.toISOString() },
     });
   });
+  router.get('/settings', requireCapability('manage-people'), async (req, res) => {
+    const operator = await Operator.findByPk(actorOf(req).operatorId, { rejectOnEmpty: true });
+    res.json({ settings: { currencyLimitDays: operator.currencyLimitDays } });
+  });
   router.patch('/settings', requireCapability('manage-people'), async (req, res) => {
     const actor = actorOf(req);
     const input = parseOrThrow(operatorSettingsSchema, req.body, 'settings');

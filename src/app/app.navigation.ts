@@ -78,6 +78,15 @@ export const APP_NAVIGATION: readonly NavigationEntry[] = [
     loadComponent: () => import('./people/people-page').then((m) => m.PeoplePage),
   },
   {
+    path: 'operator-settings',
+    label: 'Operator settings',
+    icon: 'tune',
+    capability: 'manage-people',
+    purpose: 'Set how long a device may go without a sync before it refuses speed cards, and see the key revisions are signed with.',
+    title: 'Operator settings · Speedwright',
+    loadComponent: () => import('./operator-settings/operator-settings-page').then((m) => m.OperatorSettingsPage),
+  },
+  {
     path: 'audit',
     label: 'Audit trail',
     icon: 'history',

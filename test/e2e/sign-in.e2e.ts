@@ -9,7 +9,7 @@ const EXPECTED_NAVIGATION: Record<Role, string[]> = {
   pilot: ['Home', 'Speed card', 'Speed books', 'Fleet'],
   engineer: ['Home', 'Speed card', 'Speed books', 'Drafts', 'Card log', 'Fleet'],
   approver: ['Home', 'Speed card', 'Speed books', 'Drafts', 'Review', 'Card log', 'Fleet', 'Audit trail'],
-  admin: ['Home', 'Speed books', 'Card log', 'Fleet', 'People', 'Audit trail', 'Mailbox'],
+  admin: ['Home', 'Speed books', 'Card log', 'Fleet', 'People', 'Operator settings', 'Audit trail', 'Mailbox'],
   inspector: ['Home', 'Speed books', 'Card log', 'Fleet', 'Audit trail'],
 };
 
