@@ -9,7 +9,7 @@ import { loginResponseSchema } from '../../shared/api/auth';
 import { buildCard, type CardInputs } from '../../shared/card';
 import { createSequelize } from '../database';
 import { initModels, CardIssue } from '../models';
-import { deviceSyncTransport } from '../../test/api/device-sync-transport';
+import { agentTransport } from '../../test/api/device-sync-transport';
 import { csrfAgent, startHarness, TEST_PASSWORD, TEST_SIGNING_KEY_SECRET, type Harness } from '../../test/api/harness';
 
 /**
@@ -27,7 +27,7 @@ const ENTRIES = 100;
 let harness: Harness;
 let device: SpeedwrightDeviceDatabase;
 let pilot: SyncPerson;
-let transport: ReturnType<typeof deviceSyncTransport>;
+let transport: ReturnType<typeof agentTransport>;
 
 jest.setTimeout(240_000);
 
@@ -48,7 +48,7 @@ beforeAll(async () => {
   const user = loginResponseSchema.parse(login.body).user;
   const fresh = await agent.get('/api/auth/csrf').expect(200);
   pilot = { userId: user.id, operatorId: user.operatorId };
-  transport = deviceSyncTransport(agent, fresh.body.token as string);
+  transport = agentTransport({ agent, token: fresh.body.token as string });
   device = new SpeedwrightDeviceDatabase(`speedwright-fault-${randomUUID()}`);
   await runSync(device, transport, pilot);
 });
