@@ -101,7 +101,7 @@ export class App {
       const sent = await sync.sendOutbox();
       const waiting = await sync.waitingOfOperator(user);
       if (waiting > 0) {
-        const data: DiscardWaitingData = { waiting, reason: sent.failed ? sent.problem : null };
+        const data: DiscardWaitingData = { waiting, reason: sent.failed ? sent.failureMessage : null };
         // The dialog is loaded when first needed, which keeps it out of the app's first download.
         const [{ MatDialog }, { DiscardWaitingDialog }] = await Promise.all([import('@angular/material/dialog'), import('./shell/discard-waiting-dialog')]);
         const dialog = this.injector.get(MatDialog);
@@ -115,6 +115,7 @@ export class App {
         return;
       }
       await sync.removeOperatorData(user).catch(() => undefined);
+      this.snackBar.dismiss();
       void this.router.navigate(['/sign-in']);
     } finally {
       this.signingOut.set(false);

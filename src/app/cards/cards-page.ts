@@ -34,6 +34,7 @@ import { CardSources, airframeChoicesOf, cardContextOf, cardRevisionOf, revision
 import { SyncService } from '../core/sync/sync-service';
 import { utcMinutes } from '../core/sync/device-sync';
 import { SyncStatusPanel } from '../core/sync/sync-status-panel';
+import { RevisionNotices } from '../core/sync/revision-notices';
 import {
   CANONICAL_UNITS,
   UNIT_FIELDS,
@@ -103,6 +104,7 @@ const UNIT_CONTROL: Readonly<Record<UnitField, FormFieldPath>> = {
     SpeedCardView,
     DeviceCardLog,
     SyncStatusPanel,
+    RevisionNotices,
   ],
   templateUrl: './cards-page.html',
   styleUrl: './cards-page.scss',

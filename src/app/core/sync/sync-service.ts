@@ -120,11 +120,11 @@ export class SyncService {
   /** Sends the signed-in person's waiting cards now, without the rest of a sync. */
   async sendOutbox(): Promise<OutboxOutcome> {
     const user = this.auth.user();
-    if (!user) return { recorded: 0, waiting: 0, refused: 0, problem: null, failed: false, failureStatus: null };
+    if (!user) return { recorded: 0, waiting: 0, refused: 0, problem: null, failed: false, failureStatus: null, failureMessage: null };
     try {
       return await flushOutbox(this.store.db, this.transport, { userId: user.id, operatorId: user.operatorId });
     } catch {
-      return { recorded: 0, waiting: 0, refused: 0, problem: 'This device could not read its card log. Check the browser allows site storage.', failed: true, failureStatus: 0 };
+      return { recorded: 0, waiting: 0, refused: 0, problem: 'This device could not read its card log. Check the browser allows site storage.', failed: true, failureStatus: 0, failureMessage: null };
     } finally {
       await this.read(user);
     }
