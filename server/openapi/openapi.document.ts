@@ -59,6 +59,7 @@ import {
   cardPreviewRequestSchema,
   cardPreviewResponseSchema,
 } from '../../shared/card/card-api';
+import { verifyCodeParamsSchema, verifyResponseSchema, verifySourceResponseSchema } from '../../shared/card-check/verify-api';
 import { operatorSettingsResponseSchema, operatorSettingsSchema, syncQuerySchema, syncResponseSchema } from '../../shared/api/sync';
 
 type Method = RouteConfig['method'];
@@ -205,6 +206,14 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
     tags: ['cards'], who: 'prepare-cards', body: cardIssueBatchSchema, ok: { status: 200, schema: cardIssueBatchResponseSchema },
   });
   route('get', '/api/card-issues', { summary: 'The card log, newest first (pilots: their own cards)', tags: ['cards'], who: 'read-card-log or prepare-cards', query: cardIssueQuerySchema, ok: { status: 200, schema: cardIssuePageSchema } });
+  route('get', '/api/verify/:code', {
+    summary: 'Whether the revision of the card with this code is current, superseded or withdrawn (or the code unknown); only what the card prints',
+    tags: ['card check'], who: 'public', params: verifyCodeParamsSchema, ok: { status: 200, schema: verifyResponseSchema }, errors: [400, 429],
+  });
+  route('get', '/api/verify/:code/source', {
+    summary: 'The one revision, header and issued digest the card with this code was built from, to re-derive its figures',
+    tags: ['card check'], who: 'public', params: verifyCodeParamsSchema, ok: { status: 200, schema: verifySourceResponseSchema, recursive: true }, errors: [400, 404, 429],
+  });
   route('get', '/api/card-issues/:id', { summary: 'One card log entry', tags: ['cards'], who: 'read-card-log or prepare-cards', params: entryIdParams, ok: { status: 200, schema: cardIssueResponseSchema } });
 
   return new OpenApiGeneratorV31(registry.definitions).generateDocument({

@@ -4,3 +4,4 @@
  */
 export * from './card-code';
 export * from './check-url';
+export * from './verify-api';
