@@ -31,6 +31,7 @@ import { revisionsRoutes } from './revisions/revisions.routes';
 import { speedBooksRoutes } from './speed-books/speed-books.routes';
 import { cardIssuesRoutes, cardsRoutes } from './cards/cards.routes';
 import { syncRoutes } from './sync/sync.routes';
+import { verifyRoutes } from './verify/verify.routes';
 
 export const SESSION_COOKIE = 'speedwright.sid';
 const SESSION_HOURS = 12;
@@ -93,6 +94,8 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
 
   // Health first: it must answer even when sessions (which need the database) cannot.
   app.use('/api/health', healthRoutes(sequelize));
+  // The public card check: no session, so no session lookup on a route that must be fast.
+  app.use('/api/verify', verifyRoutes({ sequelize, unknownCodesPer15Min: config.VERIFY_UNKNOWN_CODES_PER_15_MIN }));
 
   const SequelizeStore = connectSessionSequelize(session.Store);
   const store = new SequelizeStore({

@@ -16,3 +16,11 @@ function clonePlainData<T>(value: T): T {
 if (typeof globalThis.structuredClone !== 'function') {
   globalThis.structuredClone = clonePlainData as typeof structuredClone;
 }
+
+// jsdom's crypto has no `subtle`; the device verifies revision signatures with WebCrypto
+// (Ed25519), which Node's webcrypto provides as browsers do.
+// eslint-disable-next-line @typescript-eslint/no-require-imports
+const { webcrypto } = require('node:crypto') as typeof import('node:crypto');
+if (!globalThis.crypto?.subtle) {
+  Object.defineProperty(globalThis, 'crypto', { value: webcrypto, configurable: true });
+}

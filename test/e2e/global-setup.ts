@@ -67,7 +67,8 @@ export default async function globalSetup(): Promise<void> {
   writeFileSync(join(projectRoot, '.data', 'e2e-env.json'), JSON.stringify({ baseUrl }));
 }
 
-function freePort(): Promise<number> {
+/** A free loopback port (the benchmarks use it too). */
+export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
     const probe = createServer();
     probe.once('error', reject);
@@ -79,7 +80,8 @@ function freePort(): Promise<number> {
   });
 }
 
-async function waitUntilHealthy(server: ChildProcess, baseUrl: string): Promise<void> {
+/** Waits until the server child process answers /api/health (60 s at most). */
+export async function waitUntilHealthy(server: ChildProcess, baseUrl: string): Promise<void> {
   const deadline = Date.now() + 60_000;
   while (Date.now() < deadline) {
     if (server.exitCode !== null) throw new Error(`The e2e server exited with code ${server.exitCode}.`);
@@ -94,7 +96,8 @@ async function waitUntilHealthy(server: ChildProcess, baseUrl: string): Promise<
   throw new Error('The e2e server did not answer /api/health within 60 s.');
 }
 
-function stopProcess(server: ChildProcess): Promise<void> {
+/** SIGTERM, then SIGKILL after 10 s. */
+export function stopProcess(server: ChildProcess): Promise<void> {
   if (server.exitCode !== null) return Promise.resolve();
   return new Promise((resolve) => {
     const kill = setTimeout(() => server.kill('SIGKILL'), 10_000);

@@ -211,7 +211,7 @@ describe('CardsPage', () => {
       const { entries } = requests[0].request.body as { entries: { id: string; digest: string; airframeId: number; revisionId: number; issuedAt: string }[] };
       expect(entries).toHaveLength(1);
       expect(entries[0]).toEqual({ id: expect.stringMatching(/^[0-9a-f-]{36}$/), airframeId: 7, revisionId: 21, inputs: expect.any(Object), digest: shown, issuedAt: expect.any(String) });
-      requests[0].flush({ results: [{ id: entries[0].id, outcome: 'recorded', status: 201, digest: shown, receivedAt: '2026-12-01T10:00:00.000Z' }] });
+      requests[0].flush({ results: [{ id: entries[0].id, outcome: 'recorded', status: 201, code: 'K7M4RTX9X', digest: shown, receivedAt: '2026-12-01T10:00:00.000Z' }] });
       return true;
     });
     await until(() => page.querySelector('[data-testid="issue-status"]')?.textContent?.includes("recorded in the operator's card log") ?? false);

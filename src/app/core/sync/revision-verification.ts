@@ -1,0 +1,86 @@
+/**
+ * Checks a revision from `GET /api/sync` before the device stores it: the SHA-256 of its
+ * content (shared/speed-book/canonical.ts) must equal the hash it carries, and its Ed25519
+ * signature (RFC 8032) over `signedRevisionStatement()` (shared/speed-book/signature.ts) must
+ * verify with the operator's public key, through WebCrypto (`crypto.subtle`, Ed25519). No
+ * Angular here.
+ */
+import type { SyncRevision } from '../../../../shared/api/sync';
+import { contentSha256 } from '../../../../shared/speed-book/canonical';
+import { signedRevisionStatement } from '../../../../shared/speed-book/signature';
+
+export interface VerifyingOperator {
+  readonly id: number;
+  /** Raw 32-byte Ed25519 public key, standard base64. */
+  readonly publicKey: string;
+  readonly signingKeyId: number;
+}
+
+export type Verification = { readonly ok: true } | { readonly ok: false; readonly sentence: string };
+
+/** Standard base64 → bytes, or null when it is not base64. */
+export function base64Bytes(text: string): Uint8Array<ArrayBuffer> | null {
+  try {
+    const binary = atob(text);
+    const bytes = new Uint8Array(binary.length);
+    for (let i = 0; i < binary.length; i++) bytes[i] = binary.charCodeAt(i);
+    return bytes;
+  } catch {
+    return null;
+  }
+}
+
+/** The operator's public key as a WebCrypto key, or null when it is not a raw Ed25519 key. */
+export async function importOperatorKey(publicKeyBase64: string, subtle: SubtleCrypto = globalThis.crypto.subtle): Promise<CryptoKey | null> {
+  const raw = base64Bytes(publicKeyBase64);
+  if (!raw || raw.length !== 32) return null;
+  try {
+    return await subtle.importKey('raw', raw, { name: 'Ed25519' }, false, ['verify']);
+  } catch {
+    return null;
+  }
+}
+
+function named(revision: SyncRevision): string {
+  return `Revision ${revision.number} of ${revision.speedBookTitle}`;
+}
+
+/**
+ * Whether `revision` is exactly what the operator's key signed. `key` is the imported public
+ * key of `operator` (null when it could not be imported). The sentence names the revision and
+ * what failed, for the person at the device.
+ */
+export async function verifyRevision(
+  revision: SyncRevision,
+  operator: VerifyingOperator,
+  key: CryptoKey | null,
+  subtle: SubtleCrypto = globalThis.crypto.subtle,
+): Promise<Verification> {
+  const refuse = (why: string): Verification => ({ ok: false, sentence: `${named(revision)} was not stored on this device: ${why} Cards keep using the data already here; tell your operator's administrator.` });
+  if (key === null) return refuse('the operator’s public key the server sent is not a valid Ed25519 key.');
+  if (revision.signingKeyId !== operator.signingKeyId) return refuse('it was signed with a key this device does not have.');
+  let hash: string;
+  try {
+    hash = contentSha256(revision.content);
+  } catch {
+    return refuse('its content cannot be read.');
+  }
+  if (hash !== revision.contentSha256) return refuse('its content does not match the hash it was published with, so it may have been changed.');
+  const signature = base64Bytes(revision.signature);
+  if (!signature || signature.length !== 64) return refuse('its signature is not a valid Ed25519 signature.');
+  const statement = signedRevisionStatement({
+    operatorId: operator.id,
+    speedBookId: revision.speedBookId,
+    revisionId: revision.id,
+    number: revision.number,
+    contentSha256: revision.contentSha256,
+    publishedAt: revision.publishedAt,
+  });
+  let valid = false;
+  try {
+    valid = await subtle.verify({ name: 'Ed25519' }, key, signature, new TextEncoder().encode(statement));
+  } catch {
+    valid = false;
+  }
+  return valid ? { ok: true } : refuse('its signature does not verify with the operator’s public key, so it may have been changed or not come from your operator.');
+}
