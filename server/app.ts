@@ -25,6 +25,7 @@ import { uploadsRoutes } from './uploads/uploads.routes';
 import { usersRoutes } from './users/users.routes';
 import { auditRoutes } from './audit/audit.routes';
 import { aircraftTypesRoutes, airframesRoutes } from './fleet/fleet.routes';
+import { airframeCardPdfRoutes } from './cards/card-pdf.routes';
 import { openApiRoutes } from './openapi/openapi.routes';
 import { operatorRoutes } from './operator/operator.routes';
 import { revisionsRoutes } from './revisions/revisions.routes';
@@ -152,6 +153,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   app.use('/api/users', usersRoutes());
   app.use('/api/aircraft-types', aircraftTypesRoutes());
   app.use('/api/airframes', airframesRoutes());
+  app.use('/api/airframes', airframeCardPdfRoutes({ publicUrl: config.PUBLIC_URL }));
   app.use('/api/speed-books', speedBooksRoutes());
   app.use('/api/revisions', revisionsRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
   app.use('/api/operator', operatorRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));

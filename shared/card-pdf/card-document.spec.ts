@@ -42,9 +42,9 @@ describe('card document definition', () => {
 
   it('prints two copies of each page on a two-up sheet, one on a kneeboard sheet', () => {
     const one = cardPdf(base).definition.content as unknown[];
-    const two = cardPdf({ ...base, paper: 'two-up-a4' }).definition.content as { columns?: unknown[] }[];
+    const two = cardPdf({ ...base, paper: 'two-up-a4' }).definition.content as { columns?: unknown[]; stack?: { columns?: unknown[] }[] }[];
     expect(one).toHaveLength(2);
-    expect(two.map((page) => page.columns?.length)).toEqual([2, 2]);
+    expect([two[0].columns?.length, two[1].stack?.[0].columns?.length]).toEqual([2, 2]);
     expect(JSON.stringify(two[0].columns![0])).toEqual(JSON.stringify(two[0].columns![1]));
     expect((cardPdf(base).definition.content as { pageBreak?: string }[])[1].pageBreak).toBe('before');
   });

@@ -1,0 +1,20 @@
+// Reads a PDF from stdin with pdf-parse and prints { text, info, pages } as JSON. Run as a child
+// process (readPdf in test/api/read-pdf.ts): pdf.js loads its worker with a dynamic import, which jest's VM
+// sandbox refuses without --experimental-vm-modules.
+const { PDFParse } = require('pdf-parse');
+
+const chunks = [];
+process.stdin.on('data', (chunk) => chunks.push(chunk));
+process.stdin.on('end', async () => {
+  const parser = new PDFParse({ data: Buffer.concat(chunks) });
+  try {
+    const text = await parser.getText();
+    const info = await parser.getInfo();
+    process.stdout.write(JSON.stringify({ text: text.text, pages: text.total, info: info.info }));
+  } catch (error) {
+    process.stderr.write(String(error && error.stack ? error.stack : error));
+    process.exitCode = 1;
+  } finally {
+    await parser.destroy();
+  }
+});
