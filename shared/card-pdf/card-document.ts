@@ -14,7 +14,7 @@
  * apart by their shape and named in the legend; "OVER" is a word; revision marks are black bars).
  * Figures are Roboto Mono, the speeds large.
  */
-import type { Content, TableCell, TableLayout, TDocumentDefinitions } from 'pdfmake/interfaces';
+import type { Content, CustomTableLayout, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces';
 import type { SpeedCard } from '../card/card';
 import {
   DEMO_MARK,
@@ -40,10 +40,13 @@ import { lineKey, type CardChanges } from './revision-marks';
 export interface CardPdfInput {
   /** `buildCard`'s result (it carries its context: airframe, type, book, demo). */
   readonly card: SpeedCard;
-  /** The card-log entry's check code, printed as text and inside the QR code's URL. */
-  readonly code: string;
-  /** The check URL on the operator's Speedwright host (the QR code holds it). */
-  readonly checkUrl: string;
+  /**
+   * The card-log entry's check code (printed form), printed as text and inside the QR code's
+   * URL; null for a card issued offline that the server has not recorded yet (no code exists).
+   */
+  readonly code: string | null;
+  /** The check URL on the operator's Speedwright host (the QR code holds it); null with no code. */
+  readonly checkUrl: string | null;
   /** When the card was issued, ISO 8601. */
   readonly issuedAt: string;
   /** Where the data came from and how fresh it is, one sentence ("Data as of 2 Dec 2026, 01:30 UTC: …"). */
@@ -84,7 +87,7 @@ export function cardPdf(input: CardPdfInput): CardPdf {
     pageMargins: [MARGIN.left, top, MARGIN.right, MARGIN.bottom],
     info: {
       title: `${card.airframe.registration} speed card, revision ${card.revision.number}`,
-      subject: `${card.aircraftType.designator} speed card, code ${input.code}`,
+      subject: `${card.aircraftType.designator} speed card${input.code ? `, code ${input.code}` : ', no check code yet'}`,
       author: 'Speedwright',
       creator: 'Speedwright',
       producer: 'Speedwright (pdfmake)',
@@ -93,14 +96,9 @@ export function cardPdf(input: CardPdfInput): CardPdf {
     header: (currentPage: number, pageCount: number) => furniture(() => header(input, currentPage, pageCount, contentWidth), 14),
     footer: (currentPage: number, pageCount: number) => furniture(() => footer(input, currentPage, pageCount, contentWidth), 6),
     background: paper.copies === 2 ? () => cutLine(paper) : undefined,
-    content: [twice(() => front(input, contentWidth)), { ...asObject(twice(() => back(input, contentWidth))), pageBreak: 'before' }],
+    content: [twice(() => front(input, contentWidth)), { stack: [twice(() => back(input, contentWidth))], pageBreak: 'before' }],
   };
   return { definition, fileName: cardPdfFileName(card.airframe.registration, card.revision.number, input.issuedAt) };
-}
-
-function asObject(content: Content): Exclude<Content, string | Content[]> {
-  if (typeof content === 'string' || Array.isArray(content)) return { stack: [content].flat() };
-  return content as Exclude<Content, string | Content[]>;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -116,8 +114,8 @@ function header(input: CardPdfInput, currentPage: number, pageCount: number, wid
         {
           width: 'auto',
           stack: [
-            { text: 'CARD CODE', bold: true, fontSize: 6, alignment: 'right', characterSpacing: 0.5 },
-            { text: input.code, font: MONO, bold: true, fontSize: 12, alignment: 'right', lineHeight: 1 },
+            { text: input.code ? 'CARD CODE' : 'NO CHECK CODE YET', bold: true, fontSize: 6, alignment: 'right', characterSpacing: 0.5 },
+            { text: input.code ?? '–', font: MONO, bold: true, fontSize: 12, alignment: 'right', lineHeight: 1 },
           ],
         },
       ],
@@ -138,7 +136,7 @@ function header(input: CardPdfInput, currentPage: number, pageCount: number, wid
     });
   }
   rows.push({ canvas: [{ type: 'line', x1: 0, y1: 3, x2: width, y2: 3, lineWidth: 1 }] });
-  return { stack: rows, width };
+  return { stack: rows, width } as Content;
 }
 
 function footer(input: CardPdfInput, currentPage: number, pageCount: number, width: number): Content {
@@ -154,7 +152,7 @@ function footer(input: CardPdfInput, currentPage: number, pageCount: number, wid
     {
       columns: [
         { width: '*', text: input.dataAsOf, fontSize: 6 },
-        { width: 'auto', text: `${card.airframe.registration} · rev ${card.revision.number} · ${input.code} · ${currentPage}/${pageCount}`, fontSize: 6, font: MONO },
+        { width: 'auto', text: `${card.airframe.registration} · rev ${card.revision.number} · ${input.code ?? 'no code yet'} · ${currentPage}/${pageCount}`, fontSize: 6, font: MONO },
       ],
       columnGap: 6,
       margin: [0, 1, 0, 0],
@@ -196,7 +194,7 @@ function cutLine(paper: CardPaper): Content {
 // ---------------------------------------------------------------------------------------------
 // Tables
 
-function boxLayout(width: number): TableLayout {
+function boxLayout(width: number): CustomTableLayout {
   return {
     hLineWidth: () => width,
     vLineWidth: () => width,
@@ -206,7 +204,7 @@ function boxLayout(width: number): TableLayout {
 }
 
 /** Rules between rows, none between columns; the first column is the revision bar, without padding. */
-const FIGURES_LAYOUT: TableLayout = {
+const FIGURES_LAYOUT: CustomTableLayout = {
   hLineWidth: (i, node) => (i === 0 || i === node.table.body.length ? 0 : i === (node.table.headerRows ?? 0) ? 0.9 : 0.3),
   vLineWidth: () => 0,
   hLineColor: (i, node) => (i === (node.table.headerRows ?? 0) ? '#000000' : '#8a8a8a'),
@@ -236,13 +234,7 @@ function front(input: CardPdfInput, width: number): Content {
   const { card, changes } = input;
   const marked = (key: string) => changes.changed.has(key);
   const qrSize = 76;
-  const qr = qrVector(input.checkUrl, qrSize);
-  let checkHost = input.checkUrl;
-  try {
-    checkHost = new URL(input.checkUrl).host;
-  } catch {
-    // Not a URL: printed as given.
-  }
+  const check = checkBlock(input.checkUrl, qrSize);
 
   const inputsTable: Content = {
     table: { widths: [BAR_WIDTH, 56, '*'], body: inputRows(card).map(([label, value, key]) => [bar(key !== null && marked(key)), { text: label, bold: true }, { text: value }]) },
@@ -291,13 +283,7 @@ function front(input: CardPdfInput, width: number): Content {
     {
       columns: [
         { width: '*', stack: [{ text: 'INPUTS OF THIS CARD', bold: true, fontSize: 6.5, characterSpacing: 0.6, margin: [INDENT, 0, 0, 1.5] }, inputsTable] },
-        {
-          width: qrSize,
-          stack: [
-            { canvas: qr.canvas, width: qrSize, height: qrSize } as Content,
-            { text: `Scan, or open ${checkHost}/check and type the code, to see whether this card is current.`, fontSize: 5.8, alignment: 'center', margin: [0, 0, 0, 0] },
-          ],
-        },
+        { width: qrSize, stack: check },
       ],
       columnGap: 6,
     },
@@ -318,6 +304,31 @@ function front(input: CardPdfInput, width: number): Content {
   }
   void width;
   return { stack: content };
+}
+
+/** The QR code of the check URL with a line on how to check; or, with no code yet, why not. */
+function checkBlock(checkUrl: string | null, size: number): Content[] {
+  if (checkUrl === null) {
+    return [
+      {
+        table: {
+          widths: ['*'],
+          body: [[{ stack: [{ text: 'NOT YET CHECKABLE', bold: true, fontSize: 6.5 }, { text: 'Issued offline: the card log gives this card its check code when the device next reaches the server. Print it again then for a card anyone can check.', fontSize: 5.8 }] }]],
+        },
+        layout: boxLayout(1),
+      },
+    ];
+  }
+  let host = checkUrl;
+  try {
+    host = new URL(checkUrl).host;
+  } catch {
+    // Not a URL: printed as given.
+  }
+  return [
+    { canvas: qrVector(checkUrl, size).canvas, width: size, height: size } as Content,
+    { text: `Scan, or open ${host}/check and type the code, to see whether this card is current.`, fontSize: 5.8, alignment: 'center' },
+  ];
 }
 
 /** Label, value and the revision-mark key of each input line. */
@@ -418,13 +429,13 @@ function back(input: CardPdfInput, width: number): Content {
           {
             width: '*',
             stack: [
-              { text: 'Departure and arrival', bold: true, fontSize: 9, margin: [INDENT, 0, 0, 2] },
+              title('Departure and arrival', 0),
               { table: { headerRows: 1, widths: [BAR_WIDTH, '*', 38, 38, 38], body: aerodromeBody }, layout: FIGURES_LAYOUT },
               ...cautions,
             ],
           },
           ...(card.stallInTurn.length
-            ? [{ width: 112, stack: [{ text: 'Stall in a level turn', bold: true, fontSize: 9, margin: [INDENT, 0, 0, 2] }, { table: { headerRows: 1, widths: [BAR_WIDTH, '*', 20, 22, 22], body: stallBody }, layout: FIGURES_LAYOUT }, fine('Kt, from VS1 at the takeoff weight, rounded up.')] }]
+            ? [{ width: 112, stack: [title('Stall in a level turn', 0), { table: { headerRows: 1, widths: [BAR_WIDTH, '*', 20, 22, 22], body: stallBody }, layout: FIGURES_LAYOUT }, fine('Kt, from VS1 at the takeoff weight, rounded up.')] } as Content]
             : []),
         ],
         columnGap: 8,

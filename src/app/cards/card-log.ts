@@ -5,6 +5,7 @@ import {
   MAX_CARD_ISSUES_PER_BATCH,
   cardIssueBatchResponseSchema,
   cardIssuePageSchema,
+  cardIssueResponseSchema,
   type CardIssueEntry,
   type CardIssueView,
 } from '../../../shared/card/card-api';
@@ -102,7 +103,7 @@ export class CardLog {
     const refusals: string[] = [];
     for (const result of answer.results) {
       if (result.outcome === 'recorded') {
-        await this.store.db.cardLog.update(result.id, { sentAt: result.receivedAt });
+        await this.store.db.cardLog.update(result.id, { sentAt: result.receivedAt, code: result.code });
         recorded += 1;
       } else {
         await this.store.db.cardLog.update(result.id, { refusal: result.error.message });
@@ -117,6 +118,24 @@ export class CardLog {
         ? `${stillWaiting} cards are still waiting on this device.`
         : null;
     return { recorded, waiting: stillWaiting, refused: refusals.length, problem };
+  }
+
+  /**
+   * The card code of a device entry: as stored when this device's report was recorded, else
+   * asked of the server (an entry another part of the app sent); null while the server has
+   * not recorded the entry, or cannot be reached.
+   */
+  async codeOf(entryId: string): Promise<string | null> {
+    const entry = await this.store.db.cardLog.get(entryId);
+    if (!entry || entry.sentAt === null) return entry?.code ?? null;
+    if (entry.code) return entry.code;
+    try {
+      const { entry: recorded } = await firstValueFrom(this.api.get(`${CARD_PATHS.cardIssues}/${entryId}`, cardIssueResponseSchema));
+      await this.store.db.cardLog.update(entryId, { code: recorded.code });
+      return recorded.code;
+    } catch {
+      return null;
+    }
   }
 
   /** A page of the operator's card log (`GET /api/card-issues`), newest first. */
