@@ -154,7 +154,7 @@ describe('a card issued offline, before the server gave it a code', () => {
   it('says it has no check code yet and why, with no QR code', () => {
     const { definition } = cardPdf({ ...base, code: null, checkUrl: null });
     const texts = allText({ ...base, code: null, checkUrl: null }).join(' ');
-    expect(texts).toContain('NO CHECK CODE YET');
+    expect(texts).toContain('NO CODE YET');
     expect(texts).toContain('NOT YET CHECKABLE');
     expect(texts).toContain('Issued offline: the card log gives this card its check code when the device next reaches the server.');
     expect(texts).not.toMatch(/null|undefined/);

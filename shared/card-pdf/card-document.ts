@@ -24,7 +24,6 @@ import {
   limitKindWords,
   limitRows,
   phaseGroups,
-  publishedWords,
   showsWeightColumn,
   signedCardNumber,
   utcDate,
@@ -57,13 +56,23 @@ export interface CardPdfInput {
 }
 
 /** The card box's margins, pt. The left one holds the revision bars. */
-const MARGIN = { left: 14, right: 18, bottom: 50 } as const;
+const MARGIN = { left: 14, right: 18, bottom: 54 } as const;
 const TOP = { plain: 56, demo: 70 } as const;
 /** The revision-bar column at the left of every table, and the indent of everything else to line up with the tables' text. */
 const BAR_WIDTH = 3.5;
 const INDENT = BAR_WIDTH + 4;
 
 const GREY = '#e4e4e4';
+
+/**
+ * The width of `text` in Roboto Mono at `size` pt: every glyph advances 1229/2048 em (0.6 em;
+ * fontkit reads it from the font). pdfmake squeezes 'auto' columns beside a long '*' column, so
+ * the registration and the code get their exact width instead, never wrapped.
+ */
+/** "1 Dec 2026" (UTC). */
+const utcDay = (iso: string) => utcDate(iso).replace(/, \d\d:\d\d UTC$/, '');
+
+const monoWidth = (text: string, size: number) => Math.ceil(text.length * size * (1229 / 2048)) + 2;
 const MONO = CARD_FONTS.figures;
 
 export interface CardPdf {
@@ -109,12 +118,12 @@ function header(input: CardPdfInput, currentPage: number, pageCount: number, wid
   const rows: Content[] = [
     {
       columns: [
-        { width: 'auto', text: card.airframe.registration, font: MONO, bold: true, fontSize: 19, lineHeight: 0.85 },
+        { width: monoWidth(card.airframe.registration, 19), text: card.airframe.registration, font: MONO, bold: true, fontSize: 19, lineHeight: 0.85 },
         { width: '*', margin: [8, 4, 0, 0], text: [{ text: card.aircraftType.designator, bold: true }, ` · ${card.aircraftType.name}`], fontSize: 8 },
         {
-          width: 'auto',
+          width: Math.max(monoWidth(input.code ?? '–', 12), 64),
           stack: [
-            { text: input.code ? 'CARD CODE' : 'NO CHECK CODE YET', bold: true, fontSize: 6, alignment: 'right', characterSpacing: 0.5 },
+            { text: input.code ? 'CARD CODE' : 'NO CODE YET', bold: true, fontSize: 6, alignment: 'right', characterSpacing: 0.5 },
             { text: input.code ?? '–', font: MONO, bold: true, fontSize: 12, alignment: 'right', lineHeight: 1 },
           ],
         },
@@ -123,8 +132,8 @@ function header(input: CardPdfInput, currentPage: number, pageCount: number, wid
     {
       margin: [0, 2, 0, 0],
       columns: [
-        { width: '*', text: `${card.speedBook.title} · revision ${card.revision.number}, ${publishedWords(card)} · issued ${utcDate(input.issuedAt)}`, fontSize: 7 },
-        { width: 'auto', text: `Page ${currentPage} of ${pageCount}`, fontSize: 7, alignment: 'right' },
+        { width: '*', text: `${card.speedBook.title} · revision ${card.revision.number}${card.revision.publishedAt ? `, published ${utcDay(card.revision.publishedAt)}` : ', not published'} · issued ${utcDate(input.issuedAt)}`, fontSize: 7 },
+        { width: 48, text: `Page ${currentPage} of ${pageCount}`, fontSize: 7, alignment: 'right' },
       ],
     },
   ];
@@ -152,7 +161,10 @@ function footer(input: CardPdfInput, currentPage: number, pageCount: number, wid
     {
       columns: [
         { width: '*', text: input.dataAsOf, fontSize: 6 },
-        { width: 'auto', text: `${card.airframe.registration} · rev ${card.revision.number} · ${input.code ?? 'no code yet'} · ${currentPage}/${pageCount}`, fontSize: 6, font: MONO },
+        (() => {
+          const text = `${card.airframe.registration} · rev ${card.revision.number} · ${input.code ?? 'no code yet'} · ${currentPage}/${pageCount}`;
+          return { width: monoWidth(text, 6), text, fontSize: 6, font: MONO };
+        })(),
       ],
       columnGap: 6,
       margin: [0, 1, 0, 0],
@@ -374,7 +386,7 @@ function back(input: CardPdfInput, width: number): Content {
     ...drawing.arcs.map((arc): TableCell[] => [bar(marked(lineKey.arc(arc.colour))), { svg: swatchSvg({ kind: 'arc', arc }), width: 22, margin: [0, 1.5, 0, 0] }, { text: [`${arc.words}: `, { text: arc.range, font: MONO, bold: true }, ' kt'], fontSize: 6.8 }]),
     ...drawing.lines.map((line): TableCell[] => [bar(marked(lineKey.line(line.code))), { svg: swatchSvg({ kind: 'line', line }), width: 22, margin: [0, 1, 0, 0] }, { text: [`${line.words}: `, { text: String(line.kt), font: MONO, bold: true }, ' kt'], fontSize: 6.8 }]),
   ];
-  const dialWidth = 150;
+  const dialWidth = 140;
   const indicator: Content = {
     columns: [
       { width: dialWidth, svg: dialSvg(card.indicator, `at ${cardNumber(card.inputs.weightKg)} kg`), margin: [INDENT - 4, 0, 0, 0] },
@@ -444,7 +456,7 @@ function back(input: CardPdfInput, width: number): Content {
       indicator,
       title(`Altitude table · planned cruise ${cruiseWords(card)} · ISA ${signedCardNumber(card.inputs.isaDeviationC)} °C`),
       { table: { headerRows: 1, dontBreakRows: true, widths: [BAR_WIDTH, 40, 30, 30, 26, 26, 26, 30, '*'], body: altitudeBody }, layout: { ...FIGURES_LAYOUT, paddingTop: () => 0.9, paddingBottom: () => 0.3 }, fontSize: 7 } as Content,
-      fine('“–”: the speed book\'s position-error table gives no IAS for this CAS. Limit by altitude rounded down. “OVER” (shaded row): the planned cruise is above the limit there.'),
+      fine('“–”: no IAS for this CAS in the position-error table. Limits rounded down. OVER (shaded): the planned cruise is above the limit.'),
     ],
   };
 }
