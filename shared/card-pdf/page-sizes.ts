@@ -31,13 +31,29 @@ export interface CardPaper {
   readonly box: CardBox;
   /** Copies of the card side by side on a sheet. */
   readonly copies: 1 | 2;
+  /** How to print it, as the end of a sentence ("print it …"). */
+  readonly howToPrint: string;
 }
 
 export const CARD_PAPERS: Readonly<Record<CardPaperSize, CardPaper>> = {
-  'half-letter': { size: 'half-letter', label: 'Half letter (5.5 × 8.5 in)', sheet: HALF_LETTER, box: HALF_LETTER, copies: 1 },
-  a5: { size: 'a5', label: 'A5 (148 × 210 mm)', sheet: A5, box: A5, copies: 1 },
-  'two-up-letter': { size: 'two-up-letter', label: 'Two on letter (cut in half)', sheet: { width: 2 * HALF_LETTER.width, height: HALF_LETTER.height }, box: HALF_LETTER, copies: 2 },
-  'two-up-a4': { size: 'two-up-a4', label: 'Two on A4 (cut in half)', sheet: A4_LANDSCAPE, box: HALF_A4, copies: 2 },
+  'half-letter': { size: 'half-letter', label: 'Half letter (5.5 × 8.5 in)', sheet: HALF_LETTER, box: HALF_LETTER, copies: 1, howToPrint: 'at actual size on 5.5 × 8.5 in paper, double-sided' },
+  a5: { size: 'a5', label: 'A5 (148 × 210 mm)', sheet: A5, box: A5, copies: 1, howToPrint: 'at actual size on A5 paper, double-sided' },
+  'two-up-letter': {
+    size: 'two-up-letter',
+    label: 'Letter, two cards to cut',
+    sheet: { width: 2 * HALF_LETTER.width, height: HALF_LETTER.height },
+    box: HALF_LETTER,
+    copies: 2,
+    howToPrint: 'at actual size on letter paper, landscape, double-sided (flip on the short edge), and cut along the dashed line',
+  },
+  'two-up-a4': {
+    size: 'two-up-a4',
+    label: 'A4, two cards to cut',
+    sheet: A4_LANDSCAPE,
+    box: HALF_A4,
+    copies: 2,
+    howToPrint: 'at actual size on A4 paper, landscape, double-sided (flip on the short edge), and cut along the dashed line',
+  },
 };
 
 export function isCardPaperSize(value: unknown): value is CardPaperSize {

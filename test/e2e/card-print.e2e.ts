@@ -70,6 +70,7 @@ describe('printing a card in Chromium', () => {
     expect(flat).toContain('INVENTED DEMO DATA — NOT FOR FLIGHT');
     expect(flat).not.toMatch(/NaN|undefined/);
     await expectText(page.getByTestId('print-hint'), 'Prints the card you issued');
+    await expectText(page.getByTestId('print-status'), 'at actual size on A5 paper, double-sided');
 
     // The paper choice is remembered on this device.
     await page.reload();

@@ -369,8 +369,8 @@ export class CardsPage {
         digest: card.digest,
         ok: code !== null,
         sentence: code
-          ? `${fileName} is ready: print it on ${CARD_PAPERS[this.paper()].label.toLowerCase()}${CARD_PAPERS[this.paper()].copies === 2 ? ', double-sided (flip on the short edge), and cut along the dashed line' : ''}. Card code ${formatCardCode(code)}.`
-          : `${fileName} is ready, without a check code: the card log has not recorded this card yet (no connection). Print it again once it has, for a card anyone can check.`,
+          ? `${fileName} is ready: print it ${CARD_PAPERS[this.paper()].howToPrint}. Card code ${formatCardCode(code)}.`
+          : `${fileName} is ready, without a check code: this card waits on the device until the card log records it. Print it again then, for a card anyone can check.`,
       });
     } catch (error) {
       const sentence = error instanceof CardPrintError ? error.message : 'The PDF could not be made on this device. Reload Speedwright and try again.';
