@@ -29,7 +29,7 @@ import {
   utcDate,
 } from '../card/card-presentation';
 import { drawDial } from '../card/indicator-geometry';
-import { dialSvg, swatchSvg } from './dial-svg';
+import { dialSvg, swatchCanvas } from './dial-svg';
 import { cardPdfFileName } from './file-name';
 import { CARD_FONTS } from './fonts';
 import { CARD_PAPERS, type CardPaper, type CardPaperSize } from './page-sizes';
@@ -383,8 +383,8 @@ function back(input: CardPdfInput, width: number): Content {
 
   const drawing = drawDial(card.indicator);
   const legendBody: TableCell[][] = [
-    ...drawing.arcs.map((arc): TableCell[] => [bar(marked(lineKey.arc(arc.colour))), { svg: swatchSvg({ kind: 'arc', arc }), width: 22, margin: [0, 1.5, 0, 0] }, { text: [`${arc.words}: `, { text: arc.range, font: MONO, bold: true }, ' kt'], fontSize: 6.8 }]),
-    ...drawing.lines.map((line): TableCell[] => [bar(marked(lineKey.line(line.code))), { svg: swatchSvg({ kind: 'line', line }), width: 22, margin: [0, 1, 0, 0] }, { text: [`${line.words}: `, { text: String(line.kt), font: MONO, bold: true }, ' kt'], fontSize: 6.8 }]),
+    ...drawing.arcs.map((arc): TableCell[] => [bar(marked(lineKey.arc(arc.colour))), { canvas: swatchCanvas({ kind: 'arc', arc }), margin: [0, 1, 0, 0] } as TableCell, { text: [`${arc.words}: `, { text: arc.range, font: MONO, bold: true }, ' kt'], fontSize: 6.8 }]),
+    ...drawing.lines.map((line): TableCell[] => [bar(marked(lineKey.line(line.code))), { canvas: swatchCanvas({ kind: 'line', line }), margin: [0, 0.5, 0, 0] } as TableCell, { text: [`${line.words}: `, { text: String(line.kt), font: MONO, bold: true }, ' kt'], fontSize: 6.8 }]),
   ];
   const dialWidth = 140;
   const indicator: Content = {

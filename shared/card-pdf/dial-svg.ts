@@ -5,6 +5,7 @@
  * white arc an outlined band on the inner track, green arc a solid band, yellow arc a striped
  * band, red lines solid, the blue line dashed, every line named by its code.
  */
+import type { CanvasElement } from 'pdfmake/interfaces';
 import type { CardIndicator } from '../card/card';
 import { DIAL_CENTRE, DIAL_FACE_RADIUS, drawDial, type DialArc, type DialLine } from '../card/indicator-geometry';
 import { CARD_FONTS } from './fonts';
@@ -68,4 +69,34 @@ export function dialSvg(indicator: CardIndicator, caption: string): string {
 export function swatchSvg(mark: { kind: 'arc'; arc: Pick<DialArc, 'colour'> } | { kind: 'line'; line: Pick<DialLine, 'colour'> }): string {
   const body = mark.kind === 'arc' ? arcSvg({ colour: mark.arc.colour, path: 'M 2 6 L 30 6' }, 8) : `<line x1="16" y1="0" x2="16" y2="12" ${lineStroke(mark.line)}/>`;
   return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 32 12" width="32" height="12">${body}</svg>`;
+}
+
+/**
+ * The same swatch as pdfmake canvas vectors, `width` × 8 pt: the marking straight, shaped as on
+ * the dial (outlined, solid, striped; a solid or dashed radial line). Canvas vectors cost a
+ * fraction of an SVG in pdfmake, and the legend has one per marking.
+ */
+export function swatchCanvas(mark: { kind: 'arc'; arc: Pick<DialArc, 'colour'> } | { kind: 'line'; line: Pick<DialLine, 'colour'> }, width = 22): CanvasElement[] {
+  const h = 6;
+  const y = 1;
+  if (mark.kind === 'line') {
+    const x = width / 2;
+    return mark.line.colour === 'blue'
+      ? [{ type: 'line', x1: x, y1: 0, x2: x, y2: 8, lineWidth: 2.4, lineColor: INK.blue, dash: { length: 2, space: 1 } }]
+      : [{ type: 'line', x1: x, y1: 0, x2: x, y2: 8, lineWidth: 2.4, lineColor: INK.red }];
+  }
+  switch (mark.arc.colour) {
+    case 'white':
+      return [
+        { type: 'rect', x: 0, y, w: width, h, color: INK.black },
+        { type: 'rect', x: 0, y: y + 1.4, w: width, h: h - 2.8, color: '#ffffff' },
+      ];
+    case 'green':
+      return [{ type: 'rect', x: 0, y, w: width, h, color: INK.green }];
+    case 'yellow': {
+      const stripes: CanvasElement[] = [];
+      for (let x = 0.8; x < width; x += 2.6) stripes.push({ type: 'rect', x, y, w: 1.1, h, color: INK.black });
+      return [{ type: 'rect', x: 0, y, w: width, h, color: INK.yellow }, ...stripes];
+    }
+  }
 }
