@@ -2,7 +2,9 @@
  * `GET /api/airframes/:id/card.pdf` against the test database: the engineers' batch print, its
  * field-level refusals, who may print, and the PDF itself read back with pdf-parse.
  */
+import jsQR from 'jsqr';
 import request from 'supertest';
+import { checkUrl } from '../../shared/card-check/check-url';
 import { airframeListSchema, aircraftTypeListSchema } from '../../shared/api/fleet';
 import { revisionResponseSchema, speedBookListSchema } from '../../shared/api/revisions';
 import { formatCardCode, isCardCode } from '../../shared/card-check/card-code';
@@ -14,6 +16,9 @@ import { readPdf } from '../../test/api/read-pdf';
 import { newSpeedBook, signInEveryone, type SessionsByRole } from '../speed-books/test-helpers';
 
 jest.setTimeout(90_000);
+
+// pngjs comes with qrcode (its PNG renderer; no typings of its own): it reads pdf.js's rendering back.
+const { PNG } = require('pngjs') as { PNG: { sync: { read(png: Buffer): { width: number; height: number; data: Buffer } } } };
 
 let harness: Harness;
 let as: SessionsByRole;
@@ -89,7 +94,7 @@ describe('GET /api/airframes/:id/card.pdf', () => {
     const code = String(res.headers['x-card-code']);
     expect(isCardCode(code)).toBe(true);
 
-    const reading = await readPdf(pdf);
+    const reading = await readPdf(pdf, { page1Png: true });
     {
       const text = reading.text;
       const flat = text.replace(/\s+/g, ' ');
@@ -108,6 +113,11 @@ describe('GET /api/airframes/:id/card.pdf', () => {
       expect(flat).toContain(`${new URL(TEST_PUBLIC_URL).host}/check`);
       expect(reading.info['Title']).toBe(`ZZ-KFA speed card, revision ${trainerRevision.number}`);
     }
+    // The QR code on the printed page, rendered by pdf.js and read by jsQR (a reference decoder),
+    // is the card's check URL on the operator's host.
+    const png = PNG.sync.read(reading.page1Png!);
+    const scanned = jsQR(new Uint8ClampedArray(png.data), png.width, png.height)?.data;
+    expect(scanned).toBe(checkUrl(new URL(TEST_PUBLIC_URL).origin, code, { revisionId: trainerRevision.id, inputs: INPUTS(trainerId), digest: expected.digest }));
     // Every face embedded as a TrueType font program (PDF 1.7, 9.8.1: FontFile2).
     const raw = pdf.toString('latin1');
     expect(raw.match(/\/FontFile2/g)).toHaveLength(4);
