@@ -391,6 +391,8 @@ export class CardsPage {
 
   /** What the revision published before this card's gives for the same inputs (for the revision marks). */
   private async previousCard(card: SpeedCard, context: ReturnType<typeof cardContextOf>): Promise<PreviousCard> {
+    // Revision numbers start at 1: the first revision has nothing before it.
+    if (card.revision.number <= 1) return { kind: 'none' };
     const earlier = (candidates: { id: number; number: number }[]) => candidates.filter((r) => r.number < card.revision.number).sort((a, b) => b.number - a.number)[0];
     try {
       const stored = earlier(await this.deviceStore.db.revisions.where('speedBookId').equals(card.speedBook.id).toArray());
