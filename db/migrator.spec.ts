@@ -1,3 +1,5 @@
+import { QueryTypes, UniqueConstraintError } from 'sequelize';
+import { isCardCode } from '../shared/card-check/card-code';
 import { openLocalDatabase } from './local';
 import { createMigrator } from './migrator';
 import { createSequelize } from '../server/database';
@@ -18,6 +20,40 @@ describe('migrations', () => {
       expect((await migrator.executed()).map((migration) => migration.name)).toEqual([]);
       await migrator.up();
       expect((await migrator.executed()).map((migration) => migration.name)).toEqual(all);
+    } finally {
+      await sequelize.close();
+    }
+  }, 120_000);
+});
+
+// Card log entries written before card codes existed get a valid, distinct code each.
+describe('the card-code migration', () => {
+  it('gives every existing card log entry its own valid code', async () => {
+    const { url } = await openLocalDatabase('test', 'speedwright_migrations_codes', { fresh: true });
+    const sequelize = createSequelize(url);
+    try {
+      const migrator = createMigrator(sequelize);
+      await migrator.up({ to: '20261202-0601-sync-changes-and-currency-limit' });
+      const ids = ['00000000-0000-4000-8000-000000000001', '00000000-0000-4000-8000-000000000002', '00000000-0000-4000-8000-000000000003'];
+      await sequelize.transaction(async (transaction) => {
+        // The entries alone, without their operator, people and fleet: foreign keys off for this connection.
+        await sequelize.query('SET FOREIGN_KEY_CHECKS = 0', { type: QueryTypes.UPDATE, transaction });
+        for (const id of ids) {
+          await sequelize.query(
+            "INSERT INTO card_issues (id, operator_id, issued_by_id, airframe_id, revision_id, inputs, digest, entry_sha256, issued_at, received_at) VALUES (?, 1, 1, 1, 1, '{}', REPEAT('a', 64), REPEAT('b', 64), NOW(3), NOW(3))",
+            { type: QueryTypes.INSERT, replacements: [id], transaction },
+          );
+        }
+        await sequelize.query('SET FOREIGN_KEY_CHECKS = 1', { type: QueryTypes.UPDATE, transaction });
+      });
+      await migrator.up();
+      const rows = await sequelize.query<{ id: string; code: string }>('SELECT id, code FROM card_issues ORDER BY id', { type: QueryTypes.SELECT });
+      expect(rows.map((row) => row.id)).toEqual(ids);
+      for (const row of rows) expect(isCardCode(row.code)).toBe(true);
+      expect(new Set(rows.map((row) => row.code)).size).toBe(3);
+      await expect(
+        sequelize.query("UPDATE card_issues SET code = ? WHERE id = ?", { type: QueryTypes.UPDATE, replacements: [rows[0].code, ids[1]] }),
+      ).rejects.toBeInstanceOf(UniqueConstraintError);
     } finally {
       await sequelize.close();
     }

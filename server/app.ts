@@ -26,12 +26,14 @@ import { uploadsRoutes } from './uploads/uploads.routes';
 import { usersRoutes } from './users/users.routes';
 import { auditRoutes } from './audit/audit.routes';
 import { aircraftTypesRoutes, airframesRoutes } from './fleet/fleet.routes';
+import { airframeCardPdfRoutes } from './cards/card-pdf.routes';
 import { openApiRoutes } from './openapi/openapi.routes';
 import { operatorRoutes } from './operator/operator.routes';
 import { revisionsRoutes } from './revisions/revisions.routes';
 import { speedBooksRoutes } from './speed-books/speed-books.routes';
 import { cardIssuesRoutes, cardsRoutes } from './cards/cards.routes';
 import { syncRoutes } from './sync/sync.routes';
+import { verifyRoutes } from './verify/verify.routes';
 
 export const SESSION_COOKIE = 'speedwright.sid';
 const SESSION_HOURS = 12;
@@ -97,6 +99,8 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
 
   // Health first: it must answer even when sessions (which need the database) cannot.
   app.use('/api/health', healthRoutes(sequelize));
+  // The public card check: no session, so no session lookup on a route that must be fast.
+  app.use('/api/verify', verifyRoutes({ sequelize, unknownCodesPer15Min: config.VERIFY_UNKNOWN_CODES_PER_15_MIN }));
 
   const SequelizeStore = connectSessionSequelize(session.Store);
   const store = new SequelizeStore({
@@ -153,6 +157,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   app.use('/api/users', usersRoutes());
   app.use('/api/aircraft-types', aircraftTypesRoutes());
   app.use('/api/airframes', airframesRoutes());
+  app.use('/api/airframes', airframeCardPdfRoutes({ publicUrl: config.PUBLIC_URL }));
   app.use('/api/speed-books', speedBooksRoutes());
   app.use('/api/revisions', revisionsRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET, attachmentsDir: config.ATTACHMENTS_DIR }));
   app.use('/api/operator', operatorRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));

@@ -24,6 +24,8 @@ const envSchema = z.object({
   TRUST_PROXY: z.string().default('loopback'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   LOGIN_RATE_LIMIT_PER_15_MIN: z.coerce.number().int().positive().default(20),
+  /** Codes matching no card one address may ask `GET /api/verify/:code` about in 15 minutes (per instance). */
+  VERIFY_UNKNOWN_CODES_PER_15_MIN: z.coerce.number().int().positive().default(100),
   LOCK_AFTER_FAILED_SIGN_INS: z.coerce.number().int().positive().default(5),
   LOCK_MINUTES: z.coerce.number().int().positive().default(15),
   /** Where the built Angular app lives; served at `/`. */

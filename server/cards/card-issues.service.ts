@@ -10,6 +10,7 @@
  */
 import { Op, UniqueConstraintError, type Transaction, type WhereOptions } from 'sequelize';
 import { can } from '../../shared/auth/roles';
+import { generateCardCode } from '../../shared/card-check/card-code';
 import { buildCard } from '../../shared/card/build-card';
 import { CardRefusedError, type CardInputs } from '../../shared/card/card';
 import type { CardIssueEntry, CardIssueQuery, CardIssueResult, CardIssueView } from '../../shared/card/card-api';
@@ -48,6 +49,7 @@ const recorded = (row: CardIssue): CardIssueResult => ({
   id: row.id,
   outcome: 'recorded',
   status: 201,
+  code: row.code,
   digest: row.digest,
   receivedAt: row.receivedAt.toISOString(),
 });
@@ -71,7 +73,11 @@ const findOnPrimary = (id: string) => transact((transaction) => CardIssue.findBy
 const DEADLOCK = 1213;
 const isDeadlock = (error: unknown) => (error as { parent?: { errno?: number } })?.parent?.errno === DEADLOCK;
 
-async function recordCardIssue(actor: Actor, entry: CardIssueEntry): Promise<CardIssueResult> {
+/**
+ * Records one card log entry (re-derived, idempotent by its id) and answers as the batch
+ * report does for it. The card code is drawn here on the first report and kept for every replay.
+ */
+export async function recordCardIssue(actor: Actor, entry: CardIssueEntry): Promise<CardIssueResult> {
   const hash = entryHash(actor, entry);
   const existing = await findOnPrimary(entry.id);
   if (existing) return answerForExisting(existing, hash, actor);
@@ -80,12 +86,14 @@ async function recordCardIssue(actor: Actor, entry: CardIssueEntry): Promise<Car
   if (refusal) return refusal.result;
 
   const receivedAt = new Date();
+  let code = generateCardCode();
   for (let attempt = 1; ; attempt++) {
     try {
       const row = await transact(async (transaction) => {
         const created = await CardIssue.create(
           {
             id: entry.id,
+            code,
             operatorId: actor.operatorId,
             issuedById: actor.userId,
             airframeId: entry.airframeId,
@@ -105,7 +113,7 @@ async function recordCardIssue(actor: Actor, entry: CardIssueEntry): Promise<Car
             action: 'card.issued',
             entityType: 'card-issue',
             entityId: entry.id,
-            details: { airframeId: entry.airframeId, revisionId: entry.revisionId, digest: entry.digest, issuedAt: created.issuedAt.toISOString() },
+            details: { code, airframeId: entry.airframeId, revisionId: entry.revisionId, digest: entry.digest, issuedAt: created.issuedAt.toISOString() },
             req: actor.req,
           },
           transaction,
@@ -117,11 +125,28 @@ async function recordCardIssue(actor: Actor, entry: CardIssueEntry): Promise<Car
       if (error instanceof UniqueConstraintError) {
         const winner = await findOnPrimary(entry.id);
         if (winner) return answerForExisting(winner, hash, actor);
+        // Not the id: the code was drawn before (about one in 10¹⁰ per card); draw again.
+        if (attempt < 5) {
+          code = generateCardCode();
+          continue;
+        }
       }
       if (isDeadlock(error) && attempt < 3) continue;
       throw error;
     }
   }
+}
+
+/**
+ * Records a card the server itself issues (the engineers' batch PDF) or a device reported, and
+ * gives its card code; the same code for every call with the same entry. Anything but
+ * `recorded` throws the entry's error as an HttpError (409 for another entry under this id,
+ * 404 or 422 when the card cannot be re-derived to the digest).
+ */
+export async function issueCardCode(actor: Actor, entry: CardIssueEntry): Promise<string> {
+  const result = await recordCardIssue(actor, { ...entry, id: entry.id.toLowerCase() });
+  if (result.outcome === 'recorded') return result.code;
+  throw new HttpError(result.status, result.error.code, result.error.message, result.error.fields);
 }
 
 /** The refusal of an entry whose card cannot be re-derived to the reported digest; undefined when it can. */
@@ -180,6 +205,7 @@ type LoadedIssue = CardIssue & { airframe?: Airframe; revision?: Revision; issue
 function view(row: LoadedIssue): CardIssueView {
   return {
     id: row.id,
+    code: row.code,
     airframe: { id: row.airframeId, registration: row.airframe?.registration ?? '' },
     revision: { id: row.revisionId, number: row.revision?.number ?? 0, speedBookId: row.revision?.speedBookId ?? 0 },
     issuedBy: { id: row.issuedById, name: row.issuedBy?.displayName ?? '' },

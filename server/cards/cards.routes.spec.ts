@@ -6,13 +6,17 @@ import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { airframeListSchema, aircraftTypeListSchema } from '../../shared/api/fleet';
 import { revisionResponseSchema, speedBookListSchema } from '../../shared/api/revisions';
+import { CARD_CODE_PATTERN, isCardCode } from '../../shared/card-check/card-code';
 import { buildCard } from '../../shared/card/build-card';
 import type { CardInputs } from '../../shared/card/card';
 import { cardIssueBatchResponseSchema, cardIssuePageSchema, cardPreviewResponseSchema, type CardIssueEntry } from '../../shared/card/card-api';
 import { contentSha256 } from '../../shared/speed-book/canonical';
 import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
 import { startHarness, type Harness } from '../../test/api/harness';
+import * as cardCode from '../../shared/card-check/card-code';
+import type { Actor } from '../audit/actor';
 import { AuditEvent, CardIssue } from '../models';
+import { issueCardCode } from './card-issues.service';
 import { newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
 
 jest.setTimeout(60_000);
@@ -49,6 +53,12 @@ beforeAll(async () => {
   };
 });
 afterAll(() => harness.close());
+
+/** The signed-in person of a session as a service actor. */
+async function actorFor(who: Session): Promise<Actor> {
+  const me = (await who.agent.get('/api/auth/me').expect(200)).body.user as { id: number; operatorId: number; role: Actor['role'] };
+  return { operatorId: me.operatorId, userId: me.id, role: me.role };
+}
 
 const post = (who: Session, path: string) => who.agent.post(path).set('x-csrf-token', who.token);
 
@@ -187,10 +197,16 @@ describe('POST and GET /api/card-issues', () => {
     const b = await entryFor(as.pilot, {}, jetInputs({ weightKg: 4300 }));
     const first = await report(as.pilot, [a, b]);
     expect(first).toEqual([
-      { id: a.id, outcome: 'recorded', status: 201, digest: a.digest, receivedAt: expect.any(String) },
-      { id: b.id, outcome: 'recorded', status: 201, digest: b.digest, receivedAt: expect.any(String) },
+      { id: a.id, outcome: 'recorded', status: 201, code: expect.stringMatching(CARD_CODE_PATTERN), digest: a.digest, receivedAt: expect.any(String) },
+      { id: b.id, outcome: 'recorded', status: 201, code: expect.stringMatching(CARD_CODE_PATTERN), digest: b.digest, receivedAt: expect.any(String) },
     ]);
+    const codes = first.map((result) => (result.outcome === 'recorded' ? result.code : ''));
+    expect(codes.every(isCardCode)).toBe(true);
+    expect(codes[0]).not.toBe(codes[1]);
+    // A replay gives the same codes: the code is drawn once, on the first report.
     expect(await report(as.pilot, [a, b])).toEqual(first);
+    expect(await report(as.pilot, [{ ...a, id: a.id.toUpperCase() }])).toEqual([first[0]]);
+    expect((await CardIssue.findByPk(a.id, { rejectOnEmpty: true })).code).toBe(codes[0]);
     const c = await entryFor(as.pilot, {}, jetInputs({ weightKg: 4200 }));
     const overlap = await report(as.pilot, [b, c]);
     expect(overlap[0]).toEqual(first[1]);
@@ -214,7 +230,7 @@ describe('POST and GET /api/card-issues', () => {
     expect(responses.map((res) => res.status)).toEqual(Array(100).fill(200));
     const results = responses.map((res) => res.body.results[0]);
     expect(new Set(results.map((result) => JSON.stringify(result))).size).toBe(1);
-    expect(results[0]).toMatchObject({ id: entry.id, outcome: 'recorded', status: 201 });
+    expect(results[0]).toMatchObject({ id: entry.id, outcome: 'recorded', status: 201, code: (await CardIssue.findByPk(entry.id, { rejectOnEmpty: true })).code });
     expect(await stored([entry.id])).toEqual({ rows: 1, audits: 1 });
   });
 
@@ -267,18 +283,40 @@ describe('POST and GET /api/card-issues', () => {
     }
     const page = await list(as.inspector, `${window}&limit=1`);
     expect(page.entries.map((e) => e.id)).toEqual([engineers.id]);
+    const reported = await report(as.engineer, [engineers]);
+    expect(page.entries[0].code).toBe(reported[0].outcome === 'recorded' ? reported[0].code : 'none');
     expect(page.entries[0]).toMatchObject({ airframe: { id: demo.jetAirframeId, registration: 'ZZ-KFJ' }, revision: { id: demo.jetRevisionId, number: 1 }, issuedBy: { name: expect.any(String) }, digest: engineers.digest, issuedAt: '2026-11-20T11:00:00.000Z' });
     const next = await list(as.inspector, `${window}&limit=1&cursor=${page.nextCursor}`);
     expect(next).toEqual({ entries: [expect.objectContaining({ id: mine.id })], nextCursor: null });
     expect((await list(as.inspector, `${window}&airframeId=${demo.trainerAirframeId}`)).entries).toEqual([]);
     expect((await list(as.inspector, `${window}&revisionId=${demo.jetRevisionId}`)).entries).toHaveLength(2);
 
-    expect((await as.inspector.agent.get(`/api/card-issues/${mine.id}`).expect(200)).body.entry).toMatchObject({ id: mine.id, inputs: mine.inputs });
+    expect((await as.inspector.agent.get(`/api/card-issues/${mine.id}`).expect(200)).body.entry).toMatchObject({ id: mine.id, code: expect.stringMatching(CARD_CODE_PATTERN), inputs: mine.inputs });
     await as.pilot.agent.get(`/api/card-issues/${engineers.id}`).expect(404);
     await as.secondPilot.agent.get(`/api/card-issues/${mine.id}`).expect(404);
     await as.secondAdmin.agent.get(`/api/card-issues/${mine.id}`).expect(404);
     expect((await list(as.secondAdmin, window)).entries).toEqual([]);
     await as.inspector.agent.get('/api/card-issues?limit=500').expect(400);
+  });
+
+  it('gives a fresh code when the drawn one is taken, and issueCardCode gives the code or throws the refusal', async () => {
+    const first = await entryFor(as.pilot);
+    const firstCode = await issueCardCode(await actorFor(as.pilot), first);
+    expect(isCardCode(firstCode)).toBe(true);
+    expect(await issueCardCode(await actorFor(as.pilot), first)).toBe(firstCode);
+    // The next draw repeats the first card's code, then gives a new one.
+    const next = await entryFor(as.pilot, {}, jetInputs({ weightKg: 4400 }));
+    const spy = jest.spyOn(cardCode, 'generateCardCode').mockReturnValueOnce(firstCode);
+    try {
+      const secondCode = await issueCardCode(await actorFor(as.pilot), next);
+      expect(spy).toHaveBeenCalledTimes(2);
+      expect(isCardCode(secondCode)).toBe(true);
+      expect(secondCode).not.toBe(firstCode);
+    } finally {
+      spy.mockRestore();
+    }
+    await expect(issueCardCode(await actorFor(as.pilot), { ...first, issuedAt: new Date(Date.now() + 1000).toISOString() })).rejects.toMatchObject({ status: 409, code: 'entry_id_taken' });
+    await expect(issueCardCode(await actorFor(as.pilot), { ...first, id: randomUUID(), digest: 'f'.repeat(64) })).rejects.toMatchObject({ status: 422, code: 'digest_mismatch' });
   });
 
   it('takes reports only from roles that issue cards, in batches of at most 100', async () => {

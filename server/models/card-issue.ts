@@ -7,6 +7,8 @@ import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, t
 export class CardIssue extends Model<InferAttributes<CardIssue>, InferCreationAttributes<CardIssue>> {
   /** The device's random UUID for the entry. */
   declare id: string;
+  /** The card code printed on the card (shared/card-check/card-code.ts), given by the server on first report. */
+  declare code: string;
   declare operatorId: number;
   declare issuedById: number;
   declare airframeId: number;
@@ -23,6 +25,7 @@ export class CardIssue extends Model<InferAttributes<CardIssue>, InferCreationAt
     CardIssue.init(
       {
         id: { type: DataTypes.CHAR(36), allowNull: false, primaryKey: true },
+        code: { type: DataTypes.CHAR(9), allowNull: false, unique: 'card_issues_code' },
         operatorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         issuedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         airframeId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },

@@ -59,11 +59,14 @@ import {
   cardPreviewRequestSchema,
   cardPreviewResponseSchema,
 } from '../../shared/card/card-api';
+import { cardPdfQuerySchema } from '../../shared/card-pdf/card-pdf-api';
+import { verifyCodeParamsSchema, verifyResponseSchema, verifySourceResponseSchema } from '../../shared/card-check/verify-api';
 import { operatorSettingsResponseSchema, operatorSettingsSchema, syncQuerySchema, syncResponseSchema } from '../../shared/api/sync';
 
 type Method = RouteConfig['method'];
 
 const idParams = z.object({ id: z.string().regex(/^[1-9]\d*$/).describe('Record id') });
+const entryIdParams = z.object({ id: z.uuid().describe('The card log entry’s id, a UUID the device chose') });
 const json = (schema: z.ZodType) => ({ content: { 'application/json': { schema } } });
 /** A recursive schema (z.lazy) as zod's own JSON Schema; zod-to-openapi recurses on those without end. */
 const jsonSchemaOf = (schema: z.ZodType) => z.toJSONSchema(schema, { unrepresentable: 'any', io: 'output' }) as Record<string, unknown>;
@@ -82,7 +85,8 @@ interface RouteSpec {
   tags: string[];
   /** Capability needed, for the description; `public` for no sign-in. */
   who: string;
-  params?: boolean;
+  /** `true`: a numeric record id `:id`; or the schema of the path parameters. */
+  params?: boolean | z.ZodObject;
   query?: z.ZodObject;
   body?: z.ZodType;
   /** A multipart upload of one file in the field `file`, instead of a JSON body. */
@@ -120,7 +124,7 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
       description: spec.who === 'public' ? 'No sign-in needed.' : `Needs: ${spec.who}. Writes need the x-csrf-token header.`,
       tags: spec.tags,
       request: {
-        ...(spec.params ? { params: idParams } : {}),
+        ...(spec.params ? { params: spec.params === true ? idParams : spec.params } : {}),
         ...(spec.query ? { query: spec.query } : {}),
         ...(spec.body ? { body: { required: true, ...json(spec.body) } } : {}),
         ...(spec.upload
@@ -164,6 +168,11 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   route('get', '/api/airframes', { summary: 'The operator’s airframes', tags: ['fleet'], who: 'read-published', ok: { status: 200, schema: airframeListSchema } });
   route('post', '/api/airframes', { summary: 'Add an airframe', tags: ['fleet'], who: 'manage-fleet', body: createAirframeSchema, ok: { status: 201, schema: airframeResponseSchema }, errors: [409, 422] });
   route('get', '/api/airframes/:id', { summary: 'One airframe', tags: ['fleet'], who: 'read-published', params: true, ok: { status: 200, schema: airframeResponseSchema } });
+  route('get', '/api/airframes/:id/card.pdf', {
+    summary: 'A printed speed card (PDF) from the current published revision, recorded in the card log; inputs as query parameters',
+    tags: ['cards'], who: 'print-card-batches', params: true, query: cardPdfQuerySchema,
+    ok: { status: 200, description: 'application/pdf, with Content-Disposition naming <registration>-rev<N>-<yyyy-mm-dd>.pdf and X-Card-Code the card code' }, errors: [409, 422],
+  });
   route('patch', '/api/airframes/:id', { summary: 'Change an airframe', tags: ['fleet'], who: 'manage-fleet', params: true, body: updateAirframeSchema, ok: { status: 200, schema: airframeResponseSchema }, errors: [409, 422] });
 
   route('get', '/api/speed-books', { summary: 'Speed books with their published revision', tags: ['speed books'], who: 'read-published', ok: { status: 200, schema: speedBookListSchema } });
@@ -205,7 +214,15 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
     tags: ['cards'], who: 'prepare-cards', body: cardIssueBatchSchema, ok: { status: 200, schema: cardIssueBatchResponseSchema },
   });
   route('get', '/api/card-issues', { summary: 'The card log, newest first (pilots: their own cards)', tags: ['cards'], who: 'read-card-log or prepare-cards', query: cardIssueQuerySchema, ok: { status: 200, schema: cardIssuePageSchema } });
-  route('get', '/api/card-issues/:id', { summary: 'One card log entry', tags: ['cards'], who: 'read-card-log or prepare-cards', params: true, ok: { status: 200, schema: cardIssueResponseSchema } });
+  route('get', '/api/verify/:code', {
+    summary: 'Whether the revision of the card with this code is current, superseded or withdrawn (or the code unknown); only what the card prints',
+    tags: ['card check'], who: 'public', params: verifyCodeParamsSchema, ok: { status: 200, schema: verifyResponseSchema }, errors: [400, 429],
+  });
+  route('get', '/api/verify/:code/source', {
+    summary: 'The one revision, header and issued digest the card with this code was built from, to re-derive its figures',
+    tags: ['card check'], who: 'public', params: verifyCodeParamsSchema, ok: { status: 200, schema: verifySourceResponseSchema, recursive: true }, errors: [400, 404, 429],
+  });
+  route('get', '/api/card-issues/:id', { summary: 'One card log entry', tags: ['cards'], who: 'read-card-log or prepare-cards', params: entryIdParams, ok: { status: 200, schema: cardIssueResponseSchema } });
 
   return new OpenApiGeneratorV31(registry.definitions).generateDocument({
     openapi: '3.1.0',

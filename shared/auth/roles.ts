@@ -16,11 +16,13 @@ export const CAPABILITIES = [
   'manage-fleet',
   'read-audit',
   'read-card-log',
+  /** Print speed cards in batches from the server (`GET /api/airframes/:id/card.pdf`). */
+  'print-card-batches',
 ] as const;
 export type Capability = (typeof CAPABILITIES)[number];
 
 const PILOT: readonly Capability[] = ['read-published', 'prepare-cards', 'check-cards'];
-const ENGINEER: readonly Capability[] = [...PILOT, 'edit-speed-books', 'read-card-log'];
+const ENGINEER: readonly Capability[] = [...PILOT, 'edit-speed-books', 'read-card-log', 'print-card-batches'];
 const APPROVER: readonly Capability[] = [...ENGINEER, 'publish-revisions', 'read-audit'];
 
 const GRANTS: Readonly<Record<Role, readonly Capability[]>> = {

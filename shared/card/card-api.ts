@@ -4,6 +4,7 @@
  */
 import * as z from 'zod';
 import { AIRCRAFT_CATEGORIES, SPEED_BASES, SPEED_PHASES } from '../speed-book/revision-content';
+import { CARD_CODE_PATTERN } from '../card-check/card-code';
 import { CARD_REFUSAL_CODES, CARD_VERSION, cardInputsSchema, type SpeedCard } from './card';
 
 const id = z.number().int().positive();
@@ -124,7 +125,15 @@ export type CardIssueBatch = z.infer<typeof cardIssueBatchSchema>;
  * entries may be reported again once corrected; conflicts and refusals are never retried as is.
  */
 export const cardIssueResultSchema = z.discriminatedUnion('outcome', [
-  z.object({ id: z.string(), outcome: z.literal('recorded'), status: z.literal(201), digest: z.string(), receivedAt: z.string() }),
+  z.object({
+    id: z.string(),
+    outcome: z.literal('recorded'),
+    status: z.literal(201),
+    /** The card code to print (shared/card-check); the same on every replay of the entry. */
+    code: z.string().regex(CARD_CODE_PATTERN),
+    digest: z.string(),
+    receivedAt: z.string(),
+  }),
   z.object({
     id: z.string(),
     outcome: z.enum(['conflict', 'refused']),
@@ -157,6 +166,8 @@ export type CardIssueQuery = z.infer<typeof cardIssueQuerySchema>;
 
 export const cardIssueViewSchema = z.object({
   id: z.string(),
+  /** The card code printed on the card. */
+  code: z.string().regex(CARD_CODE_PATTERN),
   airframe: z.object({ id, registration: z.string() }),
   revision: z.object({ id, number: z.number().int().positive(), speedBookId: id }),
   issuedBy: z.object({ id, name: z.string() }),

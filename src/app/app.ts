@@ -18,11 +18,12 @@ import { ConnectionIndicator } from './shell/connection-indicator';
 import type { DiscardWaitingData } from './shell/discard-waiting-dialog';
 import { NavigationList } from './shell/navigation-list';
 import { ThemeToggle } from './shell/theme-toggle';
+import { SAFETY_CAUTION } from '../../shared/card/card-presentation';
 
 /** Landscape tablets and desktops keep the navigation open beside the page. */
 export const WIDE_SCREEN_QUERY = '(min-width: 960px)';
 
-export const SAFETY_CAUTION = "Planning aid. The approved flight manual and the operator's procedures govern.";
+export { SAFETY_CAUTION };
 
 /** The shell: toolbar, navigation for the signed-in person, the page, and the safety caution. */
 @Component({

@@ -82,7 +82,8 @@ export async function startAppServer({ database, password, name, logLevel = 'war
   };
 }
 
-function freePort(): Promise<number> {
+/** A free loopback port. */
+export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
     const probe = createServer();
     probe.once('error', reject);
@@ -94,7 +95,8 @@ function freePort(): Promise<number> {
   });
 }
 
-async function waitUntilHealthy(server: ChildProcess, baseUrl: string): Promise<void> {
+/** Waits until the server child process answers /api/health (60 s at most). */
+export async function waitUntilHealthy(server: ChildProcess, baseUrl: string): Promise<void> {
   const deadline = Date.now() + 60_000;
   while (Date.now() < deadline) {
     if (server.exitCode !== null) throw new Error(`The server exited with code ${server.exitCode}.`);
@@ -109,7 +111,8 @@ async function waitUntilHealthy(server: ChildProcess, baseUrl: string): Promise<
   throw new Error('The server did not answer /api/health within 60 s.');
 }
 
-function stopProcess(server: ChildProcess): Promise<void> {
+/** SIGTERM, then SIGKILL after 10 s. */
+export function stopProcess(server: ChildProcess): Promise<void> {
   if (server.exitCode !== null) return Promise.resolve();
   return new Promise((resolve) => {
     const kill = setTimeout(() => server.kill('SIGKILL'), 10_000);

@@ -2,7 +2,7 @@ import { Injectable, effect, inject, signal, untracked } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
 import type { SpeedCard } from '../../../shared/card';
 import type { SessionUser } from '../../../shared/api/auth';
-import { cardIssuePageSchema, type CardIssueView } from '../../../shared/card/card-api';
+import { cardIssuePageSchema, cardIssueResponseSchema, type CardIssueView } from '../../../shared/card/card-api';
 import { ApiClient } from '../core/api/api-client';
 import { AuthService } from '../core/auth/auth-service';
 import { DeviceStore, type CardLogRecord } from '../core/storage/device-store';
@@ -91,6 +91,24 @@ export class CardLog {
     const outcome = await flushOutbox(this.store.db, this.transport, { userId: user.id, operatorId: user.operatorId });
     await this.refresh();
     return outcome;
+  }
+
+  /**
+   * The card code of a device entry: as stored when this device's report was recorded, else
+   * asked of the server (an entry another part of the app sent); null while the server has
+   * not recorded the entry, or cannot be reached.
+   */
+  async codeOf(entryId: string): Promise<string | null> {
+    const entry = await this.store.db.cardLog.get(entryId);
+    if (!entry || entry.sentAt === null) return entry?.code ?? null;
+    if (entry.code) return entry.code;
+    try {
+      const { entry: recorded } = await firstValueFrom(this.api.get(`${CARD_PATHS.cardIssues}/${entryId}`, cardIssueResponseSchema));
+      await this.store.db.cardLog.update(entryId, { code: recorded.code });
+      return recorded.code;
+    } catch {
+      return null;
+    }
   }
 
   /** A page of the operator's card log (`GET /api/card-issues`), newest first. */

@@ -92,6 +92,13 @@ export class CardSources {
       .pipe(map(({ speedBook }) => speedBook.revisions.filter((revision) => revision.status === 'draft' || revision.status === 'in_review')));
   }
 
+  /** The revisions of the book that were ever published (published, superseded, withdrawn), newest first. */
+  publishedRevisions(bookId: number): Observable<RevisionSummary[]> {
+    return this.api
+      .get(CARD_PATHS.speedBook(bookId), speedBookResponseSchema)
+      .pipe(map(({ speedBook }) => speedBook.revisions.filter((revision) => revision.status === 'published' || revision.status === 'superseded' || revision.status === 'withdrawn')));
+  }
+
   revision(id: number): Observable<RevisionView> {
     return this.api.get(CARD_PATHS.revision(id), revisionResponseSchema).pipe(map((body) => body.revision));
   }

@@ -18,6 +18,8 @@ import { AltitudeChart } from './altitude-chart';
 import { CARD_DEBOUNCE_MS, CardsPage } from './cards-page';
 import { CARD_PATHS } from './card-sources';
 import { SpeedCardView } from './speed-card-view';
+import { CardPrinter } from './card-printer';
+import type { TDocumentDefinitions } from 'pdfmake/interfaces';
 
 /** jsdom has no canvas; the chart has its own checks (altitude-series), the page test needs only its place. */
 @Component({ selector: 'sw-altitude-chart', template: '' })
@@ -117,8 +119,11 @@ describe('CardsPage', () => {
   let db: SpeedwrightDeviceDatabase;
   let sync: FakeSync;
 
+  let printer: { download: jest.Mock };
+
   beforeEach(async () => {
     sync = new FakeSync();
+    printer = { download: jest.fn(async () => new Blob(['%PDF-'])) };
     localStorage.clear();
     db = new SpeedwrightDeviceDatabase(`speedwright-test-${Math.random()}`);
     TestBed.configureTestingModule({
@@ -130,6 +135,7 @@ describe('CardsPage', () => {
         { provide: AuthService, useValue: { user: signal(PILOT) } },
         { provide: DeviceStore, useValue: { db } },
         { provide: SyncService, useValue: sync },
+        { provide: CardPrinter, useValue: printer },
       ],
     });
     TestBed.overrideComponent(SpeedCardView, { remove: { imports: [AltitudeChart] }, add: { imports: [ChartPlaceholder] } });
@@ -288,7 +294,7 @@ describe('CardsPage', () => {
       const { entries } = requests[0].request.body as { entries: { id: string; digest: string; airframeId: number; revisionId: number; issuedAt: string }[] };
       expect(entries).toHaveLength(1);
       expect(entries[0]).toEqual({ id: expect.stringMatching(/^[0-9a-f-]{36}$/), airframeId: 7, revisionId: 21, inputs: expect.any(Object), digest: shown, issuedAt: expect.any(String) });
-      requests[0].flush({ results: [{ id: entries[0].id, outcome: 'recorded', status: 201, digest: shown, receivedAt: '2026-12-01T10:00:00.000Z' }] });
+      requests[0].flush({ results: [{ id: entries[0].id, outcome: 'recorded', status: 201, code: 'K7M4RTX9X', digest: shown, receivedAt: '2026-12-01T10:00:00.000Z' }] });
       return true;
     });
     await until(() => page.querySelector('[data-testid="issue-status"]')?.textContent?.includes("recorded in the operator's card log") ?? false);
@@ -313,5 +319,51 @@ describe('CardsPage', () => {
     expect(stored[0].sentAt).toBeNull();
     await until(() => page.querySelector('[data-testid="device-card-log"] li')?.getAttribute('data-state') === 'waiting');
     expect(page.querySelector('[data-testid="send-waiting"]')!.textContent).toContain('Send waiting cards (1)');
+  });
+
+  it('prints the card: issues it first, prints its code from the card log, and prints the same card again without a second entry', async () => {
+    const shown = page.querySelector('[data-testid="speed-card"]')!.getAttribute('data-digest')!;
+    expect(page.querySelector('[data-testid="print-hint"]')!.textContent).toContain('Printing issues the card first');
+    (page.querySelector('[data-testid="print-card"]') as HTMLButtonElement).click();
+    let entryId = '';
+    await until(() => {
+      const requests = backend.match((request) => request.url === CARD_PATHS.cardIssues && request.method === 'POST');
+      if (requests.length === 0) return false;
+      const { entries } = requests[0].request.body as { entries: { id: string }[] };
+      entryId = entries[0].id;
+      requests[0].flush({ results: [{ id: entryId, outcome: 'recorded', status: 201, code: 'K7M4RTX9X', digest: shown, receivedAt: '2026-12-01T10:00:00.000Z' }] });
+      return true;
+    });
+    // The outbox records the entry; the printer asks the card log for its code.
+    await until(() => {
+      const requests = backend.match(`${CARD_PATHS.cardIssues}/${entryId}`);
+      if (requests.length === 0) return false;
+      requests[0].flush({
+        entry: {
+          id: entryId, code: 'K7M4RTX9X', airframe: { id: 7, registration: 'ZZ-KFA' }, revision: { id: 21, number: 1, speedBookId: 4 }, issuedBy: { id: PILOT.id, name: PILOT.displayName },
+          inputs: {}, digest: shown, issuedAt: '2026-12-01T10:00:00.000Z', receivedAt: '2026-12-01T10:00:00.000Z',
+        },
+      });
+      return true;
+    });
+    await until(() => printer.download.mock.calls.length === 1);
+    const [definition, fileName] = printer.download.mock.calls[0] as [TDocumentDefinitions, string];
+    expect(fileName).toMatch(/^ZZ-KFA-rev1-\d{4}-\d\d-\d\d\.pdf$/);
+    expect(JSON.stringify(definition.content)).toContain('"canvas":[{"type":"rect"');
+    const header = JSON.stringify((definition.header as (page: number, pages: number) => unknown)(1, 2));
+    expect(header).toContain('K7M-4RT-X9X');
+    expect(header).toContain('ZZ-KFA');
+    await until(() => page.querySelector('[data-testid="print-status"]')?.textContent?.includes('Card code K7M-4RT-X9X') ?? false);
+    expect(page.querySelector('[data-testid="print-status"]')!.textContent).toContain('at actual size on 5.5 × 8.5 in paper, double-sided');
+    expect((await db.cardLog.toArray()).map((entry) => entry.code)).toEqual(['K7M4RTX9X']);
+
+    // Printed again: the same issued card, no second card-log entry, no request.
+    (page.querySelector('[data-testid="print-card"]') as HTMLButtonElement).click();
+    await until(() => printer.download.mock.calls.length === 2);
+    backend.expectNone(CARD_PATHS.cardIssues);
+    expect(await db.cardLog.count()).toBe(1);
+    const again = printer.download.mock.calls[1][0] as TDocumentDefinitions;
+    expect(JSON.stringify((again.header as (page: number, pages: number) => unknown)(1, 2))).toContain('K7M-4RT-X9X');
+    expect(JSON.stringify(again.content)).toContain(`"text":"${speed('VR', 'ias')}"`);
   });
 });

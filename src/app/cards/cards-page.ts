@@ -1,4 +1,4 @@
-import { NgTemplateOutlet } from '@angular/common';
+import { DOCUMENT, NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { FormControl, NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
@@ -11,7 +11,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { EMPTY, Subject, catchError, debounceTime, distinctUntilChanged, merge, of, switchMap, tap } from 'rxjs';
+import { EMPTY, Subject, catchError, debounceTime, distinctUntilChanged, firstValueFrom, merge, of, switchMap, tap } from 'rxjs';
 import type { RevisionSummary } from '../../../shared/api/revisions';
 import { can } from '../../../shared/auth/roles';
 import { CardRefusedError, buildCard, takeoffConfigurationKeys, type CardInputs, type SpeedCard } from '../../../shared/card';
@@ -48,6 +48,11 @@ import {
   type UnitField,
 } from './card-units';
 import { DeviceCardLog } from './device-card-log';
+import { CardPaperPreference } from './card-paper-preference';
+import { CardPrintError, CardPrinter } from './card-printer';
+import { checkUrl, formatCardCode } from '../../../shared/card-check';
+import { CARD_PAPERS, CARD_PAPER_SIZES, cardChanges, cardPdf, previousCardOf, type CardPaperSize, type PreviousCard } from '../../../shared/card-pdf';
+import { DeviceStore } from '../core/storage/device-store';
 import { SpeedCardView, utcDate, type EnteredInput } from './speed-card-view';
 
 /** Long enough that typing "1050" builds one card, short enough to feel live. */
@@ -116,7 +121,11 @@ export class CardsPage {
   private readonly cardLog = inject(CardLog);
   private readonly unitPreferences = inject(UnitPreferences);
   private readonly destroyRef = inject(DestroyRef);
+  private readonly document = inject(DOCUMENT);
   private readonly user = inject(AuthService).user;
+  private readonly printer = inject(CardPrinter);
+  private readonly paperPreference = inject(CardPaperPreference);
+  private readonly deviceStore = inject(DeviceStore);
 
   protected readonly altitudeSteps = ALTITUDE_STEPS_FT;
   protected readonly canPreviewDrafts = computed(() => {
@@ -150,7 +159,12 @@ export class CardsPage {
   private readonly recompute = new Subject<void>();
 
   protected readonly issuing = signal(false);
-  protected readonly issued = signal<{ digest: string; sentence: string; ok: boolean } | null>(null);
+  protected readonly issued = signal<{ digest: string; sentence: string; ok: boolean; entryId: string | null } | null>(null);
+
+  protected readonly paperSizes = CARD_PAPER_SIZES.map((size) => ({ size, label: CARD_PAPERS[size].label }));
+  protected readonly paper = signal<CardPaperSize>('half-letter');
+  protected readonly printing = signal(false);
+  protected readonly printed = signal<{ digest: string; sentence: string; ok: boolean } | null>(null);
 
   protected readonly choice = computed(() => this.choices().find((choice) => choice.airframe.id === this.selectedAirframeId()) ?? null);
   private readonly selectedAirframeId = signal<number | null>(null);
@@ -239,6 +253,8 @@ export class CardsPage {
 
   constructor() {
     this.loadUnits();
+    const user = this.user();
+    if (user) this.paper.set(this.paperPreference.load(user.id));
     this.followFleet();
     this.followSelection();
     this.followForm();
@@ -299,13 +315,103 @@ export class CardsPage {
       const at = utcDate(entry.issuedAt);
       this.issued.set(
         outcome.problem === null
-          ? { digest: card.digest, ok: true, sentence: `Card issued at ${at} and recorded in the operator's card log.` }
-          : { digest: card.digest, ok: false, sentence: `Card issued at ${at} on this device. ${outcome.problem}` },
+          ? { digest: card.digest, ok: true, entryId: entry.id, sentence: `Card issued at ${at} and recorded in the operator's card log.` }
+          : { digest: card.digest, ok: false, entryId: entry.id, sentence: `Card issued at ${at} on this device. ${outcome.problem}` },
       );
     } catch {
-      this.issued.set({ digest: card.digest, ok: false, sentence: 'This device could not store the card, so it was not issued. Check the browser allows site storage, then try again.' });
+      this.issued.set({ digest: card.digest, ok: false, entryId: null, sentence: 'This device could not store the card, so it was not issued. Check the browser allows site storage, then try again.' });
     } finally {
       this.issuing.set(false);
+    }
+  }
+
+  protected choosePaper(paper: CardPaperSize): void {
+    this.paper.set(paper);
+    const user = this.user();
+    if (user) this.paperPreference.save(user.id, paper);
+  }
+
+  /**
+   * Prints the card on screen as a PDF. A printed card is an issued card: when this card is not
+   * issued yet, printing issues it first (one card-log entry per card, however often it is
+   * printed), so the paper carries the code the card log gave it.
+   */
+  protected async printCard(): Promise<void> {
+    const card = this.card();
+    const choice = this.choice();
+    const user = this.user();
+    if (!card || !choice?.book || !user || this.isDraft() || this.printing()) return;
+    const refusal = this.currencyRefusal();
+    if (refusal) {
+      this.printed.set({ digest: card.digest, ok: false, sentence: refusal });
+      return;
+    }
+    this.printing.set(true);
+    this.printed.set(null);
+    try {
+      if (this.issuedForThisCard()?.entryId == null) await this.issueCard();
+      const issued = this.issuedForThisCard();
+      if (!issued?.entryId) throw new CardPrintError(issued?.sentence ?? 'The card could not be issued, so it was not printed.');
+      const entry = await this.deviceStore.db.cardLog.get(issued.entryId);
+      const code = await this.cardLog.codeOf(issued.entryId);
+      const context = cardContextOf(choice, user.operatorIsDemo);
+      const previous = await this.previousCard(card, context);
+      const issuedAt = entry?.issuedAt ?? new Date().toISOString();
+      const { definition, fileName } = cardPdf({
+        card,
+        code: code ? formatCardCode(code) : null,
+        checkUrl: code ? checkUrl(this.origin(), code, { revisionId: card.revision.id, inputs: card.inputs, digest: card.digest }) : null,
+        issuedAt,
+        dataAsOf: `${this.dataAsOf() ?? `Data as of ${utcDate(issuedAt)}`}: revision ${card.revision.number} of ${card.speedBook.title}; printed ${utcDate(new Date().toISOString())}.`,
+        changes: cardChanges(card, previous),
+        paper: this.paper(),
+      });
+      await this.printer.download(definition, fileName);
+      this.printed.set({
+        digest: card.digest,
+        ok: code !== null,
+        sentence: code
+          ? `${fileName} is ready: print it ${CARD_PAPERS[this.paper()].howToPrint}. Card code ${formatCardCode(code)}.`
+          : `${fileName} is ready, without a check code: this card waits on the device until the card log records it. Print it again then, for a card anyone can check.`,
+      });
+    } catch (error) {
+      const sentence = error instanceof CardPrintError ? error.message : 'The PDF could not be made on this device. Reload Speedwright and try again.';
+      this.printed.set({ digest: card.digest, ok: false, sentence });
+    } finally {
+      this.printing.set(false);
+    }
+  }
+
+  protected readonly printedForThisCard = computed(() => {
+    const printed = this.printed();
+    return printed && printed.digest === this.card()?.digest ? printed : null;
+  });
+
+  private origin(): string {
+    return this.document.defaultView?.location.origin ?? '';
+  }
+
+  /** What the revision published before this card's gives for the same inputs (for the revision marks). */
+  private async previousCard(card: SpeedCard, context: ReturnType<typeof cardContextOf>): Promise<PreviousCard> {
+    // Revision numbers start at 1: the first revision has nothing before it.
+    if (card.revision.number <= 1) return { kind: 'none' };
+    const earlier = (candidates: { id: number; number: number }[]) => candidates.filter((r) => r.number < card.revision.number).sort((a, b) => b.number - a.number)[0];
+    try {
+      const stored = earlier(await this.deviceStore.db.revisions.where('speedBookId').equals(card.speedBook.id).toArray());
+      if (stored) {
+        const record = (await this.deviceStore.db.revisions.get(stored.id))!;
+        return previousCardOf({ id: record.id, number: record.number, publishedAt: record.publishedAt, contentSha256: record.contentSha256, content: record.content }, card.inputs, context);
+      }
+    } catch {
+      // No device store: ask the server.
+    }
+    try {
+      const summaries = await firstValueFrom(this.sources.publishedRevisions(card.speedBook.id));
+      const summary = earlier(summaries);
+      if (!summary) return { kind: 'none' };
+      return previousCardOf(cardRevisionOf(await firstValueFrom(this.sources.revision(summary.id))), card.inputs, context);
+    } catch {
+      return { kind: 'unavailable', revisionNumber: null };
     }
   }
 

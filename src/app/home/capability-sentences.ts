@@ -11,4 +11,5 @@ export const CAPABILITY_SENTENCES: Readonly<Record<Capability, string>> = {
   'manage-fleet': 'Manage aircraft types, airframes and operator policies.',
   'read-audit': 'Read the revision history and the audit trail.',
   'read-card-log': 'Read the card log: which cards were issued, when and by whom.',
+  'print-card-batches': 'Print speed cards from the server for an airframe, for a batch of flights.',
 };

@@ -37,6 +37,8 @@ export interface CardLogRecord {
   readonly revisionNumber: number;
   /** The server's sentence when it refused the entry (never retried as is). */
   readonly refusal: string | null;
+  /** The card code the server gave the entry when it recorded it (stored form); absent until then. */
+  readonly code?: string;
 }
 
 /** The operator as the last sync described it: its public key verifies every stored revision. */

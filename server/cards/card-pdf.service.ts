@@ -1,0 +1,150 @@
+/**
+ * The engineers' batch print: `GET /api/airframes/:id/card.pdf`. The card inputs come as query
+ * parameters named as the inputs' fields (nested ones dotted: `departure.qnhHpa`); the card is
+ * built with `buildCard` from the current published revision of the airframe type's speed book,
+ * recorded in the card log (so its printed code can be checked) and printed with the same
+ * document definition the browser uses (shared/card-pdf).
+ */
+import { randomUUID } from 'node:crypto';
+import { Op } from 'sequelize';
+import { checkUrl } from '../../shared/card-check/check-url';
+import { formatCardCode } from '../../shared/card-check/card-code';
+import { CardRefusedError, cardInputsSchema, type CardInputs, type CardRevision, type SpeedCard } from '../../shared/card/card';
+import { buildCard } from '../../shared/card/build-card';
+import { utcDate } from '../../shared/card/card-presentation';
+import { cardPdf } from '../../shared/card-pdf/card-document';
+import { CARD_PAPER_SIZES, isCardPaperSize, type CardPaperSize } from '../../shared/card-pdf/page-sizes';
+import { cardChanges, previousCardOf } from '../../shared/card-pdf/revision-marks';
+import { contentSha256 } from '../../shared/speed-book/canonical';
+import type { Actor } from '../audit/actor';
+import { HttpError, notFound } from '../http-error';
+import { fieldErrors } from '../middleware/validate';
+import { Airframe, Revision, SpeedBook } from '../models';
+import { EVER_PUBLISHED_STATUSES } from '../revisions/revision-views';
+import { loadCardSource } from './card-source';
+import { renderCardPdf } from './card-pdf-renderer';
+
+/** Query parameters that are not card inputs. */
+export const PAPER_PARAMETER = 'paper';
+
+const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i;
+/** Fields that stay text. */
+const TEXT_FIELDS = new Set(['configuration']);
+
+/**
+ * The query as `CardInputs`-shaped data: dotted names nested, figures read as numbers (anything
+ * else is left as text, for the schema to name), and a sentence for each name that cannot be
+ * read at all (given twice, nested too deep, the paper unknown).
+ */
+export function inputsFromQuery(query: Record<string, unknown>, airframeId: number): { inputs: Record<string, unknown>; paper: CardPaperSize; fields: Record<string, string> } {
+  const fields: Record<string, string> = {};
+  const inputs: Record<string, unknown> = { airframeId };
+  let paper: CardPaperSize = 'half-letter';
+  for (const [name, raw] of Object.entries(query)) {
+    if (Array.isArray(raw)) {
+      fields[name] = `Give ${name} once.`;
+      continue;
+    }
+    const text = String(raw).trim();
+    if (name === PAPER_PARAMETER) {
+      if (isCardPaperSize(text)) paper = text;
+      else fields[name] = `The paper is one of ${CARD_PAPER_SIZES.join(', ')}.`;
+      continue;
+    }
+    if (name === 'airframeId') {
+      fields[name] = 'The airframe is the one in the path; leave airframeId out of the query.';
+      continue;
+    }
+    const path = name.split('.');
+    if (path.length > 2 || path.some((part) => part === '' || part === '__proto__' || part === 'constructor' || part === 'prototype')) {
+      fields[name] = 'This field is not expected here.';
+      continue;
+    }
+    const value = TEXT_FIELDS.has(name) || !NUMBER.test(text) ? text : Number(text);
+    if (path.length === 1) {
+      if (typeof inputs[name] === 'object') fields[name] = `Give the fields of ${name} as ${name}.<field>.`;
+      else inputs[name] = value;
+    } else {
+      const [group, field] = path;
+      const existing = inputs[group];
+      if (existing !== undefined && (typeof existing !== 'object' || existing === null)) {
+        fields[name] = `${group} is given both alone and as ${name}.`;
+        continue;
+      }
+      inputs[group] = { ...((existing as Record<string, unknown>) ?? {}), [field]: value };
+    }
+  }
+  return { inputs, paper, fields };
+}
+
+/** The revision published for the airframe's type now; 404 for another operator's airframe, 409 when there is none. */
+async function currentRevisionOf(operatorId: number, airframeId: number): Promise<{ airframe: Airframe; revision: Revision }> {
+  const airframe = await Airframe.findOne({ where: { id: airframeId, operatorId } });
+  if (!airframe) throw notFound('That airframe');
+  const book = await SpeedBook.findOne({ where: { aircraftTypeId: airframe.aircraftTypeId, operatorId } });
+  if (!book) throw new HttpError(409, 'no_speed_book', `There is no speed book for ${airframe.registration}'s type yet, so no card can be printed.`);
+  const revision = await Revision.findOne({ where: { speedBookId: book.id, operatorId, status: 'published' } });
+  if (!revision) throw new HttpError(409, 'no_published_revision', `${book.title} has no published revision, so no card can be printed for ${airframe.registration}.`);
+  return { airframe, revision };
+}
+
+/** The revision published before `revision` in its book (superseded or withdrawn since), or null for the first. */
+async function previousRevisionOf(revision: Revision): Promise<CardRevision | null> {
+  const previous = await Revision.findOne({
+    where: { speedBookId: revision.speedBookId, operatorId: revision.operatorId, status: { [Op.in]: EVER_PUBLISHED_STATUSES }, number: { [Op.lt]: revision.number } },
+    order: [['number', 'DESC']],
+  });
+  if (!previous) return null;
+  const content: unknown = JSON.parse(previous.content);
+  return { id: previous.id, number: previous.number, publishedAt: previous.publishedAt?.toISOString() ?? null, contentSha256: previous.contentSha256 ?? contentSha256(content), content };
+}
+
+export interface PrintedCard {
+  readonly pdf: Buffer;
+  readonly fileName: string;
+  readonly code: string;
+  readonly card: SpeedCard;
+}
+
+/** Records the card as issued and gives its code (the check helper's `issueCardCode` by default). */
+export type IssueCode = (actor: Actor, entry: { id: string; airframeId: number; revisionId: number; inputs: Record<string, unknown>; digest: string; issuedAt: string }) => Promise<string>;
+
+export interface BatchPrintOptions {
+  /** The operator's Speedwright host, where the check URL points. */
+  readonly publicUrl: string;
+  readonly issueCode: IssueCode;
+  readonly now?: () => Date;
+}
+
+export async function printAirframeCard(actor: Actor, airframeId: number, query: Record<string, unknown>, options: BatchPrintOptions): Promise<PrintedCard> {
+  const { inputs: raw, paper, fields } = inputsFromQuery(query, airframeId);
+  const parsed = cardInputsSchema.safeParse(raw);
+  const problems = { ...(parsed.success ? {} : fieldErrors(parsed.error)), ...fields };
+  if (!parsed.success || Object.keys(problems).length) throw new HttpError(400, 'invalid_request', 'Some card inputs in the query are not right.', problems);
+  const inputs: CardInputs = parsed.data;
+  const { revision } = await currentRevisionOf(actor.operatorId, airframeId);
+  const source = await loadCardSource(actor, revision.id, airframeId, 'preview');
+  let card: SpeedCard;
+  try {
+    card = buildCard(source.revision, inputs, source.context);
+  } catch (error) {
+    if (!(error instanceof CardRefusedError)) throw error;
+    const field = error.field === 'revision' ? 'revision' : error.field;
+    throw new HttpError(422, 'card_refused', error.message, { [field]: error.message });
+  }
+  const previous = previousCardOf(await previousRevisionOf(revision), inputs, source.context);
+  const now = (options.now ?? (() => new Date()))();
+  const issuedAt = now.toISOString();
+  const code = await options.issueCode(actor, { id: randomUUID(), airframeId, revisionId: revision.id, inputs: { ...inputs }, digest: card.digest, issuedAt });
+  const origin = new URL(options.publicUrl).origin;
+  const { definition, fileName } = cardPdf({
+    card,
+    code: formatCardCode(code),
+    checkUrl: checkUrl(origin, code, { revisionId: revision.id, inputs, digest: card.digest }),
+    issuedAt,
+    dataAsOf: `Data as of ${utcDate(issuedAt)}: revision ${card.revision.number} as published on the server, printed there.`,
+    changes: cardChanges(card, previous),
+    paper,
+  });
+  return { pdf: await renderCardPdf(definition), fileName, code, card };
+}

@@ -1,0 +1,61 @@
+import { Router, type RequestHandler } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import type { Sequelize } from 'sequelize';
+import { validateCardCode } from '../../shared/card-check/card-code';
+import { HttpError } from '../http-error';
+import { cardSourceOf, verifyCardCode } from './verify.service';
+
+export interface VerifyRoutesOptions {
+  sequelize: Sequelize;
+  /** Unknown or malformed codes one address may ask about in 15 minutes (answers for real codes do not count). */
+  unknownCodesPer15Min: number;
+}
+
+/** The code of the path in stored form, or a 400 that says what is wrong with it. */
+function codeOf(raw: string): string {
+  const checked = validateCardCode(raw);
+  if (checked.ok) return checked.code;
+  const code = checked.problem === 'check' ? 'code_check_failed' : 'invalid_code';
+  throw new HttpError(400, code, checked.message, { code: checked.message });
+}
+
+/**
+ * `/api/verify`: the public card check, mounted before sessions (no session lookup, no cookie,
+ * no CSRF). Answers are never cached: a card's status changes when a revision is published.
+ *
+ * Rate limit: per address, in this process's memory (a shared MariaDB counter would cost a
+ * write on every request of a route that must answer over 1,500 times a second), counting only
+ * answers that found no card — what someone guessing codes gets. People checking real cards are
+ * never slowed; with several instances the limit applies per instance.
+ */
+export function verifyRoutes({ sequelize, unknownCodesPer15Min }: VerifyRoutesOptions): Router {
+  const router = Router();
+  const guessLimiter = rateLimit({
+    windowMs: 15 * 60_000,
+    limit: unknownCodesPer15Min,
+    skipSuccessfulRequests: true,
+    requestWasSuccessful: (_req, res) => res.locals['cardFound'] === true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, _res, next) =>
+      next(new HttpError(429, 'too_many_unknown_codes', 'Too many codes from this device matched no card. Wait 15 minutes and try again.')),
+  });
+  const noStore: RequestHandler = (_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  };
+  router.use(noStore, guessLimiter);
+
+  router.get('/:code', async (req, res) => {
+    const answer = await verifyCardCode(sequelize, codeOf(String(req.params['code'])));
+    res.locals['cardFound'] = answer.status !== 'unknown';
+    res.json(answer);
+  });
+  router.get('/:code/source', async (req, res) => {
+    const source = await cardSourceOf(sequelize, codeOf(String(req.params['code'])));
+    if (!source) throw new HttpError(404, 'unknown_code', 'No card was issued with this code here.');
+    res.locals['cardFound'] = true;
+    res.json(source);
+  });
+  return router;
+}

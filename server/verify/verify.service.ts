@@ -1,0 +1,97 @@
+/**
+ * The public card check: what a card code says to anyone holding the card. One indexed query
+ * per answer (the unique `card_issues.code`), no session and no model instances on the path,
+ * so it stays fast under load. It gives only what the card itself prints (see
+ * shared/card-check/verify-api.ts for what is public and why).
+ */
+import { QueryTypes, type Sequelize } from 'sequelize';
+import type { VerifyResponse, VerifySource } from '../../shared/card-check/verify-api';
+import type { RevisionStatus } from '../../shared/api/revisions';
+
+const STATUS: Partial<Record<RevisionStatus, 'current' | 'superseded' | 'withdrawn'>> = {
+  published: 'current',
+  superseded: 'superseded',
+  withdrawn: 'withdrawn',
+};
+
+interface VerifyRow {
+  issued_at: Date;
+  number: number;
+  published_at: Date | null;
+  status: RevisionStatus;
+  registration: string;
+}
+
+const VERIFY_SQL = `
+  SELECT ci.issued_at, r.number, r.published_at, r.status, a.registration
+  FROM card_issues ci
+  JOIN revisions r ON r.id = ci.revision_id AND r.operator_id = ci.operator_id
+  JOIN airframes a ON a.id = ci.airframe_id AND a.operator_id = ci.operator_id
+  WHERE ci.code = ?
+  LIMIT 1`;
+
+/** The status of the card with `code` (a valid stored-form code). */
+export async function verifyCardCode(sequelize: Sequelize, code: string): Promise<VerifyResponse> {
+  const [row] = await sequelize.query<VerifyRow>(VERIFY_SQL, { type: QueryTypes.SELECT, replacements: [code] });
+  const status = row && STATUS[row.status];
+  // A card is only ever logged from a published revision; anything else is not a card we vouch for.
+  if (!row || !status || !row.published_at) return { status: 'unknown' };
+  return {
+    status,
+    revision: { number: row.number, publishedAt: row.published_at.toISOString() },
+    registration: row.registration,
+    issuedAt: row.issued_at.toISOString(),
+  };
+}
+
+interface SourceRow {
+  digest: string;
+  revision_id: number;
+  number: number;
+  published_at: Date | null;
+  content_sha256: string | null;
+  content: string;
+  status: RevisionStatus;
+  airframe_id: number;
+  registration: string;
+  designator: string;
+  type_name: string;
+  speed_book_id: number;
+  title: string;
+  is_demo: number | boolean;
+}
+
+const SOURCE_SQL = `
+  SELECT ci.digest, r.id AS revision_id, r.number, r.published_at, r.content_sha256, r.content, r.status,
+         a.id AS airframe_id, a.registration, t.designator, t.name AS type_name,
+         b.id AS speed_book_id, b.title, o.is_demo
+  FROM card_issues ci
+  JOIN revisions r ON r.id = ci.revision_id AND r.operator_id = ci.operator_id
+  JOIN airframes a ON a.id = ci.airframe_id AND a.operator_id = ci.operator_id
+  JOIN speed_books b ON b.id = r.speed_book_id AND b.operator_id = ci.operator_id
+  JOIN aircraft_types t ON t.id = b.aircraft_type_id AND t.operator_id = ci.operator_id
+  JOIN operators o ON o.id = ci.operator_id
+  WHERE ci.code = ?
+  LIMIT 1`;
+
+/** What the card with `code` was built from; undefined for an unknown code. */
+export async function cardSourceOf(sequelize: Sequelize, code: string): Promise<VerifySource | undefined> {
+  const [row] = await sequelize.query<SourceRow>(SOURCE_SQL, { type: QueryTypes.SELECT, replacements: [code] });
+  if (!row || !STATUS[row.status] || !row.published_at || !row.content_sha256) return undefined;
+  return {
+    digest: row.digest,
+    revision: {
+      id: row.revision_id,
+      number: row.number,
+      publishedAt: row.published_at.toISOString(),
+      contentSha256: row.content_sha256,
+      content: JSON.parse(row.content) as unknown,
+    },
+    context: {
+      airframe: { id: row.airframe_id, registration: row.registration },
+      aircraftType: { designator: row.designator, name: row.type_name },
+      speedBook: { id: row.speed_book_id, title: row.title },
+      demo: Boolean(row.is_demo),
+    },
+  };
+}

@@ -1,0 +1,201 @@
+/**
+ * The check URL and its compact payload: round trips of real cards' inputs (built with
+ * buildCard from the hand-worked test types), the URL-safe alphabet of RFC 3986 §2.3
+ * (unreserved characters), base64url of RFC 4648 §5 checked against Node's Buffer (a reference
+ * implementation), and every way a damaged payload is told in a sentence.
+ */
+import fc from 'fast-check';
+import { buildCard } from '../card/build-card';
+import { cardInputsSchema, type CardInputs } from '../card/card';
+import { HAND_CONTEXT, handJetContent, handPistonContent, handPistonInputs, revisionOf } from '../card/test-fixtures';
+import { generateCardCode } from './card-code';
+import {
+  base64UrlToDigest,
+  checkUrl,
+  decodeCheckPayload,
+  digestToBase64Url,
+  encodeCheckPayload,
+  parseCheckUrl,
+  type CheckPayload,
+} from './check-url';
+
+const pistonRevision = revisionOf(handPistonContent());
+const pistonCard = buildCard(pistonRevision, handPistonInputs(), HAND_CONTEXT);
+const pistonPayload: CheckPayload = { revisionId: pistonRevision.id, inputs: pistonCard.inputs, digest: pistonCard.digest };
+
+const jetInputs: CardInputs = {
+  airframeId: 7,
+  weightKg: 7200.5,
+  configuration: 'flap',
+  departure: { elevationFt: -12, qnhHpa: 1009.8, oatC: -3.5, dewPointC: -7.25 },
+  arrival: { elevationFt: 5430, qnhHpa: 1021, oatC: 31.2 },
+  isaDeviationC: -4.5,
+  cruise: { mach: 0.72 },
+  altitudeStepFt: 5000,
+};
+const jetRevision = revisionOf(handJetContent(), 12, 4);
+const jetCard = buildCard(jetRevision, jetInputs, HAND_CONTEXT);
+const jetPayload: CheckPayload = { revisionId: jetRevision.id, inputs: jetCard.inputs, digest: jetCard.digest };
+
+/** RFC 3986 §2.3 unreserved characters: nothing in them is ever percent-encoded. */
+const UNRESERVED = /^[A-Za-z0-9._~-]+$/;
+
+describe('the compact payload', () => {
+  it.each([
+    ['a piston card (landing weight, no arrival, IAS cruise)', pistonPayload],
+    ['a jet card (arrival, dew point, Mach cruise, negative figures)', jetPayload],
+  ])('round-trips %s to the same inputs, revision and digest', (_what, payload) => {
+    const text = encodeCheckPayload(payload);
+    expect(text).toMatch(UNRESERVED);
+    expect(text[0]).toBe('1');
+    expect(decodeCheckPayload(text)).toEqual({ ok: true, value: payload });
+  });
+
+  it('re-derives the same card, to the digest, from the decoded inputs', () => {
+    const decoded = decodeCheckPayload(encodeCheckPayload(jetPayload));
+    if (!decoded.ok) throw new Error(decoded.message);
+    expect(buildCard(jetRevision, decoded.value.inputs, HAND_CONTEXT).digest).toBe(jetCard.digest);
+  });
+
+  it('stays short enough for a small QR code (under 160 characters for these cards)', () => {
+    expect(encodeCheckPayload(pistonPayload).length).toBeLessThan(160);
+    expect(encodeCheckPayload(jetPayload).length).toBeLessThan(160);
+  });
+
+  it('round-trips any finite numbers the inputs schema accepts (property test, fast-check)', () => {
+    const finite = fc.double({ noNaN: true, noDefaultInfinity: true, min: -1e6, max: 1e6 });
+    const aerodrome = fc.record({ elevationFt: finite, qnhHpa: finite, oatC: finite, dewPointC: fc.option(finite, { nil: undefined }) }, { requiredKeys: ['elevationFt', 'qnhHpa', 'oatC'] });
+    const inputs = fc.record(
+      {
+        airframeId: fc.integer({ min: 1, max: 4_294_967_295 }),
+        weightKg: fc.double({ min: 1e-9, max: 999_999, noNaN: true }),
+        landingWeightKg: fc.double({ min: 1e-9, max: 999_999, noNaN: true }),
+        configuration: fc.constantFrom('clean', 'flap', 'landing-flap', 'f15-gear-down'),
+        departure: aerodrome,
+        arrival: aerodrome,
+        isaDeviationC: finite,
+        cruise: fc.oneof(fc.record({ iasKt: fc.double({ min: 1e-9, max: 999, noNaN: true }) }), fc.record({ mach: fc.double({ min: 1e-12, max: 0.999999, noNaN: true }) })),
+        altitudeStepFt: fc.integer({ min: 100, max: 10_000 }),
+      },
+      { requiredKeys: ['airframeId', 'weightKg', 'configuration', 'departure', 'isaDeviationC', 'cruise', 'altitudeStepFt'] },
+    );
+    const digest = fc.uint8Array({ minLength: 32, maxLength: 32 }).map((bytes) => Buffer.from(bytes).toString('hex'));
+    fc.assert(
+      fc.property(inputs, digest, fc.integer({ min: 1, max: 4_294_967_295 }), (raw, hex, revisionId) => {
+        const parsed = cardInputsSchema.parse(JSON.parse(JSON.stringify(raw)));
+        const payload = { revisionId, inputs: parsed, digest: hex };
+        const text = encodeCheckPayload(payload);
+        expect(text).toMatch(UNRESERVED);
+        expect(decodeCheckPayload(text)).toEqual({ ok: true, value: payload });
+      }),
+      { numRuns: 500 },
+    );
+  });
+
+  it('covers every field of the card inputs (a new field needs a new payload version)', () => {
+    expect(Object.keys(cardInputsSchema.shape).sort()).toEqual(
+      ['airframeId', 'altitudeStepFt', 'arrival', 'configuration', 'cruise', 'departure', 'isaDeviationC', 'landingWeightKg', 'weightKg'],
+    );
+    expect(Object.keys(cardInputsSchema.shape.departure.shape).sort()).toEqual(['dewPointC', 'elevationFt', 'oatC', 'qnhHpa']);
+  });
+});
+
+describe('the digest as base64url', () => {
+  it('matches Node’s base64url (RFC 4648 §5) and reads back', () => {
+    fc.assert(
+      fc.property(fc.uint8Array({ minLength: 32, maxLength: 32 }), (bytes) => {
+        const hex = Buffer.from(bytes).toString('hex');
+        const text = digestToBase64Url(hex);
+        expect(text).toBe(Buffer.from(bytes).toString('base64url'));
+        expect(base64UrlToDigest(text)).toBe(hex);
+      }),
+    );
+  });
+
+  it('refuses a non-canonical last character and the wrong length', () => {
+    const text = digestToBase64Url(pistonCard.digest);
+    const last = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_'.indexOf(text[42]);
+    expect(base64UrlToDigest(text.slice(0, 42) + 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_'[last | 1])).toBeUndefined();
+    expect(base64UrlToDigest(text.slice(0, 42))).toBeUndefined();
+  });
+});
+
+describe('a damaged payload is a sentence', () => {
+  const good = encodeCheckPayload(pistonPayload);
+  // Version, digest and the first '_' are 45 characters (the digest itself may hold '_').
+  const head = good.slice(0, 45);
+  const fields = good.slice(45).split('_');
+  const withField = (at: number, value: string) => head + [...fields.slice(0, at), value, ...fields.slice(at + 1)].join('_');
+
+  it.each([
+    ['empty', '', 'carries no figures'],
+    ['too long', good + 'x'.repeat(600), 'far longer'],
+    ['odd characters', good.replace('_', '%'), 'characters no card code uses'],
+    ['another version', `2${good.slice(1)}`, 'does not read'],
+    ['a cut digest', good.slice(0, 30), 'digest is not readable'],
+    ['a field missing', head + fields.slice(0, -1).join('_'), 'has 15 fields where a card has 16'],
+    ['an unreadable number', withField(2, '9x0'), 'the takeoff weight is not readable'],
+    ['two unreadable numbers', withField(2, '9x0').replace('_2000_', '_2e3.5_'), 'the takeoff weight, departure elevation are not readable'],
+    ['an unknown cruise kind', withField(14, 'q100'), 'the cruise is not readable'],
+    ['a revision that is not a record number', withField(0, '11.5'), 'the revision is not a record number'],
+    ['a weight the schema refuses', withField(2, '-900'), 'incomplete: the takeoff weight in kg must be above zero (weightKg)'],
+    ['a configuration the schema refuses', withField(4, 'FLAP'), '(configuration)'],
+  ])('%s', (_what, text, sentence) => {
+    const result = decodeCheckPayload(text);
+    expect(result.ok).toBe(false);
+    if (!result.ok) {
+      expect(result.message).toContain(sentence);
+      expect(result.message).toMatch(/^[A-Z].*\.$/);
+    }
+  });
+});
+
+describe('checkUrl and parseCheckUrl', () => {
+  const code = generateCardCode();
+
+  it('builds https://host/check/<code>?c=<payload> and reads it back', () => {
+    const url = checkUrl('https://cards.kestrel-fen.example/', code, jetPayload);
+    expect(url).toBe(`https://cards.kestrel-fen.example/check/${code}?c=${encodeCheckPayload(jetPayload)}`);
+    expect(parseCheckUrl(url)).toEqual({
+      ok: true,
+      value: { origin: 'https://cards.kestrel-fen.example', code, printedCode: `${code.slice(0, 3)}-${code.slice(3, 6)}-${code.slice(6)}`, payload: jetPayload, payloadProblem: null },
+    });
+  });
+
+  it('is the same URL the WHATWG URL parser sees (nothing to escape)', () => {
+    const url = checkUrl('http://localhost:4300', code, pistonPayload);
+    const parsed = new URL(url);
+    expect(parsed.href).toBe(url);
+    expect(parsed.searchParams.get('c')).toBe(encodeCheckPayload(pistonPayload));
+  });
+
+  it('refuses an origin that is not http(s)://host[:port] and a code that is not valid', () => {
+    expect(() => checkUrl('ftp://x.example', code, pistonPayload)).toThrow('not an http(s) origin');
+    expect(() => checkUrl('https://x.example/app', code, pistonPayload)).toThrow('not an http(s) origin');
+    expect(() => checkUrl('https://x.example', 'K7M4RTX9A', pistonPayload)).toThrow('does not fit');
+  });
+
+  it('reads a path, a percent-encoded payload, a printed code and a bare typed code', () => {
+    const payload = encodeCheckPayload(pistonPayload);
+    expect(parseCheckUrl(`/check/${code}?c=${payload}`)).toMatchObject({ ok: true, value: { origin: null, code, payload: pistonPayload } });
+    expect(parseCheckUrl(`https://a.example/check/${code}?x=1&c=${encodeURIComponent(payload).replace(/\./g, '%2E')}#top`)).toMatchObject({ ok: true, value: { payload: pistonPayload } });
+    expect(parseCheckUrl(`https://a.example/check/${code.toLowerCase().slice(0, 3)}-${code.slice(3).toLowerCase()}`)).toMatchObject({ ok: true, value: { code, payload: null, payloadProblem: null } });
+    expect(parseCheckUrl(` ${code.toLowerCase()} `)).toMatchObject({ ok: true, value: { origin: null, code, payload: null } });
+  });
+
+  it('keeps the code when the payload is damaged, and says what is wrong', () => {
+    expect(parseCheckUrl(`https://a.example/check/${code}?c=1abc`)).toMatchObject({
+      ok: true,
+      value: { code, payload: null, payloadProblem: expect.stringContaining('digest is not readable') },
+    });
+    expect(parseCheckUrl(`https://a.example/check/${code}?c=%E0%A4%A`)).toMatchObject({ ok: true, value: { payloadProblem: expect.stringContaining('characters no card code uses') } });
+  });
+
+  it('fails with a sentence for other addresses and bad codes', () => {
+    expect(parseCheckUrl('https://a.example/cards/123')).toEqual({ ok: false, message: expect.stringContaining('not a Speedwright card check address') });
+    expect(parseCheckUrl('mailto:someone@example.com')).toMatchObject({ ok: false });
+    expect(parseCheckUrl('https://a.example/check/K7M4RTX9A')).toEqual({ ok: false, message: expect.stringContaining('does not fit') });
+    expect(parseCheckUrl('https://a.example/check/%E0%A4%A')).toEqual({ ok: false, message: 'The card code in this address is damaged.' });
+    expect(parseCheckUrl('')).toEqual({ ok: false, message: 'Type the code printed on the card.' });
+  });
+});

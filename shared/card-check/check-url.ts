@@ -1,0 +1,287 @@
+/**
+ * The check URL printed (as a QR code) on every issued card:
+ *
+ *     https://<operator's Speedwright host>/check/<card code>?c=<compact payload>
+ *
+ * The payload carries what the card was built from — the revision id, the card's inputs and
+ * its digest — so the check page can re-derive the figures with `buildCard` and compare digests
+ * without the card log. It is compact (a QR code on a kneeboard card must stay small), URL-safe
+ * (only A–Z a–z 0–9 - . _ characters, nothing to escape) and versioned (the first character).
+ *
+ * Version 1, our own positional form: `1`, the digest as 43 characters of base64url (32 bytes,
+ * RFC 4648 §5, no padding), then `_` and the fields below joined by `_`; an absent optional
+ * field is empty. Numbers are written as ECMAScript writes them (shortest form that reads back
+ * to the same number; an exponent without `+`), so decoding gives the very inputs encoded.
+ *
+ *     revisionId _ airframeId _ weightKg _ landingWeightKg _ configuration
+ *     _ departure: elevationFt _ qnhHpa _ oatC _ dewPointC
+ *     _ arrival:   elevationFt _ qnhHpa _ oatC _ dewPointC      (all four empty without arrival)
+ *     _ isaDeviationC _ cruise (k<IAS kt> or m<Mach>) _ altitudeStepFt
+ *
+ * Decoding checks the result against `cardInputsSchema`; a failure is a sentence, never a throw.
+ */
+import { cardInputsSchema, type AerodromeConditions, type CardInputs } from '../card/card';
+import { formatCardCode, validateCardCode } from './card-code';
+
+/** The payload's form; a change of fields means a new version (decoders keep reading the old). */
+export const CHECK_PAYLOAD_VERSION = '1';
+/** Longest payload a decoder reads (a version-1 payload is about 120 characters). */
+export const MAX_CHECK_PAYLOAD_LENGTH = 600;
+
+/** What a check URL carries about the card besides its code. */
+export interface CheckPayload {
+  readonly revisionId: number;
+  readonly inputs: CardInputs;
+  /** SHA-256 of the card, 64 lower-case hex digits (`SpeedCard.digest`). */
+  readonly digest: string;
+}
+
+export type Decoded<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly message: string };
+
+const DIGEST_HEX = /^[0-9a-f]{64}$/;
+const DIGEST_B64_LENGTH = 43;
+const B64URL = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_';
+const FIELDS = 16;
+const NUMBER = /^-?(0|[1-9][0-9]*)(\.[0-9]+)?(e-?[0-9]+)?$/;
+const PAYLOAD_CHARACTERS = /^[A-Za-z0-9_.-]*$/;
+
+const bad = (message: string): Decoded<never> => ({ ok: false, message });
+
+// ---------------------------------------------------------------------------------------------
+// Digest ↔ base64url
+
+/** 64 hex digits as 43 base64url characters. */
+export function digestToBase64Url(hex: string): string {
+  if (!DIGEST_HEX.test(hex)) throw new Error('A digest is 64 lower-case hexadecimal digits.');
+  const bytes: number[] = [];
+  for (let i = 0; i < 64; i += 2) bytes.push(parseInt(hex.slice(i, i + 2), 16));
+  let text = '';
+  for (let i = 0; i < bytes.length; i += 3) {
+    const chunk = (bytes[i] << 16) | ((bytes[i + 1] ?? 0) << 8) | (bytes[i + 2] ?? 0);
+    const characters = i + 2 < bytes.length ? 4 : i + 1 < bytes.length ? 3 : 2;
+    for (let k = 0; k < characters; k++) text += B64URL[(chunk >> (18 - 6 * k)) & 63];
+  }
+  return text;
+}
+
+/** 43 base64url characters as 64 hex digits; undefined when they are not a 32-byte value. */
+export function base64UrlToDigest(text: string): string | undefined {
+  if (text.length !== DIGEST_B64_LENGTH) return undefined;
+  let bits = 0;
+  let buffer = 0;
+  let hex = '';
+  for (const character of text) {
+    const value = B64URL.indexOf(character);
+    if (value < 0) return undefined;
+    buffer = (buffer << 6) | value;
+    bits += 6;
+    if (bits >= 8) {
+      bits -= 8;
+      hex += ((buffer >> bits) & 255).toString(16).padStart(2, '0');
+      buffer &= (1 << bits) - 1;
+    }
+  }
+  // 43 characters are 258 bits: the last 2 must be zero in the canonical form.
+  return buffer === 0 ? hex : undefined;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Numbers
+
+function writeNumber(value: number, field: string): string {
+  if (!Number.isFinite(value)) throw new Error(`${field} is not a finite number.`);
+  return String(value).replace('e+', 'e');
+}
+
+function readNumber(text: string): number | undefined {
+  if (!NUMBER.test(text)) return undefined;
+  const value = Number(text);
+  return Number.isFinite(value) ? value : undefined;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Payload
+
+/**
+ * The compact payload of a card. `inputs` must be valid card inputs (the card's own `inputs`,
+ * as `buildCard` parsed them); anything else throws, since it is a programming error.
+ */
+export function encodeCheckPayload({ revisionId, inputs, digest }: CheckPayload): string {
+  const parsed = cardInputsSchema.parse(inputs);
+  if (!(Number.isInteger(revisionId) && revisionId > 0)) throw new Error('The revision id is a positive whole number.');
+  const aerodrome = (conditions: AerodromeConditions | undefined, which: string) =>
+    conditions
+      ? [
+          writeNumber(conditions.elevationFt, `${which}.elevationFt`),
+          writeNumber(conditions.qnhHpa, `${which}.qnhHpa`),
+          writeNumber(conditions.oatC, `${which}.oatC`),
+          conditions.dewPointC === undefined ? '' : writeNumber(conditions.dewPointC, `${which}.dewPointC`),
+        ]
+      : ['', '', '', ''];
+  const cruise = 'mach' in parsed.cruise ? `m${writeNumber(parsed.cruise.mach, 'cruise.mach')}` : `k${writeNumber(parsed.cruise.iasKt, 'cruise.iasKt')}`;
+  const fields = [
+    String(revisionId),
+    String(parsed.airframeId),
+    writeNumber(parsed.weightKg, 'weightKg'),
+    parsed.landingWeightKg === undefined ? '' : writeNumber(parsed.landingWeightKg, 'landingWeightKg'),
+    parsed.configuration,
+    ...aerodrome(parsed.departure, 'departure'),
+    ...aerodrome(parsed.arrival, 'arrival'),
+    writeNumber(parsed.isaDeviationC, 'isaDeviationC'),
+    cruise,
+    String(parsed.altitudeStepFt),
+  ];
+  return `${CHECK_PAYLOAD_VERSION}${digestToBase64Url(digest)}_${fields.join('_')}`;
+}
+
+const NOT_A_CARD = 'The figures in this code are damaged or incomplete';
+
+/** Reads a compact payload back; a failure is a sentence for the person holding the card. */
+export function decodeCheckPayload(text: string): Decoded<CheckPayload> {
+  if (text.length === 0) return bad(`${NOT_A_CARD}: the code carries no figures.`);
+  if (text.length > MAX_CHECK_PAYLOAD_LENGTH) return bad(`${NOT_A_CARD}: it is far longer than any card’s.`);
+  if (!PAYLOAD_CHARACTERS.test(text)) return bad(`${NOT_A_CARD}: it holds characters no card code uses.`);
+  if (text[0] !== CHECK_PAYLOAD_VERSION) {
+    return bad('The figures in this code are in a form this version of Speedwright does not read; open the check page on the operator’s Speedwright site.');
+  }
+  const digest = base64UrlToDigest(text.slice(1, 1 + DIGEST_B64_LENGTH));
+  if (digest === undefined || text[1 + DIGEST_B64_LENGTH] !== '_') return bad(`${NOT_A_CARD}: its digest is not readable.`);
+  const fields = text.slice(2 + DIGEST_B64_LENGTH).split('_');
+  if (fields.length !== FIELDS) return bad(`${NOT_A_CARD}: it has ${fields.length} fields where a card has ${FIELDS}.`);
+
+  const [revisionText, airframeText, weight, landingWeight, configuration, ...rest] = fields;
+  const departure = rest.slice(0, 4);
+  const arrival = rest.slice(4, 8);
+  const [isaDeviation, cruiseText, stepText] = rest.slice(8);
+
+  const problems: string[] = [];
+  const numberAt = (field: string, value: string): number => {
+    const number = readNumber(value);
+    if (number === undefined) problems.push(field);
+    return number ?? 0;
+  };
+  const optionalAt = (field: string, value: string) => (value === '' ? undefined : numberAt(field, value));
+  const aerodrome = (name: string, [elevation, qnh, oat, dewPoint]: string[]): AerodromeConditions => {
+    const conditions: { elevationFt: number; qnhHpa: number; oatC: number; dewPointC?: number } = {
+      elevationFt: numberAt(`${name} elevation`, elevation),
+      qnhHpa: numberAt(`${name} QNH`, qnh),
+      oatC: numberAt(`${name} temperature`, oat),
+    };
+    const dew = optionalAt(`${name} dew point`, dewPoint);
+    if (dew !== undefined) conditions.dewPointC = dew;
+    return conditions;
+  };
+
+  const revisionId = numberAt('revision', revisionText);
+  const inputs: Record<string, unknown> = {
+    airframeId: numberAt('airframe', airframeText),
+    weightKg: numberAt('takeoff weight', weight),
+    configuration,
+    departure: aerodrome('departure', departure),
+    isaDeviationC: numberAt('ISA deviation', isaDeviation),
+    altitudeStepFt: numberAt('altitude step', stepText),
+  };
+  const landing = optionalAt('landing weight', landingWeight);
+  if (landing !== undefined) inputs['landingWeightKg'] = landing;
+  if (arrival.some((field) => field !== '')) inputs['arrival'] = aerodrome('arrival', arrival);
+  const cruiseValue = numberAt('cruise', cruiseText.slice(1));
+  if (cruiseText[0] === 'm') inputs['cruise'] = { mach: cruiseValue };
+  else if (cruiseText[0] === 'k') inputs['cruise'] = { iasKt: cruiseValue };
+  else problems.push('cruise');
+
+  if (problems.length > 0) return bad(`${NOT_A_CARD}: the ${problems.join(', ')} ${problems.length === 1 ? 'is' : 'are'} not readable.`);
+  if (!(Number.isInteger(revisionId) && revisionId > 0)) return bad(`${NOT_A_CARD}: the revision is not a record number.`);
+  const parsed = cardInputsSchema.safeParse(inputs);
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0];
+    return bad(`${NOT_A_CARD}: ${issue.message[0].toLowerCase()}${issue.message.slice(1).replace(/\.$/, '')} (${issue.path.join('.')}).`);
+  }
+  return { ok: true, value: { revisionId, inputs: parsed.data, digest } };
+}
+
+// ---------------------------------------------------------------------------------------------
+// The URL
+
+const ORIGIN = /^https?:\/\/[A-Za-z0-9.-]+(:[0-9]{1,5})?$|^https?:\/\/\[[0-9A-Fa-f:.]+\](:[0-9]{1,5})?$/;
+
+/** `origin` without a trailing slash, checked to be `http(s)://host[:port]`. */
+export function checkOrigin(origin: string): string {
+  const trimmed = origin.replace(/\/+$/, '');
+  if (!ORIGIN.test(trimmed)) throw new Error(`${origin} is not an http(s) origin such as https://speedwright.example.`);
+  return trimmed;
+}
+
+/**
+ * The check URL of a card: `origin` is the operator's Speedwright host (`https://host[:port]`),
+ * `code` the card code (stored or printed form).
+ * @example checkUrl('https://cards.example', 'K7M4RTX9X', card) // 'https://cards.example/check/K7M4RTX9X?c=1…'
+ */
+export function checkUrl(origin: string, code: string, payload: CheckPayload): string {
+  const validated = validateCardCode(code);
+  if (!validated.ok) throw new Error(validated.message);
+  return `${checkOrigin(origin)}/check/${validated.code}?c=${encodeCheckPayload(payload)}`;
+}
+
+/** What a check URL (or a `/check/…` path, or a bare typed code) says. */
+export interface ParsedCheckUrl {
+  /** `https://host[:port]`, or null for a path or a bare code. */
+  readonly origin: string | null;
+  /** The card code, stored form, check character verified. */
+  readonly code: string;
+  /** The printed form, `K7M-4RT-X9X`. */
+  readonly printedCode: string;
+  /** The payload, or null when the URL carries none (a typed code). */
+  readonly payload: CheckPayload | null;
+  /** Why the payload could not be read, when it was there but damaged. */
+  readonly payloadProblem: string | null;
+}
+
+const URL_SHAPE = /^(?:(https?:\/\/[^/?#\s]+))?\/check\/([^/?#\s]*)\/?(?:\?([^#\s]*))?(?:#\S*)?$/i;
+
+/**
+ * Reads a scanned or pasted check URL, a `/check/<code>?c=…` path, or a typed code. A code
+ * that is not valid fails with its sentence; a payload that is damaged still gives the code
+ * (the card's status can be asked), with `payloadProblem` saying what is wrong.
+ */
+export function parseCheckUrl(text: string): Decoded<ParsedCheckUrl> {
+  const trimmed = text.trim();
+  const match = URL_SHAPE.exec(trimmed);
+  if (!match) {
+    if (/^[a-z][a-z0-9+.-]*:/i.test(trimmed) || trimmed.includes('/')) {
+      return bad('This is not a Speedwright card check address: it should end in /check/ and the card code.');
+    }
+    const typed = validateCardCode(trimmed);
+    if (!typed.ok) return bad(typed.message);
+    return { ok: true, value: { origin: null, code: typed.code, printedCode: formatCardCode(typed.code), payload: null, payloadProblem: null } };
+  }
+  const [, origin, rawCode, query] = match;
+  let codeText: string;
+  try {
+    codeText = decodeURIComponent(rawCode);
+  } catch {
+    return bad('The card code in this address is damaged.');
+  }
+  const code = validateCardCode(codeText);
+  if (!code.ok) return bad(code.message);
+  let payload: CheckPayload | null = null;
+  let payloadProblem: string | null = null;
+  const raw = (query ?? '')
+    .split('&')
+    .map((pair) => pair.split('='))
+    .find(([key]) => key === 'c')?.[1];
+  if (raw !== undefined) {
+    let text: string | undefined;
+    try {
+      text = decodeURIComponent(raw);
+    } catch {
+      text = undefined;
+    }
+    const decoded = text === undefined ? bad(`${NOT_A_CARD}: it holds characters no card code uses.`) : decodeCheckPayload(text);
+    if (decoded.ok) payload = decoded.value;
+    else payloadProblem = decoded.message;
+  }
+  return {
+    ok: true,
+    value: { origin: origin ? origin.toLowerCase() : null, code: code.code, printedCode: formatCardCode(code.code), payload, payloadProblem },
+  };
+}

@@ -1,0 +1,32 @@
+/**
+ * `GET /api/airframes/:id/card.pdf`: the card inputs as query parameters, named as the fields of
+ * `CardInputs` (shared/card/card.ts), nested ones dotted. The server reads them into
+ * `cardInputsSchema` (server/cards/card-pdf.service.ts), which says what each must be; this
+ * schema describes them for the API document.
+ */
+import * as z from 'zod';
+import { CARD_PAPER_SIZES } from './page-sizes';
+
+const figure = (what: string) => z.string().describe(what);
+const aerodrome = (name: 'departure' | 'arrival', optional: boolean) => {
+  const field = (text: string) => (optional ? figure(`${text} (with the other ${name}.* fields, or none)`).optional() : figure(text));
+  return {
+    [`${name}.elevationFt`]: field(`Field elevation at ${name}, ft`),
+    [`${name}.qnhHpa`]: field(`QNH at ${name}, hPa`),
+    [`${name}.oatC`]: field(`Outside air temperature at ${name}, °C`),
+    [`${name}.dewPointC`]: figure(`Dew point at ${name}, °C (optional: dry air)`).optional(),
+  };
+};
+
+export const cardPdfQuerySchema = z.object({
+  weightKg: figure('Takeoff weight, kg'),
+  landingWeightKg: figure('Landing weight, kg (optional: the takeoff weight)').optional(),
+  configuration: z.string().describe('The takeoff configuration’s key in the speed book'),
+  ...aerodrome('departure', false),
+  ...aerodrome('arrival', true),
+  isaDeviationC: figure('ISA deviation en route, °C'),
+  'cruise.iasKt': figure('Planned cruise IAS, kt (or cruise.mach)').optional(),
+  'cruise.mach': figure('Planned cruise Mach number (or cruise.iasKt)').optional(),
+  altitudeStepFt: figure('Spacing of the altitude table’s rows, whole feet (100 to 10,000)'),
+  paper: z.enum(CARD_PAPER_SIZES).optional().describe('half-letter (default), a5, two-up-letter or two-up-a4'),
+});
