@@ -42,6 +42,8 @@ export type CardCheckResult =
 /** Statuses that mean the server was not reached (no answer, or a gateway that could not reach it). */
 export const unreachable = (error: ApiRequestError) => error.status === 0 || error.status === 502 || error.status === 503 || error.status === 504;
 
+export const UNREACHABLE = 'This device cannot reach the operator’s Speedwright site now, so it cannot ask whether this card is still good.';
+
 const TYPED = 'A typed code carries no figures: scan the QR code on the card to check its figures too.';
 
 function withoutFigures(code: ParsedCheckUrl): FiguresNote | null {
@@ -61,7 +63,7 @@ export async function runCardCheck(deps: CardCheckDeps, rawCode: string, payload
   } catch (error) {
     const problem = ApiRequestError.from(error);
     if (!unreachable(problem)) return { kind: 'failed', code, message: problem.message };
-    return offlineCheck(deps, code, problem.message);
+    return offlineCheck(deps, code, UNREACHABLE);
   }
 }
 

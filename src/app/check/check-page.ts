@@ -153,11 +153,10 @@ export class CheckPage {
   protected readonly offlineCannotKnow = computed<string[]>(() => {
     const result = this.offlineResult();
     if (!result) return [];
-    const since = result.data?.lastSyncedAt ? `since ${utcDate(result.data.lastSyncedAt)}` : 'since this device last synced';
-    return [
-      `Whether a newer revision was published, or this one withdrawn, ${since}.`,
-      'Whether a card was issued with this code at all: the card log is kept on the operator’s site.',
-    ];
+    const issued = 'Whether a card was issued with this code at all: the card log is kept on the operator’s site.';
+    if (!result.data) return ['Whether the revision this card was built from is still in force, replaced or withdrawn.', issued];
+    const since = result.data.lastSyncedAt ? `since ${utcDate(result.data.lastSyncedAt)}` : 'since this device last synced';
+    return [`Whether a newer revision was published, or this one withdrawn, ${since}.`, issued];
   });
 
   constructor() {
