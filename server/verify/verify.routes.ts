@@ -49,7 +49,9 @@ export function verifyRoutes({ sequelize, unknownCodesPer15Min }: VerifyRoutesOp
   router.get('/:code', async (req, res) => {
     const answer = await verifyCardCode(sequelize, codeOf(String(req.params['code'])));
     res.locals['cardFound'] = answer.status !== 'unknown';
-    res.json(answer);
+    // Written directly: res.json would hash the body for an ETag, which no-store makes useless.
+    res.status(200).setHeader('Content-Type', 'application/json; charset=utf-8');
+    res.end(JSON.stringify(answer));
   });
   router.get('/:code/source', async (req, res) => {
     const source = await cardSourceOf(sequelize, codeOf(String(req.params['code'])));
