@@ -9,6 +9,7 @@ import { APP_NAVIGATION } from './app.navigation';
 import { ApiRequestError } from './core/api/api-request-error';
 import { AuthService } from './core/auth/auth-service';
 import { NAVIGATION_ENTRIES } from './core/navigation/navigation-entry';
+import { SyncService } from './core/sync/sync-service';
 
 const approver: SessionUser = {
   id: 5,
@@ -22,17 +23,26 @@ const approver: SessionUser = {
 describe('App shell', () => {
   const user = signal<SessionUser | null>(null);
   const auth = { user, signedIn: () => user() !== null, session: () => of(user()), signOut: jest.fn() };
+  const sync = {
+    sendOutbox: jest.fn(),
+    waitingOfOperator: jest.fn(),
+    removeOperatorData: jest.fn(async () => undefined),
+  };
   let fixture: ComponentFixture<App>;
   let shell: HTMLElement;
 
   beforeEach(async () => {
     user.set(null);
     auth.signOut.mockReset();
+    sync.sendOutbox.mockReset().mockResolvedValue({ recorded: 0, waiting: 0, refused: 0, problem: null, failed: false, failureStatus: null, failureMessage: null });
+    sync.waitingOfOperator.mockReset().mockResolvedValue(0);
+    sync.removeOperatorData.mockClear();
     TestBed.configureTestingModule({
       imports: [App],
       providers: [
         provideRouter([]),
         { provide: AuthService, useValue: auth },
+        { provide: SyncService, useValue: sync },
         { provide: NAVIGATION_ENTRIES, useValue: APP_NAVIGATION },
         { provide: SwUpdate, useValue: { isEnabled: false, versionUpdates: new Subject(), unrecoverable: new Subject() } },
       ],
@@ -41,6 +51,14 @@ describe('App shell', () => {
     shell = fixture.nativeElement;
     await fixture.whenStable();
   });
+
+  async function until(check: () => boolean): Promise<void> {
+    for (let i = 0; i < 200 && !check(); i++) {
+      await new Promise((done) => setTimeout(done, 10));
+      await fixture.whenStable();
+    }
+    expect(check()).toBe(true);
+  }
 
   function button(name: string): HTMLButtonElement | undefined {
     return Array.from(shell.querySelectorAll('button')).find((b) => b.textContent?.includes(name));
@@ -74,9 +92,36 @@ describe('App shell', () => {
     auth.signOut.mockReturnValue(of(undefined));
 
     button('Sign out')!.click();
-    await fixture.whenStable();
+    await until(() => navigate.mock.calls.length > 0);
+    expect(sync.sendOutbox).toHaveBeenCalledTimes(1);
     expect(auth.signOut).toHaveBeenCalledTimes(1);
+    expect(sync.removeOperatorData).toHaveBeenCalledWith(approver);
     expect(navigate).toHaveBeenCalledWith(['/sign-in']);
+  });
+
+  it('asks before discarding cards that could not be sent, and keeps everything when the person stays', async () => {
+    user.set(approver);
+    await fixture.whenStable();
+    const navigate = jest.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
+    sync.sendOutbox.mockResolvedValue({ recorded: 0, waiting: 2, refused: 0, problem: 'Not sent yet', failed: true, failureStatus: 0, failureMessage: 'Speedwright cannot reach the server.' });
+    sync.waitingOfOperator.mockResolvedValue(2);
+
+    const sentence = () => document.body.querySelector('[data-testid="discard-sentence"]')?.textContent ?? '';
+    button('Sign out')!.click();
+    await until(() => sentence() !== '');
+    expect(sentence().replace(/\s+/g, ' ')).toContain('2 cards issued on this device have not reached the server, and sending them just now did not work: Speedwright cannot reach the server.');
+    (document.body.querySelector('[data-testid="keep-waiting"]') as HTMLButtonElement).click();
+    await until(() => !button('Sign out')!.disabled);
+    expect(auth.signOut).not.toHaveBeenCalled();
+    expect(sync.removeOperatorData).not.toHaveBeenCalled();
+
+    auth.signOut.mockReturnValue(of(undefined));
+    button('Sign out')!.click();
+    await until(() => document.body.querySelector('[data-testid="discard-and-sign-out"]') !== null);
+    (document.body.querySelector('[data-testid="discard-and-sign-out"]') as HTMLButtonElement).click();
+    await until(() => navigate.mock.calls.length > 0);
+    expect(auth.signOut).toHaveBeenCalledTimes(1);
+    expect(sync.removeOperatorData).toHaveBeenCalledWith(approver);
   });
 
   it('says so when signing out did not reach the server', async () => {
@@ -85,7 +130,8 @@ describe('App shell', () => {
     auth.signOut.mockReturnValue(throwError(() => new ApiRequestError(0, 'network_unreachable', 'Speedwright cannot reach the server.')));
 
     button('Sign out')!.click();
-    await fixture.whenStable();
+    await until(() => document.body.querySelector('mat-snack-bar-container') !== null);
+    expect(sync.removeOperatorData).not.toHaveBeenCalled();
     expect(document.body.querySelector('mat-snack-bar-container')?.textContent).toContain(
       'You are still signed in. Speedwright cannot reach the server.',
     );

@@ -1,5 +1,5 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, Injector, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -7,13 +7,15 @@ import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { NavigationEnd, Router, RouterLink, RouterOutlet } from '@angular/router';
-import { filter, map } from 'rxjs';
+import { filter, firstValueFrom, map } from 'rxjs';
 import { ROLE_LABELS } from '../../shared/auth/roles';
 import { ApiRequestError } from './core/api/api-request-error';
 import { AuthService } from './core/auth/auth-service';
+import type { SyncService } from './core/sync/sync-service';
 import { ThemePreference } from './core/theme/theme-preference';
 import { AppUpdates } from './core/updates/app-updates';
 import { ConnectionIndicator } from './shell/connection-indicator';
+import type { DiscardWaitingData } from './shell/discard-waiting-dialog';
 import { NavigationList } from './shell/navigation-list';
 import { ThemeToggle } from './shell/theme-toggle';
 
@@ -46,6 +48,7 @@ export class App {
   private readonly snackBar = inject(MatSnackBar);
   private readonly destroyRef = inject(DestroyRef);
   private readonly appUpdates = inject(AppUpdates);
+  private readonly injector = inject(Injector);
 
   protected readonly safetyCaution = SAFETY_CAUTION;
   protected readonly user = this.auth.user;
@@ -67,6 +70,9 @@ export class App {
   constructor() {
     inject(ThemePreference);
     this.appUpdates.watch();
+    // Sync starts with the app (at sign-in, page load, coming online, on a timer); its code,
+    // with the device store's, loads just after the first screen.
+    void this.syncService();
     this.closeMenuAfterNavigation();
   }
 
@@ -82,21 +88,43 @@ export class App {
     main.focus();
   }
 
-  protected signOut(): void {
+  /**
+   * Signing out removes the operator's data from this device. Cards still waiting are sent
+   * first; when that fails, the person confirms discarding them (or stays signed in).
+   */
+  protected async signOut(): Promise<void> {
+    const user = this.user();
+    if (!user || this.signingOut()) return;
     this.signingOut.set(true);
-    this.auth
-      .signOut()
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: () => {
-          this.signingOut.set(false);
-          void this.router.navigate(['/sign-in']);
-        },
-        error: (error: ApiRequestError) => {
-          this.signingOut.set(false);
-          this.snackBar.open(`You are still signed in. ${error.message}`, 'Close');
-        },
-      });
+    try {
+      const sync = await this.syncService();
+      const sent = await sync.sendOutbox();
+      const waiting = await sync.waitingOfOperator(user);
+      if (waiting > 0) {
+        const data: DiscardWaitingData = { waiting, reason: sent.failed ? sent.failureMessage : null };
+        // The dialog is loaded when first needed, which keeps it out of the app's first download.
+        const [{ MatDialog }, { DiscardWaitingDialog }] = await Promise.all([import('@angular/material/dialog'), import('./shell/discard-waiting-dialog')]);
+        const dialog = this.injector.get(MatDialog);
+        const discard = await firstValueFrom(dialog.open(DiscardWaitingDialog, { data, width: '520px', maxWidth: '95vw' }).afterClosed());
+        if (discard !== true) return;
+      }
+      try {
+        await firstValueFrom(this.auth.signOut());
+      } catch (error) {
+        this.snackBar.open(`You are still signed in. ${ApiRequestError.from(error).message}`, 'Close');
+        return;
+      }
+      await sync.removeOperatorData(user).catch(() => undefined);
+      this.snackBar.dismiss();
+      void this.router.navigate(['/sign-in']);
+    } finally {
+      this.signingOut.set(false);
+    }
+  }
+
+  private async syncService(): Promise<SyncService> {
+    const { SyncService } = await import('./core/sync/sync-service');
+    return this.injector.get(SyncService);
   }
 
   private closeMenuAfterNavigation(): void {

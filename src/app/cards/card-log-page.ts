@@ -13,6 +13,7 @@ import { can } from '../../../shared/auth/roles';
 import type { CardIssueView } from '../../../shared/card/card-api';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { AuthService } from '../core/auth/auth-service';
+import { RevisionNotices } from '../core/sync/revision-notices';
 import { CardLog, type CardLogFilter } from './card-log';
 import { cardNumber } from './card-number-pipe';
 import { CardSources } from './card-sources';
@@ -24,7 +25,7 @@ const FILTER_PAUSE_MS = 300;
 /** The operator's card log: every card its people issued and reported, filtered, a page at a time. */
 @Component({
   selector: 'sw-card-log-page',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, DeviceCardLog],
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, DeviceCardLog, RevisionNotices],
   templateUrl: './card-log-page.html',
   styleUrl: './card-log-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,26 +1,17 @@
-import { Injectable, inject, signal } from '@angular/core';
+import { Injectable, effect, inject, signal, untracked } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
 import type { SpeedCard } from '../../../shared/card';
-import {
-  MAX_CARD_ISSUES_PER_BATCH,
-  cardIssueBatchResponseSchema,
-  cardIssuePageSchema,
-  type CardIssueEntry,
-  type CardIssueView,
-} from '../../../shared/card/card-api';
+import type { SessionUser } from '../../../shared/api/auth';
+import { cardIssuePageSchema, type CardIssueView } from '../../../shared/card/card-api';
 import { ApiClient } from '../core/api/api-client';
-import { ApiRequestError } from '../core/api/api-request-error';
+import { AuthService } from '../core/auth/auth-service';
 import { DeviceStore, type CardLogRecord } from '../core/storage/device-store';
+import { flushOutbox, type OutboxOutcome } from '../core/sync/device-sync';
+import { SyncService, apiSyncTransport } from '../core/sync/sync-service';
 import { CARD_PATHS } from './card-sources';
 
 /** What became of a send: how many the server recorded, and a sentence when not all. */
-export interface SendOutcome {
-  readonly recorded: number;
-  readonly waiting: number;
-  readonly refused: number;
-  /** Null when every entry sent was recorded. */
-  readonly problem: string | null;
-}
+export type SendOutcome = OutboxOutcome;
 
 export interface CardLogFilter {
   readonly airframeId?: number;
@@ -45,18 +36,31 @@ const newestFirst = (a: CardLogRecord, b: CardLogRecord) => b.issuedAt.localeCom
 export class CardLog {
   private readonly api = inject(ApiClient);
   private readonly store = inject(DeviceStore);
+  private readonly auth = inject(AuthService);
+  private readonly transport = apiSyncTransport(this.api);
   private readonly deviceEntries = signal<readonly CardLogRecord[]>([]);
 
   /** This device's entries, newest first (after `refresh`). */
   readonly entries = this.deviceEntries.asReadonly();
 
-  async refresh(): Promise<void> {
-    const all = await this.store.db.cardLog.toArray();
-    this.deviceEntries.set(all.sort(newestFirst));
+  constructor() {
+    // A sync sends waiting entries too: the list follows every sync.
+    const sync = inject(SyncService);
+    effect(() => {
+      sync.dataVersion();
+      untracked(() => void this.refresh());
+    });
   }
 
-  /** Records `card` as issued by `issuedById` on this device, then reports what waits. */
-  async issue(card: SpeedCard, issuedById: number): Promise<{ entry: CardLogRecord; outcome: SendOutcome }> {
+  /** Re-reads the signed-in person's operator's entries on this device. */
+  async refresh(): Promise<void> {
+    const user = this.auth.user();
+    const all = user ? await this.store.db.cardLog.toArray() : [];
+    this.deviceEntries.set(all.filter((entry) => entry.operatorId === user?.operatorId || (entry.operatorId === undefined && entry.issuedById === user?.id)).sort(newestFirst));
+  }
+
+  /** Records `card` as issued by `user` on this device, then reports what waits (with the rest of a sync's outbox). */
+  async issue(card: SpeedCard, user: SessionUser): Promise<{ entry: CardLogRecord; outcome: SendOutcome }> {
     const entry: CardLogRecord = {
       id: crypto.randomUUID(),
       airframeId: card.airframe.id,
@@ -65,58 +69,28 @@ export class CardLog {
       digest: card.digest,
       issuedAt: new Date().toISOString(),
       sentAt: null,
-      issuedById,
+      issuedById: user.id,
+      operatorId: user.operatorId,
       registration: card.airframe.registration,
       revisionNumber: card.revision.number,
       refusal: null,
     };
     await this.store.db.cardLog.add(entry);
     await this.refresh();
-    const outcome = await this.sendWaiting(issuedById);
+    const outcome = await this.sendWaiting(user);
     const stored = (await this.store.db.cardLog.get(entry.id)) ?? entry;
     return { entry: stored, outcome };
   }
 
   /**
-   * Reports `issuedById`'s unsent entries (the server records the sender as the issuer, so
-   * another person's waiting cards stay until they sign in here). Refused entries are not
-   * sent again as they are.
+   * Reports `user`'s unsent entries (the server records the sender as the issuer, so another
+   * person's waiting cards stay until they sign in here). Refused entries are not sent again
+   * as they are. The work is `flushOutbox` (core/sync/device-sync.ts).
    */
-  async sendWaiting(issuedById: number): Promise<SendOutcome> {
-    const waiting = (await this.store.db.cardLog.toArray())
-      .filter((entry) => entry.sentAt === null && entry.refusal === null && entry.issuedById === issuedById)
-      .sort((a, b) => a.issuedAt.localeCompare(b.issuedAt))
-      .slice(0, MAX_CARD_ISSUES_PER_BATCH);
-    if (waiting.length === 0) return { recorded: 0, waiting: 0, refused: 0, problem: null };
-
-    let answer;
-    try {
-      answer = await firstValueFrom(this.api.post(CARD_PATHS.cardIssues, { entries: waiting.map(reportOf) }, cardIssueBatchResponseSchema));
-    } catch (error) {
-      const reason = ApiRequestError.from(error).message;
-      const cards = waiting.length === 1 ? 'The card is' : `${waiting.length} cards are`;
-      return { recorded: 0, waiting: waiting.length, refused: 0, problem: `Not sent yet: ${reason} ${cards} kept on this device and will be sent with the next card you issue, or with “Send waiting cards”.` };
-    }
-
-    let recorded = 0;
-    const refusals: string[] = [];
-    for (const result of answer.results) {
-      if (result.outcome === 'recorded') {
-        await this.store.db.cardLog.update(result.id, { sentAt: result.receivedAt });
-        recorded += 1;
-      } else {
-        await this.store.db.cardLog.update(result.id, { refusal: result.error.message });
-        refusals.push(result.error.message);
-      }
-    }
+  async sendWaiting(user: SessionUser): Promise<SendOutcome> {
+    const outcome = await flushOutbox(this.store.db, this.transport, { userId: user.id, operatorId: user.operatorId });
     await this.refresh();
-    const stillWaiting = waiting.length - recorded - refusals.length;
-    const problem = refusals.length
-      ? `The server did not record ${refusals.length === 1 ? 'a card' : `${refusals.length} cards`}: ${refusals[0]}`
-      : stillWaiting > 0
-        ? `${stillWaiting} cards are still waiting on this device.`
-        : null;
-    return { recorded, waiting: stillWaiting, refused: refusals.length, problem };
+    return outcome;
   }
 
   /** A page of the operator's card log (`GET /api/card-issues`), newest first. */
@@ -129,16 +103,4 @@ export class CardLog {
     if (cursor) query.set('cursor', cursor);
     return firstValueFrom(this.api.get(`${CARD_PATHS.cardIssues}?${query}`, cardIssuePageSchema));
   }
-}
-
-/** Exactly the fields the server takes (its schema is strict). */
-function reportOf(entry: CardLogRecord): CardIssueEntry {
-  return {
-    id: entry.id,
-    airframeId: entry.airframeId,
-    revisionId: entry.revisionId,
-    inputs: entry.inputs,
-    digest: entry.digest,
-    issuedAt: entry.issuedAt,
-  };
 }

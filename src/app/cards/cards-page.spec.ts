@@ -1,7 +1,7 @@
 import 'fake-indexeddb/auto';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { Component, input, signal } from '@angular/core';
+import { Component, computed, input, signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import type { SessionUser } from '../../../shared/api/auth';
@@ -11,7 +11,9 @@ import { buildCard, type CardInputs, type SpeedCard } from '../../../shared/card
 import { contentSha256 } from '../../../shared/speed-book/canonical';
 import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
 import { AuthService } from '../core/auth/auth-service';
-import { DeviceStore, SpeedwrightDeviceDatabase } from '../core/storage/device-store';
+import { DeviceStore, SpeedwrightDeviceDatabase, type RevisionRecord } from '../core/storage/device-store';
+import { DAY_MS, dataCurrency } from '../core/sync/device-sync';
+import { SyncService, type DeviceSnapshot, type SyncStatus } from '../core/sync/sync-service';
 import { AltitudeChart } from './altitude-chart';
 import { CARD_DEBOUNCE_MS, CardsPage } from './cards-page';
 import { CARD_PATHS } from './card-sources';
@@ -60,6 +62,48 @@ const CONTEXT = {
   speedBook: { id: 4, title: 'Sedgeling 4 speed book' },
   demo: true,
 };
+const SYNCED_AT = '2026-12-01T09:00:00.000Z';
+const NOW = new Date(Date.parse(SYNCED_AT) + 2 * 60 * 60_000);
+const STORED: RevisionRecord = {
+  id: 21,
+  speedBookId: 4,
+  speedBookTitle: 'Sedgeling 4 speed book',
+  aircraftTypeId: 1,
+  number: 1,
+  status: 'published',
+  publishedAt: REVISION.publishedAt!,
+  supersededAt: null,
+  withdrawnAt: null,
+  content: REVISION.content,
+  contentSha256: REVISION.contentSha256!,
+  signature: 'c2lnbmF0dXJl',
+  signingKeyId: 9,
+  operatorId: 1,
+  verifiedAt: SYNCED_AT,
+};
+const snapshotWith = (revisions: RevisionRecord[], lastSyncedAt = SYNCED_AT): DeviceSnapshot => ({
+  operator: { id: 1, name: 'Kestrel Fen Aviation (demo)', isDemo: true, publicKey: 'a2V5', signingKeyId: 9, currencyLimitDays: 30 },
+  state: { operatorId: 1, cursor: 'c1', lastSyncedAt, lastAttemptAt: lastSyncedAt, lastProblem: null, refused: [] },
+  aircraftTypes: [{ ...TYPE, operatorId: 1 }],
+  airframes: [{ ...AIRFRAME, operatorId: 1 }],
+  revisions,
+});
+
+/** The sync service as the page sees it: the device's data, no network. */
+class FakeSync {
+  readonly snapshot = signal<DeviceSnapshot | null>(snapshotWith([STORED]));
+  readonly status = signal<SyncStatus>({ phase: 'succeeded', problem: null, retryAt: null, summary: 'Synced: nothing new.' });
+  readonly notices = signal([]);
+  readonly now = signal(NOW);
+  readonly currency = computed(() => {
+    const snapshot = this.snapshot();
+    return snapshot ? dataCurrency(snapshot.state, snapshot.operator?.currencyLimitDays, this.now()) : null;
+  });
+  reload = jest.fn(async () => undefined);
+  syncNow = jest.fn();
+  readonly dataVersion = signal(0);
+}
+
 const card = (inputs: CardInputs) => buildCard({ id: 21, number: 1, publishedAt: REVISION.publishedAt, contentSha256: REVISION.contentSha256!, content }, inputs, CONTEXT);
 
 jest.setTimeout(30_000);
@@ -71,8 +115,10 @@ describe('CardsPage', () => {
   let backend: HttpTestingController;
   let page: HTMLElement;
   let db: SpeedwrightDeviceDatabase;
+  let sync: FakeSync;
 
   beforeEach(async () => {
+    sync = new FakeSync();
     localStorage.clear();
     db = new SpeedwrightDeviceDatabase(`speedwright-test-${Math.random()}`);
     TestBed.configureTestingModule({
@@ -83,21 +129,14 @@ describe('CardsPage', () => {
         { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
         { provide: AuthService, useValue: { user: signal(PILOT) } },
         { provide: DeviceStore, useValue: { db } },
+        { provide: SyncService, useValue: sync },
       ],
     });
     TestBed.overrideComponent(SpeedCardView, { remove: { imports: [AltitudeChart] }, add: { imports: [ChartPlaceholder] } });
     backend = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(CardsPage);
     page = fixture.nativeElement;
-    await fixture.whenStable();
-    backend.expectOne(CARD_PATHS.airframes).flush({ airframes: [AIRFRAME] });
-    backend.expectOne(CARD_PATHS.aircraftTypes).flush({ aircraftTypes: [TYPE] });
-    backend.expectOne(CARD_PATHS.speedBooks).flush({
-      speedBooks: [{ id: 4, title: 'Sedgeling 4 speed book', aircraftTypeId: 1, currentRevision: REVISION }],
-    });
-    await fixture.whenStable();
-    // The only airframe in service is chosen; its type's current revision is fetched.
-    backend.expectOne(CARD_PATHS.revision(21)).flush({ revision: REVISION });
+    // The only airframe in service is chosen; its type's current revision comes from the device store.
     await settle();
     // And the device card log's first read (IndexedDB, which Angular does not wait for).
     await settle();
@@ -159,6 +198,35 @@ describe('CardsPage', () => {
     );
     expect(page.querySelector('[data-testid="card-demo-mark"]')!.textContent).toContain('invented demo data — not for flight');
     expect(page.textContent).not.toContain('NaN');
+  });
+
+  it('builds from the device store with no request, and says how old the data is', () => {
+    backend.expectNone(() => true);
+    expect(page.querySelector('[data-testid="card-data-as-of"]')!.textContent).toContain('Data as of 2026-12-01 09:00 UTC');
+    expect(page.querySelector('[data-testid="revision-words"]')!.textContent).toContain('Revision 1, published');
+  });
+
+  it('refuses cards when the data is older than the operator’s currency limit, until a sync succeeds', async () => {
+    sync.now.set(new Date(Date.parse(SYNCED_AT) + 31 * DAY_MS));
+    await settle();
+    expect(page.querySelector('[data-testid="speed-card"]')).toBeNull();
+    expect(page.querySelector('[data-testid="issue-card"]')).toBeNull();
+    expect(page.querySelector('[data-testid="currency-refusal"]')!.textContent).toContain(
+      'the data on this device is from 2026-12-01 09:00 UTC, 31 days old, and your operator allows cards from data at most 30 days old',
+    );
+    // A sync succeeds: the data is current again.
+    sync.snapshot.set(snapshotWith([STORED], new Date(Date.parse(SYNCED_AT) + 31 * DAY_MS - 60_000).toISOString()));
+    await settle();
+    expect(page.querySelector('[data-testid="currency-refusal"]')).toBeNull();
+    expect(page.querySelector('[data-testid="speed-card"]')).not.toBeNull();
+  });
+
+  it('follows a sync that supersedes the revision: the card is built from the new one', async () => {
+    const revised: RevisionRecord = { ...STORED, id: 22, number: 2, publishedAt: '2026-12-01T08:00:00.000Z' };
+    sync.snapshot.set(snapshotWith([{ ...STORED, status: 'superseded', supersededAt: revised.publishedAt }, revised]));
+    await settle();
+    expect(page.querySelector('[data-testid="revision-words"]')!.textContent).toContain('Revision 2, published');
+    expect(page.querySelector('[data-testid="card-revision"]')!.textContent).toContain('revision 2');
   });
 
   it('updates the card only after the pause in typing, and the weight-scaled speeds follow √(W/Wref)', async () => {

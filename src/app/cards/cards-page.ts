@@ -1,6 +1,6 @@
 import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { FormControl, NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -11,8 +11,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { EMPTY, Subject, catchError, debounceTime, merge, switchMap, tap } from 'rxjs';
-import type { RevisionSummary, RevisionView } from '../../../shared/api/revisions';
+import { EMPTY, Subject, catchError, debounceTime, distinctUntilChanged, merge, of, switchMap, tap } from 'rxjs';
+import type { RevisionSummary } from '../../../shared/api/revisions';
 import { can } from '../../../shared/auth/roles';
 import { CardRefusedError, buildCard, takeoffConfigurationKeys, type CardInputs, type SpeedCard } from '../../../shared/card';
 import { revisionContentSchema, type RevisionContent } from '../../../shared/speed-book/revision-content';
@@ -30,7 +30,11 @@ import {
 } from './card-form';
 import { CardLog } from './card-log';
 import { CardNumberPipe, cardNumber } from './card-number-pipe';
-import { CardSources, cardContextOf, cardRevisionOf, type AirframeChoice } from './card-sources';
+import { CardSources, airframeChoicesOf, cardContextOf, cardRevisionOf, revisionSourceOf, type AirframeChoice, type CardRevisionSource } from './card-sources';
+import { SyncService } from '../core/sync/sync-service';
+import { utcMinutes } from '../core/sync/device-sync';
+import { SyncStatusPanel } from '../core/sync/sync-status-panel';
+import { RevisionNotices } from '../core/sync/revision-notices';
 import {
   CANONICAL_UNITS,
   UNIT_FIELDS,
@@ -99,6 +103,8 @@ const UNIT_CONTROL: Readonly<Record<UnitField, FormFieldPath>> = {
     CardNumberPipe,
     SpeedCardView,
     DeviceCardLog,
+    SyncStatusPanel,
+    RevisionNotices,
   ],
   templateUrl: './cards-page.html',
   styleUrl: './cards-page.scss',
@@ -106,6 +112,7 @@ const UNIT_CONTROL: Readonly<Record<UnitField, FormFieldPath>> = {
 })
 export class CardsPage {
   private readonly sources = inject(CardSources);
+  private readonly sync = inject(SyncService);
   private readonly cardLog = inject(CardLog);
   private readonly unitPreferences = inject(UnitPreferences);
   private readonly destroyRef = inject(DestroyRef);
@@ -117,13 +124,23 @@ export class CardsPage {
     return user !== null && can(user.role, 'edit-speed-books');
   });
 
-  protected readonly choices = signal<readonly AirframeChoice[]>([]);
-  protected readonly loadingFleet = signal(true);
-  protected readonly fleetProblem = signal<string | null>(null);
+  /** Airframes, types and published revisions from the device store: no network needed. */
+  protected readonly choices = computed<readonly AirframeChoice[]>(() => airframeChoicesOf(this.sync.snapshot()));
+  protected readonly loadingFleet = computed(() => this.sync.snapshot() === null || (this.sync.snapshot()?.state?.lastSyncedAt == null && this.sync.status().phase === 'syncing'));
+  /** Whether the device's data may carry cards (the operator's currency limit), and why not. */
+  protected readonly currency = this.sync.currency;
+  protected readonly currencyRefusal = computed(() => {
+    const currency = this.currency();
+    return currency && !currency.current && !this.loadingFleet() ? currency.refusal : null;
+  });
+  protected readonly dataAsOf = computed(() => {
+    const asOf = this.currency()?.asOf;
+    return asOf ? `Data as of ${utcMinutes(asOf)} (last sync of this device)` : null;
+  });
   protected readonly airframeControl = new FormControl<number | null>({ value: null, disabled: true });
   protected readonly revisionControl = new FormControl<number>(PUBLISHED, { nonNullable: true });
   protected readonly openRevisions = signal<readonly RevisionSummary[]>([]);
-  protected readonly revision = signal<RevisionView | null>(null);
+  protected readonly revision = signal<CardRevisionSource | null>(null);
   protected readonly loadingRevision = signal(false);
   protected readonly revisionProblem = signal<string | null>(null);
 
@@ -222,7 +239,7 @@ export class CardsPage {
 
   constructor() {
     this.loadUnits();
-    this.loadFleet();
+    this.followFleet();
     this.followSelection();
     this.followForm();
     void this.cardLog.refresh();
@@ -274,10 +291,11 @@ export class CardsPage {
   protected async issueCard(): Promise<void> {
     const card = this.card();
     const user = this.user();
-    if (!card || !user || this.isDraft() || this.issuing()) return;
+    if (!card || !user || this.isDraft() || this.issuing() || this.currencyRefusal()) return;
     this.issuing.set(true);
     try {
-      const { entry, outcome } = await this.cardLog.issue(card, user.id);
+      const { entry, outcome } = await this.cardLog.issue(card, user);
+      void this.sync.reload();
       const at = utcDate(entry.issuedAt);
       this.issued.set(
         outcome.problem === null
@@ -296,7 +314,7 @@ export class CardsPage {
     return issued && issued.digest === this.card()?.digest ? issued : null;
   });
 
-  private build(revision: RevisionView, choice: AirframeChoice, inputs: CardInputs): Outcome {
+  private build(revision: CardRevisionSource, choice: AirframeChoice, inputs: CardInputs): Outcome {
     try {
       return { kind: 'card', card: buildCard(cardRevisionOf(revision), inputs, cardContextOf(choice, this.user()?.operatorIsDemo ?? true)) };
     } catch (error) {
@@ -311,24 +329,23 @@ export class CardsPage {
     this.units.set(this.unitPreferences.load(user.id));
   }
 
-  protected loadFleet(): void {
-    this.loadingFleet.set(true);
-    this.fleetProblem.set(null);
-    this.sources
-      .airframeChoices()
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: (choices) => {
-          this.choices.set(choices);
-          this.loadingFleet.set(false);
-          this.airframeControl.enable({ emitEvent: false });
-          if (choices.length === 1) this.airframeControl.setValue(choices[0].airframe.id);
-        },
-        error: (error: ApiRequestError) => {
-          this.fleetProblem.set(error.message);
-          this.loadingFleet.set(false);
-        },
-      });
+  /** The airframe list follows the device store (a sync may bring airframes while the page is open). */
+  private followFleet(): void {
+    effect(() => {
+      const choices = this.choices();
+      if (choices.length === 0) {
+        this.airframeControl.disable({ emitEvent: false });
+        return;
+      }
+      this.airframeControl.enable({ emitEvent: false });
+      const chosen = this.airframeControl.value;
+      if (chosen !== null && !choices.some((choice) => choice.airframe.id === chosen)) this.airframeControl.setValue(null);
+      else if (chosen === null && choices.length === 1) this.airframeControl.setValue(choices[0].airframe.id);
+    });
+  }
+
+  protected syncNow(): void {
+    this.sync.syncNow();
   }
 
   private followSelection(): void {
@@ -343,7 +360,9 @@ export class CardsPage {
         takeUntilDestroyed(this.destroyRef),
       )
       .subscribe();
-    this.revisionControl.valueChanges
+    // A sync that brings a new revision (or supersedes, or withdraws this one) changes the card.
+    const current = toObservable(computed(() => `${this.choice()?.book?.currentRevision?.id ?? 0}:${this.choice()?.book?.currentRevision?.status ?? ''}`));
+    merge(this.revisionControl.valueChanges, current.pipe(distinctUntilChanged()))
       .pipe(
         switchMap(() => this.loadRevision()),
         takeUntilDestroyed(this.destroyRef),
@@ -364,20 +383,20 @@ export class CardsPage {
       return EMPTY;
     }
     if (this.canPreviewDrafts() && this.openRevisions().length === 0) this.loadOpenRevisions(choice.book.id);
-    const revisionId = this.revisionControl.value === PUBLISHED ? choice.book.currentRevision?.id : this.revisionControl.value;
-    if (revisionId === undefined) {
-      this.revision.set(null);
-      this.revisionProblem.set(`${choice.book.title} has no published revision, so no card can be prepared for ${choice.airframe.registration}.`);
-      return EMPTY;
+    if (this.revisionControl.value === PUBLISHED) {
+      const published = choice.book.currentRevision;
+      if (!published) {
+        this.revision.set(null);
+        this.revisionProblem.set(`${choice.book.title} has no published revision on this device, so no card can be prepared for ${choice.airframe.registration}.`);
+        return EMPTY;
+      }
+      return of(revisionSourceOf(published)).pipe(tap((revision) => this.showRevision(revision)));
     }
     this.loadingRevision.set(true);
-    return this.sources.revision(revisionId).pipe(
+    return this.sources.revision(this.revisionControl.value).pipe(
       tap((revision) => {
-        const previous = this.revision();
-        this.revision.set(revision);
         this.loadingRevision.set(false);
-        if (!previous || previous.speedBookId !== revision.speedBookId) this.startForm();
-        else this.recompute.next();
+        this.showRevision(revision);
       }),
       catchError((error: ApiRequestError) => {
         this.revision.set(null);
@@ -386,6 +405,13 @@ export class CardsPage {
         return EMPTY;
       }),
     );
+  }
+
+  private showRevision(revision: CardRevisionSource): void {
+    const previous = this.revision();
+    this.revision.set(revision);
+    if (!previous || previous.speedBookId !== revision.speedBookId) this.startForm();
+    else this.recompute.next();
   }
 
   private loadOpenRevisions(bookId: number): void {

@@ -118,7 +118,7 @@ export class DeviceCardLog {
     const user = this.user();
     if (!user) return;
     this.sending.set(true);
-    const outcome = await this.cardLog.sendWaiting(user.id);
+    const outcome = await this.cardLog.sendWaiting(user);
     this.sendSentence.set(outcome.problem ?? `${outcome.recorded === 1 ? 'The card was' : `${outcome.recorded} cards were`} recorded in the operator's card log.`);
     this.sending.set(false);
   }

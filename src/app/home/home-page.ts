@@ -4,6 +4,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { CAPABILITIES, ROLE_LABELS, ROLE_SUMMARIES, can } from '../../../shared/auth/roles';
 import { AuthService } from '../core/auth/auth-service';
+import { RevisionNotices } from '../core/sync/revision-notices';
+import { SyncStatusPanel } from '../core/sync/sync-status-panel';
 import { NavigationModel } from '../core/navigation/navigation-model';
 import { ThemePreference } from '../core/theme/theme-preference';
 import { CAPABILITY_SENTENCES } from './capability-sentences';
@@ -11,7 +13,7 @@ import { CAPABILITY_SENTENCES } from './capability-sentences';
 /** The signed-in person's own page: who they are, what their role allows, where to go next. */
 @Component({
   selector: 'sw-home-page',
-  imports: [RouterLink, MatButtonModule, MatIconModule],
+  imports: [RouterLink, MatButtonModule, MatIconModule, SyncStatusPanel, RevisionNotices],
   templateUrl: './home-page.html',
   styleUrl: './home-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

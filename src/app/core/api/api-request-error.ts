@@ -67,6 +67,8 @@ function sentenceForStatus(status: number): string {
   if (status === 404) return 'The server does not know this address.';
   if (status === 413) return 'What you sent is too large for the server.';
   if (status === 423) return "This account is locked. Ask your operator's administrator to unlock it.";
+  // What a gateway, or the app's service worker with no network, answers for an API call.
+  if (status === 504) return "Speedwright cannot reach the server. Check the device's connection and try again.";
   if (status === 429) return 'Too many attempts. Wait a few minutes, then try again.';
   if (status >= 500) {
     return 'The server had a problem answering. Try again in a moment; if it keeps happening, tell your administrator.';

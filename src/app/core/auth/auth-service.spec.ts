@@ -1,9 +1,12 @@
+import 'fake-indexeddb/auto';
 import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { SessionUser } from '../../../../shared/api/auth';
 import { API_PATHS, CSRF_HEADER } from '../api/api-paths';
 import { ApiRequestError } from '../api/api-request-error';
+import { DeviceStore, SpeedwrightDeviceDatabase } from '../storage/device-store';
+import { rememberSession } from '../sync/device-sync';
 import { AuthService } from './auth-service';
 import { csrfInterceptor } from './csrf-interceptor';
 
@@ -19,16 +22,33 @@ const engineer: SessionUser = {
 describe('AuthService', () => {
   let auth: AuthService;
   let backend: HttpTestingController;
+  let db: SpeedwrightDeviceDatabase;
 
   beforeEach(() => {
+    db = new SpeedwrightDeviceDatabase(`speedwright-auth-test-${Math.random()}`);
     TestBed.configureTestingModule({
-      providers: [provideHttpClient(withInterceptors([csrfInterceptor])), provideHttpClientTesting()],
+      providers: [provideHttpClient(withInterceptors([csrfInterceptor])), provideHttpClientTesting(), { provide: DeviceStore, useValue: { db } }],
     });
     auth = TestBed.inject(AuthService);
     backend = TestBed.inject(HttpTestingController);
   });
 
-  afterEach(() => backend.verify());
+  afterEach(async () => {
+    backend.verify();
+    db.close();
+    await db.delete();
+  });
+
+  /** The device has this person's operator's data from a completed sync. */
+  async function deviceHoldsDataOf(user: SessionUser): Promise<void> {
+    await rememberSession(db, user);
+    await db.syncState.put({ operatorId: user.operatorId, cursor: 'c1', lastSyncedAt: '2026-12-01T10:00:00.000Z', lastAttemptAt: null, lastProblem: null, refused: [] });
+  }
+
+  const settled = () => new Promise<void>((done) => {
+    const check = () => (auth.state() === 'unknown' ? setTimeout(check, 5) : done());
+    check();
+  });
 
   function signIn(): void {
     auth.signIn({ email: engineer.email, password: 'pw' }).subscribe();
@@ -72,12 +92,53 @@ describe('AuthService', () => {
       expect(auth.probeProblem()?.code).toBe('malformed_response');
     });
 
-    it('remembers why the server could not be asked', () => {
+    it('remembers why the server could not be asked', async () => {
       auth.session().subscribe();
       backend.expectOne(API_PATHS.me).error(new ProgressEvent('error'));
+      await settled();
       expect(auth.state()).toBe('signed-out');
       expect(auth.probeProblem()?.code).toBe('network_unreachable');
       expect(auth.probeProblem()?.message).toContain('cannot reach the server');
+    });
+  });
+
+  describe('offline', () => {
+    it('opens as the cached person when the server cannot be reached and their operator’s data is on the device', async () => {
+      await deviceHoldsDataOf(engineer);
+      let answer: SessionUser | null | undefined;
+      auth.session().subscribe((user) => (answer = user));
+      backend.expectOne(API_PATHS.me).error(new ProgressEvent('error'));
+      await settled();
+      expect(answer).toEqual(engineer);
+      expect(auth.state()).toBe('signed-in');
+      expect(auth.sessionFromCache()).toBe(true);
+      auth.confirmedByServer();
+      expect(auth.sessionFromCache()).toBe(false);
+    });
+
+    it('does not open as the cached person when the server says nobody is signed in, and forgets them', async () => {
+      await deviceHoldsDataOf(engineer);
+      let answer: SessionUser | null | undefined;
+      auth.session().subscribe((user) => (answer = user));
+      backend.expectOne(API_PATHS.me).flush({ error: { code: 'signed_out', message: 'x' } }, { status: 401, statusText: 'Unauthorized' });
+      expect(answer).toBeNull();
+      for (let i = 0; i < 50 && (await db.sessions.count()) > 0; i++) await new Promise((done) => setTimeout(done, 5));
+      expect(await db.sessions.count()).toBe(0);
+    });
+
+    it('does not open offline without the operator’s data on the device', async () => {
+      await rememberSession(db, engineer);
+      auth.session().subscribe();
+      backend.expectOne(API_PATHS.me).error(new ProgressEvent('error'));
+      await settled();
+      expect(auth.user()).toBeNull();
+    });
+
+    it('caches the person the server confirms', async () => {
+      auth.session().subscribe();
+      backend.expectOne(API_PATHS.me).flush({ user: engineer });
+      for (let i = 0; i < 50 && (await db.sessions.count()) === 0; i++) await new Promise((done) => setTimeout(done, 5));
+      expect((await db.sessions.get(engineer.id))?.user).toEqual(engineer);
     });
   });
 

@@ -351,6 +351,22 @@ describe('sync loop back-off', () => {
     });
   });
 
+  it('forgets the failures when the device comes back online', () => {
+    const scheduler = new TestScheduler((actual, expected) => expect(actual).toEqual(expected));
+    scheduler.run(({ cold }) => {
+      const outcomes = ['fail', 'fail', 'fail', 'ok'];
+      const run = () => (outcomes.shift() === 'ok' ? of('done') : throwError(() => new Error('no network')));
+      const seen: string[] = [];
+      // Failures at 0 and 10 ms; "online" at 15 ms resets the count, so the retry after the
+      // failure at 30 ms waits the first delay (10 ms) again, not the third (40 ms).
+      syncLoop(cold('a'), run, { retryDelayMs: (n) => 10 * 2 ** (n - 1), scheduler, resetBackoff: cold('15ms r') }).subscribe((e) =>
+        seen.push(`${scheduler.now()}:${e.kind === 'failed' ? `failed:${e.failures}` : e.kind}`),
+      );
+      scheduler.flush();
+      expect(seen).toEqual(['0:started', '0:failed:1', '10:started', '10:failed:2', '30:started', '30:failed:1', '40:started', '40:succeeded']);
+    });
+  });
+
   it('does not start a second sync while one runs', () => {
     const triggers = new Subject<void>();
     const pending = new Subject<string>();

@@ -68,6 +68,8 @@ export interface OutboxOutcome {
   readonly failed: boolean;
   /** Status of the failed request (0: no answer); null when none failed. */
   readonly failureStatus: number | null;
+  /** The failed request's own sentence (why it failed); null when none failed. */
+  readonly failureMessage: string | null;
 }
 
 export interface ApplyOutcome {
@@ -158,7 +160,7 @@ export async function flushOutbox(db: SpeedwrightDeviceDatabase, transport: Sync
   } else if (stillWaiting > 0) {
     problem = `${stillWaiting} ${cardsWord(stillWaiting)} are still waiting on this device.`;
   }
-  return { recorded, waiting: stillWaiting, refused: refusals.length, problem, failed: failure !== null, failureStatus: failure?.status ?? null };
+  return { recorded, waiting: stillWaiting, refused: refusals.length, problem, failed: failure !== null, failureStatus: failure?.status ?? null, failureMessage: failure?.message ?? null };
 }
 
 /**

@@ -3,7 +3,7 @@
  * a failed sync schedules a retry after an exponentially growing delay, and a success (or any
  * later trigger that succeeds) cancels the pending retry and resets the count.
  */
-import { EMPTY, Observable, Subject, catchError, concat, defer, exhaustMap, from, map, merge, of, switchMap, timer, type ObservableInput, type SchedulerLike, asyncScheduler } from 'rxjs';
+import { EMPTY, Observable, Subject, asyncScheduler, catchError, concat, defer, exhaustMap, from, ignoreElements, map, merge, of, switchMap, tap, timer, type ObservableInput, type SchedulerLike } from 'rxjs';
 import { nextRetryDelayMs } from './device-sync';
 
 export type SyncLoopEvent<T> =
@@ -15,6 +15,8 @@ export interface SyncLoopOptions {
   /** Delay before the n-th retry (default `nextRetryDelayMs`). */
   readonly retryDelayMs?: (failures: number) => number;
   readonly scheduler?: SchedulerLike;
+  /** Each value forgets the failures so far (coming online: the next failure waits the shortest delay again). */
+  readonly resetBackoff?: Observable<unknown>;
 }
 
 /**
@@ -29,7 +31,11 @@ export function syncLoop<T>(triggers: Observable<unknown>, run: () => Observable
     // A number schedules a retry after that many ms; null cancels the pending one.
     const retries = new Subject<number | null>();
     const retryTicks = retries.pipe(switchMap((delay) => (delay === null ? EMPTY : timer(delay, scheduler))));
-    return merge(triggers, retryTicks).pipe(
+    const resets = (options.resetBackoff ?? EMPTY).pipe(
+      tap(() => (failures = 0)),
+      ignoreElements(),
+    );
+    return merge(triggers, retryTicks, resets).pipe(
       exhaustMap(() =>
         concat(
           of<SyncLoopEvent<T>>({ kind: 'started' }),

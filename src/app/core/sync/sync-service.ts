@@ -1,7 +1,7 @@
 import { DOCUMENT } from '@angular/common';
 import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
-import { EMPTY, Subject, distinctUntilChanged, filter, firstValueFrom, fromEvent, interval, map, merge, of, switchMap } from 'rxjs';
+import { EMPTY, Subject, delay, distinctUntilChanged, filter, firstValueFrom, fromEvent, interval, map, merge, of, share, switchMap } from 'rxjs';
 import type { SessionUser } from '../../../../shared/api/auth';
 import { syncResponseSchema } from '../../../../shared/api/sync';
 import { cardIssueBatchResponseSchema } from '../../../../shared/card/card-api';
@@ -27,6 +27,8 @@ import { syncLoop } from './sync-loop';
 
 export const SYNC_PATH = '/api/sync';
 export const CARD_ISSUES_PATH = '/api/card-issues';
+/** How long after the browser's "online" event the sync starts. */
+export const ONLINE_SETTLE_MS = 1500;
 /** A sync every five minutes while signed in (and the page is open). */
 export const SYNC_INTERVAL_MS = 5 * 60_000;
 
@@ -85,10 +87,13 @@ export class SyncService {
   private readonly currentSnapshot = signal<DeviceSnapshot | null>(null);
   private readonly currentNotices = signal<readonly RevisionNotice[]>([]);
   private readonly clock = signal(new Date());
+  private readonly readCount = signal(0);
 
   readonly status = this.currentStatus.asReadonly();
   /** The device's data for the signed-in person's operator; null until read (or signed out). */
   readonly snapshot = this.currentSnapshot.asReadonly();
+  /** Counts each re-read of the device store (after every sync attempt): lists of device data follow it. */
+  readonly dataVersion = this.readCount.asReadonly();
   /** The person's cards that rest on a superseded or withdrawn revision. */
   readonly notices = this.currentNotices.asReadonly();
   /** Whether cards may be built from the device's data now, and why not. */
@@ -115,11 +120,11 @@ export class SyncService {
   /** Sends the signed-in person's waiting cards now, without the rest of a sync. */
   async sendOutbox(): Promise<OutboxOutcome> {
     const user = this.auth.user();
-    if (!user) return { recorded: 0, waiting: 0, refused: 0, problem: null, failed: false, failureStatus: null };
+    if (!user) return { recorded: 0, waiting: 0, refused: 0, problem: null, failed: false, failureStatus: null, failureMessage: null };
     try {
       return await flushOutbox(this.store.db, this.transport, { userId: user.id, operatorId: user.operatorId });
     } catch {
-      return { recorded: 0, waiting: 0, refused: 0, problem: 'This device could not read its card log. Check the browser allows site storage.', failed: true, failureStatus: 0 };
+      return { recorded: 0, waiting: 0, refused: 0, problem: 'This device could not read its card log. Check the browser allows site storage.', failed: true, failureStatus: 0, failureMessage: null };
     } finally {
       await this.read(user);
     }
@@ -150,7 +155,10 @@ export class SyncService {
     interval(60_000)
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe(() => this.clock.set(new Date()));
-    const online = this.window ? fromEvent(this.window, 'online').pipe(map(() => undefined)) : EMPTY;
+    const cameOnline = this.window ? fromEvent(this.window, 'online').pipe(map(() => undefined), share()) : EMPTY;
+    // The browser says "online" a moment before requests get through (the service worker and
+    // the network stack catch up), so the sync waits a little after the event.
+    const online = cameOnline.pipe(delay(ONLINE_SETTLE_MS));
     toObservable(this.auth.user)
       .pipe(
         distinctUntilChanged((a, b) => a?.id === b?.id && a?.operatorId === b?.operatorId),
@@ -158,7 +166,7 @@ export class SyncService {
           void this.read(user);
           if (!user) return EMPTY;
           const triggers = merge(of(undefined), online, interval(SYNC_INTERVAL_MS), this.manual);
-          return syncLoop(triggers, () => this.attempt(user));
+          return syncLoop(triggers, () => this.attempt(user), { resetBackoff: cameOnline });
         }),
         filter(() => this.auth.user() !== null),
         takeUntilDestroyed(this.destroyRef),
@@ -205,6 +213,7 @@ export class SyncService {
       if (this.auth.user()?.id !== user.id) return;
       this.currentSnapshot.set({ operator: operator ?? null, state: state ?? null, aircraftTypes, airframes, revisions });
       this.currentNotices.set(notices);
+      this.readCount.update((n) => n + 1);
     } catch {
       this.currentSnapshot.set({ operator: null, state: null, aircraftTypes: [], airframes: [], revisions: [] });
       this.currentNotices.set([]);

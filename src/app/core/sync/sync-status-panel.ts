@@ -26,6 +26,10 @@ import { SyncService } from './sync-service';
       @if (status().phase === 'syncing') {
         <mat-progress-bar mode="indeterminate" aria-label="Syncing" />
         <p class="fine" role="status" data-testid="sync-phase">Syncing with the server…</p>
+      } @else if (status().phase === 'failed' && !online()) {
+        <p class="fine problem" role="status" data-testid="sync-phase">
+          This device is offline, so it cannot sync now; cards use the data already on it. It syncs again when the connection returns.
+        </p>
       } @else if (status().phase === 'failed') {
         <p class="fine problem" role="status" data-testid="sync-phase">
           Last sync did not complete: {{ status().problem }} {{ retryWords() }}
@@ -89,7 +93,7 @@ import { SyncService } from './sync-service';
 })
 export class SyncStatusPanel {
   private readonly sync = inject(SyncService);
-  private readonly online = inject(ConnectionStatus).online;
+  protected readonly online = inject(ConnectionStatus).online;
 
   readonly compact = input(false);
 
@@ -112,7 +116,6 @@ export class SyncStatusPanel {
   });
 
   protected readonly retryWords = computed(() => {
-    if (!this.online()) return 'This device is offline; it syncs again when the connection returns.';
     const retryAt = this.status().retryAt;
     return retryAt ? `It tries again at ${utcMinutes(retryAt).slice(11)}, or sync now.` : '';
   });
