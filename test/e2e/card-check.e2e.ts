@@ -16,7 +16,7 @@ import type { CardInputs } from '../../shared/card';
 import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
 import { baseUrl, launchBrowser } from './browser';
 import { E2E_PASSWORD } from './constants';
-import { expectText } from './page-helpers';
+import { expectText, signInThroughPage as signIn } from './page-helpers';
 
 let browser: Browser;
 let cameraBrowser: Browser | undefined;
@@ -177,6 +177,35 @@ describe('checking a printed card', () => {
     await page.waitForURL(`**/check/${code}?c=*`, { timeout: 30_000 });
     await expectText(page.getByTestId('check-status-title'), 'Replaced by a newer revision', 20_000);
     expect(await page.evaluate(() => (window as unknown as { liveTracks: () => number }).liveTracks())).toBe(0);
+    await context.close();
+  });
+
+  it('offline, on a pilot’s synced device: re-derives from its data and says what it cannot know', async () => {
+    const context = await browser.newContext({ baseURL: baseUrl(), viewport: { width: 1024, height: 900 } });
+    const page = await context.newPage();
+    await signIn(page, 'pilot@demo.speedwright.example', E2E_PASSWORD, '/home');
+    await page.waitForURL('**/home');
+    // The device has synced (both revisions of the book) and the service worker holds the app.
+    await page.locator('[data-testid="sync-status"][data-phase="succeeded"]').first().waitFor({ timeout: 30_000 });
+    await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
+    if (!(await page.evaluate(() => navigator.serviceWorker.controller !== null))) await page.reload();
+    const deadline = Date.now() + 60_000;
+    let state = '';
+    while (Date.now() < deadline && !/Driver state: NORMAL[\s\S]*Latest manifest hash: [0-9a-f]+/.test(state)) {
+      state = await page.evaluate(() => fetch('/ngsw/state').then((r) => r.text()));
+      await page.waitForTimeout(250);
+    }
+    expect(state).toMatch(/Driver state: NORMAL/);
+
+    await context.setOffline(true);
+    await page.goto(url);
+    await expectText(page.getByTestId('check-status-title'), 'No network: checked against this device’s data', 20_000);
+    await expectText(page.getByTestId('check-offline-knows'), 'shows revision 1');
+    await expectText(page.getByTestId('check-offline-knows'), 'It already holds revision 2');
+    await expectText(page.getByTestId('check-offline-unknown'), 'Whether a newer revision was published, or this one withdrawn, since');
+    await expectText(page.getByTestId('check-figures-result'), 'this device’s copy of revision 1');
+    expect(await page.getByTestId('speed-card').getAttribute('data-digest')).toBe(issuedDigest);
+    await expectText(page.getByTestId('check-caution'), 'The approved flight manual and the operator\'s procedures govern.');
     await context.close();
   });
 
