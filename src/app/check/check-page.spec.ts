@@ -108,6 +108,10 @@ describe('CheckPage', () => {
     await settle();
     expect(text('check-figures-result')).toContain('The figures in this code do not match the card that was issued.');
     expect(page.querySelector('[data-testid="speed-card"]')).toBeNull();
+    // Said before the status of the issued card, which would otherwise read as all clear.
+    const figures = page.querySelector('[data-testid="check-figures"]')!;
+    const status = page.querySelector('[data-testid="check-status"]')!;
+    expect(figures.compareDocumentPosition(status) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
   });
 
   it('names an unknown code and asks nothing more', async () => {

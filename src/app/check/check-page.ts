@@ -1,3 +1,4 @@
+import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -65,7 +66,7 @@ const OFFLINE_STATUS: Record<'published' | 'superseded' | 'withdrawn', string> =
  */
 @Component({
   selector: 'sw-check-page',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SpeedCardView],
+  imports: [NgTemplateOutlet, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SpeedCardView],
   templateUrl: './check-page.html',
   styleUrl: './check-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -116,6 +117,10 @@ export class CheckPage {
   protected readonly figures = computed<FiguresNote | null>(() => {
     const result = this.result();
     return result && (result.kind === 'online' || result.kind === 'offline') ? result.figures : null;
+  });
+  protected readonly figuresDiffer = computed(() => {
+    const figures = this.figures();
+    return figures?.kind === 'checked' && figures.check.outcome === 'differs';
   });
   protected readonly card = computed(() => {
     const figures = this.figures();
