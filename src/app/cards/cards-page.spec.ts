@@ -12,7 +12,7 @@ import { contentSha256 } from '../../../shared/speed-book/canonical';
 import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
 import { AuthService } from '../core/auth/auth-service';
 import { DeviceStore, SpeedwrightDeviceDatabase, type RevisionRecord } from '../core/storage/device-store';
-import { DAY_MS, dataCurrency } from '../core/sync/device-sync';
+import { DAY_MS, dataCurrency, type RevisionNotice } from '../core/sync/device-sync';
 import { SyncService, type DeviceSnapshot, type SyncStatus } from '../core/sync/sync-service';
 import { AltitudeChart } from './altitude-chart';
 import { CARD_DEBOUNCE_MS, CardsPage } from './cards-page';
@@ -93,7 +93,7 @@ const snapshotWith = (revisions: RevisionRecord[], lastSyncedAt = SYNCED_AT): De
 class FakeSync {
   readonly snapshot = signal<DeviceSnapshot | null>(snapshotWith([STORED]));
   readonly status = signal<SyncStatus>({ phase: 'succeeded', problem: null, retryAt: null, summary: 'Synced: nothing new.' });
-  readonly notices = signal([]);
+  readonly notices = signal<RevisionNotice[]>([]);
   readonly now = signal(NOW);
   readonly currency = computed(() => {
     const snapshot = this.snapshot();
@@ -227,6 +227,15 @@ describe('CardsPage', () => {
     await settle();
     expect(page.querySelector('[data-testid="revision-words"]')!.textContent).toContain('Revision 2, published');
     expect(page.querySelector('[data-testid="card-revision"]')!.textContent).toContain('revision 2');
+
+    // A card issued earlier from revision 1 is named in the notices and marked in the device's list.
+    const issued = { id: '00000000-0000-4000-8000-000000000001', airframeId: 7, revisionId: 21, inputs: { weightKg: 1000 }, digest: 'a'.repeat(64), issuedAt: '2026-12-01T07:00:00.000Z', sentAt: '2026-12-01T07:01:00.000Z', issuedById: PILOT.id, operatorId: 1, registration: 'ZZ-KFA', revisionNumber: 1, refusal: null };
+    await db.cardLog.add(issued);
+    sync.notices.set([{ entry: issued, revision: { ...STORED, status: 'superseded' }, status: 'superseded', since: revised.publishedAt, current: revised, sentence: 'Your card for ZZ-KFA rests on revision 1, superseded.' }]);
+    sync.dataVersion.update((n) => n + 1);
+    await until(() => page.querySelector(`[data-testid="device-card-log"] li[data-entry-id="${issued.id}"]`)?.getAttribute('data-revision-status') === 'superseded');
+    expect(page.querySelector(`[data-testid="device-card-log"] li[data-entry-id="${issued.id}"]`)!.textContent).toContain('(now superseded)');
+    expect(page.querySelector('[data-testid="revision-notice"]')!.getAttribute('data-entry-id')).toBe(issued.id);
   });
 
   it('updates the card only after the pause in typing, and the weight-scaled speeds follow √(W/Wref)', async () => {

@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { AuthService } from '../core/auth/auth-service';
+import { SyncService } from '../core/sync/sync-service';
 import type { CardLogRecord } from '../core/storage/device-store';
 import { CardLog } from './card-log';
 import { cardNumber } from './card-number-pipe';
@@ -30,11 +31,13 @@ import { utcDate } from './speed-card-view';
       } @else {
         <ul data-testid="device-card-log">
           @for (entry of entries(); track entry.id) {
-            <li [attr.data-entry-id]="entry.id" [attr.data-state]="stateOf(entry)">
+            <li [attr.data-entry-id]="entry.id" [attr.data-state]="stateOf(entry)" [attr.data-revision-status]="revisionStatus().get(entry.id) ?? 'published'">
               <mat-icon aria-hidden="true">{{ iconOf(entry) }}</mat-icon>
               <div>
                 <p class="what">
-                  <span class="sw-mono">{{ entry.registration }}</span> · revision {{ entry.revisionNumber }} · {{ weightOf(entry) }}
+                  <span class="sw-mono">{{ entry.registration }}</span> · revision {{ entry.revisionNumber }}@if (revisionStatus().get(entry.id); as status) {
+                    <span class="old-data"> (now {{ status }})</span>
+                  } · {{ weightOf(entry) }}
                 </p>
                 <p class="when">Issued {{ when(entry.issuedAt) }} · {{ stateWords(entry) }}</p>
                 <p class="digest sw-mono">{{ entry.digest.slice(0, 16) }}…</p>
@@ -95,12 +98,18 @@ import { utcDate } from './speed-card-view';
     .sentence {
       margin: 8px 0 0;
     }
+    .old-data {
+      color: var(--mat-sys-error);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class DeviceCardLog {
   private readonly cardLog = inject(CardLog);
   private readonly user = inject(AuthService).user;
+  private readonly notices = inject(SyncService).notices;
+  /** Entry id → "superseded" or "withdrawn", for entries whose revision is no longer current. */
+  protected readonly revisionStatus = computed(() => new Map(this.notices().map((notice) => [notice.entry.id, notice.status])));
 
   protected readonly entries = this.cardLog.entries;
   protected readonly sending = signal(false);
