@@ -209,6 +209,20 @@ describe('checking a printed card', () => {
     await context.close();
   });
 
+  it('lists the code in the operator’s card log, linked to its check page', async () => {
+    const context = await browser.newContext({ baseURL: baseUrl(), viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    await signIn(page, 'inspector@demo.speedwright.example', E2E_PASSWORD, '/card-log');
+    await page.waitForURL('**/card-log');
+    const printed = `${code.slice(0, 3)}-${code.slice(3, 6)}-${code.slice(6)}`;
+    const link = page.getByTestId('log-card-code').filter({ hasText: printed });
+    await link.waitFor({ timeout: 20_000 });
+    await link.click();
+    await page.waitForURL(`**/check/${code}`);
+    await expectText(page.getByTestId('check-status-title'), 'Replaced by a newer revision', 20_000);
+    await context.close();
+  });
+
   it('checks a typed code and names a mistyped one', async () => {
     const context = await browser.newContext({ baseURL: baseUrl() });
     const page = await context.newPage();
