@@ -76,6 +76,8 @@ describe('GET /api/verify/:code', () => {
     expect(Object.keys(current.body.revision).sort()).toEqual(['number', 'publishedAt']);
     expect(current.headers['set-cookie']).toBeUndefined();
     expect(current.headers['cache-control']).toBe('no-store');
+    expect(current.headers['x-request-id']).toMatch(/^[0-9a-f-]{36}$/);
+    expect(current.headers['etag']).toBeUndefined();
     expect(verifyResponseSchema.parse(current.body)).toEqual(current.body);
 
     // The printed form (dashes, lower case) asks about the same card.
