@@ -109,6 +109,7 @@ describe('GET /api/verify/:code', () => {
   it('refuses a malformed code with a sentence (400), and says so when the check character does not fit', async () => {
     const short = await verify('K7M-4RT').expect(400);
     expect(short.body.error).toMatchObject({ code: 'invalid_code', message: 'A card code has 9 characters (such as K7M-4RT-X9X); this one has 6.', fields: { code: expect.any(String) } });
+    expect(short.body.error.requestId).toBe(short.headers['x-request-id']);
     const letterO = await verify('K7M-4RT-X9O').expect(400);
     expect(letterO.body.error).toMatchObject({ code: 'invalid_code', message: expect.stringContaining('never contains the letter O') });
     const body = 'K7M4RTX9';

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { Router, type RequestHandler } from 'express';
+import { Router, type ErrorRequestHandler, type RequestHandler } from 'express';
 import type { Logger } from 'pino';
 import { rateLimit } from 'express-rate-limit';
 import type { Sequelize } from 'sequelize';
@@ -52,6 +52,8 @@ export function verifyRoutes({ sequelize, logger, unknownCodesPer15Min }: Verify
   const compactLog: RequestHandler = (req, res, next) => {
     const started = process.hrtime.bigint();
     const id = randomUUID();
+    // As pino-http would: the error middleware puts it in every error answer.
+    req.id = id;
     res.setHeader('x-request-id', id);
     res.once('finish', () => {
       const ms = Number(process.hrtime.bigint() - started) / 1e6;
@@ -74,5 +76,11 @@ export function verifyRoutes({ sequelize, logger, unknownCodesPer15Min }: Verify
     res.locals['cardFound'] = true;
     res.json(source);
   });
+  // pino-http's req.log is not there yet: anything unexpected is logged here, then answered as usual.
+  const logUnexpected: ErrorRequestHandler = (error, req, _res, next) => {
+    if (!(error instanceof HttpError)) logger.error({ err: error, reqId: req.id }, 'card check failed');
+    next(error);
+  };
+  router.use(logUnexpected);
   return router;
 }
