@@ -76,6 +76,8 @@ describe('GET /api/verify/:code', () => {
     expect(Object.keys(current.body.revision).sort()).toEqual(['number', 'publishedAt']);
     expect(current.headers['set-cookie']).toBeUndefined();
     expect(current.headers['cache-control']).toBe('no-store');
+    expect(current.headers['x-request-id']).toMatch(/^[0-9a-f-]{36}$/);
+    expect(current.headers['etag']).toBeUndefined();
     expect(verifyResponseSchema.parse(current.body)).toEqual(current.body);
 
     // The printed form (dashes, lower case) asks about the same card.
@@ -107,6 +109,7 @@ describe('GET /api/verify/:code', () => {
   it('refuses a malformed code with a sentence (400), and says so when the check character does not fit', async () => {
     const short = await verify('K7M-4RT').expect(400);
     expect(short.body.error).toMatchObject({ code: 'invalid_code', message: 'A card code has 9 characters (such as K7M-4RT-X9X); this one has 6.', fields: { code: expect.any(String) } });
+    expect(short.body.error.requestId).toBe(short.headers['x-request-id']);
     const letterO = await verify('K7M-4RT-X9O').expect(400);
     expect(letterO.body.error).toMatchObject({ code: 'invalid_code', message: expect.stringContaining('never contains the letter O') });
     const body = 'K7M4RTX9';

@@ -1,4 +1,6 @@
-import { Router, type RequestHandler } from 'express';
+import { randomUUID } from 'node:crypto';
+import { Router, type ErrorRequestHandler, type RequestHandler } from 'express';
+import type { Logger } from 'pino';
 import { rateLimit } from 'express-rate-limit';
 import type { Sequelize } from 'sequelize';
 import { validateCardCode } from '../../shared/card-check/card-code';
@@ -7,6 +9,8 @@ import { cardSourceOf, verifyCardCode } from './verify.service';
 
 export interface VerifyRoutesOptions {
   sequelize: Sequelize;
+  /** The app's logger: this router sits before pino-http and logs one short line per answer. */
+  logger: Logger;
   /** Unknown or malformed codes one address may ask about in 15 minutes (answers for real codes do not count). */
   unknownCodesPer15Min: number;
 }
@@ -28,7 +32,7 @@ function codeOf(raw: string): string {
  * answers that found no card — what someone guessing codes gets. People checking real cards are
  * never slowed; with several instances the limit applies per instance.
  */
-export function verifyRoutes({ sequelize, unknownCodesPer15Min }: VerifyRoutesOptions): Router {
+export function verifyRoutes({ sequelize, logger, unknownCodesPer15Min }: VerifyRoutesOptions): Router {
   const router = Router();
   const guessLimiter = rateLimit({
     windowMs: 15 * 60_000,
@@ -44,12 +48,27 @@ export function verifyRoutes({ sequelize, unknownCodesPer15Min }: VerifyRoutesOp
     res.setHeader('Cache-Control', 'no-store');
     next();
   };
-  router.use(noStore, guessLimiter);
+  /** One short log line per answer, with a request id as the rest of the API gives (see app.ts). */
+  const compactLog: RequestHandler = (req, res, next) => {
+    const started = process.hrtime.bigint();
+    const id = randomUUID();
+    // As pino-http would: the error middleware puts it in every error answer.
+    req.id = id;
+    res.setHeader('x-request-id', id);
+    res.once('finish', () => {
+      const ms = Number(process.hrtime.bigint() - started) / 1e6;
+      logger.info({ reqId: id, method: req.method, path: req.originalUrl.split('?')[0], status: res.statusCode, responseTime: Math.round(ms * 10) / 10, remoteAddress: req.ip }, 'card check answered');
+    });
+    next();
+  };
+  router.use(compactLog, noStore, guessLimiter);
 
   router.get('/:code', async (req, res) => {
     const answer = await verifyCardCode(sequelize, codeOf(String(req.params['code'])));
     res.locals['cardFound'] = answer.status !== 'unknown';
-    res.json(answer);
+    // Written directly: res.json would hash the body for an ETag, which no-store makes useless.
+    res.status(200).setHeader('Content-Type', 'application/json; charset=utf-8');
+    res.end(JSON.stringify(answer));
   });
   router.get('/:code/source', async (req, res) => {
     const source = await cardSourceOf(sequelize, codeOf(String(req.params['code'])));
@@ -57,5 +76,11 @@ export function verifyRoutes({ sequelize, unknownCodesPer15Min }: VerifyRoutesOp
     res.locals['cardFound'] = true;
     res.json(source);
   });
+  // pino-http's req.log is not there yet: anything unexpected is logged here, then answered as usual.
+  const logUnexpected: ErrorRequestHandler = (error, req, _res, next) => {
+    if (!(error instanceof HttpError)) logger.error({ err: error, reqId: req.id }, 'card check failed');
+    next(error);
+  };
+  router.use(logUnexpected);
   return router;
 }

@@ -158,7 +158,7 @@ describe('checkUrl and parseCheckUrl', () => {
     expect(url).toBe(`https://cards.kestrel-fen.example/check/${code}?c=${encodeCheckPayload(jetPayload)}`);
     expect(parseCheckUrl(url)).toEqual({
       ok: true,
-      value: { origin: 'https://cards.kestrel-fen.example', code, printedCode: `${code.slice(0, 3)}-${code.slice(3, 6)}-${code.slice(6)}`, payload: jetPayload, payloadProblem: null },
+      value: { origin: 'https://cards.kestrel-fen.example', code, printedCode: `${code.slice(0, 3)}-${code.slice(3, 6)}-${code.slice(6)}`, payload: jetPayload, payloadProblem: null, payloadText: encodeCheckPayload(jetPayload) },
     });
   });
 
@@ -177,16 +177,16 @@ describe('checkUrl and parseCheckUrl', () => {
 
   it('reads a path, a percent-encoded payload, a printed code and a bare typed code', () => {
     const payload = encodeCheckPayload(pistonPayload);
-    expect(parseCheckUrl(`/check/${code}?c=${payload}`)).toMatchObject({ ok: true, value: { origin: null, code, payload: pistonPayload } });
+    expect(parseCheckUrl(`/check/${code}?c=${payload}`)).toMatchObject({ ok: true, value: { origin: null, code, payload: pistonPayload, payloadText: payload } });
     expect(parseCheckUrl(`https://a.example/check/${code}?x=1&c=${encodeURIComponent(payload).replace(/\./g, '%2E')}#top`)).toMatchObject({ ok: true, value: { payload: pistonPayload } });
     expect(parseCheckUrl(`https://a.example/check/${code.toLowerCase().slice(0, 3)}-${code.slice(3).toLowerCase()}`)).toMatchObject({ ok: true, value: { code, payload: null, payloadProblem: null } });
-    expect(parseCheckUrl(` ${code.toLowerCase()} `)).toMatchObject({ ok: true, value: { origin: null, code, payload: null } });
+    expect(parseCheckUrl(` ${code.toLowerCase()} `)).toMatchObject({ ok: true, value: { origin: null, code, payload: null, payloadText: null } });
   });
 
   it('keeps the code when the payload is damaged, and says what is wrong', () => {
     expect(parseCheckUrl(`https://a.example/check/${code}?c=1abc`)).toMatchObject({
       ok: true,
-      value: { code, payload: null, payloadProblem: expect.stringContaining('digest is not readable') },
+      value: { code, payload: null, payloadProblem: expect.stringContaining('digest is not readable'), payloadText: '1abc' },
     });
     expect(parseCheckUrl(`https://a.example/check/${code}?c=%E0%A4%A`)).toMatchObject({ ok: true, value: { payloadProblem: expect.stringContaining('characters no card code uses') } });
   });

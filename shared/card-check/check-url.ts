@@ -234,6 +234,8 @@ export interface ParsedCheckUrl {
   readonly payload: CheckPayload | null;
   /** Why the payload could not be read, when it was there but damaged. */
   readonly payloadProblem: string | null;
+  /** The payload as it stood in the URL (percent-decoded), to pass on; null without one. */
+  readonly payloadText: string | null;
 }
 
 const URL_SHAPE = /^(?:(https?:\/\/[^/?#\s]+))?\/check\/([^/?#\s]*)\/?(?:\?([^#\s]*))?(?:#\S*)?$/i;
@@ -252,7 +254,7 @@ export function parseCheckUrl(text: string): Decoded<ParsedCheckUrl> {
     }
     const typed = validateCardCode(trimmed);
     if (!typed.ok) return bad(typed.message);
-    return { ok: true, value: { origin: null, code: typed.code, printedCode: formatCardCode(typed.code), payload: null, payloadProblem: null } };
+    return { ok: true, value: { origin: null, code: typed.code, printedCode: formatCardCode(typed.code), payload: null, payloadProblem: null, payloadText: null } };
   }
   const [, origin, rawCode, query] = match;
   let codeText: string;
@@ -265,6 +267,7 @@ export function parseCheckUrl(text: string): Decoded<ParsedCheckUrl> {
   if (!code.ok) return bad(code.message);
   let payload: CheckPayload | null = null;
   let payloadProblem: string | null = null;
+  let payloadText: string | null = null;
   const raw = (query ?? '')
     .split('&')
     .map((pair) => pair.split('='))
@@ -276,12 +279,13 @@ export function parseCheckUrl(text: string): Decoded<ParsedCheckUrl> {
     } catch {
       text = undefined;
     }
+    payloadText = text ?? raw;
     const decoded = text === undefined ? bad(`${NOT_A_CARD}: it holds characters no card code uses.`) : decodeCheckPayload(text);
     if (decoded.ok) payload = decoded.value;
     else payloadProblem = decoded.message;
   }
   return {
     ok: true,
-    value: { origin: origin ? origin.toLowerCase() : null, code: code.code, printedCode: formatCardCode(code.code), payload, payloadProblem },
+    value: { origin: origin ? origin.toLowerCase() : null, code: code.code, printedCode: formatCardCode(code.code), payload, payloadProblem, payloadText },
   };
 }

@@ -5,3 +5,4 @@
 export * from './card-code';
 export * from './check-url';
 export * from './verify-api';
+export * from './figures-check';

@@ -24,6 +24,17 @@ export const APP_NAVIGATION: readonly NavigationEntry[] = [
     loadComponent: () => import('./cards/cards-page').then((m) => m.CardsPage),
   },
   {
+    path: 'scan',
+    label: 'Check a card',
+    icon: 'qr_code_scanner',
+    capability: null,
+    // Anyone holding a printed card may check it: a ramp agent, an inspector, another crew.
+    public: true,
+    purpose: 'Scan the QR code of a printed speed card, or type its code, to see whether its revision is still in force.',
+    title: 'Check a card · Speedwright',
+    loadComponent: () => import('./check/scan-page').then((m) => m.ScanPage),
+  },
+  {
     path: 'speed-books',
     label: 'Speed books',
     icon: 'menu_book',

@@ -1,6 +1,7 @@
 import { Route, Routes } from '@angular/router';
 import { ACCOUNT_ROUTES } from './account/account.routes';
 import { APP_NAVIGATION } from './app.navigation';
+import { CHECK_ROUTES } from './check/check.routes';
 import { capabilityGuard } from './core/auth/capability-guard';
 import { sessionKnownGuard, signedInGuard, signedOutGuard } from './core/auth/signed-in-guard';
 import { NavigationEntry } from './core/navigation/navigation-entry';
@@ -10,7 +11,7 @@ function routeFor(entry: NavigationEntry): Route {
     path: entry.path,
     title: entry.title,
     loadComponent: entry.loadComponent,
-    canActivate: entry.capability === null ? [signedInGuard] : [signedInGuard, capabilityGuard(entry.capability)],
+    canActivate: entry.public ? [sessionKnownGuard] : entry.capability === null ? [signedInGuard] : [signedInGuard, capabilityGuard(entry.capability)],
   };
 }
 
@@ -23,6 +24,7 @@ export const routes: Routes = [
     loadComponent: () => import('./sign-in/sign-in-page').then((m) => m.SignInPage),
   },
   ...ACCOUNT_ROUTES,
+  ...CHECK_ROUTES,
   ...APP_NAVIGATION.map(routeFor),
   {
     path: 'not-allowed',

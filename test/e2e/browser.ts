@@ -14,8 +14,21 @@ const FLAGS = [
   '--disable-sync',
 ];
 
-export function launchBrowser(extraArgs: string[] = []): Promise<Browser> {
-  return chromium.launch({ executablePath: CHROMIUM_PATH, args: [...FLAGS, ...extraArgs] });
+export interface LaunchOptions {
+  extraArgs?: string[];
+  /**
+   * A Y4M video (YUV4MPEG2) that Chromium plays as the camera, with camera permission granted
+   * without a prompt (Chromium's fake capture device): for scanning tests.
+   */
+  fakeCameraFile?: string;
+}
+
+export function launchBrowser(options: string[] | LaunchOptions = []): Promise<Browser> {
+  const { extraArgs = [], fakeCameraFile } = Array.isArray(options) ? { extraArgs: options } : options;
+  const camera = fakeCameraFile
+    ? ['--use-fake-device-for-media-stream', '--use-fake-ui-for-media-stream', `--use-file-for-fake-video-capture=${fakeCameraFile}`]
+    : [];
+  return chromium.launch({ executablePath: CHROMIUM_PATH, args: [...FLAGS, ...camera, ...extraArgs] });
 }
 
 /** The e2e server's base URL, written by the e2e global setup. */

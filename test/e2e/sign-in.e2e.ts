@@ -6,11 +6,11 @@ import { expectText, signInThroughPage as signIn } from './page-helpers';
 
 /** What each role's side navigation must list, in order (product.md, "Roles"). */
 const EXPECTED_NAVIGATION: Record<Role, string[]> = {
-  pilot: ['Home', 'Speed card', 'Speed books', 'Fleet'],
-  engineer: ['Home', 'Speed card', 'Speed books', 'Drafts', 'Card log', 'Fleet'],
-  approver: ['Home', 'Speed card', 'Speed books', 'Drafts', 'Review', 'Card log', 'Fleet', 'Audit trail'],
-  admin: ['Home', 'Speed books', 'Card log', 'Fleet', 'People', 'Operator settings', 'Audit trail', 'Mailbox'],
-  inspector: ['Home', 'Speed books', 'Card log', 'Fleet', 'Audit trail'],
+  pilot: ['Home', 'Speed card', 'Check a card', 'Speed books', 'Fleet'],
+  engineer: ['Home', 'Speed card', 'Check a card', 'Speed books', 'Drafts', 'Card log', 'Fleet'],
+  approver: ['Home', 'Speed card', 'Check a card', 'Speed books', 'Drafts', 'Review', 'Card log', 'Fleet', 'Audit trail'],
+  admin: ['Home', 'Check a card', 'Speed books', 'Card log', 'Fleet', 'People', 'Operator settings', 'Audit trail', 'Mailbox'],
+  inspector: ['Home', 'Check a card', 'Speed books', 'Card log', 'Fleet', 'Audit trail'],
 };
 
 let browser: Browser;

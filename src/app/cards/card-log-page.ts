@@ -7,9 +7,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
+import { RouterLink } from '@angular/router';
 import { debounceTime } from 'rxjs';
 import type { AirframeView } from '../../../shared/api/fleet';
 import { can } from '../../../shared/auth/roles';
+import { formatCardCode } from '../../../shared/card-check/card-code';
 import type { CardIssueView } from '../../../shared/card/card-api';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { AuthService } from '../core/auth/auth-service';
@@ -25,7 +27,7 @@ const FILTER_PAUSE_MS = 300;
 /** The operator's card log: every card its people issued and reported, filtered, a page at a time. */
 @Component({
   selector: 'sw-card-log-page',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, DeviceCardLog, RevisionNotices],
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, DeviceCardLog, RevisionNotices, RouterLink],
   templateUrl: './card-log-page.html',
   styleUrl: './card-log-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -91,6 +93,9 @@ export class CardLogPage {
     const date = new Date(iso);
     return Number.isNaN(date.getTime()) ? iso : `${date.toISOString().slice(0, 10)} ${date.toISOString().slice(11, 16)}`;
   }
+
+  /** The card code as printed on the card. */
+  protected readonly printedCode = formatCardCode;
 
   protected weightOf(entry: CardIssueView): string {
     const weight = entry.inputs['weightKg'];

@@ -14,6 +14,11 @@ export interface NavigationEntry {
   readonly icon: string;
   /** What the person must be allowed to do; `null` for every signed-in person. */
   readonly capability: Capability | null;
+  /**
+   * Open without signing in too (the page shows nothing of an operator's own data); still
+   * listed in the navigation of every signed-in person. Needs `capability: null`.
+   */
+  readonly public?: boolean;
   /** One sentence on what the page is for, shown on the home page. */
   readonly purpose: string;
   readonly title: string;

@@ -1,0 +1,91 @@
+/**
+ * What the check page finds out about a card code, online or from the device's data: one
+ * function with its dependencies passed in, so the page stays a template and the flow is
+ * tested without a browser.
+ */
+import type { SessionUser } from '../../../shared/api/auth';
+import { parseCheckUrl, type CheckPayload, type ParsedCheckUrl } from '../../../shared/card-check/check-url';
+import { checkFigures, type FiguresCheck } from '../../../shared/card-check/figures-check';
+import type { VerifyResponse, VerifySource } from '../../../shared/card-check/verify-api';
+import { ApiRequestError } from '../core/api/api-request-error';
+import type { OfflineCheck, OfflineCheckReader } from './offline-check-data';
+
+export interface CardCheckDeps {
+  verify(code: string): Promise<VerifyResponse>;
+  source(code: string): Promise<VerifySource>;
+  /** The signed-in person (from the server, or the device's cache offline); null when nobody. */
+  session(): Promise<SessionUser | null>;
+  offline: OfflineCheckReader;
+}
+
+/** What the code carries about the card's figures, besides the code. */
+export type FiguresNote =
+  /** The figures were re-derived and compared. */
+  | { readonly kind: 'checked'; readonly check: FiguresCheck }
+  /** No figures to check, and why (a typed code, a damaged payload, an unknown code, no data offline). */
+  | { readonly kind: 'none'; readonly sentence: string };
+
+export type CardCheckResult =
+  | { readonly kind: 'invalid'; readonly message: string }
+  | { readonly kind: 'online'; readonly code: ParsedCheckUrl; readonly verify: VerifyResponse; readonly figures: FiguresNote }
+  | {
+      readonly kind: 'offline';
+      readonly code: ParsedCheckUrl;
+      /** Why the server was not asked: its sentence. */
+      readonly reason: string;
+      readonly signedIn: boolean;
+      readonly data: OfflineCheck | null;
+      readonly figures: FiguresNote;
+    }
+  | { readonly kind: 'failed'; readonly code: ParsedCheckUrl; readonly message: string };
+
+/** Statuses that mean the server was not reached (no answer, or a gateway that could not reach it). */
+export const unreachable = (error: ApiRequestError) => error.status === 0 || error.status === 502 || error.status === 503 || error.status === 504;
+
+export const UNREACHABLE = 'This device cannot reach the operator’s Speedwright site now, so it cannot ask whether this card is still good.';
+
+const TYPED = 'A typed code carries no figures: scan the QR code on the card to check its figures too.';
+
+function withoutFigures(code: ParsedCheckUrl): FiguresNote | null {
+  if (code.payloadProblem) return { kind: 'none', sentence: code.payloadProblem };
+  if (!code.payload) return { kind: 'none', sentence: TYPED };
+  return null;
+}
+
+/** The whole check of `/check/<code>?c=<payload>`. Never rejects: every failure is a sentence. */
+export async function runCardCheck(deps: CardCheckDeps, rawCode: string, payloadText: string | null): Promise<CardCheckResult> {
+  const parsed = parseCheckUrl(`/check/${encodeURIComponent(rawCode)}${payloadText !== null ? `?c=${encodeURIComponent(payloadText)}` : ''}`);
+  if (!parsed.ok) return { kind: 'invalid', message: parsed.message };
+  const code = parsed.value;
+  try {
+    const verify = await deps.verify(code.code);
+    return { kind: 'online', code, verify, figures: await onlineFigures(deps, code, verify) };
+  } catch (error) {
+    const problem = ApiRequestError.from(error);
+    if (!unreachable(problem)) return { kind: 'failed', code, message: problem.message };
+    return offlineCheck(deps, code, UNREACHABLE);
+  }
+}
+
+async function onlineFigures(deps: CardCheckDeps, code: ParsedCheckUrl, verify: VerifyResponse): Promise<FiguresNote> {
+  const none = withoutFigures(code);
+  if (none) return none;
+  if (verify.status === 'unknown') return { kind: 'none', sentence: 'With no card behind the code, the figures in it cannot be checked.' };
+  try {
+    const source = await deps.source(code.code);
+    return { kind: 'checked', check: checkFigures(code.payload as CheckPayload, { revision: source.revision, context: source.context, issuedDigest: source.digest }) };
+  } catch (error) {
+    return { kind: 'none', sentence: `The figures could not be checked: ${ApiRequestError.from(error).message}` };
+  }
+}
+
+async function offlineCheck(deps: CardCheckDeps, code: ParsedCheckUrl, reason: string): Promise<CardCheckResult> {
+  const user = await deps.session().catch(() => null);
+  const base = { kind: 'offline' as const, code, reason, signedIn: user !== null };
+  const none = withoutFigures(code);
+  if (none || !user || !code.payload) return { ...base, data: null, figures: none ?? { kind: 'none', sentence: 'Without the network, this device can check the figures only for a person signed in here, from their operator’s synced data.' } };
+  const data = await deps.offline.read(user.operatorId, code.payload.revisionId, code.payload.inputs.airframeId);
+  if (!data) return { ...base, data: null, figures: { kind: 'none', sentence: 'This device holds no synced copy of the revision this card was built from, so its figures cannot be checked here.' } };
+  if (!data.source) return { ...base, data, figures: { kind: 'none', sentence: 'This device holds the revision but not the airframe of this card, so its figures cannot be re-derived here.' } };
+  return { ...base, data, figures: { kind: 'checked', check: checkFigures(code.payload, { ...data.source, issuedDigest: null }) } };
+}

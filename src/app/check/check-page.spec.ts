@@ -1,0 +1,174 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
+import { of } from 'rxjs';
+import type { SessionUser } from '../../../shared/api/auth';
+import { encodeCheckPayload } from '../../../shared/card-check/check-url';
+import { generateCardCode } from '../../../shared/card-check/card-code';
+import { buildCard } from '../../../shared/card/build-card';
+import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../../../shared/card/test-fixtures';
+import { AuthService } from '../core/auth/auth-service';
+import { CheckPage } from './check-page';
+import { OfflineCheckData, type OfflineCheck } from './offline-check-data';
+
+/** Invented test data — not for flight (shared/card/test-fixtures.ts). */
+const revision = revisionOf(handPistonContent());
+const card = buildCard(revision, handPistonInputs(), HAND_CONTEXT);
+const payload = encodeCheckPayload({ revisionId: revision.id, inputs: card.inputs, digest: card.digest });
+const code = generateCardCode();
+const source = { digest: card.digest, revision: { ...revision, publishedAt: revision.publishedAt! }, context: HAND_CONTEXT };
+const known = { status: 'current', revision: { number: 3, publishedAt: '2026-11-30T08:00:00.000Z' }, registration: 'ZZ-TST', issuedAt: '2026-12-01T09:30:00.000Z' };
+
+const PILOT: SessionUser = {
+  id: 2,
+  email: 'pilot@demo.speedwright.example',
+  displayName: 'Test pilot',
+  role: 'pilot',
+  operatorId: 1,
+  operatorName: 'Kestrel Fen Aviation (demo)',
+  operatorIsDemo: true,
+};
+
+describe('CheckPage', () => {
+  let fixture: ComponentFixture<CheckPage>;
+  let backend: HttpTestingController;
+  let page: HTMLElement;
+  let user: SessionUser | null;
+  let offlineData: OfflineCheck | null;
+  const read = jest.fn(async () => offlineData);
+
+  beforeEach(() => {
+    user = null;
+    offlineData = null;
+    read.mockClear();
+    TestBed.configureTestingModule({
+      imports: [CheckPage],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: AuthService, useValue: { session: () => of(user), user: () => user } },
+        { provide: OfflineCheckData, useValue: { read } },
+      ],
+    });
+    backend = TestBed.inject(HttpTestingController);
+  });
+  afterEach(() => backend.verify());
+
+  async function settle(): Promise<void> {
+    for (let i = 0; i < 5; i++) await new Promise((done) => setTimeout(done, 0));
+    await fixture.whenStable();
+  }
+
+  async function open(codeText: string, c?: string): Promise<void> {
+    fixture = TestBed.createComponent(CheckPage);
+    fixture.componentRef.setInput('code', codeText);
+    if (c !== undefined) fixture.componentRef.setInput('c', c);
+    page = fixture.nativeElement;
+    await settle();
+  }
+
+  const text = (testId: string) => page.querySelector(`[data-testid="${testId}"]`)?.textContent?.replace(/\s+/g, ' ').trim() ?? null;
+
+  it('shows a current card, its facts, and the figures re-derived with the caution', async () => {
+    await open(code, payload);
+    backend.expectOne(`/api/verify/${code}`).flush(known);
+    await settle();
+    backend.expectOne(`/api/verify/${code}/source`).flush(source);
+    await settle();
+    expect(text('check-status-title')).toBe('Revision in force');
+    expect(text('check-registration')).toBe('ZZ-TST');
+    expect(text('check-revision')).toBe('3, published 30 Nov 2026, 08:00 UTC');
+    expect(text('check-issued')).toBe('1 Dec 2026, 09:30 UTC');
+    expect(page.querySelector('[data-testid="check-figures-result"]')?.getAttribute('data-outcome')).toBe('matches');
+    expect(page.querySelector('[data-testid="speed-card"]')?.getAttribute('data-digest')).toBe(card.digest);
+    expect(text('check-caution')).toContain("The approved flight manual and the operator's procedures govern.");
+    expect(text('card-demo-mark')).toContain('invented demo data — not for flight');
+  });
+
+  it.each([
+    ['superseded', 'Replaced by a newer revision', 'Do not use this card'],
+    ['withdrawn', 'Revision withdrawn', 'may no longer be used'],
+  ])('says %s in words', async (status, title, sentence) => {
+    await open(code);
+    backend.expectOne(`/api/verify/${code}`).flush({ ...known, status });
+    await settle();
+    expect(text('check-status-title')).toBe(title);
+    expect(text('check-status')).toContain(sentence);
+    expect(text('check-figures-result')).toContain('A typed code carries no figures');
+  });
+
+  it('says when the figures do not match, and shows none of them', async () => {
+    const other = buildCard(revision, { ...handPistonInputs(), weightKg: 950 }, HAND_CONTEXT);
+    await open(code, encodeCheckPayload({ revisionId: revision.id, inputs: other.inputs, digest: other.digest }));
+    backend.expectOne(`/api/verify/${code}`).flush(known);
+    await settle();
+    backend.expectOne(`/api/verify/${code}/source`).flush(source);
+    await settle();
+    expect(text('check-figures-result')).toContain('The figures in this code do not match the card that was issued.');
+    expect(page.querySelector('[data-testid="speed-card"]')).toBeNull();
+    // Said before the status of the issued card, which would otherwise read as all clear.
+    const figures = page.querySelector('[data-testid="check-figures"]')!;
+    const status = page.querySelector('[data-testid="check-status"]')!;
+    expect(figures.compareDocumentPosition(status) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+  });
+
+  it('names an unknown code and asks nothing more', async () => {
+    await open(code, payload);
+    backend.expectOne(`/api/verify/${code}`).flush({ status: 'unknown' });
+    await settle();
+    expect(text('check-status-title')).toBe('No card with this code here');
+    expect(text('check-figures-result')).toContain('cannot be checked');
+  });
+
+  it('refuses a mistyped code with its sentence, without asking the server', async () => {
+    const typo = `${code.slice(0, 8)}${code[8] === '2' ? '3' : '2'}`;
+    await open(typo);
+    expect(text('check-invalid')).toContain('does not fit the others');
+  });
+
+  it('offline and signed in: re-derives from the device’s data and says what it cannot know', async () => {
+    user = PILOT;
+    offlineData = {
+      lastSyncedAt: '2026-12-01T07:00:00.000Z',
+      revision: { number: 3, publishedAt: '2026-11-30T08:00:00.000Z', status: 'published' },
+      newer: null,
+      source: { revision, context: HAND_CONTEXT },
+    };
+    await open(code, payload);
+    backend.expectOne(`/api/verify/${code}`).error(new ProgressEvent('error'), { status: 0 });
+    await settle();
+    expect(read).toHaveBeenCalledWith(PILOT.operatorId, revision.id, card.inputs.airframeId);
+    expect(text('check-status-title')).toBe('No network: checked against this device’s data');
+    expect(text('check-offline-knows')).toContain('at its last sync, 1 Dec 2026, 07:00 UTC, shows revision 3 (published 30 Nov 2026, 08:00 UTC) as the revision in force');
+    expect(text('check-offline-unknown')).toContain('Whether a newer revision was published, or this one withdrawn, since 1 Dec 2026, 07:00 UTC.');
+    expect(text('check-figures-result')).toContain('this device’s copy of revision 3');
+    expect(page.querySelector('[data-testid="speed-card"]')?.getAttribute('data-digest')).toBe(card.digest);
+  });
+
+  it('offline with a newer revision on the device: the card is no longer in force', async () => {
+    user = PILOT;
+    offlineData = {
+      lastSyncedAt: '2026-12-01T07:00:00.000Z',
+      revision: { number: 3, publishedAt: '2026-11-30T08:00:00.000Z', status: 'superseded' },
+      newer: { number: 4, publishedAt: '2026-12-01T06:00:00.000Z', status: 'published' },
+      source: { revision, context: HAND_CONTEXT },
+    };
+    await open(code, payload);
+    backend.expectOne(`/api/verify/${code}`).flush(null, { status: 504, statusText: 'Gateway Timeout' });
+    await settle();
+    expect(text('check-offline-knows')).toContain('already replaced by a newer revision');
+    expect(text('check-offline-knows')).toContain('It already holds revision 4');
+  });
+
+  it('offline and signed out: says nothing can be checked here and how to prepare the device', async () => {
+    await open(code, payload);
+    backend.expectOne(`/api/verify/${code}`).error(new ProgressEvent('error'), { status: 0 });
+    await settle();
+    expect(read).not.toHaveBeenCalled();
+    expect(text('check-status-title')).toBe('No network: this card cannot be checked here now');
+    expect(text('check-offline-unknown')).toContain('Whether the revision this card was built from is still in force');
+    expect(page.textContent).toContain('sign in on this device while it has a connection');
+  });
+});
