@@ -1,6 +1,8 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { RouterLink } from '@angular/router';
+import { formatCardCode } from '../../../shared/card-check/card-code';
 import { AuthService } from '../core/auth/auth-service';
 import { SyncService } from '../core/sync/sync-service';
 import type { CardLogRecord } from '../core/storage/device-store';
@@ -11,7 +13,7 @@ import { utcDate } from './speed-card-view';
 /** The cards issued on this device, sent or waiting, newest first. */
 @Component({
   selector: 'sw-device-card-log',
-  imports: [MatButtonModule, MatIconModule],
+  imports: [MatButtonModule, MatIconModule, RouterLink],
   template: `
     <section class="device-log" aria-labelledby="device-log-title">
       <div class="heading">
@@ -40,6 +42,11 @@ import { utcDate } from './speed-card-view';
                   } · {{ weightOf(entry) }}
                 </p>
                 <p class="when">Issued {{ when(entry.issuedAt) }} · {{ stateWords(entry) }}</p>
+                @if (entry.code) {
+                  <p class="code">
+                    Card code <a class="sw-mono" [routerLink]="['/check', entry.code]" data-testid="device-card-code" title="Check this card">{{ printedCode(entry.code) }}</a>
+                  </p>
+                }
                 <p class="digest sw-mono">{{ entry.digest.slice(0, 16) }}…</p>
               </div>
             </li>
@@ -91,6 +98,7 @@ import { utcDate } from './speed-card-view';
       font: var(--mat-sys-title-small);
     }
     .when,
+    .code,
     .digest,
     .empty {
       font: var(--mat-sys-body-medium);
@@ -106,6 +114,7 @@ import { utcDate } from './speed-card-view';
 })
 export class DeviceCardLog {
   private readonly cardLog = inject(CardLog);
+  protected readonly printedCode = formatCardCode;
   private readonly user = inject(AuthService).user;
   private readonly notices = inject(SyncService).notices;
   /** Entry id → "superseded" or "withdrawn", for entries whose revision is no longer current. */

@@ -140,7 +140,7 @@ class FakeServer implements SyncTransport {
       const refusal = this.refuse.get(e.id);
       if (refusal) return { id: e.id, outcome: 'refused', status: 422, error: { code: 'digest_mismatch', message: refusal } };
       if (!this.recorded.has(e.id)) this.recorded.set(e.id, e);
-      return { id: e.id, outcome: 'recorded', status: 201, digest: e.digest, receivedAt: '2026-12-01T12:00:00.000Z' };
+      return { id: e.id, outcome: 'recorded', status: 201, code: `K7M4RTX9${e.id.slice(-1)}`, digest: e.digest, receivedAt: '2026-12-01T12:00:00.000Z' };
     });
     if (this.loseAnswers > 0) {
       this.loseAnswers -= 1;
@@ -278,6 +278,8 @@ describe('runSync and flushOutbox', () => {
     expect(result.outbox).toMatchObject({ recorded: 2, waiting: 0, failed: false });
     expect(await waitingEntries(db, PILOT.id)).toEqual([]);
     expect((await db.cardLog.get(uuid(1)))!.sentAt).toBe('2026-12-01T12:00:00.000Z');
+    // The card code the server drew is kept on the device, for the card list and a reprint.
+    expect((await db.cardLog.get(uuid(1)))!.code).toBe(`K7M4RTX9${uuid(1).slice(-1)}`);
   });
 
   it('resends after a lost answer without doubling, keeps refusals with the server’s sentence, and leaves other people’s entries', async () => {

@@ -142,7 +142,7 @@ export async function flushOutbox(db: SpeedwrightDeviceDatabase, transport: Sync
       for (const result of results) {
         if (!inBatch.has(result.id)) continue;
         if (result.outcome === 'recorded') {
-          await db.cardLog.update(result.id, { sentAt: result.receivedAt, operatorId: who.operatorId });
+          await db.cardLog.update(result.id, { sentAt: result.receivedAt, code: result.code, operatorId: who.operatorId });
           recorded += 1;
         } else {
           await db.cardLog.update(result.id, { refusal: result.error.message, operatorId: who.operatorId });
