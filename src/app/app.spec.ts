@@ -27,6 +27,7 @@ describe('App shell', () => {
     sendOutbox: jest.fn(),
     waitingOfOperator: jest.fn(),
     removeOperatorData: jest.fn(async () => undefined),
+    dataVersion: signal(0),
   };
   let fixture: ComponentFixture<App>;
   let shell: HTMLElement;
@@ -122,6 +123,27 @@ describe('App shell', () => {
     await until(() => navigate.mock.calls.length > 0);
     expect(auth.signOut).toHaveBeenCalledTimes(1);
     expect(sync.removeOperatorData).toHaveBeenCalledWith(approver);
+  });
+
+  it('says when the waiting cards reach the server while it asks, and then signs out discarding nothing', async () => {
+    user.set(approver);
+    await fixture.whenStable();
+    const navigate = jest.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
+    sync.sendOutbox.mockResolvedValue({ recorded: 0, waiting: 1, refused: 0, problem: 'Not sent yet', failed: true, failureStatus: 0, failureMessage: 'Speedwright cannot reach the server.' });
+    sync.waitingOfOperator.mockResolvedValue(1);
+    const sentence = () => (document.body.querySelector('[data-testid="discard-sentence"]')?.textContent ?? '').replace(/\s+/g, ' ');
+    button('Sign out')!.click();
+    await until(() => sentence().includes('1 card issued on this device has not reached the server'));
+
+    // The connection returns and a sync sends the card.
+    sync.waitingOfOperator.mockResolvedValue(0);
+    sync.dataVersion.update((n) => n + 1);
+    await until(() => sentence().includes('reached the operator\'s card log'));
+    expect(document.body.querySelector('[data-testid="discard-and-sign-out"]')).toBeNull();
+    auth.signOut.mockReturnValue(of(undefined));
+    (document.body.querySelector('[data-testid="sign-out-now"]') as HTMLButtonElement).click();
+    await until(() => navigate.mock.calls.length > 0);
+    expect(auth.signOut).toHaveBeenCalledTimes(1);
   });
 
   it('says so when signing out did not reach the server', async () => {

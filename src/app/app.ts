@@ -1,5 +1,5 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { ChangeDetectionStrategy, Component, DestroyRef, Injector, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, Injector, computed, effect, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -102,11 +102,20 @@ export class App {
       const sent = await sync.sendOutbox();
       const waiting = await sync.waitingOfOperator(user);
       if (waiting > 0) {
-        const data: DiscardWaitingData = { waiting, reason: sent.failed ? sent.failureMessage : null };
+        // The count follows every sync while the dialog is open: the connection may come back.
+        const waitingNow = signal(waiting);
+        const follow = effect(
+          () => {
+            sync.dataVersion();
+            void sync.waitingOfOperator(user).then((count) => waitingNow.set(count));
+          },
+          { injector: this.injector },
+        );
+        const data: DiscardWaitingData = { waiting, waitingNow: waitingNow.asReadonly(), reason: sent.failed ? sent.failureMessage : null };
         // The dialog is loaded when first needed, which keeps it out of the app's first download.
         const [{ MatDialog }, { DiscardWaitingDialog }] = await Promise.all([import('@angular/material/dialog'), import('./shell/discard-waiting-dialog')]);
         const dialog = this.injector.get(MatDialog);
-        const discard = await firstValueFrom(dialog.open(DiscardWaitingDialog, { data, width: '520px', maxWidth: '95vw' }).afterClosed());
+        const discard = await firstValueFrom(dialog.open(DiscardWaitingDialog, { data, width: '520px', maxWidth: '95vw' }).afterClosed()).finally(() => follow.destroy());
         if (discard !== true) return;
       }
       try {
