@@ -2,6 +2,7 @@
  * Serves the API and the web app. Needs DATABASE_URL and SESSION_SECRET (README.md lists
  * every variable); `npm start` sets both for the private demo instance.
  */
+import cluster from 'node:cluster';
 import { pino } from 'pino';
 import { createApp } from './app';
 import { loadConfig } from './config';
@@ -33,10 +34,22 @@ export async function serve(env: NodeJS.ProcessEnv = process.env) {
   };
 }
 
-if (require.main === module) {
+/**
+ * WEB_CONCURRENCY: how many server processes share the port (Node's cluster, one per core is
+ * usual); 1, the default, serves from this process alone. Every process is stateless apart
+ * from the public card check's limit on unknown codes, which each keeps for itself.
+ */
+export function webConcurrency(value: string | undefined): number {
+  if (value === undefined || value === '') return 1;
+  const count = Number(value);
+  if (!Number.isInteger(count) || count < 1 || count > 64) throw new Error(`WEB_CONCURRENCY must be a whole number from 1 to 64, not "${value}".`);
+  return count;
+}
+
+function serveHere(): void {
   serve().then(
     ({ port, logger, stop }) => {
-      logger.info(`Speedwright listening on port ${port}`);
+      logger.info(`Speedwright listening on port ${port}${cluster.isWorker ? ` (process ${process.pid})` : ''}`);
       const shutdown = () => stop().then(() => process.exit(0));
       process.once('SIGINT', shutdown);
       process.once('SIGTERM', shutdown);
@@ -46,4 +59,36 @@ if (require.main === module) {
       process.exit(1);
     },
   );
+}
+
+/** Forks the workers, replaces one that dies unasked, and stops them all on SIGINT/SIGTERM. */
+function superviseWorkers(count: number): void {
+  let stopping = false;
+  for (let i = 0; i < count; i++) cluster.fork();
+  cluster.on('exit', (worker, code, signal) => {
+    if (stopping) {
+      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
+      return;
+    }
+    console.error(`Server process ${worker.process.pid} ended (${signal ?? code}); starting another.`);
+    cluster.fork();
+  });
+  const shutdown = () => {
+    stopping = true;
+    for (const worker of Object.values(cluster.workers ?? {})) worker?.process.kill('SIGTERM');
+  };
+  process.once('SIGINT', shutdown);
+  process.once('SIGTERM', shutdown);
+}
+
+if (require.main === module) {
+  let workers: number;
+  try {
+    workers = webConcurrency(process.env['WEB_CONCURRENCY']);
+  } catch (error) {
+    console.error((error as Error).message);
+    process.exit(1);
+  }
+  if (workers > 1 && cluster.isPrimary) superviseWorkers(workers);
+  else serveHere();
 }
