@@ -17,8 +17,7 @@
  */
 import { loadavg } from 'node:os';
 import * as card from '../../shared/card';
-import { contentSha256 } from '../../shared/speed-book/canonical';
-import { demoLightTwinJetContent } from '../../shared/speed-book/demo-content';
+import { BENCH_CARD } from './pdf-bench-card';
 
 // Bound once: tsx's CommonJS output reads each imported name through a getter on every use.
 const { buildCard } = card;
@@ -27,21 +26,8 @@ const TARGET_MS = 0.5;
 const SAMPLES = 2001;
 const ROWS = 25;
 
-/** Invented demo data — not for flight. */
-const content = demoLightTwinJetContent();
-const revision = { id: 1, number: 1, publishedAt: '2026-12-01T08:00:00.000Z', contentSha256: contentSha256(content), content };
-const context = { airframe: { id: 1, registration: 'ZZ-KFJ' }, aircraftType: { designator: 'ZZJ2', name: 'Heronbolt J2' }, speedBook: { id: 1, title: 'Heronbolt J2 speed book' }, demo: true };
-const inputs = {
-  airframeId: 1,
-  weightKg: 4500,
-  landingWeightKg: 4100,
-  configuration: 'takeoff-flap',
-  departure: { elevationFt: 1200, qnhHpa: 1009, oatC: 24, dewPointC: 14 },
-  arrival: { elevationFt: 300, qnhHpa: 1016, oatC: 18 },
-  isaDeviationC: 8,
-  cruise: { mach: 0.68 },
-  altitudeStepFt: 1750,
-};
+/** The demo jet's card that pdf.bench.ts prints too. Invented demo data — not for flight. */
+const { revision, inputs, context } = BENCH_CARD;
 
 const first = buildCard(revision, inputs, context);
 if (first.altitudeTable.length !== ROWS) throw new Error(`The altitude table has ${first.altitudeTable.length} rows, not ${ROWS}.`);
@@ -65,7 +51,7 @@ const p90 = samples[Math.floor(SAMPLES * 0.9)];
 const COLD_SAMPLES = 201;
 const cold: number[] = [];
 for (let i = 0; i < COLD_SAMPLES; i++) {
-  const fresh = { ...revision, content: structuredClone(content) };
+  const fresh = { ...revision, content: structuredClone(revision.content) };
   const start = process.hrtime.bigint();
   const built = buildCard(fresh, inputs, context);
   const end = process.hrtime.bigint();

@@ -1,13 +1,13 @@
 import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { normaliseCardCode } from '../../shared/card-check/card-code';
 import { cardIssuePageSchema } from '../../shared/card/card-api';
 import { readPdf } from '../api/read-pdf';
 import { launchBrowser, newPage } from './browser';
 import { E2E_PASSWORD } from './constants';
-import { expectText, signInThroughPage as signIn } from './page-helpers';
+import { chooseAirframe, expectText, signInThroughPage as signIn } from './page-helpers';
 
 /**
  * A pilot prints a card in Chromium: "Print card" issues the card (it is not issued yet), makes
@@ -23,12 +23,6 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 
-async function chooseAirframe(page: Page, registration: string): Promise<void> {
-  await page.locator('[data-testid="airframe-select"][aria-disabled="false"]').waitFor();
-  await page.getByTestId('airframe-select').click();
-  await page.getByRole('option', { name: new RegExp(registration) }).click();
-  await page.getByTestId('speed-card').waitFor();
-}
 
 describe('printing a card in Chromium', () => {
   it('issues the card, downloads its PDF with the registration, code and caution, and remembers the paper', async () => {

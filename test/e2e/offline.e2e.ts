@@ -4,7 +4,7 @@ import { revisionResponseSchema, speedBookListSchema } from '../../shared/api/re
 import { cardIssuePageSchema } from '../../shared/card/card-api';
 import { baseUrl, launchBrowser } from './browser';
 import { E2E_PASSWORD } from './constants';
-import { expectText, signInThroughPage as signIn } from './page-helpers';
+import { chooseAirframe, expectText, signInThroughPage as signIn } from './page-helpers';
 
 /**
  * Offline on the ramp, in Chromium against the production build with its service worker: a
@@ -81,10 +81,7 @@ describe('offline on the ramp in Chromium', () => {
     // A card from the device store, issued while offline: it waits on the device.
     await page.getByRole('link', { name: /Speed card/ }).first().click();
     await page.waitForURL('**/cards');
-    await page.locator('[data-testid="airframe-select"][aria-disabled="false"]').waitFor();
-    await page.getByTestId('airframe-select').click();
-    await page.getByRole('option', { name: new RegExp(REGISTRATION) }).click();
-    await page.getByTestId('speed-card').waitFor();
+    await chooseAirframe(page, REGISTRATION);
     await expectText(page.getByTestId('card-data-as-of'), 'Data as of');
     await expectText(page.getByTestId('card-caution'), "Planning aid. The approved flight manual and the operator's procedures govern.");
     const digest = (await page.getByTestId('speed-card').getAttribute('data-digest'))!;

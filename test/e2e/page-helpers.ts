@@ -20,3 +20,11 @@ export async function expectText(locator: Locator, text: string, timeoutMs = 10_
   }
   expect(seen).toContain(text);
 }
+
+/** On the card page: chooses the airframe once the choice is enabled (airframes read), and waits for its card. */
+export async function chooseAirframe(page: Page, registration: string): Promise<void> {
+  await page.locator('[data-testid="airframe-select"][aria-disabled="false"]').waitFor();
+  await page.getByTestId('airframe-select').click();
+  await page.getByRole('option', { name: new RegExp(registration) }).click();
+  await page.getByTestId('speed-card').waitFor();
+}

@@ -7,7 +7,7 @@ import { cardIssueBatchSchema, cardIssuePageSchema } from '../../shared/card/car
 import { revisionContentSchema } from '../../shared/speed-book/revision-content';
 import { launchBrowser, newPage } from './browser';
 import { E2E_PASSWORD } from './constants';
-import { expectText, signInThroughPage as signIn } from './page-helpers';
+import { chooseAirframe, expectText, signInThroughPage as signIn } from './page-helpers';
 
 /**
  * A pilot builds a speed card in Chromium for the demo trainer ZZ-KFA: the card is computed in
@@ -24,13 +24,6 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 
-async function chooseAirframe(page: Page, registration: string): Promise<void> {
-  // Enabled once the airframes have arrived.
-  await page.locator('[data-testid="airframe-select"][aria-disabled="false"]').waitFor();
-  await page.getByTestId('airframe-select').click();
-  await page.getByRole('option', { name: new RegExp(registration) }).click();
-  await page.getByTestId('speed-card').waitFor();
-}
 
 /** Types a weight and waits for the card (or the refusal) that follows it. */
 async function typeWeight(page: Page, kg: number): Promise<void> {
