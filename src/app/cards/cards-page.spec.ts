@@ -1,3 +1,4 @@
+import { decodeCheckPayload } from '../../../shared/card-check/check-url';
 import { provideRouter } from '@angular/router';
 import 'fake-indexeddb/auto';
 import { provideHttpClient } from '@angular/common/http';
@@ -306,6 +307,14 @@ describe('CardsPage', () => {
     expect(stored).toHaveLength(1);
     expect(stored[0]).toMatchObject({ digest: shown, sentAt: '2026-12-01T10:00:00.000Z', issuedById: PILOT.id, refusal: null });
     await until(() => page.querySelector('[data-testid="device-card-log"] li')?.getAttribute('data-state') === 'sent');
+    // The device's list links the card code to its check page with the figures, as the QR code does.
+    expect(stored[0].code).toBe('K7M4RTX9X');
+    await until(() => page.querySelector('[data-testid="device-card-code"]') !== null);
+    const link = page.querySelector<HTMLAnchorElement>('[data-testid="device-card-code"]')!;
+    expect(link.textContent).toContain('K7M-4RT-X9X');
+    const [path, query] = link.getAttribute('href')!.split('?');
+    expect(path).toBe('/check/K7M4RTX9X');
+    expect(decodeCheckPayload(new URLSearchParams(query).get('c')!)).toMatchObject({ ok: true, value: { revisionId: 21, digest: shown } });
   });
 
   it('keeps an issued card unsent on the device when the server cannot be reached, and says so', async () => {

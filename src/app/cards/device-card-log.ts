@@ -3,6 +3,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { formatCardCode } from '../../../shared/card-check/card-code';
+import { encodeCheckPayload } from '../../../shared/card-check/check-url';
+import type { CardInputs } from '../../../shared/card/card';
 import { AuthService } from '../core/auth/auth-service';
 import { SyncService } from '../core/sync/sync-service';
 import type { CardLogRecord } from '../core/storage/device-store';
@@ -44,7 +46,10 @@ import { utcDate } from './speed-card-view';
                 <p class="when">Issued {{ when(entry.issuedAt) }} · {{ stateWords(entry) }}</p>
                 @if (entry.code) {
                   <p class="code">
-                    Card code <a class="sw-mono" [routerLink]="['/check', entry.code]" data-testid="device-card-code" title="Check this card">{{ printedCode(entry.code) }}</a>
+                    Card code
+                    <a class="sw-mono" [routerLink]="['/check', entry.code]" [queryParams]="{ c: payloadOf(entry) }" data-testid="device-card-code" title="Check this card and its figures">{{
+                      printedCode(entry.code)
+                    }}</a>
                   </p>
                 }
                 <p class="digest sw-mono">{{ entry.digest.slice(0, 16) }}…</p>
@@ -115,6 +120,15 @@ import { utcDate } from './speed-card-view';
 export class DeviceCardLog {
   private readonly cardLog = inject(CardLog);
   protected readonly printedCode = formatCardCode;
+
+  /** The figures part of the card's check URL, as its QR code carries it (none if the entry cannot give one). */
+  protected payloadOf(entry: CardLogRecord): string | null {
+    try {
+      return encodeCheckPayload({ revisionId: entry.revisionId, inputs: entry.inputs as unknown as CardInputs, digest: entry.digest });
+    } catch {
+      return null;
+    }
+  }
   private readonly user = inject(AuthService).user;
   private readonly notices = inject(SyncService).notices;
   /** Entry id → "superseded" or "withdrawn", for entries whose revision is no longer current. */
