@@ -1,8 +1,9 @@
 /**
  * `npm test`: every test. Installs what the tests need from Debian when it is missing
  * (mariadb-server, chromium), starts the private test MariaDB instance, builds the web app
- * for production, then runs all jest projects in one run: the shared library, the client,
- * the API against real MariaDB, and end-to-end in Chromium. `--e2e-only` runs the last alone.
+ * for production, then runs the jest projects in two phases: the shared library, the client
+ * and the API against real MariaDB together, then end-to-end in Chromium alone.
+ * `--e2e-only` runs the last alone; other arguments go to one jest run as given.
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
@@ -36,8 +37,16 @@ async function main(): Promise<number> {
     console.log('\u203a Building the web app (production) for the end-to-end tests');
     if (run([join(projectRoot, 'node_modules/@angular/cli/bin/ng.js'), 'build']) !== 0) return 1;
     const jest = [join(projectRoot, 'node_modules/jest/bin/jest.js'), '--ci'];
-    if (e2eOnly) jest.push('--selectProjects', 'e2e');
-    return run([...jest, ...process.argv.slice(2).filter((arg) => arg !== '--e2e-only')]);
+    const extra = process.argv.slice(2).filter((arg) => arg !== '--e2e-only');
+    if (e2eOnly) return run([...jest, '--selectProjects', 'e2e', ...extra]);
+    if (extra.length > 0) return run([...jest, ...extra]);
+    // Unit and API tests first, then the end-to-end tests on their own: beside argon2 and
+    // MariaDB work of the API tests, a browser on a 2-core machine waits long past any sensible
+    // timeout. Both phases run, so one report shows every failure.
+    const unitAndApi = run([...jest, '--selectProjects', 'shared', 'server', 'client']);
+    console.log('\u203a End-to-end tests in Chromium');
+    const e2e = run([...jest, '--selectProjects', 'e2e']);
+    return unitAndApi !== 0 ? unitAndApi : e2e;
   } finally {
     if (instance.startedHere) await stopLocalInstance('test');
   }
