@@ -18,7 +18,7 @@ export function aircraftTypeView(type: AircraftType): AircraftTypeView {
   };
 }
 
-function airframeView(airframe: Airframe): AirframeView {
+export function airframeView(airframe: Airframe): AirframeView {
   return {
     id: airframe.id,
     registration: airframe.registration,

@@ -1,7 +1,7 @@
 import { Op, QueryTypes } from 'sequelize';
 import type { SyncResponse, SyncRevision } from '../../shared/api/sync';
 import type { Actor } from '../audit/actor';
-import { aircraftTypeView } from '../fleet/fleet.service';
+import { aircraftTypeView, airframeView } from '../fleet/fleet.service';
 import { AircraftType, Airframe, Operator, Revision, SpeedBook } from '../models';
 import { publicSigningKey } from '../revisions/signing';
 import { decodeCursor, encodeCursor } from './sync-cursor';
@@ -53,15 +53,7 @@ export async function syncSince(actor: Actor, cursor: string | undefined, signin
     cursor: encodeCursor(high),
     operator: { id: operator.id, name: operator.name, isDemo: operator.isDemo, publicKey: key.publicKey, signingKeyId: key.id, currencyLimitDays: operator.currencyLimitDays },
     aircraftTypes: aircraftTypes.map(aircraftTypeView),
-    airframes: airframes.map((airframe) => ({
-      id: airframe.id,
-      registration: airframe.registration,
-      serial: airframe.serial,
-      aircraftTypeId: airframe.aircraftTypeId,
-      active: airframe.active,
-      createdAt: airframe.createdAt.toISOString(),
-      updatedAt: airframe.updatedAt.toISOString(),
-    })),
+    airframes: airframes.map(airframeView),
     revisions: revisions.map((revision) => syncRevisionView(revision, bookById.get(revision.speedBookId)!)),
   };
 }
