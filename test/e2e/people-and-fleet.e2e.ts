@@ -120,7 +120,8 @@ describe('people and fleet in Chromium', () => {
 
     await dialog.getByLabel('Registration').fill(registration.toLowerCase());
     await dialog.getByRole('button', { name: 'Add airframe' }).click();
-    await expectText(admin.locator('simple-snack-bar'), `${registration} is now in your fleet.`);
+    // As for the invitation: the answer can take longer than the helper's 10 s on a busy machine.
+    await expectText(admin.locator('simple-snack-bar'), `${registration} is now in your fleet.`, 30_000);
     // The first dialog must be gone (its closing animation too) before the next one is filled.
     await dialog.waitFor({ state: 'detached' });
     await admin.getByLabel('Filter airframes').fill(registration);
