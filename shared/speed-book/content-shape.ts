@@ -29,11 +29,22 @@ const text = (what: string, max: number) =>
 export const AIRCRAFT_CATEGORIES = ['piston-single', 'piston-twin', 'turboprop', 'jet'] as const;
 export const SPEED_PHASES = ['takeoff', 'climb', 'cruise', 'approach', 'landing', 'any'] as const;
 export const SPEED_BASES = ['ias', 'cas'] as const;
+/**
+ * What a speed is, whatever the flight manual spells it: its rounding on the card and the
+ * ordering rules follow this, never the code's spelling. Stall and minimum speeds (VMC, V2,
+ * VREF) round up, limits (VA, VNO, VNE, VFE, VLE, VLO, VMO) down, the others to the nearest knot.
+ */
+export const SPEED_CLASSES = ['stall', 'minimum', 'takeoff', 'climb', 'approach', 'limit', 'other'] as const;
+/** Units a flight manual may state its figures in; the content always stores kg and kt. */
+export const STATED_WEIGHT_UNITS = ['kg', 'lb'] as const;
+export const STATED_SPEED_UNITS = ['kt', 'mph', 'kmh'] as const;
 
 export const aircraftSchema = z.strictObject({
   category: z.enum(AIRCRAFT_CATEGORIES, { error: 'Choose piston-single, piston-twin, turboprop or jet.' }),
   engines: num('The number of engines').int('The number of engines must be a whole number.').min(1, 'An aircraft has at least one engine.').max(8, 'At most 8 engines.'),
   ceilingFt: num('The ceiling').int('The ceiling must be whole feet.').min(1000, 'The ceiling must be at least 1,000 ft.').max(60_000, 'The ceiling must be at most 60,000 ft.'),
+  /** Recovery factor K of the total-air-temperature probe (SAT = TAT / (1 + 0.2·K·M²)); 1.0 when absent. */
+  tatRecoveryFactor: num('The TAT probe recovery factor').min(0.5, 'The TAT probe recovery factor must be at least 0.5.').max(1, 'The TAT probe recovery factor must be at most 1.').optional(),
 });
 
 export const weightsSchema = z.strictObject({
@@ -77,6 +88,8 @@ const speedBase = {
   phase: z.enum(SPEED_PHASES, { error: 'Choose takeoff, climb, cruise, approach, landing or any.' }),
   configurationKey: configurationKeySchema,
   basis: z.enum(SPEED_BASES, { error: 'Choose ias or cas.' }),
+  /** Absent in content written before speeds declared their class: then read from the code. */
+  speedClass: z.enum(SPEED_CLASSES, { error: 'Choose stall, minimum, takeoff, climb, approach, limit or other.' }).optional(),
 };
 
 const tableKt = knots('A tabulated speed');
@@ -130,6 +143,38 @@ export const limitsSchema = z.strictObject({
   vyseKt: knots('VYSE').optional(),
 });
 
+const rangeOf = (what: string, min: number, max: number, unit: string) => {
+  const bound = (which: string) =>
+    num(`The ${which} ${what}`).min(min, `The ${which} ${what} must be at least ${min} ${unit}.`).max(max, `The ${which} ${what} must be at most ${max} ${unit}.`);
+  return z
+    .strictObject({ min: bound('lowest'), max: bound('highest') })
+    .refine((range) => range.min < range.max, { message: `The lowest ${what} must be below the highest.`, path: ['max'] });
+};
+
+const phaseEnvelopeSchema = z.strictObject({
+  pressureAltitudeFt: rangeOf('pressure altitude', -5000, 60_000, 'ft'),
+  oatC: rangeOf('temperature', -100, 70, '°C'),
+});
+
+/**
+ * The pressure-altitude and OAT ranges the book declares it covers, for takeoff and for landing
+ * (weights come from `weights`). Every table must cover it; outside it the card is refused with
+ * one sentence. Optional only so that content written before envelopes still reads.
+ */
+export const envelopeSchema = z.strictObject({ takeoff: phaseEnvelopeSchema, landing: phaseEnvelopeSchema });
+
+/** The flight manual's reason why the book departs from one ordering rule; the approver sees it. */
+export const ruleExceptionSchema = z.strictObject({
+  ruleId: z.string({ error: 'Give the rule’s id.' }).regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'A rule id is lower-case letters and digits joined by hyphens.').max(40, 'A rule id must be at most 40 characters.'),
+  reason: text('the flight manual’s reason', 1000),
+});
+
+/** The units the flight manual prints; shown in review and the diff, never used to store. */
+export const statedUnitsSchema = z.strictObject({
+  weight: z.enum(STATED_WEIGHT_UNITS, { error: 'Choose kg or lb.' }),
+  speed: z.enum(STATED_SPEED_UNITS, { error: 'Choose kt, mph or kmh.' }),
+});
+
 export const revisionContentShape = z.strictObject({
   schemaVersion: z.literal(1, { error: 'This is revision content of schema version 1.' }),
   aircraft: aircraftSchema,
@@ -142,4 +187,9 @@ export const revisionContentShape = z.strictObject({
   limits: limitsSchema,
   indicatorMarkingBasis: z.enum(SPEED_BASES, { error: 'Choose ias or cas.' }),
   notes: z.string({ error: 'Notes must be text.' }).max(4000, 'Notes must be at most 4,000 characters.'),
+  envelope: envelopeSchema.optional(),
+  /** True when the book's stall speeds are reference stall speeds (VSR, CS-25 / Part 25 style). */
+  statesReferenceStallSpeeds: z.boolean({ error: 'Say yes or no.' }).optional(),
+  ruleExceptions: z.array(ruleExceptionSchema, { error: 'Give the exceptions as a list.' }).max(20, 'At most 20 rule exceptions.').optional(),
+  statedUnits: statedUnitsSchema.optional(),
 });
