@@ -1,7 +1,8 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
+import { CANONICAL_UNITS, type StatedUnits } from '../../../shared/speed-book/stated-units';
 import type { RevisionDiff } from '../speed-books/revisions-api';
-import { changeLocation, changeValue } from './change-location';
+import { changeLocation, changeValueIn } from './change-location';
 
 const KIND_WORDS = { added: 'Added', removed: 'Removed', changed: 'Changed' } as const;
 
@@ -120,15 +121,17 @@ export class DiffTable {
   readonly diff = input.required<RevisionDiff>();
   readonly revisionNumber = input.required<number>();
   readonly againstNumber = input.required<number>();
+  /** The flight manual's units of the revision under review: both columns show figures in them, stored kt and kg beside. */
+  readonly units = input<StatedUnits>(CANONICAL_UNITS);
 
   protected readonly rows = computed(() =>
     this.diff().changes.map((change) => ({
       path: change.path,
       kind: change.kind,
       kindWord: KIND_WORDS[change.kind],
-      location: changeLocation(change.path),
-      before: changeValue(change.before),
-      after: changeValue(change.after),
+      location: changeLocation(change.path, this.units()),
+      before: changeValueIn(change.path, change.before, this.units()),
+      after: changeValueIn(change.path, change.after, this.units()),
     })),
   );
 }

@@ -3,6 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatIconModule } from '@angular/material/icon';
 import { revisionContentShape } from '../../../shared/speed-book/content-shape';
 import type { RevisionContent, Speed } from '../../../shared/speed-book/revision-content';
+import { UNIT_SYMBOLS, isCanonical, statedUnitsOf } from '../../../shared/speed-book/stated-units';
 import { gridPages } from './tabulated-grid';
 
 const CATEGORY_LABELS: Record<RevisionContent['aircraft']['category'], string> = {
@@ -41,6 +42,12 @@ export class RevisionContentView {
   protected readonly view = computed(() => {
     const result = this.parsed();
     return result.success ? result.data : null;
+  });
+  /** When the flight manual prints other units than the stored kg and kt, a sentence saying so. */
+  protected readonly storedUnitsNote = computed(() => {
+    const units = statedUnitsOf(this.content());
+    if (isCanonical('weight', units) && isCanonical('speed', units)) return null;
+    return `The flight manual prints weights in ${UNIT_SYMBOLS[units.weight]} and speeds in ${UNIT_SYMBOLS[units.speed]}; the figures below are as stored, in kg and kt.`;
   });
   protected readonly categoryLabel = computed(() => {
     const view = this.view();
