@@ -1,6 +1,6 @@
 import { Directive, ElementRef, Renderer2, computed, effect, forwardRef, inject, input, untracked } from '@angular/core';
 import { NG_VALUE_ACCESSOR, type ControlValueAccessor } from '@angular/forms';
-import { CANONICAL_UNITS, fromCanonical, toCanonical, type StatedQuantity } from '../../../shared/speed-book/stated-units';
+import { CANONICAL_UNITS, STATED_DECIMALS, fromCanonical, roundTo, toCanonical, type StatedQuantity } from '../../../shared/speed-book/stated-units';
 import { StatedUnitsContext } from './stated-units-context';
 
 /**
@@ -66,7 +66,8 @@ export class StatedUnitInput implements ControlValueAccessor {
   }
 
   private show(): void {
-    const text = this.stored === null ? '' : String(fromCanonical(this.stored, this.quantity(), this.units()));
+    // Rounded for showing only (kt too, after a switch from mph); the control keeps the stored figure.
+    const text = this.stored === null ? '' : String(roundTo(fromCanonical(this.stored, this.quantity(), this.units()), STATED_DECIMALS));
     if (this.element.value !== text) this.renderer.setProperty(this.element, 'value', text);
   }
 }
