@@ -8,7 +8,7 @@ import { UNIT_SYMBOLS, type StatedSpeedUnit, type StatedWeightUnit } from '../..
 export type StatedUnitsGroup = FormGroup<{ weight: FormControl<StatedWeightUnit>; speed: FormControl<StatedSpeedUnit> }>;
 
 const WEIGHT_WORDS: Record<StatedWeightUnit, string> = { kg: 'kilograms (kg)', lb: 'pounds (lb)' };
-const SPEED_WORDS: Record<StatedSpeedUnit, string> = { kt: 'knots (kt)', mph: 'statute miles per hour (mph)', kmh: 'kilometres per hour (km/h)' };
+const SPEED_WORDS: Record<StatedSpeedUnit, string> = { kt: 'knots (kt)', mph: 'miles per hour (mph)', kmh: 'kilometres per hour (km/h)' };
 
 /**
  * The units the flight manual prints, chosen per revision. Every weight and speed of the form is
@@ -48,6 +48,10 @@ const SPEED_WORDS: Record<StatedSpeedUnit, string> = { kt: 'knots (kt)', mph: 's
       display: flex;
       flex-wrap: wrap;
       gap: 12px;
+    }
+    mat-form-field {
+      width: 18rem;
+      max-width: 100%;
     }
     .muted {
       margin: 4px 0 0;
