@@ -112,7 +112,11 @@ describe('RevisionReview', () => {
       ['Limits › VNE (mph)', 'Changed', '184 mph (159.9 kt)', '182 mph (158.2 kt)'],
       ['Units of the flight manual', 'Added', 'kg, kt (none named)', 'lb, mph'],
     ]);
-    expect(page.querySelector('[data-testid="stored-units-note"]')?.textContent).toContain('The flight manual prints weights in lb and speeds in mph');
+    // The whole content too, in the manual's units: VNE 160 kt = 184.1247 mph, MTOW 1 100 kg = 2 425.0849 lb.
+    expect(page.querySelector('[data-testid="stored-units-note"]')?.textContent).toContain('Weights in lb and speeds in mph, as the flight manual prints them; the book stores kg and kt.');
+    const limitsView = page.querySelector('[data-testid="limits-view"]')!.textContent!.replace(/\s+/g, ' ');
+    expect(limitsView).toContain('VNE (mph)184.1247');
+    expect(page.textContent!.replace(/\s+/g, ' ')).toMatch(/Maximum takeoff weight \(lb\) ?2,425.0849/);
   });
 
   it('publishes a revision someone else wrote and says so', async () => {
