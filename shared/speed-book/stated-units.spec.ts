@@ -5,6 +5,8 @@ import {
   describeFigures,
   fromCanonical,
   quantityAtPath,
+  restateFigures,
+  statedUnitWords,
   statedUnitsOf,
   toCanonical,
   type StatedUnits,
@@ -90,5 +92,22 @@ describe('stated units: reading and describing', () => {
     ).toEqual({ code: 'VX', kind: 'tabulated', byWeightKg: ['2000 lb (907.2 kg)'], valuesKt: [['70 mph (60.8 kt)', '72 mph (62.6 kt)']], byOatC: [0] });
     expect(describeFigures({ vfeKt: { 'landing-flap': mph(100) }, mmo: 0.5 }, null, LB_MPH)).toEqual({ vfeKt: { 'landing-flap': '100 mph (86.9 kt)' }, mmo: 0.5 });
     expect(describeFigures([{ iasKt: mph(60), casKt: mph(63) }], null, LB_MPH)).toEqual([{ iasKt: '60 mph (52.1 kt)', casKt: '63 mph (54.7 kt)' }]);
+  });
+});
+
+describe('stated units: sentences about stored figures', () => {
+  it('restates kt and kg figures of a sentence in the stated units, the stored ones in brackets', () => {
+    // 160 kt = 184.1247 mph; 1 100 kg = 2 425.0849 lb; 55.4 kt = 102.6 km/h (exact factors above).
+    expect(restateFigures('VNE 160 kt is outside the clean table (35 to 150 kt IAS).', LB_MPH)).toBe(
+      'VNE 184.12 mph (160 kt) is outside the clean table (40.28 to 172.62 mph (35 to 150 kt) IAS).',
+    );
+    expect(restateFigures('1,100 kg is outside the weight range.', LB_MPH)).toBe('2,425.08 lb (1,100 kg) is outside the weight range.');
+    expect(restateFigures('55.4 kt at 1,100 kg', KG_KMH)).toBe('102.6 km/h (55.4 kt) at 1,100 kg');
+    expect(restateFigures('VNE 160 kt at 1,100 kg, MMO 0.7', KG_KT)).toBe('VNE 160 kt at 1,100 kg, MMO 0.7');
+  });
+
+  it('names the stated units in a field’s words', () => {
+    expect(statedUnitWords('Weights › minimum weight (kg)', LB_MPH)).toBe('Weights › minimum weight (lb)');
+    expect(statedUnitWords('Limits › VFE of landing-flap (kt)', KG_KMH)).toBe('Limits › VFE of landing-flap (km/h)');
   });
 });

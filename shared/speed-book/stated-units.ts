@@ -140,3 +140,30 @@ export function describeFigures(value: unknown, quantity: StatedQuantity | null,
   }
   return value;
 }
+
+/**
+ * A sentence about stored figures ("55.4 kt", "1,100 kg"), with each figure restated in the
+ * stated unit first and the stored one kept in brackets: "63.75 mph (55.4 kt)". Figures the
+ * sentence rounded are restated to two decimals at most. Unchanged for kg and kt.
+ * @example restateFigures('VNE 160 kt is above …', { weight: 'kg', speed: 'mph' }) // 'VNE 184.12 mph (160 kt) is above …'
+ */
+export function restateFigures(sentence: string, units: StatedUnits): string {
+  if (isCanonical('weight', units) && isCanonical('speed', units)) return sentence;
+  const number = String.raw`-?\d[\d,]*(?:\.\d+)?`;
+  const figureOrRange = new RegExp(`(${number})(?: to (${number}))? (kt|kg)\\b`, 'g');
+  return sentence.replace(figureOrRange, (whole, first: string, second: string | undefined, unit: 'kt' | 'kg') => {
+    const quantity: StatedQuantity = unit === 'kt' ? 'speed' : 'weight';
+    if (isCanonical(quantity, units)) return whole;
+    const restate = (figure: string) => {
+      const stored = Number(figure.replace(/,/g, ''));
+      const stated = quantity === 'weight' ? kgToLb(stored) : units.speed === 'mph' ? ktToMph(stored) : ktToKmh(stored);
+      return roundTo(stated, 2).toLocaleString('en-GB', { maximumFractionDigits: 2 });
+    };
+    return `${restate(first)}${second === undefined ? '' : ` to ${restate(second)}`} ${statedSymbol(quantity, units)} (${whole})`;
+  });
+}
+
+/** A field's words with its "(kt)" and "(kg)" naming the stated units instead: "VNE (kt)" → "VNE (mph)". */
+export function statedUnitWords(words: string, units: StatedUnits): string {
+  return words.replace(/\(kt\)/g, `(${statedSymbol('speed', units)})`).replace(/\(kg\)/g, `(${statedSymbol('weight', units)})`);
+}

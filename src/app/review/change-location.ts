@@ -1,4 +1,4 @@
-import { CANONICAL_UNITS, UNIT_SYMBOLS, describeFigures, quantityAtPath, statedSymbol, type StatedUnits } from '../../../shared/speed-book/stated-units';
+import { CANONICAL_UNITS, UNIT_SYMBOLS, describeFigures, quantityAtPath, statedUnitWords, type StatedUnits } from '../../../shared/speed-book/stated-units';
 import { FIELD_WORDS } from '../revision-editor/problem-location';
 
 /**
@@ -33,7 +33,7 @@ export function changeLocation(path: string, units: StatedUnits = CANONICAL_UNIT
     }
   }
   // Field words name kt and kg; the diff shows figures in the flight manual's units first.
-  return parts.join(' › ').replace(/\(kt\)/g, `(${statedSymbol('speed', units)})`).replace(/\(kg\)/g, `(${statedSymbol('weight', units)})`);
+  return statedUnitWords(parts.join(' › '), units);
 }
 
 /**

@@ -27,7 +27,7 @@ import { RevisionForm, type LimitKey } from './revision-form';
 import { StatedUnitInput } from './stated-unit-input';
 import { StatedUnitsContext } from './stated-units-context';
 import { StatedUnitsPanel } from './stated-units-panel';
-import { statedSymbol } from '../../../shared/speed-book/stated-units';
+import { restateFigures, statedSymbol, statedUnitWords } from '../../../shared/speed-book/stated-units';
 import { TabulatedSpeedGrid } from './tabulated-speed-grid';
 
 const LIMIT_FIELDS: readonly { key: LimitKey; label: string }[] = [
@@ -114,10 +114,16 @@ export class RevisionEditor {
   private readonly localProblems = signal<Readonly<Record<string, string>>>({});
   /** The server's word from the last save or submit; it counts until the next edit. */
   private readonly serverProblems = signal<Readonly<Record<string, string>>>({});
-  protected readonly problems = computed<Readonly<Record<string, string>>>(() => ({ ...this.localProblems(), ...this.serverProblems() }));
+  /** The schema's and the server's sentences, their kt and kg figures restated in the flight manual's units. */
+  protected readonly problems = computed<Readonly<Record<string, string>>>(() => {
+    const units = this.statedUnits();
+    const all = { ...this.localProblems(), ...this.serverProblems() };
+    return Object.fromEntries(Object.entries(all).map(([path, sentence]) => [path, restateFigures(sentence, units)]));
+  });
   protected readonly problemList = computed(() => {
     const content = this.form.content();
-    return Object.entries(this.problems()).map(([path, sentence]) => ({ path, where: problemLocation(path, content), sentence }));
+    const units = this.statedUnits();
+    return Object.entries(this.problems()).map(([path, sentence]) => ({ path, where: statedUnitWords(problemLocation(path, content), units), sentence }));
   });
   protected readonly configurationKeys = signal<readonly string[]>([]);
   private formChanges: Subscription | null = null;

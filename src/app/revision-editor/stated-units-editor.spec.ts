@@ -183,6 +183,16 @@ describe('RevisionEditor in the flight manual’s units', () => {
     expect(field('configurations.0.positionError.0.iasKt').value).toBe('46');
   });
 
+  it('says the schema’s sentences with the figures in the manual’s units, the stored ones beside', async () => {
+    const content = { ...demoPistonTrainerContent(), statedUnits: { weight: 'lb', speed: 'mph' } };
+    await openDraft(content as unknown as Record<string, unknown>);
+    // Row 2 of the demo's flaps-up table is 60 kt = 69.05 mph; 40 mph = 34.76 kt (exact factors above).
+    await type('configurations.0.positionError.2.iasKt', '40');
+    expect(page.querySelector('[data-testid="problem-summary"]')!.textContent).toContain(
+      'Flaps up › position-error row 3 › IAS (mph): The IAS column must increase strictly: 40 mph (34.76 kt) does not exceed 69.05 mph (60 kt) above it.',
+    );
+  });
+
   it('switching the units shows the stored figures converted and changes none of them', async () => {
     const content = demoPistonTrainerContent();
     await openDraft(content as unknown as Record<string, unknown>);
