@@ -27,13 +27,29 @@
  * → `speeds: [{ code: 'VR', configurationKey: 'takeoff-flap', table: { byWeightKg: [900, 1100], valuesKt: [52, 57] } }]`
  * With altitude and temperature, `valuesKt` nests weight outermost: `valuesKt[w][p][t]`.
  *
+ * **Units.** Every weight and speed column names its unit, and the figures are read in it as the
+ * flight manual prints them: `weight_kg` or `weight_lb`; `ias_kt`, `ias_mph` or `ias_kmh`, and
+ * likewise `cas_…` and `value_…`. One file gives each quantity in one unit (`ias_mph` beside
+ * `cas_kt` is refused, naming line 1 and the column; see `csv-units.ts`). Checks and their
+ * sentences use the file's unit; the parsed tables are converted to kt and kg (exact factors,
+ * `shared/speed-book/stated-units.ts`), `rows` keep the figures as written, and `statedUnits`
+ * names the units found, so the preview shows the file as the manual prints it.
+ * ```
+ * speed_code,configuration_key,weight_lb,value_mph
+ * VR,takeoff-flap,1900,60
+ * VR,takeoff-flap,2400,66
+ * ```
+ * → `byWeightKg: [861.8…, 1088.6…], valuesKt: [52.1…, 57.3…]`, `statedUnits: { weight: 'lb', speed: 'mph' }`
+ *
  * Numbers use a point as the decimal separator. Every problem is reported as
  * `{ line, column, reason }` (line 1 is the header); a group with any problem is left out of
  * the parsed structure so that nothing half-checked reaches a draft.
  */
 import { configurationKeySchema, speedCodeSchema } from '../../shared/speed-book/content-shape';
+import { CANONICAL_UNITS, UNIT_SYMBOLS, fromCanonical, toCanonical, type StatedUnits } from '../../shared/speed-book/stated-units';
 import Papa from 'papaparse';
 import { HttpError } from '../http-error';
+import { canonicalColumn, readCsvUnits, unitColumn, type CsvUnits } from './csv-units';
 
 export interface CsvRowError {
   /** 1-based line of the file; 1 is the header. */
@@ -66,6 +82,8 @@ interface UploadBase {
   columns: string[];
   rows: CsvRow[];
   errors: CsvRowError[];
+  /** The units the header states (rows keep the figures as written; the parsed tables are in kt and kg). */
+  statedUnits: CsvUnits['detected'];
 }
 
 export interface PositionErrorUpload extends UploadBase {
@@ -111,7 +129,8 @@ const SPEED_CODE = { test: (code: string) => speedCodeSchema.safeParse(code).suc
 
 export const LAYOUT_HELP =
   'Use one of the two layouts: a position-error table with the columns configuration_key,ias_kt,cas_kt, ' +
-  'or a tabulated speed with speed_code,configuration_key,weight_kg,value_kt (and optionally pressure_altitude_ft and oat_c).';
+  'or a tabulated speed with speed_code,configuration_key,weight_kg,value_kt (and optionally pressure_altitude_ft and oat_c). ' +
+  'Weights may be given in lb (weight_lb) and speeds in mph or km/h (ias_mph, cas_kmh, value_mph…), one unit per quantity.';
 
 /** Parses an uploaded CSV. Throws a 422 when the file as a whole is unusable; row problems come back in `errors`. */
 export function parseSpeedTableCsv(input: string): SpeedTableUpload {
@@ -125,6 +144,9 @@ export function parseSpeedTableCsv(input: string): SpeedTableUpload {
   const columns = header.fields.map((field) => field.trim().toLowerCase());
   const duplicate = columns.find((column, index) => columns.indexOf(column) !== index);
   if (duplicate) throw unusable(`The column "${duplicate}" appears twice in the header.`);
+  const units = readCsvUnits(columns, header.line);
+  // The layouts below are written in kt and kg; a column in another unit stands in for its kt/kg twin.
+  const generic = columns.map(canonicalColumn);
 
   const errors: CsvRowError[] = [];
   const rows: CsvRow[] = [];
@@ -144,20 +166,26 @@ export function parseSpeedTableCsv(input: string): SpeedTableUpload {
   }
   const badShape = new Set(errors.map((error) => error.line));
 
-  if (sameSet(columns, POSITION_ERROR_COLUMNS)) {
-    return { layout: 'position-error', columns, rows, ...parsePositionError(rows, badShape, errors) };
+  if (sameSet(generic, POSITION_ERROR_COLUMNS)) {
+    return { layout: 'position-error', columns, rows, statedUnits: units.detected, ...parsePositionError(rows, badShape, errors, units) };
   }
-  const optional = columns.filter((column) => !TABULATED_REQUIRED.includes(column));
-  if (TABULATED_REQUIRED.every((column) => columns.includes(column)) && optional.every((column) => TABULATED_OPTIONAL.includes(column))) {
-    return { layout: 'tabulated-speed', columns, rows, ...parseTabulated(rows, badShape, errors, columns) };
+  const optional = generic.filter((column) => !TABULATED_REQUIRED.includes(column));
+  if (TABULATED_REQUIRED.every((column) => generic.includes(column)) && optional.every((column) => TABULATED_OPTIONAL.includes(column))) {
+    return { layout: 'tabulated-speed', columns, rows, statedUnits: units.detected, ...parseTabulated(rows, badShape, errors, columns, units) };
   }
-  const unknown = columns.filter((column) => ![...POSITION_ERROR_COLUMNS, ...TABULATED_REQUIRED, ...TABULATED_OPTIONAL].includes(column));
+  const unknown = columns.filter((_, i) => ![...POSITION_ERROR_COLUMNS, ...TABULATED_REQUIRED, ...TABULATED_OPTIONAL].includes(generic[i]!));
   throw unusable(
     `${unknown.length ? `The header has columns this upload does not know (${unknown.map((c) => `"${c}"`).join(', ')}). ` : 'The header does not match a layout. '}${LAYOUT_HELP}`,
   );
 }
 
-function parsePositionError(rows: CsvRow[], badShape: Set<number>, errors: CsvRowError[]): Pick<PositionErrorUpload, 'configurations' | 'errors'> {
+function parsePositionError(rows: CsvRow[], badShape: Set<number>, errors: CsvRowError[], units: CsvUnits): Pick<PositionErrorUpload, 'configurations' | 'errors'> {
+  // Figures are compared in the file's own unit (order does not change with a unit) and stored in kt.
+  const iasColumn = units.columns.ias!;
+  const casColumn = units.columns.cas!;
+  const stated: StatedUnits = { ...CANONICAL_UNITS, speed: units.detected.speed ?? 'kt' };
+  const kt = UNIT_SYMBOLS[stated.speed];
+  const maxError = stated.speed === 'kt' ? `${MAX_POSITION_ERROR_KT} kt` : `${Math.floor(fromCanonical(MAX_POSITION_ERROR_KT, 'speed', stated))} ${kt} (${MAX_POSITION_ERROR_KT} kt)`;
   const groups = new Map<string, { firstLine: number; points: (PositionErrorPoint & { line: number })[]; bad: boolean }>();
   for (const row of rows) {
     if (badShape.has(row.line)) continue;
@@ -168,32 +196,32 @@ function parsePositionError(rows: CsvRow[], badShape: Set<number>, errors: CsvRo
     }
     const group = groups.get(key) ?? { firstLine: row.line, points: [], bad: false };
     groups.set(key, group);
-    const iasKt = number(row, 'ias_kt', errors);
-    const casKt = number(row, 'cas_kt', errors);
+    const iasKt = number(row, iasColumn, errors);
+    const casKt = number(row, casColumn, errors);
     if (iasKt === undefined || casKt === undefined) {
       group.bad = true;
       continue;
     }
-    if (Math.abs(casKt - iasKt) > MAX_POSITION_ERROR_KT) {
+    if (Math.abs(toCanonical(casKt - iasKt, 'speed', stated)) > MAX_POSITION_ERROR_KT) {
       errors.push({
         line: row.line,
-        column: 'cas_kt',
-        reason: `CAS ${casKt} kt differs from IAS ${iasKt} kt by more than ${MAX_POSITION_ERROR_KT} kt; check that the columns are in the right order.`,
+        column: casColumn,
+        reason: `CAS ${casKt} ${kt} differs from IAS ${iasKt} ${kt} by more than ${maxError}; check that the columns are in the right order.`,
       });
       group.bad = true;
       continue;
     }
     const previous = group.points.at(-1);
     if (previous && iasKt === previous.iasKt) {
-      errors.push({ line: row.line, column: 'ias_kt', reason: `IAS ${iasKt} kt of "${key}" is already on line ${previous.line}; each IAS appears once.` });
+      errors.push({ line: row.line, column: iasColumn, reason: `IAS ${iasKt} ${kt} of "${key}" is already on line ${previous.line}; each IAS appears once.` });
       group.bad = true;
       continue;
     }
     if (previous && iasKt < previous.iasKt) {
       errors.push({
         line: row.line,
-        column: 'ias_kt',
-        reason: `IAS must rise down the table: ${iasKt} kt comes after ${previous.iasKt} kt (line ${previous.line}) for "${key}".`,
+        column: iasColumn,
+        reason: `IAS must rise down the table: ${iasKt} ${kt} comes after ${previous.iasKt} ${kt} (line ${previous.line}) for "${key}".`,
       });
       group.bad = true;
       continue;
@@ -201,8 +229,8 @@ function parsePositionError(rows: CsvRow[], badShape: Set<number>, errors: CsvRo
     if (previous && casKt <= previous.casKt) {
       errors.push({
         line: row.line,
-        column: 'cas_kt',
-        reason: `CAS must rise with IAS: ${casKt} kt is not above ${previous.casKt} kt on line ${previous.line} for "${key}".`,
+        column: casColumn,
+        reason: `CAS must rise with IAS: ${casKt} ${kt} is not above ${previous.casKt} ${kt} on line ${previous.line} for "${key}".`,
       });
       group.bad = true;
       continue;
@@ -215,7 +243,10 @@ function parsePositionError(rows: CsvRow[], badShape: Set<number>, errors: CsvRo
       errors.push({ line: group.firstLine, column: null, reason: `"${key}" needs at least two rows so that values between them can be interpolated.` });
       continue;
     }
-    if (!group.bad) configurations.push({ key, positionError: group.points.map(({ iasKt, casKt }) => ({ iasKt, casKt })) });
+    if (!group.bad) {
+      const positionError = group.points.map(({ iasKt, casKt }) => ({ iasKt: toCanonical(iasKt, 'speed', stated), casKt: toCanonical(casKt, 'speed', stated) }));
+      configurations.push({ key, positionError });
+    }
   }
   return { configurations, errors: sortErrors(errors) };
 }
@@ -231,8 +262,12 @@ function parseTabulated(
   badShape: Set<number>,
   errors: CsvRowError[],
   columns: string[],
+  units: CsvUnits,
 ): Pick<TabulatedSpeedUpload, 'speeds' | 'errors'> {
-  const axisColumns = ['weight_kg', ...TABULATED_OPTIONAL.filter((column) => columns.includes(column))] as (keyof typeof RANGES)[];
+  const weightColumn = units.columns.weight!;
+  const valueColumn = units.columns.value!;
+  const stated: StatedUnits = { weight: units.detected.weight ?? 'kg', speed: units.detected.speed ?? 'kt' };
+  const axisColumns = [weightColumn, ...TABULATED_OPTIONAL.filter((column) => columns.includes(column))];
   const groups = new Map<string, { code: string; configurationKey: string; firstLine: number; points: GridPoint[]; bad: boolean }>();
   for (const row of rows) {
     if (badShape.has(row.line)) continue;
@@ -252,7 +287,7 @@ function parseTabulated(
     const group = groups.get(id) ?? { code, configurationKey, firstLine: row.line, points: [], bad: false };
     groups.set(id, group);
     const axes = axisColumns.map((column) => number(row, column, errors));
-    const valueKt = number(row, 'value_kt', errors);
+    const valueKt = number(row, valueColumn, errors);
     if (axes.some((axis) => axis === undefined) || valueKt === undefined) {
       group.bad = true;
       continue;
@@ -262,7 +297,7 @@ function parseTabulated(
     if (previous) {
       const order = compareAxes(point.axes, previous.axes);
       if (order === 0) {
-        errors.push({ line: row.line, column: null, reason: `${describePoint(group.code, axisColumns, point.axes)} is already on line ${previous.line}; each grid point appears once.` });
+        errors.push({ line: row.line, column: null, reason: `${describePoint(group.code, axisColumns, point.axes, stated)} is already on line ${previous.line}; each grid point appears once.` });
         group.bad = true;
         continue;
       }
@@ -312,16 +347,19 @@ function parseTabulated(
       for (const axes of missing.slice(0, MAX_MISSING_LISTED)) {
         errors.push({
           line: group.firstLine,
-          column: 'value_kt',
-          reason: `No row for ${describePoint(group.code, axisColumns, axes)}: every combination of the table's weights, altitudes and temperatures needs one.`,
+          column: valueColumn,
+          reason: `No row for ${describePoint(group.code, axisColumns, axes, stated)}: every combination of the table's weights, altitudes and temperatures needs one.`,
         });
       }
       if (missing.length > MAX_MISSING_LISTED) {
-        errors.push({ line: group.firstLine, column: 'value_kt', reason: `…and ${missing.length - MAX_MISSING_LISTED} more missing grid points of ${group.code}.` });
+        errors.push({ line: group.firstLine, column: valueColumn, reason: `…and ${missing.length - MAX_MISSING_LISTED} more missing grid points of ${group.code}.` });
       }
       continue;
     }
-    const table: TabulatedSpeedTable = { byWeightKg: axisValues[0]!, valuesKt };
+    const table: TabulatedSpeedTable = {
+      byWeightKg: axisValues[0]!.map((weight) => toCanonical(weight, 'weight', stated)),
+      valuesKt: inKnots(valuesKt, stated),
+    };
     const altitudeIndex = axisColumns.indexOf('pressure_altitude_ft');
     const oatIndex = axisColumns.indexOf('oat_c');
     if (altitudeIndex > 0) table.byPressureAltitudeFt = axisValues[altitudeIndex]!;
@@ -331,9 +369,29 @@ function parseTabulated(
   return { speeds, errors: sortErrors(errors) };
 }
 
-function number(row: CsvRow, column: keyof typeof RANGES, errors: CsvRowError[]): number | undefined {
+/** A tabulated speed's nested values, stated in `units`, in kt. */
+function inKnots(values: NestedNumbers, units: StatedUnits): NestedNumbers {
+  return (values as (number | NestedNumbers)[]).map((value) => (typeof value === 'number' ? toCanonical(value, 'speed', units) : inKnots(value, units))) as NestedNumbers;
+}
+
+/** The accepted range of a column in its own unit: the kt/kg range converted, kept inside it. */
+function rangeOf(column: string): Range {
+  const range = RANGES[canonicalColumn(column) as keyof typeof RANGES];
+  const found = unitColumn(column);
+  if (!found || found.unit === 'kt' || found.unit === 'kg') return range;
+  const quantity = found.role === 'weight' ? 'weight' : 'speed';
+  const units = { ...CANONICAL_UNITS, [quantity]: found.unit } as StatedUnits;
+  return {
+    ...range,
+    unit: UNIT_SYMBOLS[found.unit],
+    min: Math.ceil(fromCanonical(range.min, quantity, units)),
+    max: Math.floor(fromCanonical(range.max, quantity, units)),
+  };
+}
+
+function number(row: CsvRow, column: string, errors: CsvRowError[]): number | undefined {
   const raw = row.values[column] ?? '';
-  const range = RANGES[column];
+  const range = rangeOf(column);
   const fail = (reason: string) => {
     errors.push({ line: row.line, column, reason });
     return undefined;
@@ -388,10 +446,10 @@ function compareAxes(a: number[], b: number[]): number {
   return 0;
 }
 
-function describePoint(code: string, columns: readonly string[], axes: number[]): string {
+function describePoint(code: string, columns: readonly string[], axes: number[], units: StatedUnits): string {
   const parts = axes.map((value, index) => {
     const column = columns[index];
-    return column === 'weight_kg' ? `${value} kg` : column === 'pressure_altitude_ft' ? `${value} ft` : `${value} °C`;
+    return index === 0 ? `${value} ${UNIT_SYMBOLS[units.weight]}` : column === 'pressure_altitude_ft' ? `${value} ft` : `${value} °C`;
   });
   return `${code} at ${parts.join(', ')}`;
 }

@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { STATED_SPEED_UNITS, STATED_WEIGHT_UNITS } from '../speed-book/content-shape';
 
 /**
  * `POST /api/uploads/speed-table`: the parsed CSV for the engineer's preview. The layouts are
@@ -15,6 +16,8 @@ const uploadBase = {
   columns: z.array(z.string()),
   rows: z.array(z.object({ line: z.number().int().positive(), values: z.record(z.string(), z.string()) })),
   errors: z.array(csvRowErrorSchema),
+  /** The units the file's header states; `rows` keep its figures as written, the parsed tables are in kt and kg. */
+  statedUnits: z.object({ speed: z.enum(STATED_SPEED_UNITS).optional(), weight: z.enum(STATED_WEIGHT_UNITS).optional() }),
 };
 
 type Nested = number[] | Nested[];

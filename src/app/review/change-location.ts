@@ -1,10 +1,11 @@
+import { CANONICAL_UNITS, UNIT_SYMBOLS, describeFigures, quantityAtPath, statedUnitWords, type StatedUnits } from '../../../shared/speed-book/stated-units';
 import { FIELD_WORDS } from '../revision-editor/problem-location';
 
 /**
  * A diff path in words: `configurations[landing-flap].positionError.1.casKt` →
  * "Configuration landing-flap › position-error row 2 › CAS (kt)".
  */
-export function changeLocation(path: string): string {
+export function changeLocation(path: string, units: StatedUnits = CANONICAL_UNITS): string {
   const parts: string[] = [];
   const tokens = path.match(/[^.[\]]+|\[[^\]]*\]/g) ?? [path];
   for (let i = 0; i < tokens.length; i++) {
@@ -31,7 +32,27 @@ export function changeLocation(path: string): string {
       parts.push(FIELD_WORDS[token] ?? token);
     }
   }
-  return parts.join(' › ');
+  // Field words name kt and kg; the diff shows figures in the flight manual's units first.
+  return statedUnitWords(parts.join(' › '), units);
+}
+
+/**
+ * A changed value in the revision's stated units: weights and speeds as "161 mph (139.9 kt)",
+ * the stated units themselves as "lb, mph"; anything else as `changeValue` gives it.
+ */
+export function changeValueIn(path: string, value: unknown, units: StatedUnits): string {
+  if (path === 'statedUnits' || path.startsWith('statedUnits.')) return statedUnitsValue(value);
+  return changeValue(describeFigures(value, quantityAtPath(path), units));
+}
+
+function statedUnitsValue(value: unknown): string {
+  if (value === undefined) return 'kg, kt (none named)';
+  const symbol = (unit: unknown) => UNIT_SYMBOLS[unit as keyof typeof UNIT_SYMBOLS] ?? String(unit);
+  if (typeof value === 'object' && value !== null) {
+    const units = value as Record<string, unknown>;
+    return `${symbol(units['weight'])}, ${symbol(units['speed'])}`;
+  }
+  return symbol(value);
 }
 
 /** A changed value as one short line: numbers and words as they are, records as key: value. */

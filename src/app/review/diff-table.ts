@@ -1,9 +1,16 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
+import { CANONICAL_UNITS, type StatedUnits } from '../../../shared/speed-book/stated-units';
 import type { RevisionDiff } from '../speed-books/revisions-api';
-import { changeLocation, changeValue } from './change-location';
+import { changeLocation, changeValueIn } from './change-location';
 
 const KIND_WORDS = { added: 'Added', removed: 'Removed', changed: 'Changed' } as const;
+
+/** A single figure's words split into the stated figure and the stored one, so each stays whole on screen. */
+function figureParts(words: string, value: unknown): { stated: string; stored: string | null } {
+  const split = typeof value === 'number' ? /^(.+) \((.+ (?:kt|kg))\)$/.exec(words) : null;
+  return split ? { stated: split[1]!, stored: split[2]! } : { stated: words, stored: null };
+}
 
 /** The field-by-field changes from the published revision to the one under review. */
 @Component({
@@ -31,8 +38,18 @@ const KIND_WORDS = { added: 'Added', removed: 'Removed', changed: 'Changed' } as
                   <span class="kind">{{ row.kindWord }}</span>
                   <span class="path sw-mono">{{ row.path }}</span>
                 </th>
-                <td class="before">{{ row.before }}</td>
-                <td class="after">{{ row.after }}</td>
+                <td class="before">
+                  {{ row.before.stated }}
+                  @if (row.before.stored) {
+                    <span class="stored">({{ row.before.stored }})</span>
+                  }
+                </td>
+                <td class="after">
+                  {{ row.after.stated }}
+                  @if (row.after.stored) {
+                    <span class="stored">({{ row.after.stored }})</span>
+                  }
+                </td>
               </tr>
             }
           </tbody>
@@ -95,6 +112,12 @@ const KIND_WORDS = { added: 'Added', removed: 'Removed', changed: 'Changed' } as
       font-size: 0.75rem;
       color: var(--mat-sys-on-surface-variant);
     }
+    .stored {
+      display: block;
+      white-space: nowrap;
+      font-weight: 400;
+      font-size: 0.8125rem;
+    }
     .before {
       text-decoration: line-through;
       text-decoration-color: var(--mat-sys-error);
@@ -120,15 +143,17 @@ export class DiffTable {
   readonly diff = input.required<RevisionDiff>();
   readonly revisionNumber = input.required<number>();
   readonly againstNumber = input.required<number>();
+  /** The flight manual's units of the revision under review: both columns show figures in them, stored kt and kg beside. */
+  readonly units = input<StatedUnits>(CANONICAL_UNITS);
 
   protected readonly rows = computed(() =>
     this.diff().changes.map((change) => ({
       path: change.path,
       kind: change.kind,
       kindWord: KIND_WORDS[change.kind],
-      location: changeLocation(change.path),
-      before: changeValue(change.before),
-      after: changeValue(change.after),
+      location: changeLocation(change.path, this.units()),
+      before: figureParts(changeValueIn(change.path, change.before, this.units()), change.before),
+      after: figureParts(changeValueIn(change.path, change.after, this.units()), change.after),
     })),
   );
 }

@@ -14,8 +14,8 @@ jest.setTimeout(30_000);
 
 const IN_REVIEW = 12;
 const PUBLISHED = 8;
-const inReview = () =>
-  revisionView(demoPistonTrainerContentRevised() as unknown as Record<string, unknown>, {
+const inReview = (content: Record<string, unknown> = demoPistonTrainerContentRevised() as unknown as Record<string, unknown>) =>
+  revisionView(content, {
     id: IN_REVIEW,
     number: 3,
     status: 'in_review',
@@ -46,21 +46,23 @@ describe('RevisionReview', () => {
 
   afterEach(() => backend.verify());
 
-  async function openReview(attachments: unknown[] = []): Promise<void> {
+  const TRAINER_CHANGES = [
+    { path: 'configurations[landing-flap].positionError.1.casKt', before: 50, after: 51, kind: 'changed' },
+    { path: 'speeds[VR@takeoff-flap].referenceKt', before: 55, after: 56, kind: 'changed' },
+    { path: 'speeds[VAPP@takeoff-flap]', after: { code: 'VAPP' }, kind: 'added' },
+    { path: 'limits.vfeKt.landing-flap', before: 85, after: 87, kind: 'changed' },
+  ];
+
+  async function openReview(attachments: unknown[] = [], content?: Record<string, unknown>, changes: unknown[] = TRAINER_CHANGES): Promise<void> {
     fixture.componentRef.setInput('revisionId', IN_REVIEW);
     await fixture.whenStable();
-    backend.expectOne(REVISION_PATHS.revision(IN_REVIEW)).flush({ revision: inReview() });
+    backend.expectOne(REVISION_PATHS.revision(IN_REVIEW)).flush({ revision: inReview(content) });
     backend.expectOne(REVISION_PATHS.speedBook(1)).flush({ speedBook: speedBook([revisionSummary({ id: IN_REVIEW, number: 3, status: 'in_review' }), revisionSummary()]) });
     backend.expectOne(REVISION_PATHS.attachments(IN_REVIEW)).flush({ attachments });
     backend.expectOne(REVISION_PATHS.diff(IN_REVIEW, PUBLISHED)).flush({
       revisionId: IN_REVIEW,
       againstId: PUBLISHED,
-      changes: [
-        { path: 'configurations[landing-flap].positionError.1.casKt', before: 50, after: 51, kind: 'changed' },
-        { path: 'speeds[VR@takeoff-flap].referenceKt', before: 55, after: 56, kind: 'changed' },
-        { path: 'speeds[VAPP@takeoff-flap]', after: { code: 'VAPP' }, kind: 'added' },
-        { path: 'limits.vfeKt.landing-flap', before: 85, after: 87, kind: 'changed' },
-      ],
+      changes,
     });
     await fixture.whenStable();
   }
@@ -81,12 +83,40 @@ describe('RevisionReview', () => {
     await openReview();
     expect(page.textContent).toContain('4 changes from revision 2');
     expect(diffRows()).toEqual([
-      ['Configuration landing-flap › position-error row 2 › CAS (kt)', 'Changed', '50', '51'],
-      ['Speed VR (takeoff-flap) › reference speed (kt)', 'Changed', '55', '56'],
+      ['Configuration landing-flap › position-error row 2 › CAS (kt)', 'Changed', '50 kt', '51 kt'],
+      ['Speed VR (takeoff-flap) › reference speed (kt)', 'Changed', '55 kt', '56 kt'],
       ['Speed VAPP (takeoff-flap)', 'Added', '—', '{ "code": "VAPP" }'],
-      ['Limits › VFE landing-flap (kt)', 'Changed', '85', '87'],
+      ['Limits › VFE landing-flap (kt)', 'Changed', '85 kt', '87 kt'],
     ]);
     expect(page.querySelector('[data-testid="no-sources"]')).not.toBeNull();
+  });
+
+  it('shows the diff in the flight manual’s own units with the stored figures beside, and a change of units itself', async () => {
+    user.set(sessionUser('approver'));
+    // Exact factors: 1 mph = 1609.344/1852 kt, 1 lb = 0.453 592 37 kg (1959 agreement; SI nautical mile).
+    const kt = (mph: number) => (mph * 1609.344) / 1852;
+    const kg = (lb: number) => lb * 0.45359237;
+    const content = { ...(demoPistonTrainerContentRevised() as unknown as Record<string, unknown>), statedUnits: { weight: 'lb', speed: 'mph' } };
+    await openReview([], content, [
+      { path: 'weights.maximumTakeoffKg', before: kg(2400), after: kg(2450), kind: 'changed' },
+      { path: 'speeds[VX@clean].valuesKt.1.0', before: kt(72), after: kt(73), kind: 'changed' },
+      { path: 'speeds[VAPP@takeoff-flap]', after: { code: 'VAPP', kind: 'fixed', valueKt: kt(78) }, kind: 'added' },
+      { path: 'limits.vneKt', before: kt(184), after: kt(182), kind: 'changed' },
+      { path: 'statedUnits', after: { weight: 'lb', speed: 'mph' }, kind: 'added' },
+    ]);
+    expect(page.querySelector('[data-testid="review-units"]')?.textContent).toContain('Weights in lb, speeds in mph, as the flight manual of this revision prints them; the stored kg and kt are in brackets.');
+    expect(diffRows()).toEqual([
+      ['Weights › maximum takeoff weight (lb)', 'Changed', '2400 lb (1088.6 kg)', '2450 lb (1111.3 kg)'],
+      ['Speed VX (clean) › table (mph) › entry 2 › entry 1', 'Changed', '72 mph (62.6 kt)', '73 mph (63.4 kt)'],
+      ['Speed VAPP (takeoff-flap)', 'Added', '—', '{ "code": "VAPP", "kind": "fixed", "valueKt": "78 mph (67.8 kt)" }'],
+      ['Limits › VNE (mph)', 'Changed', '184 mph (159.9 kt)', '182 mph (158.2 kt)'],
+      ['Units of the flight manual', 'Added', 'kg, kt (none named)', 'lb, mph'],
+    ]);
+    // The whole content too, in the manual's units: VNE 160 kt = 184.1247 mph, MTOW 1 100 kg = 2 425.0849 lb.
+    expect(page.querySelector('[data-testid="stored-units-note"]')?.textContent).toContain('Weights in lb and speeds in mph, as the flight manual prints them; the book stores kg and kt.');
+    const limitsView = page.querySelector('[data-testid="limits-view"]')!.textContent!.replace(/\s+/g, ' ');
+    expect(limitsView).toContain('VNE (mph)184.1247');
+    expect(page.textContent!.replace(/\s+/g, ' ')).toMatch(/Maximum takeoff weight \(lb\) ?2,425.0849/);
   });
 
   it('publishes a revision someone else wrote and says so', async () => {

@@ -10,6 +10,7 @@ import { RouterLink } from '@angular/router';
 import { forkJoin, of, switchMap } from 'rxjs';
 import type { AttachmentView } from '../../../shared/api/attachments';
 import { reasonSchema, type RevisionView } from '../../../shared/api/revisions';
+import { UNIT_SYMBOLS, isCanonical, statedUnitsOf } from '../../../shared/speed-book/stated-units';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { AuthService } from '../core/auth/auth-service';
 import { zodValidator } from '../core/forms/zod-validator';
@@ -67,6 +68,13 @@ export class RevisionReview {
   protected readonly published = computed(() => this.book()?.currentRevision ?? null);
   protected readonly ownRevision = computed(() => this.revision()?.authorId === this.user()?.id);
   protected readonly inReview = computed(() => this.revision()?.status === 'in_review');
+  /** The units the revision's flight manual prints; the diff shows its figures in them. */
+  protected readonly statedUnits = computed(() => statedUnitsOf(this.revision()?.content));
+  protected readonly unitsSentence = computed(() => {
+    const units = this.statedUnits();
+    const stated = `Weights in ${UNIT_SYMBOLS[units.weight]}, speeds in ${UNIT_SYMBOLS[units.speed]}, as the flight manual of this revision prints them`;
+    return isCanonical('weight', units) && isCanonical('speed', units) ? `${stated}.` : `${stated}; the stored kg and kt are in brackets.`;
+  });
 
   constructor() {
     effect(() => this.loadReview(this.revisionId()));

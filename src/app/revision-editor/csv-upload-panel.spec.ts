@@ -20,6 +20,7 @@ const withBadRows: SpeedTableUploadResponse = {
     { line: 3, column: 'value_kt', reason: 'Use a point as the decimal separator: 54.5, not 54,5.' },
     { line: 4, column: 'weight_kg', reason: 'Enter a weight in kg; this cell is empty.' },
   ],
+  statedUnits: { weight: 'kg', speed: 'kt' },
   speeds: [],
 };
 

@@ -4,6 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { CsvRowError, SpeedTableUploadResponse } from '../../../shared/api/uploads';
+import { UNIT_SYMBOLS } from '../../../shared/speed-book/stated-units';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { RevisionsApi } from '../speed-books/revisions-api';
 
@@ -18,6 +19,16 @@ const COLUMN_HEADINGS: Readonly<Record<string, string>> = {
   oat_c: 'OAT (°C)',
   value_kt: 'Speed (kt)',
 };
+
+const UNIT_COLUMN_WORDS: Readonly<Record<string, string>> = { ias: 'IAS', cas: 'CAS', value: 'Speed', weight: 'Weight' };
+
+/** A column's heading: ours by name, a unit-bearing one (`ias_mph`, `weight_lb`) with its unit. */
+function columnHeading(column: string): string {
+  const known = COLUMN_HEADINGS[column];
+  if (known) return known;
+  const match = /^(ias|cas|value|weight)_(kg|lb|kt|mph|kmh)$/.exec(column);
+  return match ? `${UNIT_COLUMN_WORDS[match[1]!]} (${UNIT_SYMBOLS[match[2] as keyof typeof UNIT_SYMBOLS]})` : column;
+}
 
 /**
  * CSV upload into a table of the draft: the server parses the file, this shows every row with
@@ -43,7 +54,14 @@ export class CsvUploadPanel {
   protected readonly problem = signal<string | null>(null);
   protected readonly preview = signal<SpeedTableUploadResponse | null>(null);
 
-  protected readonly headings = computed(() => (this.preview()?.columns ?? []).map((column) => ({ column, heading: COLUMN_HEADINGS[column] ?? column })));
+  protected readonly headings = computed(() => (this.preview()?.columns ?? []).map((column) => ({ column, heading: columnHeading(column) })));
+  /** The units the file's header states, in words, for the preview. */
+  protected readonly unitsSentence = computed(() => {
+    const units = this.preview()?.statedUnits;
+    if (!units) return '';
+    const parts = [units.speed ? `speeds in ${UNIT_SYMBOLS[units.speed]}` : '', units.weight ? `weights in ${UNIT_SYMBOLS[units.weight]}` : ''].filter(Boolean);
+    return parts.length ? `The file gives ${parts.join(' and ')}; the figures below are as written, the draft stores kt and kg.` : '';
+  });
   protected readonly errorsByLine = computed(() => {
     const byLine = new Map<number, CsvRowError[]>();
     for (const error of this.preview()?.errors ?? []) byLine.set(error.line, [...(byLine.get(error.line) ?? []), error]);
@@ -97,7 +115,7 @@ export class CsvUploadPanel {
   }
 
   protected columnReasons(line: number): string[] {
-    return (this.errorsByLine().get(line) ?? []).map((error) => (error.column ? `${COLUMN_HEADINGS[error.column] ?? error.column}: ${error.reason}` : error.reason));
+    return (this.errorsByLine().get(line) ?? []).map((error) => (error.column ? `${columnHeading(error.column)}: ${error.reason}` : error.reason));
   }
 
   protected cellBad(line: number, column: string): boolean {

@@ -1,20 +1,23 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { statedSymbol } from '../../../shared/speed-book/stated-units';
 import { ConfigurationGroup, pointGroup } from './revision-form';
+import { StatedUnitInput } from './stated-unit-input';
+import { StatedUnitsContext } from './stated-units-context';
 
 /** The editable IAS → CAS table of one configuration, with the schema's sentences at its cells. */
 @Component({
   selector: 'sw-position-error-editor',
-  imports: [ReactiveFormsModule, MatButtonModule, MatIconModule],
+  imports: [ReactiveFormsModule, MatButtonModule, MatIconModule, StatedUnitInput],
   template: `
     <table class="cells" [attr.aria-label]="'Position-error table of ' + (configuration().controls.label.value || 'configuration ' + (index() + 1))">
       <thead>
         <tr>
           <th scope="col">Row</th>
-          <th scope="col">IAS (kt)</th>
-          <th scope="col">CAS (kt)</th>
+          <th scope="col">IAS ({{ speedUnit() }})</th>
+          <th scope="col">CAS ({{ speedUnit() }})</th>
           <th scope="col"><span class="sw-visually-hidden">Remove</span></th>
         </tr>
       </thead>
@@ -28,7 +31,8 @@ import { ConfigurationGroup, pointGroup } from './revision-form';
                   type="number"
                   inputmode="decimal"
                   [formControlName]="column.name"
-                  [attr.aria-label]="column.label + ', row ' + (j + 1)"
+                  swStatedUnit="speed"
+                  [attr.aria-label]="column.label + ' (' + speedUnit() + '), row ' + (j + 1)"
                   [attr.data-path]="path(j, column.name)"
                   [attr.aria-invalid]="!!problems()[path(j, column.name)]"
                   [attr.title]="problems()[path(j, column.name)]"
@@ -61,9 +65,12 @@ export class PositionErrorEditor {
   readonly index = input.required<number>();
   readonly problems = input.required<Readonly<Record<string, string>>>();
 
+  private readonly statedUnits = inject(StatedUnitsContext, { optional: true })?.units;
+  protected readonly speedUnit = computed(() => (this.statedUnits ? statedSymbol('speed', this.statedUnits()) : 'kt'));
+
   protected readonly columns = [
-    { name: 'iasKt', label: 'IAS (kt)' },
-    { name: 'casKt', label: 'CAS (kt)' },
+    { name: 'iasKt', label: 'IAS' },
+    { name: 'casKt', label: 'CAS' },
   ] as const;
 
   /** The table's sentences, row by row, beneath it (cells are too narrow to hold them). */

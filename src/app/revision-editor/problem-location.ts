@@ -32,6 +32,9 @@ export const FIELD_WORDS: Readonly<Record<string, string>> = {
   vyseKt: 'VYSE (kt)',
   indicatorMarkingBasis: 'Indicator marking basis',
   notes: 'Notes',
+  statedUnits: 'Units of the flight manual',
+  weight: 'weights in',
+  speed: 'speeds in',
 };
 
 type Json = Record<string, unknown>;

@@ -113,6 +113,7 @@ describe('RevisionEditor', () => {
         { line: 3, values: { configuration_key: 'clean', ias_kt: '160', cas_kt: '156' } },
       ],
       errors: [],
+      statedUnits: { speed: 'kt' },
       configurations: [{ key: 'clean', positionError: [{ iasKt: 35, casKt: 44 }, { iasKt: 160, casKt: 156 }] }],
     });
     await fixture.whenStable();

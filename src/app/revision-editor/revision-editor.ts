@@ -24,24 +24,28 @@ import { CsvUploadPanel } from './csv-upload-panel';
 import { PositionErrorEditor } from './position-error-editor';
 import { problemLocation } from './problem-location';
 import { RevisionForm, type LimitKey } from './revision-form';
+import { StatedUnitInput } from './stated-unit-input';
+import { StatedUnitsContext } from './stated-units-context';
+import { StatedUnitsPanel } from './stated-units-panel';
+import { restateFigures, statedSymbol, statedUnitWords } from '../../../shared/speed-book/stated-units';
 import { TabulatedSpeedGrid } from './tabulated-speed-grid';
 
 const LIMIT_FIELDS: readonly { key: LimitKey; label: string }[] = [
-  { key: 'vnoKt', label: 'VNO (kt)' },
-  { key: 'vneKt', label: 'VNE (kt)' },
-  { key: 'vmoKt', label: 'VMO (kt)' },
-  { key: 'mmo', label: 'MMO (Mach)' },
-  { key: 'vleKt', label: 'VLE (kt)' },
-  { key: 'vloKt', label: 'VLO (kt)' },
-  { key: 'vmcKt', label: 'VMC (kt)' },
-  { key: 'vyseKt', label: 'VYSE (kt)' },
+  { key: 'vnoKt', label: 'VNO' },
+  { key: 'vneKt', label: 'VNE' },
+  { key: 'vmoKt', label: 'VMO' },
+  { key: 'mmo', label: 'MMO' },
+  { key: 'vleKt', label: 'VLE' },
+  { key: 'vloKt', label: 'VLO' },
+  { key: 'vmcKt', label: 'VMC' },
+  { key: 'vyseKt', label: 'VYSE' },
 ];
 
 const WEIGHT_FIELDS = [
-  { key: 'minimumKg', label: 'Minimum weight (kg)' },
-  { key: 'maximumTakeoffKg', label: 'Maximum takeoff weight (kg)' },
-  { key: 'maximumLandingKg', label: 'Maximum landing weight (kg)' },
-  { key: 'referenceKg', label: 'Reference weight (kg)' },
+  { key: 'minimumKg', label: 'Minimum weight' },
+  { key: 'maximumTakeoffKg', label: 'Maximum takeoff weight' },
+  { key: 'maximumLandingKg', label: 'Maximum landing weight' },
+  { key: 'referenceKg', label: 'Reference weight' },
 ] as const;
 
 /**
@@ -65,9 +69,11 @@ const WEIGHT_FIELDS = [
     TabulatedSpeedGrid,
     CsvUploadPanel,
     AttachmentsPanel,
+    StatedUnitInput,
+    StatedUnitsPanel,
   ],
   // Hints and sentences take the room they need, so two-line ones never run into the next row.
-  providers: [{ provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline', subscriptSizing: 'dynamic' } }],
+  providers: [{ provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline', subscriptSizing: 'dynamic' } }, StatedUnitsContext],
   templateUrl: './revision-editor.html',
   styleUrl: './revision-editor.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -89,6 +95,10 @@ export class RevisionEditor {
   protected readonly weightFields = WEIGHT_FIELDS;
 
   protected readonly form = new RevisionForm();
+  /** The flight manual's units, for every weight and speed field and heading (they store kg and kt). */
+  private readonly statedUnits = inject(StatedUnitsContext).units;
+  protected readonly weightUnit = computed(() => statedSymbol('weight', this.statedUnits()));
+  protected readonly speedUnit = computed(() => statedSymbol('speed', this.statedUnits()));
   protected readonly changeSummary = new FormControl('', { nonNullable: true, validators: zodValidator(createRevisionSchema.shape.changeSummary) });
 
   protected readonly loading = signal(true);
@@ -104,10 +114,16 @@ export class RevisionEditor {
   private readonly localProblems = signal<Readonly<Record<string, string>>>({});
   /** The server's word from the last save or submit; it counts until the next edit. */
   private readonly serverProblems = signal<Readonly<Record<string, string>>>({});
-  protected readonly problems = computed<Readonly<Record<string, string>>>(() => ({ ...this.localProblems(), ...this.serverProblems() }));
+  /** The schema's and the server's sentences, their kt and kg figures restated in the flight manual's units. */
+  protected readonly problems = computed<Readonly<Record<string, string>>>(() => {
+    const units = this.statedUnits();
+    const all = { ...this.localProblems(), ...this.serverProblems() };
+    return Object.fromEntries(Object.entries(all).map(([path, sentence]) => [path, restateFigures(sentence, units)]));
+  });
   protected readonly problemList = computed(() => {
     const content = this.form.content();
-    return Object.entries(this.problems()).map(([path, sentence]) => ({ path, where: problemLocation(path, content), sentence }));
+    const units = this.statedUnits();
+    return Object.entries(this.problems()).map(([path, sentence]) => ({ path, where: statedUnitWords(problemLocation(path, content), units), sentence }));
   });
   protected readonly configurationKeys = signal<readonly string[]>([]);
   private formChanges: Subscription | null = null;
@@ -273,9 +289,11 @@ export class RevisionEditor {
   private fillForm(revision: RevisionView): void {
     this.formChanges?.unsubscribe();
     this.form.load(revision.content);
+    this.statedUnits.set(this.form.statedUnits());
     this.changeSummary.setValue(revision.changeSummary);
     this.checkContent();
     this.formChanges = this.form.group.valueChanges.pipe(takeUntilDestroyed(this.destroyRef)).subscribe(() => {
+      this.statedUnits.set(this.form.statedUnits());
       this.dirty.set(true);
       this.serverProblems.set({});
       this.checkContent();

@@ -1,6 +1,7 @@
 import { AbstractControl, FormArray, FormControl, FormGroup } from '@angular/forms';
 import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
 import { AIRCRAFT_CATEGORIES, REVISION_SCHEMA_VERSION, SPEED_BASES, SPEED_PHASES } from '../../../shared/speed-book/revision-content';
+import { CANONICAL_UNITS, UNIT_SYMBOLS, statedUnitsOf, type StatedSpeedUnit, type StatedUnits, type StatedWeightUnit } from '../../../shared/speed-book/stated-units';
 
 export type AircraftCategory = (typeof AIRCRAFT_CATEGORIES)[number];
 export type SpeedPhase = (typeof SPEED_PHASES)[number];
@@ -140,7 +141,20 @@ export class RevisionForm {
     limits: new FormGroup(Object.fromEntries(LIMIT_KEYS.map((key) => [key, numberControl()])) as Record<LimitKey, NumberControl>),
     indicatorMarkingBasis: new FormControl<SpeedBasis | null>('ias'),
     notes: text(),
+    /** The flight manual's units: every weight and speed control still holds kg and kt (see StatedUnitInput). */
+    statedUnits: new FormGroup({
+      weight: new FormControl<StatedWeightUnit>(CANONICAL_UNITS.weight, { nonNullable: true }),
+      speed: new FormControl<StatedSpeedUnit>(CANONICAL_UNITS.speed, { nonNullable: true }),
+    }),
   });
+
+  /** True when the loaded content named its units: then they are written back even when kg and kt. */
+  private namedUnits = false;
+
+  /** The units the flight manual states, as chosen in the form. */
+  statedUnits(): StatedUnits {
+    return this.group.controls.statedUnits.getRawValue();
+  }
 
   get configurations(): FormArray<ConfigurationGroup> {
     return this.group.controls.configurations;
@@ -178,6 +192,8 @@ export class RevisionForm {
     for (const key of LIMIT_KEYS) this.group.controls.limits.controls[key].setValue(num(limits[key]));
     this.group.controls.indicatorMarkingBasis.setValue(oneOf(SPEED_BASES, content['indicatorMarkingBasis']));
     this.group.controls.notes.setValue(str(content['notes']));
+    this.namedUnits = record(content['statedUnits'])['weight'] !== undefined || record(content['statedUnits'])['speed'] !== undefined;
+    this.group.controls.statedUnits.setValue(statedUnitsOf(content));
   }
 
   /** The form as revision content, for the schema and for PATCH. */
@@ -206,6 +222,9 @@ export class RevisionForm {
       limits: { ...withoutUndefined(Object.fromEntries(LIMIT_KEYS.map((key) => [key, out(v.limits[key])]))), vfeKt },
       indicatorMarkingBasis: v.indicatorMarkingBasis ?? undefined,
       notes: v.notes,
+      ...(this.namedUnits || v.statedUnits.weight !== CANONICAL_UNITS.weight || v.statedUnits.speed !== CANONICAL_UNITS.speed
+        ? { statedUnits: { weight: v.statedUnits.weight, speed: v.statedUnits.speed } }
+        : {}),
     };
   }
 
@@ -219,6 +238,8 @@ export class RevisionForm {
     for (const [name, control] of Object.entries(g.limits.controls)) add(`limits.${name}`, control);
     add('indicatorMarkingBasis', g.indicatorMarkingBasis);
     add('notes', g.notes);
+    add('statedUnits.weight', g.statedUnits.controls.weight);
+    add('statedUnits.speed', g.statedUnits.controls.speed);
     this.configurations.controls.forEach((c, i) => {
       add(`configurations.${i}.key`, c.controls.key);
       add(`configurations.${i}.label`, c.controls.label);
@@ -259,6 +280,13 @@ export class RevisionForm {
    */
   acceptUpload(upload: SpeedTableUploadResponse): string[] {
     const changes: string[] = [];
+    const stated = this.statedUnits();
+    const differs = (['speed', 'weight'] as const).filter((quantity) => upload.statedUnits[quantity] !== undefined && upload.statedUnits[quantity] !== stated[quantity]);
+    if (differs.length) {
+      const fileUnits = differs.map((quantity) => `${quantity === 'speed' ? 'speeds' : 'weights'} in ${UNIT_SYMBOLS[upload.statedUnits[quantity]!]}`).join(' and ');
+      const formUnits = differs.map((quantity) => UNIT_SYMBOLS[stated[quantity]]).join(' and ');
+      changes.push(`The file gives ${fileUnits}; this revision states ${formUnits}, so its figures are shown converted. Choose the flight manual's units above if it prints them as the file does.`);
+    }
     if (upload.layout === 'position-error') {
       for (const uploaded of upload.configurations) {
         let configuration = this.configurations.controls.find((c) => c.controls.key.value === uploaded.key);

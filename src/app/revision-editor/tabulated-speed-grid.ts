@@ -1,8 +1,11 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { statedSymbol } from '../../../shared/speed-book/stated-units';
 import { SpeedGroup, TableShape, valuePath } from './revision-form';
+import { StatedUnitInput } from './stated-unit-input';
+import { StatedUnitsContext } from './stated-units-context';
 
 /**
  * The editable grid of a tabulated speed: weights down, pressure altitudes across, one page per
@@ -10,7 +13,7 @@ import { SpeedGroup, TableShape, valuePath } from './revision-form';
  */
 @Component({
   selector: 'sw-tabulated-speed-grid',
-  imports: [ReactiveFormsModule, MatButtonModule, MatIconModule],
+  imports: [ReactiveFormsModule, MatButtonModule, MatIconModule, StatedUnitInput],
   templateUrl: './tabulated-speed-grid.html',
   styleUrl: './editor-tables.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -19,6 +22,10 @@ export class TabulatedSpeedGrid {
   readonly speed = input.required<SpeedGroup>();
   readonly index = input.required<number>();
   readonly problems = input.required<Readonly<Record<string, string>>>();
+
+  private readonly statedUnits = inject(StatedUnitsContext, { optional: true })?.units;
+  protected readonly speedUnit = computed(() => (this.statedUnits ? statedSymbol('speed', this.statedUnits()) : 'kt'));
+  protected readonly weightUnit = computed(() => (this.statedUnits ? statedSymbol('weight', this.statedUnits()) : 'kg'));
 
   protected readonly table = computed(() => this.speed().controls.table.controls);
   private readonly shape = computed(() => new TableShape(this.speed().controls.table));

@@ -3,6 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatIconModule } from '@angular/material/icon';
 import { revisionContentShape } from '../../../shared/speed-book/content-shape';
 import type { RevisionContent, Speed } from '../../../shared/speed-book/revision-content';
+import { UNIT_SYMBOLS, fromCanonical, isCanonical, statedSymbol, statedUnitsOf } from '../../../shared/speed-book/stated-units';
 import { gridPages } from './tabulated-grid';
 
 const CATEGORY_LABELS: Record<RevisionContent['aircraft']['category'], string> = {
@@ -12,6 +13,7 @@ const CATEGORY_LABELS: Record<RevisionContent['aircraft']['category'], string> =
   jet: 'Jet',
 };
 
+/** `kt` rows are shown in the stated speed unit. */
 const LIMIT_ROWS: readonly { key: keyof Omit<RevisionContent['limits'], 'vfeKt'>; label: string; unit: 'kt' | 'Mach' }[] = [
   { key: 'vnoKt', label: 'VNO', unit: 'kt' },
   { key: 'vneKt', label: 'VNE', unit: 'kt' },
@@ -42,6 +44,28 @@ export class RevisionContentView {
     const result = this.parsed();
     return result.success ? result.data : null;
   });
+  /** The units the flight manual prints: every weight and speed below is shown in them. */
+  private readonly units = computed(() => statedUnitsOf(this.content()));
+  protected readonly weightUnit = computed(() => statedSymbol('weight', this.units()));
+  protected readonly speedUnit = computed(() => statedSymbol('speed', this.units()));
+  /** When the flight manual prints other units than the stored kg and kt, a sentence saying so. */
+  protected readonly storedUnitsNote = computed(() => {
+    const units = this.units();
+    if (isCanonical('weight', units) && isCanonical('speed', units)) return null;
+    return `Weights in ${UNIT_SYMBOLS[units.weight]} and speeds in ${UNIT_SYMBOLS[units.speed]}, as the flight manual prints them; the book stores kg and kt.`;
+  });
+
+  /** A stored weight (kg) in the stated unit. */
+  protected weight(kg: number): number {
+    return fromCanonical(kg, 'weight', this.units());
+  }
+
+  /** A stored speed (kt) in the stated unit; null (a gap in a table) stays null. */
+  protected speed(kt: number): number;
+  protected speed(kt: number | null): number | null;
+  protected speed(kt: number | null): number | null {
+    return kt === null ? null : fromCanonical(kt, 'speed', this.units());
+  }
   protected readonly categoryLabel = computed(() => {
     const view = this.view();
     return view ? CATEGORY_LABELS[view.aircraft.category] : '';
@@ -49,7 +73,9 @@ export class RevisionContentView {
   protected readonly limits = computed(() => {
     const view = this.view();
     if (!view) return [];
-    return LIMIT_ROWS.filter((row) => view.limits[row.key] !== undefined).map((row) => ({ ...row, value: view.limits[row.key]! }));
+    return LIMIT_ROWS.filter((row) => view.limits[row.key] !== undefined).map((row) =>
+      row.unit === 'kt' ? { ...row, unit: this.speedUnit(), value: this.speed(view.limits[row.key]!) } : { ...row, value: view.limits[row.key]! },
+    );
   });
   protected readonly vfe = computed(() => {
     const view = this.view();
@@ -57,7 +83,7 @@ export class RevisionContentView {
     return Object.entries(view.limits.vfeKt).map(([key, valueKt]) => ({
       key,
       label: view.configurations.find((c) => c.key === key)?.label ?? key,
-      valueKt,
+      value: this.speed(valueKt),
     }));
   });
   protected readonly tabulated = computed(() =>
@@ -71,9 +97,11 @@ export class RevisionContentView {
   protected speedValue(speed: Speed): string {
     switch (speed.kind) {
       case 'fixed':
-        return `${speed.valueKt} kt`;
-      case 'scaled':
-        return `${speed.referenceKt} kt at ${this.view()?.weights.referenceKg ?? '?'} kg, scaled by √(W/Wref)`;
+        return `${this.speed(speed.valueKt)} ${this.speedUnit()}`;
+      case 'scaled': {
+        const referenceKg = this.view()?.weights.referenceKg;
+        return `${this.speed(speed.referenceKt)} ${this.speedUnit()} at ${referenceKg === undefined ? '?' : this.weight(referenceKg)} ${this.weightUnit()}, scaled by √(W/Wref)`;
+      }
       case 'tabulated':
         return `Table against ${['weight', speed.byPressureAltitudeFt ? 'pressure altitude' : '', speed.byOatC ? 'OAT' : ''].filter(Boolean).join(' × ')}`;
     }
