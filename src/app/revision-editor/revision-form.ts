@@ -1,6 +1,18 @@
 import { AbstractControl, FormArray, FormControl, FormGroup } from '@angular/forms';
 import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
 import { AIRCRAFT_CATEGORIES, REVISION_SCHEMA_VERSION, SPEED_BASES, SPEED_PHASES } from '../../../shared/speed-book/revision-content';
+import {
+  envelopeContent,
+  envelopeFieldControls,
+  envelopeGroup,
+  loadEnvelope,
+  loadRuleExceptions,
+  ruleExceptionGroup,
+  ruleExceptionsContent,
+  speedClassOf,
+  type RuleExceptionGroup,
+  type SpeedClass,
+} from './envelope-form';
 
 export type AircraftCategory = (typeof AIRCRAFT_CATEGORIES)[number];
 export type SpeedPhase = (typeof SPEED_PHASES)[number];
@@ -29,6 +41,8 @@ export type SpeedGroup = FormGroup<{
   phase: FormControl<SpeedPhase | null>;
   configurationKey: FormControl<string>;
   basis: FormControl<SpeedBasis | null>;
+  /** Null: the class is read from the code (content written before speeds declared it). */
+  speedClass: FormControl<SpeedClass | null>;
   kind: FormControl<SpeedKind>;
   referenceKt: NumberControl;
   valueKt: NumberControl;
@@ -97,6 +111,7 @@ function speedGroup(speed: Json): SpeedGroup {
     phase: new FormControl(oneOf(SPEED_PHASES, speed['phase'])),
     configurationKey: text(str(speed['configurationKey'])),
     basis: new FormControl(oneOf(SPEED_BASES, speed['basis'])),
+    speedClass: new FormControl(speedClassOf(speed['speedClass'])),
     kind: new FormControl(kind, { nonNullable: true }),
     referenceKt: numberControl(num(speed['referenceKt'])),
     valueKt: numberControl(num(speed['valueKt'])),
@@ -140,6 +155,10 @@ export class RevisionForm {
     limits: new FormGroup(Object.fromEntries(LIMIT_KEYS.map((key) => [key, numberControl()])) as Record<LimitKey, NumberControl>),
     indicatorMarkingBasis: new FormControl<SpeedBasis | null>('ias'),
     notes: text(),
+    // The envelope proof's fields (envelope-form.ts).
+    envelope: envelopeGroup(),
+    statesReferenceStallSpeeds: new FormControl(false, { nonNullable: true }),
+    ruleExceptions: new FormArray<RuleExceptionGroup>([]),
   });
 
   get configurations(): FormArray<ConfigurationGroup> {
@@ -148,6 +167,14 @@ export class RevisionForm {
 
   get speeds(): FormArray<SpeedGroup> {
     return this.group.controls.speeds;
+  }
+
+  get ruleExceptions(): FormArray<RuleExceptionGroup> {
+    return this.group.controls.ruleExceptions;
+  }
+
+  addRuleException(ruleId = ''): void {
+    this.ruleExceptions.push(ruleExceptionGroup(ruleId));
   }
 
   /** Fills the form from a draft's content, tolerating whatever is missing or malformed. */
@@ -178,6 +205,9 @@ export class RevisionForm {
     for (const key of LIMIT_KEYS) this.group.controls.limits.controls[key].setValue(num(limits[key]));
     this.group.controls.indicatorMarkingBasis.setValue(oneOf(SPEED_BASES, content['indicatorMarkingBasis']));
     this.group.controls.notes.setValue(str(content['notes']));
+    loadEnvelope(this.group.controls.envelope, content);
+    this.group.controls.statesReferenceStallSpeeds.setValue(content['statesReferenceStallSpeeds'] === true);
+    loadRuleExceptions(this.ruleExceptions, content);
   }
 
   /** The form as revision content, for the schema and for PATCH. */
@@ -206,6 +236,11 @@ export class RevisionForm {
       limits: { ...withoutUndefined(Object.fromEntries(LIMIT_KEYS.map((key) => [key, out(v.limits[key])]))), vfeKt },
       indicatorMarkingBasis: v.indicatorMarkingBasis ?? undefined,
       notes: v.notes,
+      ...withoutUndefined({
+        envelope: envelopeContent(this.group.controls.envelope),
+        statesReferenceStallSpeeds: v.statesReferenceStallSpeeds || undefined,
+        ruleExceptions: ruleExceptionsContent(this.ruleExceptions),
+      }),
     };
   }
 
@@ -219,6 +254,8 @@ export class RevisionForm {
     for (const [name, control] of Object.entries(g.limits.controls)) add(`limits.${name}`, control);
     add('indicatorMarkingBasis', g.indicatorMarkingBasis);
     add('notes', g.notes);
+    add('statesReferenceStallSpeeds', g.statesReferenceStallSpeeds);
+    envelopeFieldControls(g.envelope, g.ruleExceptions, add);
     this.configurations.controls.forEach((c, i) => {
       add(`configurations.${i}.key`, c.controls.key);
       add(`configurations.${i}.label`, c.controls.label);
@@ -229,7 +266,7 @@ export class RevisionForm {
       });
     });
     this.speeds.controls.forEach((s, i) => {
-      for (const name of ['code', 'label', 'phase', 'configurationKey', 'basis', 'kind'] as const) add(`speeds.${i}.${name}`, s.controls[name]);
+      for (const name of ['code', 'label', 'phase', 'configurationKey', 'basis', 'speedClass', 'kind'] as const) add(`speeds.${i}.${name}`, s.controls[name]);
       const kind = s.controls.kind.value;
       if (kind === 'scaled') add(`speeds.${i}.referenceKt`, s.controls.referenceKt);
       if (kind === 'fixed') add(`speeds.${i}.valueKt`, s.controls.valueKt);
@@ -305,7 +342,7 @@ function nest(values: (number | null)[][][], hasAltitude: boolean, hasOat: boole
 }
 
 function speedContent(s: ReturnType<SpeedGroup['getRawValue']>): Json {
-  const base = { code: s.code, label: s.label, phase: s.phase ?? undefined, configurationKey: s.configurationKey, basis: s.basis ?? undefined, kind: s.kind };
+  const base = { code: s.code, label: s.label, phase: s.phase ?? undefined, configurationKey: s.configurationKey, basis: s.basis ?? undefined, speedClass: s.speedClass ?? undefined, kind: s.kind };
   if (s.kind === 'scaled') return withoutUndefined({ ...base, referenceKt: out(s.referenceKt) });
   if (s.kind === 'fixed') return withoutUndefined({ ...base, valueKt: out(s.valueKt) });
   const hasAltitude = s.table.altitudes.length > 0;
