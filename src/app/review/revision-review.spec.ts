@@ -1,10 +1,12 @@
 import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
 import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import type { SessionUser } from '../../../shared/api/auth';
+import { smallCoverageReport } from '../../../shared/api/coverage-fixtures';
 import { demoPistonTrainerContentRevised } from '../../../shared/speed-book/demo-content';
+import { COVERAGE_PATHS } from '../coverage/coverage-api';
 import { AuthService } from '../core/auth/auth-service';
 import { PEOPLE, revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/revision-fixtures';
 import { REVISION_PATHS } from '../speed-books/revisions-api';
@@ -14,8 +16,8 @@ jest.setTimeout(30_000);
 
 const IN_REVIEW = 12;
 const PUBLISHED = 8;
-const inReview = () =>
-  revisionView(demoPistonTrainerContentRevised() as unknown as Record<string, unknown>, {
+const inReview = (content: Record<string, unknown> = demoPistonTrainerContentRevised() as unknown as Record<string, unknown>) =>
+  revisionView(content, {
     id: IN_REVIEW,
     number: 3,
     status: 'in_review',
@@ -46,10 +48,14 @@ describe('RevisionReview', () => {
 
   afterEach(() => backend.verify());
 
-  async function openReview(attachments: unknown[] = []): Promise<void> {
+  async function openReview(
+    attachments: unknown[] = [],
+    { content, coverage = (request) => request.flush({ report: smallCoverageReport() }) }: { content?: Record<string, unknown>; coverage?: (request: TestRequest) => void } = {},
+  ): Promise<void> {
     fixture.componentRef.setInput('revisionId', IN_REVIEW);
     await fixture.whenStable();
-    backend.expectOne(REVISION_PATHS.revision(IN_REVIEW)).flush({ revision: inReview() });
+    coverage(backend.expectOne(COVERAGE_PATHS.ofRevision(IN_REVIEW)));
+    backend.expectOne(REVISION_PATHS.revision(IN_REVIEW)).flush({ revision: inReview(content) });
     backend.expectOne(REVISION_PATHS.speedBook(1)).flush({ speedBook: speedBook([revisionSummary({ id: IN_REVIEW, number: 3, status: 'in_review' }), revisionSummary()]) });
     backend.expectOne(REVISION_PATHS.attachments(IN_REVIEW)).flush({ attachments });
     backend.expectOne(REVISION_PATHS.diff(IN_REVIEW, PUBLISHED)).flush({
@@ -145,5 +151,44 @@ describe('RevisionReview', () => {
     request.flush({ revision: { ...inReview(), status: 'draft', returnReason: 'VR does not match the AFM page 5-3 table.' } });
     await fixture.whenStable();
     expect(page.querySelector('[data-testid="review-outcome"]')?.textContent).toContain('Revision 3 went back to Ines Marlow as a draft');
+  });
+
+  it('shows the coverage picture of the revision under review, with the recorded exceptions beside it', async () => {
+    user.set(sessionUser('approver'));
+    const content = {
+      ...(demoPistonTrainerContentRevised() as unknown as Record<string, unknown>),
+      ruleExceptions: [
+        { ruleId: 'vref-vmc', reason: 'AFM 4.3: the approach is flown at VREF + 5 with one engine out.' },
+        { ruleId: 'vx-vy', reason: 'AFM 5.1: VX and VY are equal above 8,000 ft.' },
+      ],
+    };
+    await openReview([], { content });
+    const section = page.querySelector('[data-testid="review-coverage"]')!;
+    expect(section.querySelectorAll('[data-testid="coverage-sheet"]')).toHaveLength(2);
+    expect(section.querySelector('button.cell[data-outcome="refused"]')?.getAttribute('aria-label')).toBe('3,400 kg, 4,000 ft, +40 °C: card refused');
+    expect(section.querySelector('[data-testid="coverage-verdict"]')?.textContent).toContain('The book does not yet cover its envelope.');
+    const exceptions = Array.from(section.querySelectorAll('[data-testid="recorded-exceptions"] .exception')).map((e) => e.textContent!.replace(/\s+/g, ' ').trim());
+    expect(exceptions).toEqual([
+      'VREF ≥ VMC holds everywhere in the envelope AFM 4.3: the approach is flown at VREF + 5 with one engine out.',
+      'vx-vy holds everywhere in the envelope AFM 5.1: VX and VY are equal above 8,000 ft.',
+    ]);
+    // The rule the report finds broken without an exception says so beside it.
+    expect(section.querySelector('[data-rule="v1-vr-v2"] [data-testid="rule-no-exception"]')).not.toBeNull();
+  });
+
+  it('keeps the review usable when the coverage cannot be had, and tries again on request', async () => {
+    user.set(sessionUser('approver'));
+    await openReview([], { coverage: (request) => request.error(new ProgressEvent('error'), { status: 0 }) });
+    expect(page.querySelector('[data-testid="coverage-error"]')?.textContent).toContain('The coverage could not be shown: Speedwright cannot reach the server.');
+    expect(page.querySelector('[data-testid="no-exceptions"]')).not.toBeNull();
+    expect(diffRows()).toHaveLength(4);
+    expect(button('publish')).not.toBeNull();
+
+    Array.from(page.querySelectorAll<HTMLButtonElement>('[data-testid="coverage-error"] button'))[0]!.click();
+    await fixture.whenStable();
+    backend.expectOne(COVERAGE_PATHS.ofRevision(IN_REVIEW)).flush({ report: smallCoverageReport() });
+    await fixture.whenStable();
+    expect(page.querySelector('[data-testid="coverage-error"]')).toBeNull();
+    expect(page.querySelectorAll('[data-testid="review-coverage"] [data-testid="coverage-sheet"]')).toHaveLength(2);
   });
 });

@@ -10,7 +10,10 @@ import { RouterLink } from '@angular/router';
 import { forkJoin, of, switchMap } from 'rxjs';
 import type { AttachmentView } from '../../../shared/api/attachments';
 import { reasonSchema, type RevisionView } from '../../../shared/api/revisions';
+import type { CoverageReport } from '../../../shared/card/coverage-report';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { CoverageApi } from '../coverage/coverage-api';
+import { CoveragePicture } from '../coverage/coverage-picture';
 import { AuthService } from '../core/auth/auth-service';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionContentView } from '../speed-books/revision-content-view';
@@ -23,7 +26,9 @@ import { SourcePages } from './source-pages';
 /**
  * The approver's review of one revision: the diff against the published revision beside the
  * source pages, then publish or return with a reason. Nobody approves their own revision; the
- * server refuses it too, and its sentence is shown when it does.
+ * server refuses it too, and its sentence is shown when it does. The envelope proof (coverage
+ * picture) shows, before publishing, exactly where the book gives a card and where it does not,
+ * with the engineer's recorded exceptions beside it.
  */
 @Component({
   selector: 'sw-revision-review',
@@ -40,6 +45,7 @@ import { SourcePages } from './source-pages';
     UtcDatePipe,
     DiffTable,
     SourcePages,
+    CoveragePicture,
   ],
   templateUrl: './revision-review.html',
   styleUrl: './revision-review.scss',
@@ -47,6 +53,7 @@ import { SourcePages } from './source-pages';
 })
 export class RevisionReview {
   private readonly api = inject(RevisionsApi);
+  private readonly coverageApi = inject(CoverageApi);
   private readonly destroyRef = inject(DestroyRef);
   private readonly user = inject(AuthService).user;
 
@@ -64,6 +71,22 @@ export class RevisionReview {
   protected readonly outcome = signal<string | null>(null);
   protected readonly returnReason = new FormControl('', { nonNullable: true, validators: zodValidator(reasonSchema.shape.reason) });
 
+  protected readonly coverage = signal<CoverageReport | null>(null);
+  protected readonly coverageLoading = signal(false);
+  protected readonly coverageProblem = signal<string | null>(null);
+  /** Every exception the revision records, with the rule's title when the report names it. */
+  protected readonly recordedExceptions = computed(() => {
+    const content = this.revision()?.content ?? {};
+    const exceptions = Array.isArray(content['ruleExceptions']) ? (content['ruleExceptions'] as { ruleId?: unknown; reason?: unknown }[]) : [];
+    const rules = this.coverage()?.rules ?? [];
+    return exceptions
+      .filter((e) => typeof e.ruleId === 'string' && typeof e.reason === 'string')
+      .map((e) => {
+        const rule = rules.find((r) => r.ruleId === e.ruleId);
+        return { ruleId: e.ruleId as string, reason: e.reason as string, title: rule?.title ?? (e.ruleId as string), brokenAt: rule?.brokenAt ?? 0 };
+      });
+  });
+
   protected readonly published = computed(() => this.book()?.currentRevision ?? null);
   protected readonly ownRevision = computed(() => this.revision()?.authorId === this.user()?.id);
   protected readonly inReview = computed(() => this.revision()?.status === 'in_review');
@@ -74,6 +97,31 @@ export class RevisionReview {
 
   protected reload(): void {
     this.loadReview(this.revisionId());
+  }
+
+  protected reloadCoverage(): void {
+    this.loadCoverage(this.revisionId());
+  }
+
+  /** Apart from the rest of the page, so a slow or failed sweep never hides the diff. */
+  private loadCoverage(id: number): void {
+    this.coverage.set(null);
+    this.coverageProblem.set(null);
+    if (!Number.isFinite(id)) return;
+    this.coverageLoading.set(true);
+    this.coverageApi
+      .revisionCoverage(id)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (report) => {
+          this.coverage.set(report);
+          this.coverageLoading.set(false);
+        },
+        error: (error: ApiRequestError) => {
+          this.coverageProblem.set(error.message);
+          this.coverageLoading.set(false);
+        },
+      });
   }
 
   protected publishRevision(): void {
@@ -115,6 +163,7 @@ export class RevisionReview {
       this.loading.set(false);
       return;
     }
+    this.loadCoverage(id);
     this.api
       .revision(id)
       .pipe(
