@@ -61,7 +61,7 @@ describe('CoveragePicture', () => {
       ...['✓8 issued', '✕0 refused', '!0 rule broken', 'of 8 points'],
     ]);
     expect(text('[data-testid="coverage-verdict"] > span')).toBe(
-      'The book does not yet cover its envelope. 26 points swept: 24 card issued, 1 card refused, 1 with a rule broken. 1 broken rule has no recorded exception.',
+      'The book does not yet cover its envelope. 26 points swept: 24 give a card, 1 is refused, 1 breaks an ordering rule. 1 broken rule has no recorded exception.',
     );
   });
 
@@ -81,6 +81,12 @@ describe('CoveragePicture', () => {
     cellAt(0, -20, 2000, 3000).dispatchEvent(new MouseEvent('mouseenter'));
     await fixture.whenStable();
     expect(detail()).toBe('✓3,000 kg, 2,000 ft, −20 °C: card issued. A card is given at this point.');
+    // The pointer leaving gives back the cell last tapped, which stays marked.
+    cellAt(0, -20, 2000, 3000).dispatchEvent(new MouseEvent('mouseleave'));
+    await fixture.whenStable();
+    expect(detail()).toMatch(/^!2,600 kg, 0 ft, −20 °C: rule broken\./);
+    expect(cellAt(0, -20, 0, 2600).classList).toContain('pinned');
+    expect(page.querySelectorAll('button.cell.pinned')).toHaveLength(1);
   });
 
   it('keeps one tab stop per grid and moves within it with the arrow keys', async () => {
@@ -129,7 +135,7 @@ describe('CoveragePicture', () => {
   it('says plainly when the book covers its whole envelope', async () => {
     const sheet = coverageSheet('takeoff', 'takeoff-flap', 'Flaps 10', { weightsKg: [700, 900], pressureAltitudesFt: [-1000, 0, 5000], oatsC: [-30, 45] });
     await draw(coverageReport([sheet]));
-    expect(text('[data-testid="coverage-verdict"] > span')).toContain('The book gives a card everywhere in its envelope. 12 points swept: 12 card issued, 0 card refused, 0 with a rule broken.');
+    expect(text('[data-testid="coverage-verdict"] > span')).toContain('The book gives a card everywhere in its envelope. 12 points swept: 12 give a card, 0 are refused, 0 break an ordering rule.');
     expect(page.querySelector('[data-testid="coverage-rules"]')).toBeNull();
     expect(text('[data-testid="coverage-sheet"] .envelope')).toBe('Envelope: 700 kg to 900 kg; −1,000 ft to 5,000 ft; −30 °C to +45 °C');
   });

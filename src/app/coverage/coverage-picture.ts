@@ -64,13 +64,23 @@ export class CoveragePicture {
   protected readonly counts = computed(() => this.report().counts);
   protected readonly blockingRules = computed(() => this.report().rules.filter((r) => r.brokenAt > 0 && r.exception === undefined));
 
-  /** The cell whose reason is shown under each sheet (last hovered, tapped or focused). */
-  private readonly selected = signal<Readonly<Record<string, CellView>>>({});
+  /** Per sheet, the cell last tapped or focused: its reason stays shown. */
+  private readonly pinned = signal<Readonly<Record<string, CellView>>>({});
+  /** Per sheet, the cell under the pointer: shown while it is there, then the pinned one again. */
+  private readonly hovered = signal<Readonly<Record<string, CellView | undefined>>>({});
   /** Per grid, the cell that takes the focus when the grid is tabbed into. */
   private readonly active = signal<Readonly<Record<string, string>>>({});
 
   protected selectedIn(sheet: SheetView): CellView | undefined {
-    return this.selected()[sheet.key];
+    return this.hovered()[sheet.key] ?? this.pinned()[sheet.key];
+  }
+
+  protected isPinned(sheet: SheetView, cell: CellView): boolean {
+    return this.pinned()[sheet.key] === cell;
+  }
+
+  protected hoverCell(sheet: SheetView, cell: CellView | undefined): void {
+    this.hovered.update((all) => ({ ...all, [sheet.key]: cell }));
   }
 
   protected isActive(band: BandView, cell: CellView): boolean {
@@ -79,7 +89,8 @@ export class CoveragePicture {
   }
 
   protected showCell(sheet: SheetView, band: BandView, cell: CellView): void {
-    this.selected.update((all) => ({ ...all, [sheet.key]: cell }));
+    this.pinned.update((all) => ({ ...all, [sheet.key]: cell }));
+    this.hovered.update((all) => ({ ...all, [sheet.key]: undefined }));
     this.active.update((all) => ({ ...all, [band.key]: cell.key }));
   }
 

@@ -176,6 +176,13 @@ describe('RevisionReview', () => {
     expect(section.querySelector('[data-rule="v1-vr-v2"] [data-testid="rule-no-exception"]')).not.toBeNull();
   });
 
+  it('lists an exception the report carries even when the content read on this page has none', async () => {
+    user.set(sessionUser('approver'));
+    await openReview();
+    const exceptions = Array.from(page.querySelectorAll('[data-testid="recorded-exceptions"] .exception')).map((e) => e.textContent!.replace(/\s+/g, ' ').trim());
+    expect(exceptions).toEqual(['VREF ≥ VMC holds everywhere in the envelope AFM 4.3: VMC is the air-minimum control speed with the critical engine out; landing flap approach uses VREF + 5.']);
+  });
+
   it('keeps the review usable when the coverage cannot be had, and tries again on request', async () => {
     user.set(sessionUser('approver'));
     await openReview([], { coverage: (request) => request.error(new ProgressEvent('error'), { status: 0 }) });

@@ -74,17 +74,21 @@ export class RevisionReview {
   protected readonly coverage = signal<CoverageReport | null>(null);
   protected readonly coverageLoading = signal(false);
   protected readonly coverageProblem = signal<string | null>(null);
-  /** Every exception the revision records, with the rule's title when the report names it. */
+  /**
+   * Every exception the revision records, with the rule's title when the report names it; the
+   * report's own findings with an exception count too (the server read them from the content).
+   */
   protected readonly recordedExceptions = computed(() => {
     const content = this.revision()?.content ?? {};
-    const exceptions = Array.isArray(content['ruleExceptions']) ? (content['ruleExceptions'] as { ruleId?: unknown; reason?: unknown }[]) : [];
+    const recorded = Array.isArray(content['ruleExceptions']) ? (content['ruleExceptions'] as { ruleId?: unknown; reason?: unknown }[]) : [];
     const rules = this.coverage()?.rules ?? [];
-    return exceptions
-      .filter((e) => typeof e.ruleId === 'string' && typeof e.reason === 'string')
-      .map((e) => {
-        const rule = rules.find((r) => r.ruleId === e.ruleId);
-        return { ruleId: e.ruleId as string, reason: e.reason as string, title: rule?.title ?? (e.ruleId as string), brokenAt: rule?.brokenAt ?? 0 };
-      });
+    const exceptions = new Map<string, string>();
+    for (const e of recorded) if (typeof e.ruleId === 'string' && typeof e.reason === 'string') exceptions.set(e.ruleId, e.reason);
+    for (const rule of rules) if (rule.exception !== undefined && !exceptions.has(rule.ruleId)) exceptions.set(rule.ruleId, rule.exception);
+    return [...exceptions].map(([ruleId, reason]) => {
+      const rule = rules.find((r) => r.ruleId === ruleId);
+      return { ruleId, reason, title: rule?.title ?? ruleId, brokenAt: rule?.brokenAt ?? 0 };
+    });
   });
 
   protected readonly published = computed(() => this.book()?.currentRevision ?? null);

@@ -163,7 +163,7 @@ describe('RevisionEditor: envelope, speed classes, rule exceptions and the live 
     await answer(first, { report: smallCoverageReport() });
     expect(text('[data-testid="coverage-state"]')).toBe('Checked on the server for the content as it stands now.');
     expect(page.querySelectorAll('sw-coverage-picture [data-testid="coverage-sheet"]')).toHaveLength(2);
-    expect(text('sw-coverage-picture [data-testid="coverage-verdict"]')).toContain('1 card refused');
+    expect(text('sw-coverage-picture [data-testid="coverage-verdict"]')).toContain('1 is refused');
 
     await type('weights.maximumTakeoffKg', '1150');
     await answer(await sweep(), null, { status: 0, statusText: 'Unknown Error' });
