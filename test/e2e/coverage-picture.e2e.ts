@@ -72,7 +72,8 @@ describe('coverage picture in Chromium', () => {
     await refused.first().waitFor({ timeout: SWEEP_MS });
     expect(await refused.count()).toBeGreaterThan(0);
     await refused.first().focus();
-    await expectText(live.getByTestId('coverage-detail'), 'card refused');
+    const gapSheet = live.getByTestId('coverage-sheet').filter({ has: engineer.locator('button.cell[data-outcome="refused"]') });
+    await expectText(gapSheet.first().getByTestId('coverage-detail'), 'card refused');
     expect(await live.getByTestId('coverage-verdict').innerText()).toContain('The book does not yet cover its envelope.');
     await screenshot(engineer, 'e2e-editor-gap.png');
 

@@ -161,7 +161,9 @@ describe('RevisionEditor: envelope, speed classes, rule exceptions and the live 
     expect((first.request.body as { content: Content }).content['envelope']).toEqual(withEnvelope()['envelope']);
     expect(text('[data-testid="coverage-state"]')).toContain('Sweeping the envelope on the server');
     await answer(first, { report: smallCoverageReport() });
-    expect(text('[data-testid="coverage-state"]')).toBe('Checked on the server for the content as it stands now.');
+    expect(text('[data-testid="coverage-state"]')).toBe(
+      "Checked on the server for the content as it stands now.Submitting will be refused until every point gives a card and every broken rule has the flight manual's reason recorded below.",
+    );
     expect(page.querySelectorAll('sw-coverage-picture [data-testid="coverage-sheet"]')).toHaveLength(2);
     expect(text('sw-coverage-picture [data-testid="coverage-verdict"]')).toContain('1 is refused');
 
@@ -205,6 +207,8 @@ describe('RevisionEditor: envelope, speed classes, rule exceptions and the live 
     const navigate = jest.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
     await openDraft(withEnvelope());
     await answer(await sweep(), { report: { ...smallCoverageReport(), sheets: [], rules: [], counts: { points: 0, issued: 0, refused: 0, ruleBroken: 0 }, passes: true } });
+    expect(text('[data-testid="coverage-state"]')).toBe('Checked on the server for the content as it stands now.');
+    expect(page.querySelector('[data-testid="coverage-blocks-submit"]')).toBeNull();
     await type('changeSummary' as string, 'Envelope declared.');
     button('Submit for review').click();
     await fixture.whenStable();
