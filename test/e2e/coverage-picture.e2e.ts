@@ -58,7 +58,8 @@ describe('coverage picture in Chromium', () => {
     expect(await live.locator('button.cell[data-outcome="refused"]').count()).toBe(0);
 
     // Cut VR's highest pressure-altitude column: the table now stops below the envelope's top.
-    const vr = engineer.getByTestId('speed-editor').filter({ has: engineer.locator('legend', { hasText: /^VR/ }) });
+    const vr = engineer.getByTestId('speed-editor').filter({ has: engineer.locator('legend', { hasText: /^VR:/ }) });
+    await vr.locator('input[aria-label^="Pressure altitude of column"]').first().waitFor();
     const columns = await vr.locator('input[aria-label^="Pressure altitude of column"]').count();
     const oatPages = Math.max(1, await vr.locator('input[aria-label^="OAT of page"]').count());
     const perPage = columns / oatPages;
