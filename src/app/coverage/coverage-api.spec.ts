@@ -93,4 +93,14 @@ describe('CoverageApi', () => {
     expect(error).not.toBeInstanceOf(CoverageRefusal);
     expect(error).toMatchObject({ status: 409, message: 'Only a draft can be submitted.' });
   });
+
+  it('reads a 422 coverage_failed of approve (publish re-checks) the same way', async () => {
+    const answer = firstValueFrom(api.approve(12));
+    const request = backend.expectOne(COVERAGE_PATHS.approve(12));
+    expect(request.request.method).toBe('POST');
+    request.flush({ error: { code: 'coverage_failed', message: 'Publishing refused: 1 point gives no card.' }, report: smallCoverageReport() }, { status: 422, statusText: 'Unprocessable Content' });
+    const error = await answer.catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(CoverageRefusal);
+    expect((error as CoverageRefusal).message).toBe('Publishing refused: 1 point gives no card.');
+  });
 });

@@ -11,6 +11,7 @@ export const COVERAGE_PATHS = {
   ofRevision: (id: number) => `/api/revisions/${id}/coverage`,
   ofContent: '/api/revisions/coverage',
   submit: (id: number) => `/api/revisions/${id}/submit`,
+  approve: (id: number) => `/api/revisions/${id}/approve`,
 } as const;
 
 /** A sweep of the demo jet takes about two seconds on a loaded server; the line may be slow too. */
@@ -29,8 +30,8 @@ export class CoverageRefusal extends ApiRequestError {
 
 /**
  * The envelope proof of speed books as the API serves it: the report of a stored revision, of
- * the editor's unsaved content, and submit with its 422 `coverage_failed` read into a
- * `CoverageRefusal` carrying the report (every other failure stays an ApiRequestError).
+ * the editor's unsaved content, and submit and approve with their 422 `coverage_failed` read
+ * into a `CoverageRefusal` carrying the report (every other failure stays an ApiRequestError).
  */
 @Injectable({ providedIn: 'root' })
 export class CoverageApi {
@@ -58,7 +59,16 @@ export class CoverageApi {
 
   /** `POST /api/revisions/:id/submit`; fails with a `CoverageRefusal` when the envelope proof fails. */
   submit(revisionId: number): Observable<RevisionView> {
-    return this.http.post<unknown>(COVERAGE_PATHS.submit(revisionId), {}).pipe(
+    return this.step(COVERAGE_PATHS.submit(revisionId));
+  }
+
+  /** `POST /api/revisions/:id/approve`: publishing checks the envelope again, and refuses the same way. */
+  approve(revisionId: number): Observable<RevisionView> {
+    return this.step(COVERAGE_PATHS.approve(revisionId));
+  }
+
+  private step(url: string): Observable<RevisionView> {
+    return this.http.post<unknown>(url, {}).pipe(
       timeout({ first: SWEEP_TIMEOUT_MS }),
       parseResponse(revisionResponseSchema),
       map((body) => body.revision),

@@ -198,4 +198,22 @@ describe('RevisionReview', () => {
     expect(page.querySelector('[data-testid="coverage-error"]')).toBeNull();
     expect(page.querySelectorAll('[data-testid="review-coverage"] [data-testid="coverage-sheet"]')).toHaveLength(2);
   });
+
+  it('says before publishing that a failing coverage check will refuse it, and shows the report publish refused with', async () => {
+    user.set(sessionUser('approver'));
+    const passing = { ...smallCoverageReport(), sheets: [], rules: [], counts: { points: 0, issued: 0, refused: 0, ruleBroken: 0 }, passes: true };
+    await openReview([], { coverage: (request) => request.flush({ report: passing }) });
+    expect(page.querySelector('[data-testid="coverage-blocks-publish"]')).toBeNull();
+
+    button('publish')!.click();
+    await fixture.whenStable();
+    backend
+      .expectOne({ method: 'POST', url: REVISION_PATHS.step(IN_REVIEW, 'approve') })
+      .flush({ error: 'coverage_failed', message: 'The book gives no card at 1 point of its envelope.', report: smallCoverageReport() }, { status: 422, statusText: 'Unprocessable Content' });
+    await fixture.whenStable();
+    expect(page.querySelector('[data-testid="review-action-error"]')?.textContent).toContain('The book gives no card at 1 point of its envelope.');
+    expect(page.querySelector('[data-testid="review-coverage"] button.cell[data-outcome="refused"]')?.getAttribute('aria-label')).toBe('3,400 kg, 4,000 ft, +40 °C: card refused');
+    expect(page.querySelector('[data-testid="coverage-blocks-publish"]')?.textContent).toContain('publishing will be refused');
+    expect(page.querySelector('[data-testid="review-outcome"]')).toBeNull();
+  });
 });

@@ -12,7 +12,7 @@ import type { AttachmentView } from '../../../shared/api/attachments';
 import { reasonSchema, type RevisionView } from '../../../shared/api/revisions';
 import type { CoverageReport } from '../../../shared/card/coverage-report';
 import { ApiRequestError } from '../core/api/api-request-error';
-import { CoverageApi } from '../coverage/coverage-api';
+import { CoverageApi, CoverageRefusal } from '../coverage/coverage-api';
 import { CoveragePicture } from '../coverage/coverage-picture';
 import { AuthService } from '../core/auth/auth-service';
 import { zodValidator } from '../core/forms/zod-validator';
@@ -131,7 +131,7 @@ export class RevisionReview {
   protected publishRevision(): void {
     const revision = this.revision();
     if (!revision || this.ownRevision()) return;
-    this.act(this.api.approve(revision.id), (published) => `Revision ${published.number} is published and signed; it is now the current revision of ${this.book()?.title ?? 'its speed book'}.`);
+    this.act(this.coverageApi.approve(revision.id), (published) => `Revision ${published.number} is published and signed; it is now the current revision of ${this.book()?.title ?? 'its speed book'}.`);
   }
 
   protected returnRevision(): void {
@@ -152,6 +152,8 @@ export class RevisionReview {
       },
       error: (error: ApiRequestError) => {
         this.busy.set(false);
+        // Publishing re-checks the envelope: the report it refused with replaces the one shown.
+        if (error instanceof CoverageRefusal) this.coverage.set(error.report);
         this.actionProblem.set(error.fields['reason'] ?? error.message);
       },
     });
