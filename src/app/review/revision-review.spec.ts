@@ -1,10 +1,12 @@
 import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
 import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import type { SessionUser } from '../../../shared/api/auth';
+import { smallCoverageReport } from '../../../shared/api/coverage-fixtures';
 import { demoPistonTrainerContentRevised } from '../../../shared/speed-book/demo-content';
+import { COVERAGE_PATHS } from '../coverage/coverage-api';
 import { AuthService } from '../core/auth/auth-service';
 import { PEOPLE, revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/revision-fixtures';
 import { REVISION_PATHS } from '../speed-books/revisions-api';
@@ -53,9 +55,17 @@ describe('RevisionReview', () => {
     { path: 'limits.vfeKt.landing-flap', before: 85, after: 87, kind: 'changed' },
   ];
 
-  async function openReview(attachments: unknown[] = [], content?: Record<string, unknown>, changes: unknown[] = TRAINER_CHANGES): Promise<void> {
+  async function openReview(
+    attachments: unknown[] = [],
+    {
+      content,
+      changes = TRAINER_CHANGES,
+      coverage = (request) => request.flush({ report: smallCoverageReport() }),
+    }: { content?: Record<string, unknown>; changes?: unknown[]; coverage?: (request: TestRequest) => void } = {},
+  ): Promise<void> {
     fixture.componentRef.setInput('revisionId', IN_REVIEW);
     await fixture.whenStable();
+    coverage(backend.expectOne(COVERAGE_PATHS.ofRevision(IN_REVIEW)));
     backend.expectOne(REVISION_PATHS.revision(IN_REVIEW)).flush({ revision: inReview(content) });
     backend.expectOne(REVISION_PATHS.speedBook(1)).flush({ speedBook: speedBook([revisionSummary({ id: IN_REVIEW, number: 3, status: 'in_review' }), revisionSummary()]) });
     backend.expectOne(REVISION_PATHS.attachments(IN_REVIEW)).flush({ attachments });
@@ -97,13 +107,13 @@ describe('RevisionReview', () => {
     const kt = (mph: number) => (mph * 1609.344) / 1852;
     const kg = (lb: number) => lb * 0.45359237;
     const content = { ...(demoPistonTrainerContentRevised() as unknown as Record<string, unknown>), statedUnits: { weight: 'lb', speed: 'mph' } };
-    await openReview([], content, [
+    await openReview([], { content, changes: [
       { path: 'weights.maximumTakeoffKg', before: kg(2400), after: kg(2450), kind: 'changed' },
       { path: 'speeds[VX@clean].valuesKt.1.0', before: kt(72), after: kt(73), kind: 'changed' },
       { path: 'speeds[VAPP@takeoff-flap]', after: { code: 'VAPP', kind: 'fixed', valueKt: kt(78) }, kind: 'added' },
       { path: 'limits.vneKt', before: kt(184), after: kt(182), kind: 'changed' },
       { path: 'statedUnits', after: { weight: 'lb', speed: 'mph' }, kind: 'added' },
-    ]);
+    ] });
     expect(page.querySelector('[data-testid="review-units"]')?.textContent).toContain('Weights in lb, speeds in mph, as the flight manual of this revision prints them; the stored kg and kt are in brackets.');
     expect(diffRows()).toEqual([
       ['Weights › maximum takeoff weight (lb)', 'Changed', '2400 lb (1088.6 kg)', '2450 lb (1111.3 kg)'],
@@ -175,5 +185,69 @@ describe('RevisionReview', () => {
     request.flush({ revision: { ...inReview(), status: 'draft', returnReason: 'VR does not match the AFM page 5-3 table.' } });
     await fixture.whenStable();
     expect(page.querySelector('[data-testid="review-outcome"]')?.textContent).toContain('Revision 3 went back to Ines Marlow as a draft');
+  });
+
+  it('shows the coverage picture of the revision under review, with the recorded exceptions beside it', async () => {
+    user.set(sessionUser('approver'));
+    const content = {
+      ...(demoPistonTrainerContentRevised() as unknown as Record<string, unknown>),
+      ruleExceptions: [
+        { ruleId: 'vref-vmc', reason: 'AFM 4.3: the approach is flown at VREF + 5 with one engine out.' },
+        { ruleId: 'vx-vy', reason: 'AFM 5.1: VX and VY are equal above 8,000 ft.' },
+      ],
+    };
+    await openReview([], { content });
+    const section = page.querySelector('[data-testid="review-coverage"]')!;
+    expect(section.querySelectorAll('[data-testid="coverage-sheet"]')).toHaveLength(2);
+    expect(section.querySelector('button.cell[data-outcome="refused"]')?.getAttribute('aria-label')).toBe('3,400 kg, 4,000 ft, +40 °C: card refused');
+    expect(section.querySelector('[data-testid="coverage-verdict"]')?.textContent).toContain('The book does not yet cover its envelope.');
+    const exceptions = Array.from(section.querySelectorAll('[data-testid="recorded-exceptions"] .exception')).map((e) => e.textContent!.replace(/\s+/g, ' ').trim());
+    expect(exceptions).toEqual([
+      'VREF ≥ VMC holds everywhere in the envelope AFM 4.3: the approach is flown at VREF + 5 with one engine out.',
+      'vx-vy holds everywhere in the envelope AFM 5.1: VX and VY are equal above 8,000 ft.',
+    ]);
+    // The rule the report finds broken without an exception says so beside it.
+    expect(section.querySelector('[data-rule="v1-vr-v2"] [data-testid="rule-no-exception"]')).not.toBeNull();
+  });
+
+  it('lists an exception the report carries even when the content read on this page has none', async () => {
+    user.set(sessionUser('approver'));
+    await openReview();
+    const exceptions = Array.from(page.querySelectorAll('[data-testid="recorded-exceptions"] .exception')).map((e) => e.textContent!.replace(/\s+/g, ' ').trim());
+    expect(exceptions).toEqual(['VREF ≥ VMC holds everywhere in the envelope AFM 4.3: VMC is the air-minimum control speed with the critical engine out; landing flap approach uses VREF + 5.']);
+  });
+
+  it('keeps the review usable when the coverage cannot be had, and tries again on request', async () => {
+    user.set(sessionUser('approver'));
+    await openReview([], { coverage: (request) => request.error(new ProgressEvent('error'), { status: 0 }) });
+    expect(page.querySelector('[data-testid="coverage-error"]')?.textContent).toContain('The coverage could not be shown: Speedwright cannot reach the server.');
+    expect(page.querySelector('[data-testid="no-exceptions"]')).not.toBeNull();
+    expect(diffRows()).toHaveLength(4);
+    expect(button('publish')).not.toBeNull();
+
+    Array.from(page.querySelectorAll<HTMLButtonElement>('[data-testid="coverage-error"] button'))[0]!.click();
+    await fixture.whenStable();
+    backend.expectOne(COVERAGE_PATHS.ofRevision(IN_REVIEW)).flush({ report: smallCoverageReport() });
+    await fixture.whenStable();
+    expect(page.querySelector('[data-testid="coverage-error"]')).toBeNull();
+    expect(page.querySelectorAll('[data-testid="review-coverage"] [data-testid="coverage-sheet"]')).toHaveLength(2);
+  });
+
+  it('says before publishing that a failing coverage check will refuse it, and shows the report publish refused with', async () => {
+    user.set(sessionUser('approver'));
+    const passing = { ...smallCoverageReport(), sheets: [], rules: [], counts: { points: 0, issued: 0, refused: 0, ruleBroken: 0 }, passes: true };
+    await openReview([], { coverage: (request) => request.flush({ report: passing }) });
+    expect(page.querySelector('[data-testid="coverage-blocks-publish"]')).toBeNull();
+
+    button('publish')!.click();
+    await fixture.whenStable();
+    backend
+      .expectOne({ method: 'POST', url: REVISION_PATHS.step(IN_REVIEW, 'approve') })
+      .flush({ error: 'coverage_failed', message: 'The book gives no card at 1 point of its envelope.', report: smallCoverageReport() }, { status: 422, statusText: 'Unprocessable Content' });
+    await fixture.whenStable();
+    expect(page.querySelector('[data-testid="review-action-error"]')?.textContent).toContain('The book gives no card at 1 point of its envelope.');
+    expect(page.querySelector('[data-testid="review-coverage"] button.cell[data-outcome="refused"]')?.getAttribute('aria-label')).toBe('3,400 kg, 4,000 ft, +40 °C: card refused');
+    expect(page.querySelector('[data-testid="coverage-blocks-publish"]')?.textContent).toContain('publishing will be refused');
+    expect(page.querySelector('[data-testid="review-outcome"]')).toBeNull();
   });
 });

@@ -11,7 +11,10 @@ import { forkJoin, of, switchMap } from 'rxjs';
 import type { AttachmentView } from '../../../shared/api/attachments';
 import { reasonSchema, type RevisionView } from '../../../shared/api/revisions';
 import { UNIT_SYMBOLS, isCanonical, statedUnitsOf } from '../../../shared/speed-book/stated-units';
+import type { CoverageReport } from '../../../shared/card/coverage-report';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { CoverageApi, CoverageRefusal } from '../coverage/coverage-api';
+import { CoveragePicture } from '../coverage/coverage-picture';
 import { AuthService } from '../core/auth/auth-service';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionContentView } from '../speed-books/revision-content-view';
@@ -24,7 +27,9 @@ import { SourcePages } from './source-pages';
 /**
  * The approver's review of one revision: the diff against the published revision beside the
  * source pages, then publish or return with a reason. Nobody approves their own revision; the
- * server refuses it too, and its sentence is shown when it does.
+ * server refuses it too, and its sentence is shown when it does. The envelope proof (coverage
+ * picture) shows, before publishing, exactly where the book gives a card and where it does not,
+ * with the engineer's recorded exceptions beside it.
  */
 @Component({
   selector: 'sw-revision-review',
@@ -41,6 +46,7 @@ import { SourcePages } from './source-pages';
     UtcDatePipe,
     DiffTable,
     SourcePages,
+    CoveragePicture,
   ],
   templateUrl: './revision-review.html',
   styleUrl: './revision-review.scss',
@@ -48,6 +54,7 @@ import { SourcePages } from './source-pages';
 })
 export class RevisionReview {
   private readonly api = inject(RevisionsApi);
+  private readonly coverageApi = inject(CoverageApi);
   private readonly destroyRef = inject(DestroyRef);
   private readonly user = inject(AuthService).user;
 
@@ -64,6 +71,26 @@ export class RevisionReview {
   protected readonly actionProblem = signal<string | null>(null);
   protected readonly outcome = signal<string | null>(null);
   protected readonly returnReason = new FormControl('', { nonNullable: true, validators: zodValidator(reasonSchema.shape.reason) });
+
+  protected readonly coverage = signal<CoverageReport | null>(null);
+  protected readonly coverageLoading = signal(false);
+  protected readonly coverageProblem = signal<string | null>(null);
+  /**
+   * Every exception the revision records, with the rule's title when the report names it; the
+   * report's own findings with an exception count too (the server read them from the content).
+   */
+  protected readonly recordedExceptions = computed(() => {
+    const content = this.revision()?.content ?? {};
+    const recorded = Array.isArray(content['ruleExceptions']) ? (content['ruleExceptions'] as { ruleId?: unknown; reason?: unknown }[]) : [];
+    const rules = this.coverage()?.rules ?? [];
+    const exceptions = new Map<string, string>();
+    for (const e of recorded) if (typeof e.ruleId === 'string' && typeof e.reason === 'string') exceptions.set(e.ruleId, e.reason);
+    for (const rule of rules) if (rule.exception !== undefined && !exceptions.has(rule.ruleId)) exceptions.set(rule.ruleId, rule.exception);
+    return [...exceptions].map(([ruleId, reason]) => {
+      const rule = rules.find((r) => r.ruleId === ruleId);
+      return { ruleId, reason, title: rule?.title ?? ruleId, brokenAt: rule?.brokenAt ?? 0 };
+    });
+  });
 
   protected readonly published = computed(() => this.book()?.currentRevision ?? null);
   protected readonly ownRevision = computed(() => this.revision()?.authorId === this.user()?.id);
@@ -84,10 +111,35 @@ export class RevisionReview {
     this.loadReview(this.revisionId());
   }
 
+  protected reloadCoverage(): void {
+    this.loadCoverage(this.revisionId());
+  }
+
+  /** Apart from the rest of the page, so a slow or failed sweep never hides the diff. */
+  private loadCoverage(id: number): void {
+    this.coverage.set(null);
+    this.coverageProblem.set(null);
+    if (!Number.isFinite(id)) return;
+    this.coverageLoading.set(true);
+    this.coverageApi
+      .revisionCoverage(id)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (report) => {
+          this.coverage.set(report);
+          this.coverageLoading.set(false);
+        },
+        error: (error: ApiRequestError) => {
+          this.coverageProblem.set(error.message);
+          this.coverageLoading.set(false);
+        },
+      });
+  }
+
   protected publishRevision(): void {
     const revision = this.revision();
     if (!revision || this.ownRevision()) return;
-    this.act(this.api.approve(revision.id), (published) => `Revision ${published.number} is published and signed; it is now the current revision of ${this.book()?.title ?? 'its speed book'}.`);
+    this.act(this.coverageApi.approve(revision.id), (published) => `Revision ${published.number} is published and signed; it is now the current revision of ${this.book()?.title ?? 'its speed book'}.`);
   }
 
   protected returnRevision(): void {
@@ -108,6 +160,8 @@ export class RevisionReview {
       },
       error: (error: ApiRequestError) => {
         this.busy.set(false);
+        // Publishing re-checks the envelope: the report it refused with replaces the one shown.
+        if (error instanceof CoverageRefusal) this.coverage.set(error.report);
         this.actionProblem.set(error.fields['reason'] ?? error.message);
       },
     });
@@ -123,6 +177,7 @@ export class RevisionReview {
       this.loading.set(false);
       return;
     }
+    this.loadCoverage(id);
     this.api
       .revision(id)
       .pipe(

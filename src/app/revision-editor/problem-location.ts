@@ -35,6 +35,8 @@ export const FIELD_WORDS: Readonly<Record<string, string>> = {
   statedUnits: 'Units of the flight manual',
   weight: 'weights in',
   speed: 'speeds in',
+  speedClass: 'class',
+  statesReferenceStallSpeeds: 'Envelope › reference stall speeds',
 };
 
 type Json = Record<string, unknown>;
@@ -66,6 +68,13 @@ export function problemLocation(path: string, content: Json): string {
       const name = typeof s['code'] === 'string' && s['code'] ? `Speed ${s['code']}` : `Speed ${Number(index) + 1}`;
       return `${name} › ${word(field)}`;
     }
+    case 'envelope': {
+      const bound = rest[0] === 'min' ? 'lowest' : rest[0] === 'max' ? 'highest' : '';
+      const axis = field === 'oatC' ? 'OAT (°C)' : field === 'pressureAltitudeFt' ? 'pressure altitude (ft)' : '';
+      return ['Envelope', index, [bound, axis].filter(Boolean).join(' ')].filter(Boolean).join(' › ');
+    }
+    case 'ruleExceptions':
+      return index === undefined ? 'Rule exceptions' : `Rule exception ${Number(index) + 1} › ${field === 'ruleId' ? 'rule' : field === 'reason' ? 'flight manual’s reason' : ''}`.replace(/ › $/, '');
     default:
       return word(section) || 'Content';
   }

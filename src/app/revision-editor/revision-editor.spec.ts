@@ -8,6 +8,7 @@ import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-conten
 import { AuthService } from '../core/auth/auth-service';
 import { revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/revision-fixtures';
 import { REVISION_PATHS } from '../speed-books/revisions-api';
+import { LIVE_COVERAGE_DEBOUNCE_MS } from './live-coverage';
 import { RevisionEditor } from './revision-editor';
 
 const DRAFT_ID = 9;
@@ -28,6 +29,8 @@ describe('RevisionEditor', () => {
         provideRouter([]),
         { provide: AuthService, useValue: { user: signal(sessionUser('engineer')) } },
         { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+        // The live coverage sweep has its own tests (revision-editor-coverage.spec.ts); here it never fires.
+        { provide: LIVE_COVERAGE_DEBOUNCE_MS, useValue: 3_600_000 },
       ],
     });
     backend = TestBed.inject(HttpTestingController);

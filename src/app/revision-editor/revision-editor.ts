@@ -15,11 +15,15 @@ import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
 import { revisionContentShape } from '../../../shared/speed-book/content-shape';
 import { AIRCRAFT_CATEGORIES, SPEED_BASES, SPEED_PHASES, revisionContentProblems } from '../../../shared/speed-book/revision-content';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { CoverageApi, CoverageRefusal } from '../coverage/coverage-api';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionStatusChip } from '../speed-books/revision-status-chip';
 import { RevisionsApi, type SpeedBook } from '../speed-books/revisions-api';
 import { AttachmentsPanel } from './attachments-panel';
 import { DiscardDraftDialog, type DiscardDraftData } from './discard-draft-dialog';
+import { EnvelopeCoverageSection } from './envelope-coverage-section';
+import { SPEED_CLASSES, type SpeedClass } from './envelope-form';
+import { LiveCoverage } from './live-coverage';
 import { CsvUploadPanel } from './csv-upload-panel';
 import { PositionErrorEditor } from './position-error-editor';
 import { problemLocation } from './problem-location';
@@ -40,6 +44,17 @@ const LIMIT_FIELDS: readonly { key: LimitKey; label: string }[] = [
   { key: 'vmcKt', label: 'VMC' },
   { key: 'vyseKt', label: 'VYSE' },
 ];
+
+/** Each class with the rounding the card gives it (issue 11: speeds by kind, not by spelling). */
+const SPEED_CLASS_WORDS: Readonly<Record<SpeedClass, string>> = {
+  stall: 'Stall speed (rounded up)',
+  minimum: 'Minimum speed, as VMC, V2, VREF (rounded up)',
+  takeoff: 'Takeoff speed (nearest knot)',
+  climb: 'Climb speed (nearest knot)',
+  approach: 'Approach speed (nearest knot)',
+  limit: 'Limit speed (rounded down)',
+  other: 'Other (nearest knot)',
+};
 
 const WEIGHT_FIELDS = [
   { key: 'minimumKg', label: 'Minimum weight' },
@@ -71,15 +86,18 @@ const WEIGHT_FIELDS = [
     AttachmentsPanel,
     StatedUnitInput,
     StatedUnitsPanel,
+    EnvelopeCoverageSection,
   ],
   // Hints and sentences take the room they need, so two-line ones never run into the next row.
-  providers: [{ provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline', subscriptSizing: 'dynamic' } }, StatedUnitsContext],
+  providers: [{ provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline', subscriptSizing: 'dynamic' } }, StatedUnitsContext, LiveCoverage],
   templateUrl: './revision-editor.html',
   styleUrl: './revision-editor.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class RevisionEditor {
   private readonly api = inject(RevisionsApi);
+  private readonly coverageApi = inject(CoverageApi);
+  private readonly coverage = inject(LiveCoverage);
   private readonly router = inject(Router);
   private readonly dialog = inject(MatDialog);
   private readonly destroyRef = inject(DestroyRef);
@@ -91,6 +109,7 @@ export class RevisionEditor {
   protected readonly categories = AIRCRAFT_CATEGORIES;
   protected readonly phases = SPEED_PHASES;
   protected readonly bases = SPEED_BASES;
+  protected readonly speedClasses = SPEED_CLASSES.map((value) => ({ value, words: SPEED_CLASS_WORDS[value] }));
   protected readonly limitFields = LIMIT_FIELDS;
   protected readonly weightFields = WEIGHT_FIELDS;
 
@@ -171,14 +190,23 @@ export class RevisionEditor {
     this.form.group.markAllAsTouched();
     this.changeSummary.markAsTouched();
     this.persist()
-      .pipe(switchMap((saved) => (saved ? this.api.submit(saved.id) : of(null))))
+      .pipe(switchMap((saved) => (saved ? this.coverageApi.submit(saved.id) : of(null))))
       .subscribe({
         next: (submitted) => {
           if (!submitted) return;
           void this.router.navigate(['/speed-books'], { queryParams: { book: submitted.speedBookId } });
         },
-        error: (error: ApiRequestError) => this.showServerRefusal(error),
+        error: (error: ApiRequestError) => (error instanceof CoverageRefusal ? this.showCoverageRefusal(error) : this.showServerRefusal(error)),
       });
+  }
+
+  /** The envelope proof failed: the saved draft stays as it is, and the picture shows where. */
+  private showCoverageRefusal(refusal: CoverageRefusal): void {
+    this.saving.set(false);
+    this.coverage.showSubmitRefusal(refusal.report, refusal.message);
+    this.saveProblem.set(refusal.message);
+    const picture = this.host.nativeElement.querySelector<HTMLElement>('[data-testid="live-coverage"]');
+    picture?.scrollIntoView?.({ block: 'start' });
   }
 
   /** Deletes the draft (after asking) and goes back to the drafts; a refusal is said in the status line. */
@@ -303,7 +331,9 @@ export class RevisionEditor {
 
   /** The shared schema's sentences for the content as it stands, placed at their fields. */
   private checkContent(): void {
-    this.localProblems.set(contentProblems(this.form.content()));
+    const content = this.form.content();
+    this.localProblems.set(contentProblems(content));
+    this.coverage.contentChanged(content, Object.keys(this.localProblems()).length);
     this.configurationKeys.set(this.form.configurations.controls.map((c) => c.controls.key.value).filter(Boolean));
     this.placeProblems();
   }

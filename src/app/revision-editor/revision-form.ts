@@ -2,6 +2,18 @@ import { AbstractControl, FormArray, FormControl, FormGroup } from '@angular/for
 import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
 import { AIRCRAFT_CATEGORIES, REVISION_SCHEMA_VERSION, SPEED_BASES, SPEED_PHASES } from '../../../shared/speed-book/revision-content';
 import { CANONICAL_UNITS, UNIT_SYMBOLS, statedUnitsOf, type StatedSpeedUnit, type StatedUnits, type StatedWeightUnit } from '../../../shared/speed-book/stated-units';
+import {
+  envelopeContent,
+  envelopeFieldControls,
+  envelopeGroup,
+  loadEnvelope,
+  loadRuleExceptions,
+  ruleExceptionGroup,
+  ruleExceptionsContent,
+  speedClassOf,
+  type RuleExceptionGroup,
+  type SpeedClass,
+} from './envelope-form';
 
 export type AircraftCategory = (typeof AIRCRAFT_CATEGORIES)[number];
 export type SpeedPhase = (typeof SPEED_PHASES)[number];
@@ -30,6 +42,8 @@ export type SpeedGroup = FormGroup<{
   phase: FormControl<SpeedPhase | null>;
   configurationKey: FormControl<string>;
   basis: FormControl<SpeedBasis | null>;
+  /** Null: the class is read from the code (content written before speeds declared it). */
+  speedClass: FormControl<SpeedClass | null>;
   kind: FormControl<SpeedKind>;
   referenceKt: NumberControl;
   valueKt: NumberControl;
@@ -98,6 +112,7 @@ function speedGroup(speed: Json): SpeedGroup {
     phase: new FormControl(oneOf(SPEED_PHASES, speed['phase'])),
     configurationKey: text(str(speed['configurationKey'])),
     basis: new FormControl(oneOf(SPEED_BASES, speed['basis'])),
+    speedClass: new FormControl(speedClassOf(speed['speedClass'])),
     kind: new FormControl(kind, { nonNullable: true }),
     referenceKt: numberControl(num(speed['referenceKt'])),
     valueKt: numberControl(num(speed['valueKt'])),
@@ -146,6 +161,10 @@ export class RevisionForm {
       weight: new FormControl<StatedWeightUnit>(CANONICAL_UNITS.weight, { nonNullable: true }),
       speed: new FormControl<StatedSpeedUnit>(CANONICAL_UNITS.speed, { nonNullable: true }),
     }),
+    // The envelope proof's fields (envelope-form.ts).
+    envelope: envelopeGroup(),
+    statesReferenceStallSpeeds: new FormControl(false, { nonNullable: true }),
+    ruleExceptions: new FormArray<RuleExceptionGroup>([]),
   });
 
   /** True when the loaded content named its units: then they are written back even when kg and kt. */
@@ -162,6 +181,14 @@ export class RevisionForm {
 
   get speeds(): FormArray<SpeedGroup> {
     return this.group.controls.speeds;
+  }
+
+  get ruleExceptions(): FormArray<RuleExceptionGroup> {
+    return this.group.controls.ruleExceptions;
+  }
+
+  addRuleException(ruleId = ''): void {
+    this.ruleExceptions.push(ruleExceptionGroup(ruleId));
   }
 
   /** Fills the form from a draft's content, tolerating whatever is missing or malformed. */
@@ -194,6 +221,9 @@ export class RevisionForm {
     this.group.controls.notes.setValue(str(content['notes']));
     this.namedUnits = record(content['statedUnits'])['weight'] !== undefined || record(content['statedUnits'])['speed'] !== undefined;
     this.group.controls.statedUnits.setValue(statedUnitsOf(content));
+    loadEnvelope(this.group.controls.envelope, content);
+    this.group.controls.statesReferenceStallSpeeds.setValue(content['statesReferenceStallSpeeds'] === true);
+    loadRuleExceptions(this.ruleExceptions, content);
   }
 
   /** The form as revision content, for the schema and for PATCH. */
@@ -225,6 +255,11 @@ export class RevisionForm {
       ...(this.namedUnits || v.statedUnits.weight !== CANONICAL_UNITS.weight || v.statedUnits.speed !== CANONICAL_UNITS.speed
         ? { statedUnits: { weight: v.statedUnits.weight, speed: v.statedUnits.speed } }
         : {}),
+      ...withoutUndefined({
+        envelope: envelopeContent(this.group.controls.envelope),
+        statesReferenceStallSpeeds: v.statesReferenceStallSpeeds || undefined,
+        ruleExceptions: ruleExceptionsContent(this.ruleExceptions),
+      }),
     };
   }
 
@@ -240,6 +275,8 @@ export class RevisionForm {
     add('notes', g.notes);
     add('statedUnits.weight', g.statedUnits.controls.weight);
     add('statedUnits.speed', g.statedUnits.controls.speed);
+    add('statesReferenceStallSpeeds', g.statesReferenceStallSpeeds);
+    envelopeFieldControls(g.envelope, g.ruleExceptions, add);
     this.configurations.controls.forEach((c, i) => {
       add(`configurations.${i}.key`, c.controls.key);
       add(`configurations.${i}.label`, c.controls.label);
@@ -250,7 +287,7 @@ export class RevisionForm {
       });
     });
     this.speeds.controls.forEach((s, i) => {
-      for (const name of ['code', 'label', 'phase', 'configurationKey', 'basis', 'kind'] as const) add(`speeds.${i}.${name}`, s.controls[name]);
+      for (const name of ['code', 'label', 'phase', 'configurationKey', 'basis', 'speedClass', 'kind'] as const) add(`speeds.${i}.${name}`, s.controls[name]);
       const kind = s.controls.kind.value;
       if (kind === 'scaled') add(`speeds.${i}.referenceKt`, s.controls.referenceKt);
       if (kind === 'fixed') add(`speeds.${i}.valueKt`, s.controls.valueKt);
@@ -333,7 +370,7 @@ function nest(values: (number | null)[][][], hasAltitude: boolean, hasOat: boole
 }
 
 function speedContent(s: ReturnType<SpeedGroup['getRawValue']>): Json {
-  const base = { code: s.code, label: s.label, phase: s.phase ?? undefined, configurationKey: s.configurationKey, basis: s.basis ?? undefined, kind: s.kind };
+  const base = { code: s.code, label: s.label, phase: s.phase ?? undefined, configurationKey: s.configurationKey, basis: s.basis ?? undefined, speedClass: s.speedClass ?? undefined, kind: s.kind };
   if (s.kind === 'scaled') return withoutUndefined({ ...base, referenceKt: out(s.referenceKt) });
   if (s.kind === 'fixed') return withoutUndefined({ ...base, valueKt: out(s.valueKt) });
   const hasAltitude = s.table.altitudes.length > 0;
