@@ -85,6 +85,14 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   // of the cost of an answer on a route that must answer 1,500 times a second).
   app.use('/api/verify', verifyRoutes({ sequelize, logger, unknownCodesPer15Min: config.VERIFY_UNKNOWN_CODES_PER_15_MIN }));
 
+  // Every other /api answer carries personal or operator data: no browser, proxy or service
+  // worker keeps a copy (ASVS 8.2.1). Routes may only make it stricter. The public card check
+  // above sets its own header.
+  app.use('/api', (_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+
   // gzip for JSON answers (a full sync is mostly revision content) and the app's files.
   app.use(compression());
 

@@ -3,6 +3,7 @@
  * (`/api/speed-books`, `/api/revisions`, `/api/operator/signing-key`).
  */
 import * as z from 'zod';
+import { CONTRIBUTION_KINDS } from '../speed-book/four-eyes';
 
 export const REVISION_STATUSES = ['draft', 'in_review', 'published', 'superseded', 'withdrawn'] as const;
 export type RevisionStatus = (typeof REVISION_STATUSES)[number];
@@ -36,6 +37,14 @@ export const revisionSummarySchema = z.object({
 });
 export type RevisionSummary = z.infer<typeof revisionSummarySchema>;
 
+/** One person who contributed to a revision, and how (shared/speed-book/four-eyes.ts). */
+export const revisionContributorSchema = z.object({
+  userId: id,
+  name: z.string(),
+  kinds: z.array(z.enum(CONTRIBUTION_KINDS)),
+});
+export type RevisionContributorView = z.infer<typeof revisionContributorSchema>;
+
 export const revisionSchema = revisionSummarySchema.extend({
   content: draftContentSchema,
   returnedAt: timestamp.nullable(),
@@ -47,6 +56,8 @@ export const revisionSchema = revisionSummarySchema.extend({
   signingKeyId: id.nullable(),
   /** While draft or in review: field path → sentence for what submitting would refuse (empty when none). */
   problems: z.record(z.string(), z.string()),
+  /** Everyone who started, changed, gave source pages to or submitted it, in order of first contribution; none of them may approve it. */
+  contributors: z.array(revisionContributorSchema),
 });
 export type RevisionView = z.infer<typeof revisionSchema>;
 export const revisionResponseSchema = z.object({ revision: revisionSchema });

@@ -10,6 +10,7 @@ import { RouterLink } from '@angular/router';
 import { forkJoin, of, switchMap } from 'rxjs';
 import type { AttachmentView } from '../../../shared/api/attachments';
 import { reasonSchema, type RevisionView } from '../../../shared/api/revisions';
+import { contributionWords, fourEyesRefusal } from '../../../shared/speed-book/four-eyes';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { AuthService } from '../core/auth/auth-service';
 import { zodValidator } from '../core/forms/zod-validator';
@@ -22,8 +23,9 @@ import { SourcePages } from './source-pages';
 
 /**
  * The approver's review of one revision: the diff against the published revision beside the
- * source pages, then publish or return with a reason. Nobody approves their own revision; the
- * server refuses it too, and its sentence is shown when it does.
+ * source pages, then publish or return with a reason. Nobody approves a revision they contributed
+ * to (shared/speed-book/four-eyes.ts): the page lists the contributors and, in place of the
+ * approve button, says why it is not offered; the server refuses it too.
  */
 @Component({
   selector: 'sw-revision-review',
@@ -67,6 +69,17 @@ export class RevisionReview {
   protected readonly published = computed(() => this.book()?.currentRevision ?? null);
   protected readonly ownRevision = computed(() => this.revision()?.authorId === this.user()?.id);
   protected readonly inReview = computed(() => this.revision()?.status === 'in_review');
+  /** Everyone who contributed, in words: "Ines Marlow (started it and submitted it)". */
+  protected readonly contributors = computed(() =>
+    (this.revision()?.contributors ?? []).map((contributor) => ({ ...contributor, words: contributionWords(contributor.kinds) })),
+  );
+  /** Why the signed-in approver may not publish it (they contributed), or null; the server's own sentence. */
+  protected readonly approveRefusal = computed(() => {
+    const revision = this.revision();
+    const me = this.user()?.id;
+    if (!revision || me === undefined) return null;
+    return fourEyesRefusal(revision.number, revision.contributors.find((contributor) => contributor.userId === me)?.kinds ?? []);
+  });
 
   constructor() {
     effect(() => this.loadReview(this.revisionId()));
@@ -78,7 +91,7 @@ export class RevisionReview {
 
   protected publishRevision(): void {
     const revision = this.revision();
-    if (!revision || this.ownRevision()) return;
+    if (!revision || this.ownRevision() || this.approveRefusal()) return;
     this.act(this.api.approve(revision.id), (published) => `Revision ${published.number} is published and signed; it is now the current revision of ${this.book()?.title ?? 'its speed book'}.`);
   }
 
