@@ -4,6 +4,7 @@
  */
 import * as z from 'zod';
 import { CONTRIBUTION_KINDS } from '../speed-book/four-eyes';
+import { boundedJsonObject, REVISION_CONTENT_BOUNDS } from './json-bounds';
 
 export const REVISION_STATUSES = ['draft', 'in_review', 'published', 'superseded', 'withdrawn'] as const;
 export type RevisionStatus = (typeof REVISION_STATUSES)[number];
@@ -13,9 +14,10 @@ const timestamp = z.string().describe('ISO 8601, UTC');
 
 /**
  * Revision content while it is a draft: any JSON object (work in progress). Submitting for
- * review checks it against the full revision content schema (`RevisionContent`).
+ * review checks it against the full revision content schema (`RevisionContent`). Bounded in
+ * depth and size (json-bounds.ts) before the canonicaliser or the diff walks it.
  */
-export const draftContentSchema = z.record(z.string(), z.unknown(), { error: 'The content must be a JSON object.' });
+export const draftContentSchema = boundedJsonObject(REVISION_CONTENT_BOUNDS, 'The content must be a JSON object.');
 
 export const revisionSummarySchema = z.object({
   id,
