@@ -3,6 +3,8 @@ import { isCardCode } from '../shared/card-check/card-code';
 import { openLocalDatabase } from './local';
 import { createMigrator } from './migrator';
 import { createSequelize } from '../server/database';
+import { initModels } from '../server/models';
+import { seedDemo } from './seed';
 
 // Every migration must undo itself: up, all the way down, and up again, on a database of its
 // own on the private test instance.
@@ -59,3 +61,44 @@ describe('the card-code migration', () => {
     }
   }, 120_000);
 });
+
+// Revisions written before contributors were recorded get what the rows and the audit trail know:
+// the author as creator, and whoever submitted them (security issue 12, finding 1).
+describe('the revision-contributors migration', () => {
+  it('gives every existing revision its author and, from the audit trail, its submitter', async () => {
+    const { url } = await openLocalDatabase('test', 'speedwright_migrations_contributors', { fresh: true });
+    const sequelize = createSequelize(url);
+    try {
+      initModels(sequelize);
+      const migrator = createMigrator(sequelize);
+      await migrator.up();
+      await seedDemo(sequelize, 'migration-check-password', { signingKeySecret: 'migration-check-signing-key-secret-0123456789' });
+      const recorded = await sequelize.query<{ revision_id: number; user_id: number; kind: string }>(
+        'SELECT revision_id, user_id, kind FROM revision_contributors ORDER BY revision_id, user_id, kind',
+        { type: QueryTypes.SELECT },
+      );
+      expect(recorded.length).toBeGreaterThan(0);
+
+      // As if the seed had run before the table existed: down past it (table dropped), up again.
+      await migrator.down({ to: '20261205-0801-revision-contributors' });
+      await migrator.up();
+      const backfilled = await sequelize.query<{ revision_id: number; user_id: number; kind: string }>(
+        'SELECT revision_id, user_id, kind FROM revision_contributors ORDER BY revision_id, user_id, kind',
+        { type: QueryTypes.SELECT },
+      );
+      const revisions = await sequelize.query<{ id: number; author_id: number }>('SELECT id, author_id FROM revisions', { type: QueryTypes.SELECT });
+      for (const revision of revisions) expect(backfilled).toContainEqual({ revision_id: revision.id, user_id: revision.author_id, kind: 'created' });
+      const submissions = await sequelize.query<{ entity_id: string; actor_id: number }>(
+        "SELECT entity_id, actor_id FROM audit_events WHERE action = 'revision.submitted'",
+        { type: QueryTypes.SELECT },
+      );
+      expect(submissions.length).toBeGreaterThan(0);
+      for (const submission of submissions) expect(backfilled).toContainEqual({ revision_id: Number(submission.entity_id), user_id: submission.actor_id, kind: 'submitted' });
+      // Everything the services recorded is found again from the rows and the audit trail.
+      expect(backfilled).toEqual(recorded);
+    } finally {
+      await sequelize.close();
+    }
+  }, 180_000);
+});
+

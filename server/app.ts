@@ -3,7 +3,7 @@ import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import connectSessionSequelize from 'connect-session-sequelize';
 import { csrfSync } from 'csrf-sync';
-import express, { type Express } from 'express';
+import express, { type Express, type RequestHandler } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import session from 'express-session';
 import compression from 'compression';
@@ -16,6 +16,7 @@ import { accountLinksRoutes } from './auth/account-links.routes';
 import { authRoutes } from './auth/auth.routes';
 import { configurePassport } from './auth/passport';
 import { MariaDbRateLimitStore } from './auth/rate-limit-store';
+import { jsonBoundsBreach, REQUEST_BODY_BOUNDS } from '../shared/api/json-bounds';
 import type { ServerConfig } from './config';
 import { healthRoutes } from './health/health.routes';
 import { HttpError } from './http-error';
@@ -52,6 +53,16 @@ export interface SpeedwrightApp {
 
 const REQUEST_ID = /^[A-Za-z0-9._-]{1,64}$/;
 
+/**
+ * A parsed JSON body within REQUEST_BODY_BOUNDS, or a 400 that names the field it breaks them
+ * in (its first levels: "content", "entries.0.inputs") and how.
+ */
+const boundedBody: RequestHandler = (req, _res, next) => {
+  const breach = req.body === undefined ? null : jsonBoundsBreach(req.body, REQUEST_BODY_BOUNDS);
+  if (breach) next(new HttpError(400, 'invalid_request', `The request body is not accepted. ${breach.message}`, { [breach.path.join('.') || '(body)']: breach.message }));
+  else next();
+};
+
 /** Builds the Express app: security headers, logs, sessions, CSRF, the API, then the web app. */
 export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightApp {
   const app = express();
@@ -85,6 +96,14 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   // of the cost of an answer on a route that must answer 1,500 times a second).
   app.use('/api/verify', verifyRoutes({ sequelize, logger, unknownCodesPer15Min: config.VERIFY_UNKNOWN_CODES_PER_15_MIN }));
 
+  // Every other /api answer carries personal or operator data: no browser, proxy or service
+  // worker keeps a copy (ASVS 8.2.1). Routes may only make it stricter. The public card check
+  // above sets its own header.
+  app.use('/api', (_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+
   // gzip for JSON answers (a full sync is mostly revision content) and the app's files.
   app.use(compression());
 
@@ -115,7 +134,10 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
 
   app.use(
     '/api',
+    // 1 MB holds the largest revision content the CSV uploads can make (256 kB of CSV each) many
+    // times over; then no body deeper or larger than REQUEST_BODY_BOUNDS reaches a route.
     express.json({ limit: '1mb', strict: true }),
+    boundedBody,
     session({
       name: SESSION_COOKIE,
       secret: config.SESSION_SECRET,

@@ -1,7 +1,8 @@
 /**
  * `npm start`: the whole product on this machine. Starts the private MariaDB (unless
  * DATABASE_URL names a server), migrates, seeds the invented demo data, builds the web app,
- * serves it and prints the URL. Ctrl-C stops the server and, if it started it, the database.
+ * serves it from supervised server processes (a process that dies is replaced) and prints the
+ * URL. Ctrl-C stops the server and, if it started it, the database.
  */
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
@@ -12,7 +13,8 @@ import { DEFAULT_DEMO_PASSWORD, seedDemo } from '../db/seed';
 import { createSequelize } from './database';
 import { initModels } from './models';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
-import { serve } from './main';
+import { webConcurrency } from './main';
+import { superviseWorkers } from './supervisor';
 
 function step(text: string): void {
   console.log(`\u203a ${text}`);
@@ -55,24 +57,31 @@ async function launch(): Promise<void> {
     if (build.status !== 0) throw new Error('The web app did not build; see the messages above.');
   }
 
-  const server = await serve({
-    NODE_ENV: 'production',
-    PUBLIC_URL: `http://localhost:${process.env['PORT'] ?? 4300}`,
-    SESSION_SECRET: localSecrets().sessionSecret,
-    SIGNING_KEY_SECRET: localSecrets().signingKeySecret,
-    ...process.env,
-    DATABASE_URL: databaseUrl,
-    ...(mailbox ? { SMTP_URL: mailbox.url, MAILBOX_DIR: mailbox.dir } : {}),
-    APP_DIST: process.env['APP_DIST'] ?? join(projectRoot, 'dist/app/browser'),
+  // The server runs in processes of its own under a supervisor that replaces one that dies
+  // (server/supervisor.ts); WEB_CONCURRENCY of them, one by default.
+  const supervisor = superviseWorkers({
+    count: webConcurrency(process.env['WEB_CONCURRENCY']),
+    exec: join(__dirname, 'main.ts'),
+    env: {
+      NODE_ENV: 'production',
+      PUBLIC_URL: `http://localhost:${process.env['PORT'] ?? 4300}`,
+      SESSION_SECRET: localSecrets().sessionSecret,
+      SIGNING_KEY_SECRET: localSecrets().signingKeySecret,
+      ...process.env,
+      DATABASE_URL: databaseUrl,
+      ...(mailbox ? { SMTP_URL: mailbox.url, MAILBOX_DIR: mailbox.dir } : {}),
+      APP_DIST: process.env['APP_DIST'] ?? join(projectRoot, 'dist/app/browser'),
+    },
   });
-  console.log(`\nSpeedwright is running: http://localhost:${server.port}/`);
+  const port = await supervisor.listening;
+  console.log(`\nSpeedwright is running: http://localhost:${port}/`);
   console.log(`Demo accounts: pilot@demo.speedwright.example (and engineer@, approver@, admin@, inspector@), password ${process.env['DEMO_PASSWORD'] ? 'from DEMO_PASSWORD' : DEFAULT_DEMO_PASSWORD}`);
   if (mailbox) console.log('Mail goes to the local fake mailbox: sign in as admin@demo.speedwright.example to read it.');
   console.log('Press Ctrl-C to stop.\n');
 
   const shutdown = async () => {
     step('Stopping');
-    await server.stop();
+    await supervisor.stop();
     await mailbox?.stop();
     if (stopDatabase) await stopLocalInstance('dev');
     process.exit(0);

@@ -8,6 +8,7 @@ import { createApp } from './app';
 import { loadConfig } from './config';
 import { createSequelize } from './database';
 import { initModels } from './models';
+import { superviseWorkers } from './supervisor';
 
 export async function serve(env: NodeJS.ProcessEnv = process.env) {
   const config = loadConfig(env);
@@ -36,7 +37,7 @@ export async function serve(env: NodeJS.ProcessEnv = process.env) {
 
 /**
  * WEB_CONCURRENCY: how many server processes share the port (Node's cluster, one per core is
- * usual); 1, the default, serves from this process alone. Every process is stateless apart
+ * usual); 1, the default, is one server process beside the supervisor. Every process is stateless apart
  * from the public card check's limit on unknown codes, which each keeps for itself.
  */
 export function webConcurrency(value: string | undefined): number {
@@ -61,22 +62,17 @@ function serveHere(): void {
   );
 }
 
-/** Forks the workers, replaces one that dies unasked, and stops them all on SIGINT/SIGTERM. */
-function superviseWorkers(count: number): void {
-  let stopping = false;
-  for (let i = 0; i < count; i++) cluster.fork();
-  cluster.on('exit', (worker, code, signal) => {
-    if (stopping) {
-      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
-      return;
-    }
-    console.error(`Server process ${worker.process.pid} ended (${signal ?? code}); starting another.`);
-    cluster.fork();
+/**
+ * The primary: keeps WEB_CONCURRENCY server processes running (one included), replacing one
+ * that dies with a back-off (supervisor.ts), and stops them all on SIGINT/SIGTERM.
+ */
+function supervise(count: number): void {
+  const supervisor = superviseWorkers({ count });
+  supervisor.listening.catch((error: unknown) => {
+    console.error(error instanceof Error ? error.message : error);
+    process.exit(1);
   });
-  const shutdown = () => {
-    stopping = true;
-    for (const worker of Object.values(cluster.workers ?? {})) worker?.process.kill('SIGTERM');
-  };
+  const shutdown = () => void supervisor.stop().then(() => process.exit(0));
   process.once('SIGINT', shutdown);
   process.once('SIGTERM', shutdown);
 }
@@ -89,6 +85,6 @@ if (require.main === module) {
     console.error((error as Error).message);
     process.exit(1);
   }
-  if (workers > 1 && cluster.isPrimary) superviseWorkers(workers);
+  if (cluster.isPrimary) supervise(workers);
   else serveHere();
 }

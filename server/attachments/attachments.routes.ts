@@ -34,7 +34,8 @@ export function attachmentsRoutes({ attachmentsDir }: { attachmentsDir: string }
     res.set({
       'Content-Type': attachment.contentType,
       'Content-Disposition': contentDisposition(attachment.originalName),
-      'Cache-Control': 'private, no-cache',
+      // Operator data: kept in no cache (the /api default, set again since sendFile would change it).
+      'Cache-Control': 'no-store',
       ETag: `"${attachment.sha256}"`,
       // The file is shown, never run: no scripts even inside a PDF viewer's frame.
       'Content-Security-Policy': "default-src 'none'; img-src 'self'; style-src 'unsafe-inline'; sandbox",

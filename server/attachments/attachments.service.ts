@@ -12,6 +12,7 @@ import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { HttpError, notFound } from '../http-error';
 import { Attachment, Revision, User } from '../models';
+import { recordContribution } from '../revisions/revision-contributors';
 import { OPEN_STATUSES } from '../revisions/revision-views';
 import { seesOpenRevisions, type Viewer } from '../revisions/revisions.service';
 import { detectAttachmentType } from './file-type';
@@ -67,6 +68,7 @@ export class AttachmentStore {
           },
           { transaction },
         );
+        await recordContribution(actor, revision.id, 'attachments', transaction);
         await audit(actor, 'attachment.added', created, revision, transaction);
         return created;
       });
@@ -105,6 +107,7 @@ export class AttachmentStore {
         throw new HttpError(409, 'wrong_status', `Source pages can be removed only while the revision is a draft; revision ${revision.number} is ${words(revision.status)}.`);
       }
       await found.destroy({ transaction });
+      await recordContribution(actor, revision.id, 'attachments', transaction);
       await audit(actor, 'attachment.removed', found, revision, transaction);
       return found;
     });

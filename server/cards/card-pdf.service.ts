@@ -1,14 +1,16 @@
 /**
- * The engineers' batch print: `GET /api/airframes/:id/card.pdf`. The card inputs come as query
- * parameters named as the inputs' fields (nested ones dotted: `departure.qnhHpa`); the card is
- * built with `buildCard` from the current published revision of the airframe type's speed book,
- * recorded in the card log (so its printed code can be checked) and printed with the same
- * document definition the browser uses (shared/card-pdf).
+ * The engineers' batch print. `POST /api/airframes/:id/card.pdf` issues a card: the card inputs
+ * come as query parameters named as the inputs' fields (nested ones dotted:
+ * `departure.qnhHpa`); the card is built with `buildCard` from the current published revision
+ * of the airframe type's speed book, recorded in the card log (so its printed code can be
+ * checked) and printed with the same document definition the browser uses (shared/card-pdf).
+ * `GET /api/airframes/:id/card.pdf?code=…` prints a card already in the card log again and
+ * writes nothing (a GET never issues: a link from another site must not make cards).
  */
 import { randomUUID } from 'node:crypto';
 import { Op } from 'sequelize';
 import { checkUrl } from '../../shared/card-check/check-url';
-import { formatCardCode } from '../../shared/card-check/card-code';
+import { formatCardCode, validateCardCode } from '../../shared/card-check/card-code';
 import { CardRefusedError, cardInputsSchema, type CardInputs, type CardRevision, type SpeedCard } from '../../shared/card/card';
 import { buildCard } from '../../shared/card/build-card';
 import { utcDate } from '../../shared/card/card-presentation';
@@ -19,7 +21,7 @@ import { contentSha256 } from '../../shared/speed-book/canonical';
 import type { Actor } from '../audit/actor';
 import { HttpError, notFound } from '../http-error';
 import { fieldErrors } from '../middleware/validate';
-import { Airframe, Revision, SpeedBook } from '../models';
+import { Airframe, CardIssue, Revision, SpeedBook } from '../models';
 import { EVER_PUBLISHED_STATUSES } from '../revisions/revision-views';
 import { loadCardSource } from './card-source';
 import { renderCardPdf } from './card-pdf-renderer';
@@ -148,3 +150,58 @@ export async function printAirframeCard(actor: Actor, airframeId: number, query:
   });
   return { pdf: await renderCardPdf(definition), fileName, code, card };
 }
+
+/** The query of a reprint: the card's code and, optionally, the paper; nothing else. */
+function reprintQuery(query: Record<string, unknown>): { code: string; paper: CardPaperSize } {
+  const fields: Record<string, string> = {};
+  let code: string | undefined;
+  let paper: CardPaperSize = 'half-letter';
+  for (const [name, raw] of Object.entries(query)) {
+    const text = Array.isArray(raw) ? undefined : String(raw).trim();
+    if (name === 'code') {
+      const checked = text === undefined ? undefined : validateCardCode(text);
+      if (checked?.ok) code = checked.code;
+      else fields[name] = checked ? checked.message : 'Give the card code once.';
+    } else if (name === PAPER_PARAMETER) {
+      if (text !== undefined && isCardPaperSize(text)) paper = text;
+      else fields[name] = `The paper is one of ${CARD_PAPER_SIZES.join(', ')}.`;
+    } else {
+      fields[name] = 'A GET prints a card already issued, by its code; issue a new card with POST and the card inputs.';
+    }
+  }
+  if (code === undefined && !fields['code']) fields['code'] = 'Give the code of the issued card to print (code=K7M-4RT-X9X); issue a new card with POST.';
+  if (Object.keys(fields).length) throw new HttpError(400, 'invalid_request', 'Some parameters of the query are not right.', fields);
+  return { code: code!, paper };
+}
+
+/**
+ * A card from the card log printed again, exactly as issued: the entry's revision (whatever it
+ * is now; the check page says so), inputs and issue time, re-derived to the recorded digest.
+ * Reads only. 404 when the airframe has no card with that code at this operator.
+ */
+export async function reprintAirframeCard(actor: Actor, airframeId: number, query: Record<string, unknown>, options: Pick<BatchPrintOptions, 'publicUrl'>): Promise<PrintedCard> {
+  const { code, paper } = reprintQuery(query);
+  const entry = await CardIssue.findOne({ where: { code, airframeId, operatorId: actor.operatorId } });
+  if (!entry) throw new HttpError(404, 'not_found', `This airframe has no card with the code ${formatCardCode(code)} in the card log.`);
+  const revision = await Revision.findOne({ where: { id: entry.revisionId, operatorId: actor.operatorId }, rejectOnEmpty: true });
+  const inputs = JSON.parse(entry.inputs) as CardInputs;
+  const source = await loadCardSource(actor, revision.id, airframeId, 'issue');
+  const card = buildCard(source.revision, inputs, source.context);
+  if (card.digest !== entry.digest) {
+    throw new HttpError(409, 'card_not_reproducible', `The card ${formatCardCode(code)} cannot be printed again: its figures no longer come out as issued.`);
+  }
+  const previous = previousCardOf(await previousRevisionOf(revision), inputs, source.context);
+  const issuedAt = entry.issuedAt.toISOString();
+  const origin = new URL(options.publicUrl).origin;
+  const { definition, fileName } = cardPdf({
+    card,
+    code: formatCardCode(code),
+    checkUrl: checkUrl(origin, code, { revisionId: revision.id, inputs, digest: card.digest }),
+    issuedAt,
+    dataAsOf: `Data as of ${utcDate(issuedAt)}: revision ${card.revision.number} as published on the server; reprinted.`,
+    changes: cardChanges(card, previous),
+    paper,
+  });
+  return { pdf: await renderCardPdf(definition), fileName, code, card };
+}
+

@@ -8,6 +8,7 @@ import { Invitation } from './invitation';
 import { Operator } from './operator';
 import { PasswordResetToken } from './password-reset-token';
 import { Revision } from './revision';
+import { RevisionContributor } from './revision-contributor';
 import { SigningKey } from './signing-key';
 import { SpeedBook } from './speed-book';
 import { User } from './user';
@@ -17,6 +18,8 @@ export { Attachment, AuditEvent, Invitation, Operator, PasswordResetToken, User 
 export { AircraftType, Airframe, Revision, SigningKey, SpeedBook };
 
 export { CardIssue };
+
+export { RevisionContributor };
 
 /** Registers every model and, in one place, every association. */
 export function initModels(sequelize: Sequelize): void {
@@ -32,6 +35,7 @@ export function initModels(sequelize: Sequelize): void {
   PasswordResetToken.initModel(sequelize);
   Attachment.initModel(sequelize);
   CardIssue.initModel(sequelize);
+  RevisionContributor.initModel(sequelize);
 
   Operator.hasMany(User, { foreignKey: 'operatorId', as: 'users' });
   User.belongsTo(Operator, { foreignKey: 'operatorId', as: 'operator' });
@@ -55,4 +59,5 @@ export function initModels(sequelize: Sequelize): void {
   CardIssue.belongsTo(Airframe, { foreignKey: 'airframeId', as: 'airframe' });
   CardIssue.belongsTo(Revision, { foreignKey: 'revisionId', as: 'revision' });
   CardIssue.belongsTo(User, { foreignKey: 'issuedById', as: 'issuedBy' });
+  RevisionContributor.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 }

@@ -59,7 +59,7 @@ import {
   cardPreviewRequestSchema,
   cardPreviewResponseSchema,
 } from '../../shared/card/card-api';
-import { cardPdfQuerySchema } from '../../shared/card-pdf/card-pdf-api';
+import { cardPdfQuerySchema, cardPdfReprintQuerySchema } from '../../shared/card-pdf/card-pdf-api';
 import { verifyCodeParamsSchema, verifyResponseSchema, verifySourceResponseSchema } from '../../shared/card-check/verify-api';
 import { operatorSettingsResponseSchema, operatorSettingsSchema, syncQuerySchema, syncResponseSchema } from '../../shared/api/sync';
 
@@ -168,10 +168,15 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   route('get', '/api/airframes', { summary: 'The operator’s airframes', tags: ['fleet'], who: 'read-published', ok: { status: 200, schema: airframeListSchema } });
   route('post', '/api/airframes', { summary: 'Add an airframe', tags: ['fleet'], who: 'manage-fleet', body: createAirframeSchema, ok: { status: 201, schema: airframeResponseSchema }, errors: [409, 422] });
   route('get', '/api/airframes/:id', { summary: 'One airframe', tags: ['fleet'], who: 'read-published', params: true, ok: { status: 200, schema: airframeResponseSchema } });
-  route('get', '/api/airframes/:id/card.pdf', {
-    summary: 'A printed speed card (PDF) from the current published revision, recorded in the card log; inputs as query parameters',
+  route('post', '/api/airframes/:id/card.pdf', {
+    summary: 'Issue a speed card from the current published revision, recorded in the card log, and print it (PDF); inputs as query parameters',
     tags: ['cards'], who: 'print-card-batches', params: true, query: cardPdfQuerySchema,
-    ok: { status: 200, description: 'application/pdf, with Content-Disposition naming <registration>-rev<N>-<yyyy-mm-dd>.pdf and X-Card-Code the card code' }, errors: [409, 422],
+    ok: { status: 201, description: 'application/pdf, with Content-Disposition naming <registration>-rev<N>-<yyyy-mm-dd>.pdf, X-Card-Code the card code and Location the address that prints it again' }, errors: [409, 422],
+  });
+  route('get', '/api/airframes/:id/card.pdf', {
+    summary: 'Print again a card already in the card log, by its code (writes nothing)',
+    tags: ['cards'], who: 'print-card-batches', params: true, query: cardPdfReprintQuerySchema,
+    ok: { status: 200, description: 'application/pdf, as the card was issued' }, errors: [409],
   });
   route('patch', '/api/airframes/:id', { summary: 'Change an airframe', tags: ['fleet'], who: 'manage-fleet', params: true, body: updateAirframeSchema, ok: { status: 200, schema: airframeResponseSchema }, errors: [409, 422] });
 

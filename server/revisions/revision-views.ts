@@ -1,4 +1,4 @@
-import type { RevisionStatus, RevisionSummary, RevisionView } from '../../shared/api/revisions';
+import type { RevisionContributorView, RevisionStatus, RevisionSummary, RevisionView } from '../../shared/api/revisions';
 import { revisionContentProblems } from '../../shared/speed-book/revision-content';
 import { Revision, User } from '../models';
 
@@ -40,7 +40,7 @@ export function revisionSummary(revision: Revision, names: Map<number, string>):
 export const OPEN_STATUSES: RevisionStatus[] = ['draft', 'in_review'];
 export const EVER_PUBLISHED_STATUSES: RevisionStatus[] = ['published', 'superseded', 'withdrawn'];
 
-export function revisionDetail(revision: Revision, names: Map<number, string>): RevisionView {
+export function revisionDetail(revision: Revision, names: Map<number, string>, contributors: RevisionContributorView[]): RevisionView {
   const content = JSON.parse(revision.content) as Record<string, unknown>;
   return {
     ...revisionSummary(revision, names),
@@ -52,6 +52,7 @@ export function revisionDetail(revision: Revision, names: Map<number, string>): 
     signature: revision.signature,
     signingKeyId: revision.signingKeyId,
     problems: OPEN_STATUSES.includes(revision.status) ? revisionContentProblems(content) : {},
+    contributors,
   };
 }
 

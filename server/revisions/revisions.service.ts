@@ -17,6 +17,7 @@ import { forbidden, HttpError, notFound } from '../http-error';
 import { notifyRevisionPublished, notifyRevisionSubmitted, notifyRevisionWithdrawn } from '../mail/notifications';
 import type { AttachmentStore } from '../attachments/attachments.service';
 import { AircraftType, Attachment, Revision, SpeedBook } from '../models';
+import { contributorsInWords, recordContribution, refuseContributor, revisionContributors } from './revision-contributors';
 import { EVER_PUBLISHED_STATUSES, OPEN_STATUSES, peopleNames, revisionDetail, statusWords } from './revision-views';
 import { activeSigningKey, signStatement } from './signing';
 
@@ -33,7 +34,7 @@ const transact = <T>(work: (transaction: Transaction) => Promise<T>) => Revision
 /** The revision as stored (timestamps in whole seconds), the same as any later GET shows it. */
 async function detail(operatorId: number, revision: Revision): Promise<RevisionView> {
   await revision.reload();
-  return revisionDetail(revision, await peopleNames(operatorId, [revision]));
+  return revisionDetail(revision, await peopleNames(operatorId, [revision]), await revisionContributors(operatorId, revision.id));
 }
 
 function audit(actor: Actor, action: string, revision: Revision, details: Record<string, unknown>, transaction: Transaction) {
@@ -136,6 +137,7 @@ export async function createRevision(actor: Actor, speedBookId: number, input: N
       },
       { transaction },
     );
+    await recordContribution(actor, created.id, 'created', transaction);
     await audit(actor, 'revision.created', created, { changeSummary: input.changeSummary, ...(copiedFrom ? { copiedFromRevisionId: copiedFrom } : {}) }, transaction);
     return created;
   });
@@ -157,6 +159,7 @@ export async function updateRevision(actor: Actor, id: number, input: RevisionCh
     if (input.content !== undefined) changes.content = canonicalJson(input.content);
     if (input.changeSummary !== undefined) changes.changeSummary = input.changeSummary;
     await revision.update(changes, { transaction });
+    await recordContribution(actor, revision.id, 'edited', transaction);
     await audit(
       actor,
       'revision.updated',
@@ -209,6 +212,7 @@ export async function submitRevision(actor: Actor, id: number): Promise<Revision
     const fields = await contentProblems(revision, book, transaction);
     if (Object.keys(fields).length) throw new HttpError(422, 'content_invalid', 'The revision cannot be submitted until these fields are right.', fields);
     await revision.update({ status: 'in_review', submittedAt: new Date() }, { transaction });
+    await recordContribution(actor, revision.id, 'submitted', transaction);
     await audit(actor, 'revision.submitted', revision, {}, transaction);
     const mail = mailing(actor, transaction);
     if (mail) await notifyRevisionSubmitted(revision, actor.operatorId, mail);
@@ -227,6 +231,7 @@ export async function approveRevision(actor: Actor, id: number, signingKeySecret
   const revision = await transact(async (transaction) => {
     const { book, revision } = await lockBookAndRevision(actor.operatorId, id, transaction);
     if (revision.authorId === actor.userId) throw forbidden('Nobody approves their own revision; another approver must.');
+    await refuseContributor(actor, revision, transaction);
     if (revision.status !== 'in_review') throw wrongStatus(revision, 'only a revision in review can be approved');
     const fields = await contentProblems(revision, book, transaction);
     if (Object.keys(fields).length) throw new HttpError(422, 'content_invalid', 'The revision’s content is not valid; return it to its author.', fields);
@@ -255,7 +260,8 @@ export async function approveRevision(actor: Actor, id: number, signingKeySecret
       { status: 'published', content: canonical, approverId: actor.userId, publishedAt, contentSha256: sha256, signature: signStatement(key, signingKeySecret, statement), signingKeyId: key.id },
       { transaction },
     );
-    await audit(actor, 'revision.approved', revision, { contentSha256: sha256, signingKeyId: key.id, supersededRevisionIds: previous.map((old) => old.id) }, transaction);
+    const contributors = contributorsInWords(await revisionContributors(actor.operatorId, revision.id, transaction));
+    await audit(actor, 'revision.approved', revision, { contentSha256: sha256, signingKeyId: key.id, supersededRevisionIds: previous.map((old) => old.id), contributors }, transaction);
     const mail = mailing(actor, transaction);
     if (mail) await notifyRevisionPublished({ ...revision.get(), speedBookTitle: book.title }, actor.operatorId, mail);
     return revision;

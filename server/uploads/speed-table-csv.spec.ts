@@ -198,3 +198,27 @@ describe('files that are not usable at all', () => {
     expect(unusable(many).message).toMatch(/more than 5000 rows/);
   });
 });
+
+describe('bounds on the work of one upload', () => {
+  // Security issue 12, finding 2: the grid is sized from its axes before it is built.
+  it('refuses a grid over 5,000 points before building it, saying how many it would need and how many rows it has', () => {
+    const rows = Array.from({ length: 80 }, (_, i) => `VR,takeoff-flap,${1000 + i},${i * 100},${60 + i * 0.1}`);
+    const error = unusable(`speed_code,configuration_key,weight_kg,pressure_altitude_ft,value_kt\n${rows.join('\n')}\n`);
+    expect(error.code).toBe('csv_too_large');
+    expect(error.message).toBe(
+      'VR (takeoff-flap) would need 6,400 grid points (80 weights × 80 pressure altitudes), one row each, and the file has 80 rows for it; a table holds at most 5,000 grid points. Every weight must be tabulated at the same altitudes and temperatures.',
+    );
+  });
+
+  it('refuses an axis of more than 100 values even when the grid is small', () => {
+    const rows = Array.from({ length: 101 }, (_, i) => `VS,clean,${1000 + i},${50 + i * 0.1}`);
+    expect(unusable(`speed_code,configuration_key,weight_kg,value_kt\n${rows.join('\n')}\n`).message).toContain('an axis holds at most 100 values');
+  });
+
+  it('still lists the missing points of a grid within bounds', () => {
+    const result = tabulated('speed_code,configuration_key,weight_kg,pressure_altitude_ft,value_kt\nVR,takeoff-flap,900,0,52\nVR,takeoff-flap,1100,4000,57\n');
+    expect(result.speeds).toEqual([]);
+    expect(result.errors.filter((error) => error.reason.startsWith('No row for VR'))).toHaveLength(2);
+  });
+});
+

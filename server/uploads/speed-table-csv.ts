@@ -50,6 +50,7 @@ import { CANONICAL_UNITS, UNIT_SYMBOLS, fromCanonical, toCanonical, type StatedU
 import Papa from 'papaparse';
 import { HttpError } from '../http-error';
 import { canonicalColumn, readCsvUnits, unitColumn, type CsvUnits } from './csv-units';
+import { assertFieldsWithinBounds, assertGridWithinBounds, assertHeaderWithinBounds } from './csv-bounds';
 
 export interface CsvRowError {
   /** 1-based line of the file; 1 is the header. */
@@ -141,6 +142,8 @@ export function parseSpeedTableCsv(input: string): SpeedTableUpload {
   const headerIndex = records.findIndex((record) => record.fields.some((field) => field.trim() !== ''));
   if (headerIndex < 0) throw unusable(`The file is empty. ${LAYOUT_HELP}`);
   const header = records[headerIndex]!;
+  assertHeaderWithinBounds(header.fields);
+  assertFieldsWithinBounds(header.line, header.fields);
   const columns = header.fields.map((field) => field.trim().toLowerCase());
   const duplicate = columns.find((column, index) => columns.indexOf(column) !== index);
   if (duplicate) throw unusable(`The column "${duplicate}" appears twice in the header.`);
@@ -153,6 +156,7 @@ export function parseSpeedTableCsv(input: string): SpeedTableUpload {
   for (const record of records.slice(headerIndex + 1)) {
     if (record.fields.every((field) => field.trim() === '')) continue;
     if (rows.length >= MAX_CSV_ROWS) throw unusable(`The file has more than ${MAX_CSV_ROWS} rows; split it into several uploads.`);
+    assertFieldsWithinBounds(record.line, record.fields);
     const values: Record<string, string> = {};
     columns.forEach((column, index) => (values[column] = (record.fields[index] ?? '').trim()));
     rows.push({ line: record.line, values });
@@ -328,6 +332,7 @@ function parseTabulated(
       });
       continue;
     }
+    assertGridWithinBounds(group.code, group.configurationKey, axisColumns, axisValues, group.points.length);
     const byKey = new Map(group.points.map((point) => [point.axes.join('|'), point.valueKt]));
     const missing: number[][] = [];
     const build = (depth: number, prefix: number[]): NestedNumbers => {

@@ -67,6 +67,31 @@ describe('POST /api/uploads/speed-table', () => {
     expect(image.body.error).toMatchObject({ code: 'unsupported_file_type', fields: { file: expect.any(String) } });
   });
 
+  it('refuses a table whose axes would need millions of grid points at once with 422, and keeps answering', async () => {
+    // Security issue 12, finding 2: 200 rows, each with a new weight, altitude and OAT, used to
+    // make the parser build all 200³ combinations (9 s, 1.9 GB). A few kB of CSV.
+    const rows = Array.from({ length: 200 }, (_, i) => `VR,takeoff-flap,${1000 + i},${i * 10},${-40 + i * 0.25},${60 + i * 0.1}`);
+    const res = await upload('engineer', `speed_code,configuration_key,weight_kg,pressure_altitude_ft,oat_c,value_kt\n${rows.join('\n')}\n`);
+    expect(res.status).toBe(422);
+    expect(res.body.error).toMatchObject({
+      code: 'csv_too_large',
+      message: expect.stringContaining('VR (takeoff-flap) would need 8,000,000 grid points (200 weights × 200 pressure altitudes × 200 OATs), one row each, and the file has 200 rows for it'),
+      fields: { file: expect.any(String) },
+    });
+    await request(harness.app).get('/api/health').expect(200);
+    const good = await upload('engineer', GOOD_TABLE);
+    expect(good.status).toBe(200);
+  });
+
+  it('refuses cells and headers longer than any layout needs with 422', async () => {
+    const longCell = await upload('engineer', `configuration_key,ias_kt,cas_kt\nclean,60,${'6'.repeat(5000)}\n`);
+    expect(longCell.status).toBe(422);
+    expect(longCell.body.error.message).toBe('Line 2, column 3 holds 5,000 characters; no value of these layouts is longer than 100.');
+    const wide = await upload('engineer', `${Array.from({ length: 30_000 }, (_, i) => `c${i}`).join(',')}\n${'1,'.repeat(29_999)}1\n`);
+    expect(wide.status).toBe(422);
+    expect(wide.body.error.message).toContain('The header has 30000 columns');
+  });
+
   it('answers 413 above 256 kB', async () => {
     const big = `configuration_key,ias_kt,cas_kt\n${'clean,60,61\n'.repeat(23_000)}`;
     expect(Buffer.byteLength(big)).toBeGreaterThan(256 * 1024);

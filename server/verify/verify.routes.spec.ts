@@ -161,4 +161,25 @@ describe('the limit on codes that match no card', () => {
       await limited.close();
     }
   });
+
+  it('still answers a real card once the address is over its limit; only unknown and malformed codes get 429', async () => {
+    const limited = startHarness({ VERIFY_UNKNOWN_CODES_PER_15_MIN: '100' });
+    try {
+      const revisionId = await publish(as.engineer, as.approver, book.speedBookId);
+      const card = await issue(revisionId, inputs(970));
+      for (let i = 0; i < 100; i++) await verify(generateCardCode(), limited.app).expect(200);
+      await verify(generateCardCode(), limited.app).expect(429);
+      const real = await verify(card.code, limited.app).expect(200);
+      expect(real.body).toMatchObject({ status: 'current' });
+      expect(real.headers['retry-after']).toBeUndefined();
+      await request(limited.app).get(`/api/verify/${card.code}/source`).expect(200);
+      await request(limited.app).get(`/api/verify/${generateCardCode()}/source`).expect(429);
+      expect((await verify('ABC', limited.app).expect(429)).body.error.code).toBe('too_many_unknown_codes');
+      // Checking the real card again and again never lifts the limit for guesses.
+      for (let i = 0; i < 5; i++) await verify(card.code, limited.app).expect(200);
+      await verify(generateCardCode(), limited.app).expect(429);
+    } finally {
+      await limited.close();
+    }
+  });
 });

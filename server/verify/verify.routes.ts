@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { Router, type ErrorRequestHandler, type RequestHandler } from 'express';
+import { Router, type ErrorRequestHandler, type RequestHandler, type Response } from 'express';
 import type { Logger } from 'pino';
 import { rateLimit } from 'express-rate-limit';
 import type { Sequelize } from 'sequelize';
@@ -15,10 +15,20 @@ export interface VerifyRoutesOptions {
   unknownCodesPer15Min: number;
 }
 
-/** The code of the path in stored form, or a 400 that says what is wrong with it. */
-function codeOf(raw: string): string {
+const TOO_MANY_UNKNOWN = () =>
+  new HttpError(429, 'too_many_unknown_codes', 'Too many codes from this device matched no card. Wait 15 minutes and try again.');
+
+/** Set by the limiter's handler: this address is over its limit of codes that matched no card. */
+const overGuessLimit = (res: Response) => res.locals['guessLimitReached'] === true;
+
+/**
+ * The code of the path in stored form, or a 400 that says what is wrong with it (429 once the
+ * address is over its limit: a malformed code is a guess too).
+ */
+function codeOf(raw: string, res: Response): string {
   const checked = validateCardCode(raw);
   if (checked.ok) return checked.code;
+  if (overGuessLimit(res)) throw TOO_MANY_UNKNOWN();
   const code = checked.problem === 'check' ? 'code_check_failed' : 'invalid_code';
   throw new HttpError(400, code, checked.message, { code: checked.message });
 }
@@ -29,8 +39,10 @@ function codeOf(raw: string): string {
  *
  * Rate limit: per address, in this process's memory (a shared MariaDB counter would cost a
  * write on every request of a route that must answer over 1,500 times a second), counting only
- * answers that found no card — what someone guessing codes gets. People checking real cards are
- * never slowed; with several instances the limit applies per instance.
+ * answers that found no card — what someone guessing codes gets. Over the limit the code is
+ * still looked up: a real card answers as always (someone at the same airport's shared address
+ * who typed a few wrong codes must still be able to check the card in their hand), and only a
+ * code that matches no card answers 429. With several instances the limit applies per instance.
  */
 export function verifyRoutes({ sequelize, logger, unknownCodesPer15Min }: VerifyRoutesOptions): Router {
   const router = Router();
@@ -41,8 +53,11 @@ export function verifyRoutes({ sequelize, logger, unknownCodesPer15Min }: Verify
     requestWasSuccessful: (_req, res) => res.locals['cardFound'] === true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    handler: (_req, _res, next) =>
-      next(new HttpError(429, 'too_many_unknown_codes', 'Too many codes from this device matched no card. Wait 15 minutes and try again.')),
+    // Not refused here: the route decides once it knows whether the code is a real card's.
+    handler: (_req, res, next) => {
+      res.locals['guessLimitReached'] = true;
+      next();
+    },
   });
   const noStore: RequestHandler = (_req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');
@@ -64,16 +79,20 @@ export function verifyRoutes({ sequelize, logger, unknownCodesPer15Min }: Verify
   router.use(compactLog, noStore, guessLimiter);
 
   router.get('/:code', async (req, res) => {
-    const answer = await verifyCardCode(sequelize, codeOf(String(req.params['code'])));
+    const answer = await verifyCardCode(sequelize, codeOf(String(req.params['code']), res));
     res.locals['cardFound'] = answer.status !== 'unknown';
+    if (!res.locals['cardFound'] && overGuessLimit(res)) throw TOO_MANY_UNKNOWN();
+    if (res.locals['cardFound']) res.removeHeader('Retry-After');
     // Written directly: res.json would hash the body for an ETag, which no-store makes useless.
     res.status(200).setHeader('Content-Type', 'application/json; charset=utf-8');
     res.end(JSON.stringify(answer));
   });
   router.get('/:code/source', async (req, res) => {
-    const source = await cardSourceOf(sequelize, codeOf(String(req.params['code'])));
+    const source = await cardSourceOf(sequelize, codeOf(String(req.params['code']), res));
+    if (!source && overGuessLimit(res)) throw TOO_MANY_UNKNOWN();
     if (!source) throw new HttpError(404, 'unknown_code', 'No card was issued with this code here.');
     res.locals['cardFound'] = true;
+    res.removeHeader('Retry-After');
     res.json(source);
   });
   // pino-http's req.log is not there yet: anything unexpected is logged here, then answered as usual.

@@ -3,6 +3,8 @@
  * (`/api/speed-books`, `/api/revisions`, `/api/operator/signing-key`).
  */
 import * as z from 'zod';
+import { CONTRIBUTION_KINDS } from '../speed-book/four-eyes';
+import { boundedJsonObject, REVISION_CONTENT_BOUNDS } from './json-bounds';
 
 export const REVISION_STATUSES = ['draft', 'in_review', 'published', 'superseded', 'withdrawn'] as const;
 export type RevisionStatus = (typeof REVISION_STATUSES)[number];
@@ -12,9 +14,10 @@ const timestamp = z.string().describe('ISO 8601, UTC');
 
 /**
  * Revision content while it is a draft: any JSON object (work in progress). Submitting for
- * review checks it against the full revision content schema (`RevisionContent`).
+ * review checks it against the full revision content schema (`RevisionContent`). Bounded in
+ * depth and size (json-bounds.ts) before the canonicaliser or the diff walks it.
  */
-export const draftContentSchema = z.record(z.string(), z.unknown(), { error: 'The content must be a JSON object.' });
+export const draftContentSchema = boundedJsonObject(REVISION_CONTENT_BOUNDS, 'The content must be a JSON object.');
 
 export const revisionSummarySchema = z.object({
   id,
@@ -36,6 +39,14 @@ export const revisionSummarySchema = z.object({
 });
 export type RevisionSummary = z.infer<typeof revisionSummarySchema>;
 
+/** One person who contributed to a revision, and how (shared/speed-book/four-eyes.ts). */
+export const revisionContributorSchema = z.object({
+  userId: id,
+  name: z.string(),
+  kinds: z.array(z.enum(CONTRIBUTION_KINDS)),
+});
+export type RevisionContributorView = z.infer<typeof revisionContributorSchema>;
+
 export const revisionSchema = revisionSummarySchema.extend({
   content: draftContentSchema,
   returnedAt: timestamp.nullable(),
@@ -47,6 +58,8 @@ export const revisionSchema = revisionSummarySchema.extend({
   signingKeyId: id.nullable(),
   /** While draft or in review: field path → sentence for what submitting would refuse (empty when none). */
   problems: z.record(z.string(), z.string()),
+  /** Everyone who started, changed, gave source pages to or submitted it, in order of first contribution; none of them may approve it. */
+  contributors: z.array(revisionContributorSchema),
 });
 export type RevisionView = z.infer<typeof revisionSchema>;
 export const revisionResponseSchema = z.object({ revision: revisionSchema });

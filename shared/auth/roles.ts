@@ -16,7 +16,7 @@ export const CAPABILITIES = [
   'manage-fleet',
   'read-audit',
   'read-card-log',
-  /** Print speed cards in batches from the server (`GET /api/airframes/:id/card.pdf`). */
+  /** Print speed cards in batches from the server (`POST /api/airframes/:id/card.pdf`; a GET prints an issued one again). */
   'print-card-batches',
 ] as const;
 export type Capability = (typeof CAPABILITIES)[number];

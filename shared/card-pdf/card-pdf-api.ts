@@ -1,6 +1,6 @@
 /**
- * `GET /api/airframes/:id/card.pdf`: the card inputs as query parameters, named as the fields of
- * `CardInputs` (shared/card/card.ts), nested ones dotted. The server reads them into
+ * `POST /api/airframes/:id/card.pdf` (issues a card): the card inputs as query parameters,
+ * named as the fields of `CardInputs` (shared/card/card.ts), nested ones dotted. The server reads them into
  * `cardInputsSchema` (server/cards/card-pdf.service.ts), which says what each must be; this
  * schema describes them for the API document.
  */
@@ -30,3 +30,10 @@ export const cardPdfQuerySchema = z.object({
   altitudeStepFt: figure('Spacing of the altitude table’s rows, whole feet (100 to 10,000)'),
   paper: z.enum(CARD_PAPER_SIZES).optional().describe('half-letter (default), a5, two-up-letter or two-up-a4'),
 });
+
+/** `GET /api/airframes/:id/card.pdf`: prints a card already in the card log again; nothing is written. */
+export const cardPdfReprintQuerySchema = z.object({
+  code: z.string().describe('The card code of an issued card of this airframe, e.g. K7M-4RT-X9X (X-Card-Code of the POST)'),
+  paper: z.enum(CARD_PAPER_SIZES).optional().describe('half-letter (default), a5, two-up-letter or two-up-a4'),
+});
+

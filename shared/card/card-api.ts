@@ -5,6 +5,7 @@
 import * as z from 'zod';
 import { AIRCRAFT_CATEGORIES, SPEED_BASES, SPEED_PHASES } from '../speed-book/revision-content';
 import { CARD_CODE_PATTERN } from '../card-check/card-code';
+import { boundedJsonObject, CARD_INPUTS_BOUNDS } from '../api/json-bounds';
 import { CARD_REFUSAL_CODES, CARD_VERSION, cardInputsSchema, type SpeedCard } from './card';
 
 const id = z.number().int().positive();
@@ -16,7 +17,7 @@ const recordId = (what: string) => z.number({ error: `Give ${what}.` }).int(`Giv
 /** `POST /api/cards/preview`. Inputs are checked by `buildCard`, which names the field at fault. */
 export const cardPreviewRequestSchema = z.strictObject({
   revisionId: recordId('the revision'),
-  inputs: z.record(z.string(), z.unknown(), { error: 'Give the card’s inputs as an object.' }),
+  inputs: boundedJsonObject(CARD_INPUTS_BOUNDS, 'Give the card’s inputs as an object.'),
 });
 export type CardPreviewRequest = z.infer<typeof cardPreviewRequestSchema>;
 
@@ -94,12 +95,12 @@ export const cardPreviewResponseSchema = z.object({ card: speedCardSchema });
 
 const timestamp = z.iso.datetime({ offset: true, error: 'An ISO 8601 date and time, such as 2026-12-01T09:30:00.000Z.' });
 
-/** One card log entry as the device reports it. `inputs` are checked when the card is re-derived. */
+/** One card log entry as the device reports it. `inputs` are bounded here and checked when the card is re-derived. */
 export const cardIssueEntrySchema = z.strictObject({
   id: z.uuid({ error: 'The entry id is a UUID.' }),
   airframeId: recordId('the airframe'),
   revisionId: recordId('the revision'),
-  inputs: z.record(z.string(), z.unknown(), { error: 'Give the card’s inputs as an object.' }),
+  inputs: boundedJsonObject(CARD_INPUTS_BOUNDS, 'Give the card’s inputs as an object.'),
   digest: z.string({ error: 'Give the card’s digest.' }).regex(/^[0-9a-f]{64}$/, 'The digest is 64 lower-case hexadecimal digits.'),
   issuedAt: timestamp,
 });

@@ -59,6 +59,7 @@ const REVISION: RevisionView = {
   signature: null,
   signingKeyId: null,
   problems: {},
+  contributors: [],
 };
 const CONTEXT = {
   airframe: { id: 7, registration: 'ZZ-KFA' },

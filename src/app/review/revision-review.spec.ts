@@ -59,14 +59,15 @@ describe('RevisionReview', () => {
     attachments: unknown[] = [],
     {
       content,
+      revision = inReview(content),
       changes = TRAINER_CHANGES,
       coverage = (request) => request.flush({ report: smallCoverageReport() }),
-    }: { content?: Record<string, unknown>; changes?: unknown[]; coverage?: (request: TestRequest) => void } = {},
+    }: { content?: Record<string, unknown>; revision?: ReturnType<typeof inReview>; changes?: unknown[]; coverage?: (request: TestRequest) => void } = {},
   ): Promise<void> {
     fixture.componentRef.setInput('revisionId', IN_REVIEW);
     await fixture.whenStable();
     coverage(backend.expectOne(COVERAGE_PATHS.ofRevision(IN_REVIEW)));
-    backend.expectOne(REVISION_PATHS.revision(IN_REVIEW)).flush({ revision: inReview(content) });
+    backend.expectOne(REVISION_PATHS.revision(IN_REVIEW)).flush({ revision });
     backend.expectOne(REVISION_PATHS.speedBook(1)).flush({ speedBook: speedBook([revisionSummary({ id: IN_REVIEW, number: 3, status: 'in_review' }), revisionSummary()]) });
     backend.expectOne(REVISION_PATHS.attachments(IN_REVIEW)).flush({ attachments });
     backend.expectOne(REVISION_PATHS.diff(IN_REVIEW, PUBLISHED)).flush({
@@ -152,6 +153,33 @@ describe('RevisionReview', () => {
     expect(button('return')).toBeNull();
     // The diff is still there to read.
     expect(diffRows()).toHaveLength(4);
+  });
+
+  it('lists the contributors and, to an approver who changed the revision, says why approving is not offered', async () => {
+    user.set(sessionUser('approver'));
+    const revision = {
+      ...inReview(),
+      contributors: [
+        { userId: PEOPLE.engineer, name: 'Ines Marlow', kinds: ['created' as const] },
+        { userId: PEOPLE.approver, name: 'Tomas Reyl', kinds: ['edited' as const, 'submitted' as const] },
+      ],
+    };
+    await openReview([], { revision });
+    const listed = Array.from(page.querySelectorAll('[data-testid="contributors"] li')).map((item) => item.textContent!.replace(/\s+/g, ' ').trim());
+    expect(listed).toEqual(['Ines Marlow — started it', 'Tomas Reyl — changed it and submitted it']);
+    expect(button('publish')).toBeNull();
+    expect(page.querySelector('[data-testid="approve-refusal"]')?.textContent).toContain(
+      'You changed it and submitted it, so you may not approve revision 3: nobody approves a revision they contributed to.',
+    );
+    // Returning it to its author is still open to them.
+    expect(button('return')).not.toBeNull();
+  });
+
+  it('offers approval to an approver who contributed nothing', async () => {
+    user.set(sessionUser('approver', PEOPLE.otherApprover));
+    await openReview([], { revision: { ...inReview(), contributors: [{ userId: PEOPLE.approver, name: 'Tomas Reyl', kinds: ['edited'] }, { userId: PEOPLE.engineer, name: 'Ines Marlow', kinds: ['created'] }] } });
+    expect(button('publish')).not.toBeNull();
+    expect(page.querySelector('[data-testid="approve-refusal"]')).toBeNull();
   });
 
   it('shows the server’s sentence when it refuses an approval with 403', async () => {

@@ -12,6 +12,7 @@ import type { AttachmentView } from '../../../shared/api/attachments';
 import { reasonSchema, type RevisionView } from '../../../shared/api/revisions';
 import { UNIT_SYMBOLS, isCanonical, statedUnitsOf } from '../../../shared/speed-book/stated-units';
 import type { CoverageReport } from '../../../shared/card/coverage-report';
+import { contributionWords, fourEyesRefusal } from '../../../shared/speed-book/four-eyes';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { CoverageApi, CoverageRefusal } from '../coverage/coverage-api';
 import { CoveragePicture } from '../coverage/coverage-picture';
@@ -26,10 +27,11 @@ import { SourcePages } from './source-pages';
 
 /**
  * The approver's review of one revision: the diff against the published revision beside the
- * source pages, then publish or return with a reason. Nobody approves their own revision; the
- * server refuses it too, and its sentence is shown when it does. The envelope proof (coverage
- * picture) shows, before publishing, exactly where the book gives a card and where it does not,
- * with the engineer's recorded exceptions beside it.
+ * source pages, then publish or return with a reason. Nobody approves a revision they contributed
+ * to (shared/speed-book/four-eyes.ts): the page lists the contributors and, in place of the
+ * approve button, says why it is not offered; the server refuses it too. The envelope proof
+ * (coverage picture) shows, before publishing, exactly where the book gives a card and where it
+ * does not, with the engineer's recorded exceptions beside it.
  */
 @Component({
   selector: 'sw-revision-review',
@@ -102,6 +104,17 @@ export class RevisionReview {
     const stated = `Weights in ${UNIT_SYMBOLS[units.weight]}, speeds in ${UNIT_SYMBOLS[units.speed]}, as the flight manual of this revision prints them`;
     return isCanonical('weight', units) && isCanonical('speed', units) ? `${stated}.` : `${stated}; the stored kg and kt are in brackets.`;
   });
+  /** Everyone who contributed, in words: "Ines Marlow (started it and submitted it)". */
+  protected readonly contributors = computed(() =>
+    (this.revision()?.contributors ?? []).map((contributor) => ({ ...contributor, words: contributionWords(contributor.kinds) })),
+  );
+  /** Why the signed-in approver may not publish it (they contributed), or null; the server's own sentence. */
+  protected readonly approveRefusal = computed(() => {
+    const revision = this.revision();
+    const me = this.user()?.id;
+    if (!revision || me === undefined) return null;
+    return fourEyesRefusal(revision.number, revision.contributors.find((contributor) => contributor.userId === me)?.kinds ?? []);
+  });
 
   constructor() {
     effect(() => this.loadReview(this.revisionId()));
@@ -138,7 +151,7 @@ export class RevisionReview {
 
   protected publishRevision(): void {
     const revision = this.revision();
-    if (!revision || this.ownRevision()) return;
+    if (!revision || this.ownRevision() || this.approveRefusal()) return;
     this.act(this.coverageApi.approve(revision.id), (published) => `Revision ${published.number} is published and signed; it is now the current revision of ${this.book()?.title ?? 'its speed book'}.`);
   }
 

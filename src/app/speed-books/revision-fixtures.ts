@@ -46,6 +46,7 @@ export function revisionView(content: Record<string, unknown>, overrides: Partia
     signature: null,
     signingKeyId: null,
     problems: {},
+    contributors: [{ userId: PEOPLE.engineer, name: 'Ines Marlow', kinds: ['created', 'edited', 'submitted'] }],
     ...overrides,
   };
 }
