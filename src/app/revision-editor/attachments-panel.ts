@@ -15,7 +15,7 @@ import { UtcDatePipe } from '../speed-books/utc-date-pipe';
   imports: [MatButtonModule, MatIconModule, MatProgressBarModule, UtcDatePipe],
   template: `
     <p class="help">Attach the flight-manual pages the figures come from: PDF, PNG or JPEG, up to 10 MB each.</p>
-    <input #picker class="sw-visually-hidden" type="file" accept=".pdf,.png,.jpg,.jpeg,application/pdf,image/png,image/jpeg" (change)="attachFile($event)" data-testid="attachment-file" />
+    <input #picker class="sw-visually-hidden" type="file" tabindex="-1" aria-label="Source page file (PDF, PNG or JPEG)" accept=".pdf,.png,.jpg,.jpeg,application/pdf,image/png,image/jpeg" (change)="attachFile($event)" data-testid="attachment-file" />
     <button mat-stroked-button type="button" (click)="picker.click()" [disabled]="busy()"><mat-icon>attach_file</mat-icon>Attach a source page</button>
     @if (busy()) {
       <mat-progress-bar mode="indeterminate" aria-label="Working on the source pages" />
