@@ -74,8 +74,9 @@ describe('weight-scaled speeds, position error and rounding (hand-worked)', () =
   it('lists only the takeoff speeds of the takeoff configuration', () => {
     const jet = buildCard(revisionOf(handJetContent()), { ...handPistonInputs(), weightKg: 7200, landingWeightKg: undefined, configuration: 'flap', cruise: { iasKt: 250 } }, HAND_CONTEXT);
     // V2 at 7,200 kg from 125 KCAS at 8,000 kg: 125·√0.9 = 118.585 → 119 KCAS; flap table
-    // 84→250 KCAS over 80→250 KIAS: IAS = 80 + (118.585 − 84)·170/166 = 115.42 → 115.
-    expect(speed(jet, 'V2')).toMatchObject({ casKt: 119, iasKt: 115 });
+    // 84→250 KCAS over 80→250 KIAS: IAS = 80 + (118.585 − 84)·170/166 = 115.42.
+    // V2 is a minimum speed: rounded up (flight-physics.md, "Rounding by kind"), 115.42 → 116.
+    expect(speed(jet, 'V2')).toMatchObject({ casKt: 119, iasKt: 116 });
     expect(() => buildCard(revisionOf(handJetContent()), { ...handPistonInputs(), weightKg: 7200, configuration: 'clean' }, HAND_CONTEXT)).toThrow(CardRefusedError);
   });
 });
@@ -216,14 +217,17 @@ describe('refusals', () => {
     expectRefused(refusal({ weightKg: 1000, landingWeightKg: 960 }), 'landing-weight-out-of-range', 'landingWeightKg', /above the maximum landing weight of 950 kg/);
   });
 
-  it('refuses a tabulated speed outside its altitudes, never extrapolating', () => {
+  // The hand-worked book declares no envelope (content from before envelopes): its envelope is
+  // derived from its tables (envelope.ts), so a day beyond a table is refused in one sentence
+  // that names the envelope, before any table is read — never extrapolated.
+  it('refuses a day beyond its tables’ altitudes as outside the envelope derived from them, never extrapolating', () => {
     // VR is tabulated from 0 to 4,000 ft; a 5,000 ft field on a standard QNH is at 5,000 ft.
     const error = refusal({ departure: { elevationFt: 5000, qnhHpa: 1013.25, oatC: 0 } });
-    expectRefused(error, 'outside-flight-manual-data', 'departure.elevationFt', /^VR \(Rotate\): A pressure altitude of 5,000.0 ft is outside the flight manual's table \(0.0 to 4,000.0 ft\)/);
+    expectRefused(error, 'outside-book-envelope', 'departure.elevationFt', /^The day is outside this book's takeoff envelope: the departure pressure altitude of 5,000 ft is above its range of 0 to 4,000 ft\.$/);
   });
 
-  it('refuses a tabulated speed outside its temperatures', () => {
-    expectRefused(refusal({ departure: { elevationFt: 2000, qnhHpa: 1013.25, oatC: 35 } }), 'outside-flight-manual-data', 'departure.oatC', /temperature of 35.0 °C is outside the flight manual's table/);
+  it('refuses a day beyond its tables’ temperatures as outside the envelope derived from them', () => {
+    expectRefused(refusal({ departure: { elevationFt: 2000, qnhHpa: 1013.25, oatC: 35 } }), 'outside-book-envelope', 'departure.oatC', /^The day is outside this book's takeoff envelope: the departure temperature of 35 °C is above its range of/);
   });
 
   it('refuses content that does not match its published hash', () => {

@@ -33,6 +33,7 @@ export const speedCardSchema = z.object({
   aircraftType: z.object({ designator: z.string(), name: z.string(), category: z.enum(AIRCRAFT_CATEGORIES), engines: z.number().int(), ceilingFt: z.number().int() }),
   inputs: cardInputsSchema,
   takeoffConfiguration: z.object({ key: z.string(), label: z.string() }),
+  landing: z.object({ source: z.enum(['entered', 'takeoff-weight', 'maximum-landing-weight']), statement: z.string(), weightKg: z.number() }),
   departure: z.object({ pressureAltitudeFt: z.number(), densityAltitudeFt: z.number(), isaDeviationC: z.number(), highDensityAltitude: z.boolean() }),
   arrival: z.object({ pressureAltitudeFt: z.number(), densityAltitudeFt: z.number(), isaDeviationC: z.number(), highDensityAltitude: z.boolean() }).nullable(),
   speeds: z.array(

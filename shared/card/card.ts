@@ -14,8 +14,11 @@ import * as z from 'zod';
 import type { AircraftCategory, SpeedBasis, SpeedPhase } from '../speed-book/revision-content';
 import { configurationKeySchema } from '../speed-book/revision-content';
 
-/** Schema version of the card JSON; part of the digest, so a change of meaning changes it. */
-export const CARD_VERSION = 1;
+/**
+ * Schema version of the card JSON; part of the digest, so a change of meaning changes it.
+ * 2: speeds rounded by class, the landing weight used, the book's envelope and ordering rules.
+ */
+export const CARD_VERSION = 2;
 
 /** The banks of the stall-speed-in-turn lines, degrees (product.md, "What a card shows"). */
 export const STALL_TURN_BANKS_DEG = [0, 15, 30, 45, 60] as const;
@@ -72,7 +75,10 @@ export const cardInputsSchema = z.strictObject({
     .positive('Choose the airframe.'),
   /** Takeoff weight, kg. */
   weightKg: weight('the takeoff weight in kg'),
-  /** Landing weight, kg; without it the landing and approach speeds use the takeoff weight. */
+  /**
+   * Landing weight, kg; without it the landing and approach speeds use the takeoff weight when
+   * that is within the maximum landing weight, else the maximum landing weight (the card says so).
+   */
   landingWeightKg: weight('the landing weight in kg').optional(),
   /** The takeoff configuration's key (a configuration of the speed book). */
   configuration: configurationKeySchema,
@@ -147,6 +153,15 @@ export interface CardSpeed {
   readonly iasKt: number;
   readonly casKt: number;
   readonly rounding: CardRounding;
+}
+
+/** The landing weight the approach and landing speeds were computed at, and why that one. */
+export interface CardLanding {
+  /** `entered` by the pilot; the `takeoff-weight` (within the maximum landing weight); or the `maximum-landing-weight`. */
+  readonly source: 'entered' | 'takeoff-weight' | 'maximum-landing-weight';
+  /** One sentence the card prints. */
+  readonly statement: string;
+  readonly weightKg: number;
 }
 
 /** Stall speed in a level coordinated turn at `bankDeg`, from VS1 at the takeoff weight. */
@@ -277,6 +292,8 @@ export interface SpeedCard {
   /** The inputs as entered (canonical units), so the card can be re-derived. */
   readonly inputs: CardInputs;
   readonly takeoffConfiguration: { readonly key: string; readonly label: string };
+  /** The landing weight the approach and landing speeds use. */
+  readonly landing: CardLanding;
   readonly departure: CardAerodrome;
   readonly arrival: CardAerodrome | null;
   readonly speeds: readonly CardSpeed[];
@@ -311,6 +328,10 @@ export const CARD_REFUSAL_CODES = [
   'landing-weight-out-of-range',
   /** A figure would need the flight manual's data beyond its tables (never extrapolated). */
   'outside-flight-manual-data',
+  /** The day lies outside the pressure-altitude or temperature envelope the speed book declares. */
+  'outside-book-envelope',
+  /** The card's speeds would break an ordering rule the book records no exception for. */
+  'ordering-rule-broken',
   /** An input lies outside the atmosphere, the altimeter relation or the airspeed relations. */
   'out-of-envelope',
 ] as const;

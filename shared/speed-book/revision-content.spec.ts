@@ -196,7 +196,7 @@ describe('revision content schema', () => {
     });
     expect(
       problemsAfter((c) => c.speeds.push({ code: 'VFAST', label: 'Too fast', phase: 'cruise', configurationKey: 'clean', basis: 'ias', kind: 'fixed', valueKt: 170 })),
-    ).toEqual({ 'speeds.8.valueKt': 'VFAST runs from 170 to 170 kt IAS over the weight range, outside the clean position-error table (35 to 160 kt IAS).' });
+    ).toEqual({ 'speeds.8.valueKt': 'VFAST runs from 170 to 170 kt IAS over the weight range, outside the clean position-error table (30 to 160 kt IAS).' });
   });
 
   it('refuses a limit outside the cruise configuration’s table', () => {
