@@ -189,8 +189,14 @@ describe('the altitude table', () => {
     expect(row(jetCard({ iasKt: 250 }), 10000)).toMatchObject({ iasKt: 250, casKt: 250, easKt: 248, tasKt: 289, limitKind: 'vmo', limitCasKt: 300, aboveLimit: false });
   });
 
-  it('matches NASA RP 1046: 400 KCAS at 30,000 ft is 602.6 KTAS, above VMO there', () => {
-    expect(row(jetCard({ iasKt: 400 }), 30000)).toMatchObject({ casKt: 400, tasKt: 603, aboveLimit: true, limitKind: 'vmo', limitCasKt: 300 });
+  it('dashes an IAS cruise that would be supersonic: 400 KCAS at 30,000 ft is 602.6 KTAS (NASA RP 1046), Mach 1.02', () => {
+    // Issue 11 (regression): the row used to print 603 KTAS and Mach 1.02 silently; now it gives
+    // no figure and says why, while the limit column still stands.
+    const supersonic = row(jetCard({ iasKt: 400 }), 30000);
+    expect(supersonic).toMatchObject({ iasKt: 400, casKt: null, easKt: null, tasKt: null, mach: null, aboveLimit: true, limitKind: 'vmo', limitCasKt: 300 });
+    expect(supersonic.cruiseNote).toMatch(/^At 30,000 ft the cruise IAS of 400 kt would be Mach 1\.02\d?, at or above Mach 1; no figure is given\.$/);
+    // At 10,000 ft the same IAS is subsonic (Mach 0.72): every figure, no note.
+    expect(row(jetCard({ iasKt: 400 }), 10000)).toMatchObject({ casKt: 400, cruiseNote: null });
   });
 
   it('matches NASA RP 1046: Mach 0.8 at 30,000 ft is 471.46 KTAS; MMO governs above the crossover', () => {
@@ -253,8 +259,14 @@ describe('refusals', () => {
     expectRefused(refusal({ isaDeviationC: 60 }), 'out-of-envelope', 'isaDeviationC', /^At 0 ft: The temperature at ISA \+60.0 °C/);
   });
 
-  it('refuses a cruise IAS outside the cruise configuration’s position-error table', () => {
-    expectRefused(refusal({ cruise: { iasKt: 160 } }), 'outside-flight-manual-data', 'cruise.iasKt', /outside this configuration's position-error table/);
+  it('gives the card but dashes every altitude row for a cruise IAS outside the cruise configuration’s position-error table', () => {
+    // Issue 11: the cruise is no reason to refuse the takeoff and landing speeds; the table says why it has no figure.
+    const card = buildCard(revisionOf(handPistonContent()), { ...handPistonInputs(), cruise: { iasKt: 160 } }, HAND_CONTEXT);
+    expect(card.cruise).toEqual({ casKt: null, iasKt: 160 });
+    for (const altitudeRow of card.altitudeTable) {
+      expect(altitudeRow).toMatchObject({ casKt: null, tasKt: null, mach: null });
+      expect(altitudeRow.cruiseNote).toMatch(/^The cruise IAS of 160 kt is outside the cruise configuration's position-error table \(30 to \d+ KIAS\); no figure is given\.$/);
+    }
   });
 
   it('refuses inputs that are not numbers, an unknown configuration, and another airframe', () => {

@@ -448,8 +448,10 @@ interface ComputedLimits {
 
 interface ComputedCruise {
   readonly card: SpeedCard['cruise'];
-  /** CAS of an IAS cruise (null for a Mach cruise). */
+  /** CAS of an IAS cruise (null for a Mach cruise, or an IAS outside the table). */
   readonly casKt: number | null;
+  /** Why an IAS cruise has no CAS: outside the cruise configuration's table (every row dashed). */
+  readonly outsideTable: string | null;
 }
 
 /** Reads the figures of one revision's content. */
@@ -703,10 +705,20 @@ class SpeedBook {
     );
   }
 
+  /**
+   * The planned cruise. An IAS outside the cruise configuration's position-error table gives no
+   * CAS (never extrapolated): the card stands, and every altitude row says why it has a dash.
+   */
   cruise(cruise: CardInputs['cruise']): ComputedCruise {
-    if ('mach' in cruise) return { card: { mach: cruise.mach }, casKt: null };
+    if ('mach' in cruise) return { card: { mach: cruise.mach }, casKt: null, outsideTable: null };
+    const first = this.cruiseTable[0].iasKt;
+    const last = this.cruiseTable[this.cruiseTable.length - 1].iasKt;
+    if (cruise.iasKt < first || cruise.iasKt > last) {
+      const note = `The cruise IAS of ${group(Math.round(cruise.iasKt))} kt is outside the cruise configuration's position-error table (${group(first)} to ${group(last)} KIAS); no figure is given.`;
+      return { card: { casKt: null, iasKt: cruise.iasKt }, casKt: null, outsideTable: note };
+    }
     const casKt = guarded(() => iasToCasKt(this.cruiseTable, cruise.iasKt), () => 'cruise.iasKt', 'Cruise: ');
-    return { card: { casKt: roundSpeedKt(casKt), iasKt: cruise.iasKt }, casKt };
+    return { card: { casKt: roundSpeedKt(casKt), iasKt: cruise.iasKt }, casKt, outsideTable: null };
   }
 
   /** Rows from 0 ft every `altitudeStepFt` below the ceiling, then the ceiling, on the day's ISA deviation. */
@@ -725,11 +737,22 @@ class SpeedBook {
 
   private altitudeRow(pressureAltitudeFt: number, inputs: CardInputs, cruise: ComputedCruise, limits: ComputedLimits): CardAltitudeRow {
     const oatC = isaTemperatureC(pressureAltitudeFt, inputs.isaDeviationC);
+    const machCruise = 'mach' in inputs.cruise ? inputs.cruise.mach : null;
     const speeds =
-      cruise.casKt === null
-        ? convertAirspeed({ pressureAltitudeFt, oatC, mach: (inputs.cruise as { mach: number }).mach })
-        : convertAirspeed({ pressureAltitudeFt, oatC, casKt: cruise.casKt });
-    const iasKt = cruise.casKt === null ? this.iasWithinTable(speeds.casKt, roundSpeedKt) : (inputs.cruise as { iasKt: number }).iasKt;
+      machCruise !== null
+        ? convertAirspeed({ pressureAltitudeFt, oatC, mach: machCruise })
+        : cruise.casKt === null
+          ? null
+          : convertAirspeed({ pressureAltitudeFt, oatC, casKt: cruise.casKt });
+    let cruiseNote: string | null = cruise.outsideTable;
+    if (speeds && machCruise === null && speeds.mach >= 1) {
+      cruiseNote = `At ${group(pressureAltitudeFt)} ft the cruise IAS of ${group(Math.round((inputs.cruise as { iasKt: number }).iasKt))} kt would be Mach ${round3(speeds.mach)}, at or above Mach 1; no figure is given.`;
+    }
+    const figures = cruiseNote === null ? speeds : null;
+    const iasKt = machCruise !== null ? this.iasWithinTable(speeds!.casKt, roundSpeedKt) : (inputs.cruise as { iasKt: number }).iasKt;
+    if (machCruise !== null && iasKt === null) {
+      cruiseNote = `At ${group(pressureAltitudeFt)} ft Mach ${machCruise} is ${roundSpeedKt(speeds!.casKt)} KCAS, outside the cruise configuration's position-error table: no IAS is given.`;
+    }
 
     let limitCasKt: number | null = null;
     let limitKind: CardLimitKind | null = null;
@@ -748,17 +771,18 @@ class SpeedBook {
       limitKind = 'vne';
     }
     return {
-      aboveLimit: limitCasKt !== null && speeds.casKt > limitCasKt + 1e-9,
-      casKt: roundSpeedKt(speeds.casKt),
-      easKt: roundSpeedKt(speeds.easKt),
+      aboveLimit: limitCasKt !== null && speeds !== null && speeds.casKt > limitCasKt + 1e-9,
+      casKt: figures ? roundSpeedKt(figures.casKt) : null,
+      cruiseNote,
+      easKt: figures ? roundSpeedKt(figures.easKt) : null,
       iasKt,
       limitCasKt: limitCasKt === null ? null : roundLimitKt(limitCasKt),
       limitIasKt: limitCasKt === null ? null : this.iasWithinTable(limitCasKt, roundLimitKt),
       limitKind,
-      mach: round3(speeds.mach),
+      mach: figures ? round3(figures.mach) : null,
       oatC: round1(oatC),
       pressureAltitudeFt,
-      tasKt: roundSpeedKt(speeds.tasKt),
+      tasKt: figures ? roundSpeedKt(figures.tasKt) : null,
     };
   }
 

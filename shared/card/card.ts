@@ -214,10 +214,17 @@ export interface CardAltitudeRow {
    * lies outside the cruise configuration's position-error table (never extrapolated).
    */
   readonly iasKt: number | null;
-  readonly casKt: number;
-  readonly easKt: number;
-  readonly tasKt: number;
-  readonly mach: number;
+  /** CAS, EAS, TAS and Mach of the planned cruise; null (a dash) where `cruiseNote` says why. */
+  readonly casKt: number | null;
+  readonly easKt: number | null;
+  readonly tasKt: number | null;
+  readonly mach: number | null;
+  /**
+   * Why this row shows a dash instead of a figure: the IAS cruise is at or above Mach 1 here, or
+   * lies outside the cruise configuration's position-error table; a Mach cruise's CAS outside it
+   * (IAS dashed). Null when every figure of the row is given.
+   */
+  readonly cruiseNote: string | null;
   /**
    * The speed limit at this altitude as IAS, rounded down: VMO or the CAS of MMO at this altitude,
    * whichever is lower, or VNE. Null when the type has neither VNE nor VMO, or when the limit's
@@ -302,7 +309,7 @@ export interface SpeedCard {
   /** Where VMO and MMO meet, ft; null unless the type has both. */
   readonly crossoverAltitudeFt: number | null;
   /** The planned cruise as entered: IAS through the cruise configuration, or Mach. */
-  readonly cruise: { readonly iasKt: number; readonly casKt: number } | { readonly mach: number };
+  readonly cruise: { readonly iasKt: number; readonly casKt: number | null } | { readonly mach: number };
   readonly altitudeTable: readonly CardAltitudeRow[];
   readonly indicator: CardIndicator;
 }

@@ -95,4 +95,4 @@ export function handPistonInputs(): CardInputs {
  * update it here (card-digest.spec.ts checks it in Node, test/e2e/card-digest.e2e.ts in
  * Chromium) and raise CARD_VERSION if a field changed its meaning.
  */
-export const HAND_PISTON_CARD_DIGEST = '650580cf0dc7204698c664671903fbbf0bda4d1502dd18f4fceef45daa4332e8';
+export const HAND_PISTON_CARD_DIGEST = '4f215f766a6ca925d9d3092137b30571333d5d84af689e1d4cea04d0f9d116bc';
