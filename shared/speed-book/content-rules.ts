@@ -6,7 +6,6 @@
 import type * as z from 'zod';
 import { AeroInputError, casToIasKt, iasToCasKt } from '../aero';
 import type { revisionContentShape } from './content-shape';
-import { LANDING_PHASES } from './envelope';
 import { speedRole } from './speed-class';
 import { ORDERING_RULE_IDS } from './ordering-rule-table';
 
@@ -287,34 +286,19 @@ function checkLimits(content: Content, configurations: Map<string, Configuration
 }
 
 /**
- * The declared envelope must lie inside what the book can give: below the ceiling, and inside
- * the altitude and temperature axes of every tabulated speed of its phase (takeoff speeds and
- * every other tabulated speed for the takeoff envelope; approach and landing speeds for the
- * landing one) — or the engineer narrows the envelope. Rule exceptions must name a rule.
+ * The declared envelope must lie below the ceiling, and rule exceptions must name a rule. Whether
+ * the tables cover the envelope is not a field rule: the envelope sweep (shared/card/coverage.ts)
+ * reads every point through the card's own computation and reports each hole with the table's
+ * reason, and the server refuses submit and publish until it passes (one rule set).
  */
 function checkEnvelope(content: Content, add: Add): void {
-  const { envelope, aircraft, speeds } = content;
+  const { envelope, aircraft } = content;
   if (envelope) {
     for (const phase of ['takeoff', 'landing'] as const) {
       const declared = envelope[phase];
       if (declared.pressureAltitudeFt.max > aircraft.ceilingFt) {
         add(['envelope', phase, 'pressureAltitudeFt', 'max'], `The ${phase} envelope reaches ${fmt(declared.pressureAltitudeFt.max)} ft, above the type’s ceiling (${fmt(aircraft.ceilingFt)} ft).`);
       }
-      speeds.forEach((speed, i) => {
-        if (speed.kind !== 'tabulated' || LANDING_PHASES.has(speed.phase) !== (phase === 'landing')) return;
-        const covers = (axis: number[] | undefined, range: { min: number; max: number }, key: string, unit: string, what: string) => {
-          if (!axis || axis.length < 2 || axis.some((value, j) => j > 0 && value <= axis[j - 1])) return; // shape reported above
-          const [first, last] = [axis[0], axis[axis.length - 1]];
-          if (first > range.min || last < range.max) {
-            add(
-              ['speeds', i, key],
-              `${speed.code}’s ${what} axis (${fmt(first)} to ${fmt(last)} ${unit}) does not cover the ${phase} envelope (${fmt(range.min)} to ${fmt(range.max)} ${unit}); extend the table or narrow the envelope.`,
-            );
-          }
-        };
-        covers(speed.byPressureAltitudeFt, declared.pressureAltitudeFt, 'byPressureAltitudeFt', 'ft', 'pressure-altitude');
-        covers(speed.byOatC, declared.oatC, 'byOatC', '°C', 'temperature');
-      });
     }
   }
   const seen = new Set<string>();
