@@ -1,6 +1,6 @@
 import { demoLightTwinJetContent, demoTwinTurbopropContent } from '../speed-book/demo-content';
 import { revisionContentSchema, type RevisionContent } from '../speed-book/revision-content';
-import { axisPoints, MAX_POINTS_PER_AXIS, sweepEnvelope } from './coverage';
+import { axisPoints, MAX_POINTS_PER_AXIS, MAX_SWEEP_POINTS, sweepEnvelope } from './coverage';
 
 const parsed = (content: RevisionContent) => revisionContentSchema.parse(content);
 
@@ -77,5 +77,25 @@ describe('axisPoints', () => {
     expect(axisPoints([0, 10], [5, 20], 5, 10)).toEqual([0, 5, 10]);
     expect(axisPoints([0, 10], [], 2.5, 10)).toEqual([0, 2.5, 5, 7.5, 10]);
     expect(axisPoints([-1000, 8000], [4000], 1000, 13)).toEqual([-1000, 0, 1000, 2000, 3000, 4000, 5000, 6000, 7000, 8000]);
+  });
+});
+
+describe('the sweep’s bound', () => {
+  it('keeps a book with twelve takeoff configurations within MAX_SWEEP_POINTS', () => {
+    const content = demoLightTwinJetContent();
+    const template = content.configurations[1];
+    const v1 = content.speeds.filter((speed) => speed.phase === 'takeoff');
+    for (let i = 0; i < 9; i++) {
+      content.configurations.push({ ...template, key: `takeoff-${i}`, label: `Takeoff ${i}` });
+      content.speeds.push(...v1.map((speed) => ({ ...speed, configurationKey: `takeoff-${i}` })));
+    }
+    const report = sweepEnvelope(parsed(content));
+    expect(report.sheets).toHaveLength(11);
+    expect(report.counts.points).toBeLessThanOrEqual(MAX_SWEEP_POINTS * 1.05);
+  });
+
+  it('thins many breakpoints to an even choice', () => {
+    const breakpoints = Array.from({ length: 200 }, (_, i) => i * 5 + 1);
+    expect(axisPoints([0, 1000], breakpoints, 1000, 9).length).toBeLessThanOrEqual(9);
   });
 });

@@ -8,7 +8,7 @@
  * The grid holds each axis's ends, every breakpoint of the book's tables inside the range
  * (where interpolation bends), and evenly spaced points between them, so that no gap between
  * two grid points is wider than the steps below. Every axis is bounded (`MAX_POINTS_PER_AXIS`),
- * so the work is bounded whatever the content: at most 12 configurations × 2 phases × 11 × 13 × 9.
+ * and the whole sweep to `MAX_SWEEP_POINTS`, so the work is bounded whatever the content.
  */
 import { bookEnvelope, formatWhole, LANDING_PHASES, type EnvelopeRange } from '../speed-book/envelope';
 import type { RevisionContent } from '../speed-book/revision-content';
@@ -27,6 +27,8 @@ export interface SweepOptions {
 const DEFAULT_STEPS = { weightKg: 250, altitudeFt: 1000, oatC: 10 } as const;
 /** Most points on one axis (weights, altitudes, OATs), whatever the steps or the tables ask. */
 export const MAX_POINTS_PER_AXIS = { weightKg: 11, altitudeFt: 13, oatC: 9 } as const;
+/** Most grid points of one whole sweep (about 1 s of work on this project's CI machine). */
+export const MAX_SWEEP_POINTS = 5200;
 
 /**
  * Sweeps the envelope of `content` (parsed revision content) and reports every point refused
@@ -45,18 +47,19 @@ export function sweepEnvelope(content: RevisionContent, options: SweepOptions = 
     oatC: positiveOr(options.stepOatC, DEFAULT_STEPS.oatC),
   };
   const labels = new Map(book.configurations.map((configuration) => [configuration.key, configuration.label]));
+  const landingKeys = [...new Set(book.speeds.filter((speed) => LANDING_PHASES.has(speed.phase)).map((speed) => speed.configurationKey))];
+  const caps = axisCaps(takeoffConfigurationKeys(book).length + landingKeys.length);
   const sheets: CoverageSheet[] = [];
   const findings = new Map<string, { brokenAt: number; firstMessage: string }>();
 
   for (const key of takeoffConfigurationKeys(book)) {
     const speeds = book.speeds.filter((speed) => speed.phase === 'takeoff' && speed.configurationKey === key);
-    const grid = gridFor(envelope.takeoff, speeds, steps);
+    const grid = gridFor(envelope.takeoff, speeds, steps, caps);
     sheets.push(sweepSheet(book, 'takeoff', key, labels.get(key)!, grid, findings));
   }
-  const landingKeys = [...new Set(book.speeds.filter((speed) => LANDING_PHASES.has(speed.phase)).map((speed) => speed.configurationKey))];
   for (const key of landingKeys) {
     const speeds = book.speeds.filter((speed) => LANDING_PHASES.has(speed.phase) && speed.configurationKey === key);
-    const grid = gridFor(envelope.landing, speeds, steps);
+    const grid = gridFor(envelope.landing, speeds, steps, caps);
     sheets.push(sweepSheet(book, 'landing', key, labels.get(key) ?? key, grid, findings));
   }
 
@@ -146,13 +149,14 @@ function gridFor(
   envelope: { pressureAltitudeFt: EnvelopeRange; oatC: EnvelopeRange; weightKg: EnvelopeRange },
   speeds: readonly SweptSpeed[],
   steps: { weightKg: number; altitudeFt: number; oatC: number },
+  caps: { weightKg: number; altitudeFt: number; oatC: number },
 ): CoverageSheet['grid'] {
   const breakpoints = (axis: 'byWeightKg' | 'byPressureAltitudeFt' | 'byOatC') =>
     speeds.flatMap((speed) => (speed.kind === 'tabulated' ? (speed[axis] ?? []) : []));
   return {
-    weightsKg: axisPoints(envelope.weightKg, breakpoints('byWeightKg'), steps.weightKg, MAX_POINTS_PER_AXIS.weightKg),
-    pressureAltitudesFt: axisPoints(envelope.pressureAltitudeFt, breakpoints('byPressureAltitudeFt'), steps.altitudeFt, MAX_POINTS_PER_AXIS.altitudeFt),
-    oatsC: axisPoints(envelope.oatC, breakpoints('byOatC'), steps.oatC, MAX_POINTS_PER_AXIS.oatC),
+    weightsKg: axisPoints(envelope.weightKg, breakpoints('byWeightKg'), steps.weightKg, caps.weightKg),
+    pressureAltitudesFt: axisPoints(envelope.pressureAltitudeFt, breakpoints('byPressureAltitudeFt'), steps.altitudeFt, caps.altitudeFt),
+    oatsC: axisPoints(envelope.oatC, breakpoints('byOatC'), steps.oatC, caps.oatC),
   };
 }
 
@@ -163,13 +167,27 @@ function gridFor(
 export function axisPoints(range: EnvelopeRange, breakpoints: readonly number[], step: number, maxPoints: number): number[] {
   const [low, high] = range;
   if (!(high > low)) return [low];
-  const must = new Set<number>([low, high]);
-  for (const value of breakpoints) if (value > low && value < high) must.add(value);
+  const inside = [...new Set(breakpoints.filter((value) => value > low && value < high))].sort((a, b) => a - b);
+  // Many tables with many breakpoints: keep an even choice of them, so the axis stays bounded.
+  const keep = Math.max(0, maxPoints - 2);
+  const chosen = inside.length <= keep ? inside : Array.from({ length: keep }, (_, i) => inside[Math.round((i * (inside.length - 1)) / Math.max(1, keep - 1))]);
+  const must = new Set<number>([low, high, ...chosen]);
   const budget = Math.max(0, maxPoints - must.size);
   const gaps = Math.min(Math.ceil((high - low) / step), budget + 1);
   const points = new Set(must);
   for (let i = 1; i < gaps; i++) points.add(Math.round((low + ((high - low) * i) / gaps) * 100) / 100);
-  return [...points].sort((a, b) => a - b).slice(0, Math.max(maxPoints, must.size));
+  return [...points].sort((a, b) => a - b);
+}
+
+/**
+ * Points per axis for `sheets` sheets: the full `MAX_POINTS_PER_AXIS` up to four sheets (every
+ * demo book), then shrunk evenly so the whole sweep stays within `MAX_SWEEP_POINTS`.
+ */
+function axisCaps(sheets: number): { weightKg: number; altitudeFt: number; oatC: number } {
+  const full = MAX_POINTS_PER_AXIS.weightKg * MAX_POINTS_PER_AXIS.altitudeFt * MAX_POINTS_PER_AXIS.oatC;
+  const factor = Math.min(1, Math.cbrt(MAX_SWEEP_POINTS / (Math.max(1, sheets) * full)));
+  const cap = (points: number) => Math.max(3, Math.floor(points * factor));
+  return { weightKg: cap(MAX_POINTS_PER_AXIS.weightKg), altitudeFt: cap(MAX_POINTS_PER_AXIS.altitudeFt), oatC: cap(MAX_POINTS_PER_AXIS.oatC) };
 }
 
 function coverageEnvelope(envelope: ReturnType<typeof bookEnvelope>): CoverageEnvelope {
