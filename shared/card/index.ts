@@ -6,3 +6,4 @@ export { sweepEnvelope, type SweepOptions } from './coverage';
 export { ORDERING_RULES, orderingRule, type OrderingRule, type OrderingRuleId } from './ordering-rules';
 export { cardDigest } from './card-digest';
 export * from './card-api';
+export { EN_ROUTE_DEVIATION_CONFIRM_C, enRouteDeviationCheck, isaDeviationFromTat, startingEnRouteDeviationC, type TatReading } from './en-route-deviation';

@@ -8,7 +8,7 @@ import { revisionContentProblems, revisionContentSchema, type RevisionContent } 
 import { buildCard, takeoffConfigurationKeys } from './build-card';
 import { CardRefusedError, type CardInputs, type SpeedCard } from './card';
 import { sweepEnvelope } from './coverage';
-import { enRouteDeviationCheck } from './en-route-deviation';
+import { enRouteDeviationCheck, isaDeviationFromTat } from './en-route-deviation';
 import { HAND_CONTEXT, revisionOf } from './test-fixtures';
 
 function inputs(content: RevisionContent, overrides: Partial<CardInputs> = {}): CardInputs {
@@ -180,5 +180,17 @@ describe('issue 11: the en-route atmosphere and the altitude range', () => {
     expect(error.code).toBe('outside-book-envelope');
     expect(error.field).toBe('departure.elevationFt');
     expect(error.message).toBe("The day is outside this book's takeoff envelope: the departure pressure altitude of 9,000 ft is above its range of −1,000 to 8,000 ft.");
+  });
+});
+
+describe('issue 11: an en-route deviation from a TAT reading', () => {
+  it('TAT −30 °C at Mach 0.78 and 35,000 ft is SAT −56.4 °C, ISA −2.0 °C (SAT = TAT/(1 + 0.2·K·M²), NASA RP 1046; ISA −54.34 °C there, ISO 2533)', () => {
+    const { satC, isaDeviationC: deviation } = isaDeviationFromTat({ tatC: -30, pressureAltitudeFt: 35000, mach: 0.78 });
+    expect(satC).toBeCloseTo(-56.377, 2);
+    expect(deviation).toBeCloseTo(-56.377 + 54.344, 2);
+  });
+
+  it('uses the book’s recovery factor', () => {
+    expect(isaDeviationFromTat({ tatC: -30, pressureAltitudeFt: 35000, mach: 0.78, recoveryFactor: 0.8 }).satC).toBeCloseTo(221.5805 - 273.15, 3);
   });
 });
