@@ -729,10 +729,43 @@ class SpeedBook {
     const fieldOf = (field: string) => (field === 'oatC' || field === 'isaDeviationC' ? 'isaDeviationC' : cruiseField);
     for (let altitudeFt = 0; ; altitudeFt += inputs.altitudeStepFt) {
       const rowFt = Math.min(altitudeFt, ceilingFt);
-      rows.push(guarded(() => this.altitudeRow(rowFt, inputs, cruise, limits), fieldOf, `At ${group(rowFt)} ft: `));
+      // A deviation that leaves even the surface row outside the atmosphere is a mistyped input:
+      // the card is refused at that field. Aloft only, the rows concerned show a dash.
+      const outside = rowFt === 0 ? null : this.outsideAtmosphereRow(rowFt, inputs, cruise);
+      rows.push(outside ?? guarded(() => this.altitudeRow(rowFt, inputs, cruise, limits), fieldOf, `At ${group(rowFt)} ft: `));
       if (rowFt >= ceilingFt) break;
     }
     return rows;
+  }
+
+  /**
+   * A row whose temperature on the day's ISA deviation lies outside the modelled atmosphere
+   * (a cold surface day's deviation carried up to the ceiling gives −100 °C and below): every
+   * figure is a dash, with the reason. The en-route table is no reason to refuse the takeoff and
+   * landing speeds. Null for a row inside the atmosphere.
+   */
+  private outsideAtmosphereRow(pressureAltitudeFt: number, inputs: CardInputs, cruise: ComputedCruise): CardAltitudeRow | null {
+    try {
+      isaTemperatureC(pressureAltitudeFt, inputs.isaDeviationC);
+      return null;
+    } catch (error) {
+      if (!(error instanceof AeroInputError) || error.code !== 'temperature-out-of-range') throw error;
+      const oatC = isaTemperatureC(pressureAltitudeFt, 0) + inputs.isaDeviationC;
+      return {
+        aboveLimit: false,
+        casKt: null,
+        cruiseNote: `At ${group(pressureAltitudeFt)} ft: ${error.message} No figure is given; check the en-route ISA deviation.`,
+        easKt: null,
+        iasKt: 'iasKt' in inputs.cruise && cruise.outsideTable === null ? inputs.cruise.iasKt : null,
+        limitCasKt: null,
+        limitIasKt: null,
+        limitKind: null,
+        mach: null,
+        oatC: round1(oatC),
+        pressureAltitudeFt,
+        tasKt: null,
+      };
+    }
   }
 
   private altitudeRow(pressureAltitudeFt: number, inputs: CardInputs, cruise: ComputedCruise, limits: ComputedLimits): CardAltitudeRow {

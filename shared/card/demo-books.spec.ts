@@ -4,7 +4,8 @@
  * 5,000 ft, QNH 980–1040 hPa, OAT −35…+45 °C — is never refused. Property tests (fast-check).
  */
 import fc from 'fast-check';
-import { pressureAltitudeFt } from '../aero';
+import { isaDeviationC, pressureAltitudeFt } from '../aero';
+import { startingEnRouteDeviationC } from './en-route-deviation';
 import { demoLightTwinJetContent, demoPistonTrainerContent, demoPistonTrainerContentRevised, demoTwinTurbopropContent } from '../speed-book/demo-content';
 import { revisionContentSchema, type RevisionContent } from '../speed-book/revision-content';
 import { buildCard, cardFigures, takeoffConfigurationKeys } from './build-card';
@@ -75,7 +76,9 @@ describe.each(BOOKS)('the demo %s', (_name, make) => {
         fc.double({ min: -35, max: 45, noNaN: true }),
         (configuration, weightKg, elevationFt, qnhHpa, oatC) => {
           expect(pressureAltitudeFt(elevationFt, qnhHpa)).toBeGreaterThanOrEqual(envelope.takeoff.pressureAltitudeFt.min);
-          const card = buildCard(revision, inputsAt(content, configuration, weightKg, elevationFt, qnhHpa, oatC, { mach: 0.3 }), HAND_CONTEXT);
+          // The en-route deviation as the card form starts it: the departure's own (en-route-deviation.ts).
+          const isaDeviationOfDayC = startingEnRouteDeviationC(isaDeviationC(pressureAltitudeFt(elevationFt, qnhHpa), oatC));
+          const card = buildCard(revision, { ...inputsAt(content, configuration, weightKg, elevationFt, qnhHpa, oatC, { mach: 0.3 }), isaDeviationC: isaDeviationOfDayC }, HAND_CONTEXT);
           expect(card.landing.weightKg).toBeLessThanOrEqual(content.weights.maximumLandingKg);
         },
       ),

@@ -194,3 +194,13 @@ describe('issue 11: an en-route deviation from a TAT reading', () => {
     expect(isaDeviationFromTat({ tatC: -30, pressureAltitudeFt: 35000, mach: 0.78, recoveryFactor: 0.8 }).satC).toBeCloseTo(221.5805 - 273.15, 3);
   });
 });
+
+describe('issue 11: a cold surface day carried aloft', () => {
+  it('dashes the rows whose temperature leaves the atmosphere model, and still gives the card (ISA −46 °C at 41,000 ft is −102.5 °C)', () => {
+    const c = card(demoLightTwinJetContent(), { departure: { elevationFt: 0, qnhHpa: 1035, oatC: -30 }, isaDeviationC: -46, altitudeStepFt: 10000 });
+    const top = c.altitudeTable[c.altitudeTable.length - 1];
+    expect(top).toMatchObject({ pressureAltitudeFt: 41000, oatC: -102.5, casKt: null, tasKt: null, mach: null, limitKind: null });
+    expect(top.cruiseNote).toMatch(/^At 41,000 ft: The temperature at ISA -46\.0 °C of -102\.5 °C .* is not plausible/);
+    expect(c.altitudeTable[0]).toMatchObject({ pressureAltitudeFt: 0, cruiseNote: null });
+  });
+});

@@ -267,7 +267,8 @@ export class CardsPage {
   protected readonly enRouteCheck = computed(() => {
     const departureC = this.departureDeviationC();
     const snapshot = this.snapshot();
-    if (departureC === null || !snapshot) return null;
+    // While it follows the departure's own there is nothing to confirm (and no flash while it catches up).
+    if (departureC === null || !snapshot || this.isaDeviationFollowsDeparture()) return null;
     const reading = cardInputsFrom(snapshot.value, snapshot.units, 1);
     return reading.inputs ? enRouteDeviationCheck(departureC, reading.inputs.isaDeviationC) : null;
   });
@@ -281,7 +282,7 @@ export class CardsPage {
   });
   protected readonly tatRecoveryFactor = computed(() => this.content()?.aircraft.tatRecoveryFactor ?? 1);
   /** The en-route deviation follows the departure's until the pilot types one. */
-  private isaDeviationFollowsDeparture = true;
+  private readonly isaDeviationFollowsDeparture = signal(true);
   private settingIsaDeviation = false;
 
   protected readonly publishedWords = computed(() => {
@@ -349,7 +350,7 @@ export class CardsPage {
 
   /** Sets the en-route ISA deviation (°C) from the TAT reading, in the field's unit. */
   protected useTatDeviation(deviationC: number): void {
-    this.isaDeviationFollowsDeparture = false;
+    this.isaDeviationFollowsDeparture.set(false);
     this.setIsaDeviation(deviationC);
   }
 
@@ -587,7 +588,7 @@ export class CardsPage {
 
   private startForm(): void {
     const content = this.content();
-    this.isaDeviationFollowsDeparture = true;
+    this.isaDeviationFollowsDeparture.set(true);
     this.settingIsaDeviation = true;
     if (content) this.form.setValue(startingValues(content, this.units()));
     else this.recompute.next();
@@ -600,11 +601,11 @@ export class CardsPage {
       .subscribe(() => this.snapshot.set({ value: this.form.getRawValue(), units: this.units() }));
     // A deviation the pilot types is theirs; until then it follows the departure's own.
     this.form.controls.isaDeviation.valueChanges.pipe(takeUntilDestroyed(this.destroyRef)).subscribe(() => {
-      if (!this.settingIsaDeviation) this.isaDeviationFollowsDeparture = false;
+      if (!this.settingIsaDeviation) this.isaDeviationFollowsDeparture.set(false);
     });
     effect(() => {
       const departureC = this.departureDeviationC();
-      if (departureC !== null && this.isaDeviationFollowsDeparture) this.setIsaDeviation(startingEnRouteDeviationC(departureC));
+      if (departureC !== null && this.isaDeviationFollowsDeparture()) this.setIsaDeviation(startingEnRouteDeviationC(departureC));
     });
   }
 }
