@@ -122,6 +122,9 @@ function withoutUndefined(value: Json): Json {
  * follow the content's field names, so a schema path such as
  * `configurations.1.positionError.2.casKt` finds its control (see `fieldControls`).
  */
+/** Top-level content fields the form carries through unchanged (see `RevisionForm.carried`). */
+const CARRIED_FIELDS = ['envelope', 'statesReferenceStallSpeeds', 'ruleExceptions', 'statedUnits'] as const;
+
 export class RevisionForm {
   readonly group = new FormGroup({
     aircraft: new FormGroup({
@@ -150,9 +153,22 @@ export class RevisionForm {
     return this.group.controls.speeds;
   }
 
+  /**
+   * Content fields this form has no control for yet (the envelope, rule exceptions, reference
+   * stall speeds, stated units, the TAT recovery factor, each speed's class): kept as loaded and
+   * written back unchanged, so that saving a draft never drops them.
+   */
+  private carried: { top: Json; tatRecoveryFactor: unknown } = { top: {}, tatRecoveryFactor: undefined };
+  /** Each loaded speed's class, kept with its own row (a row added in the editor has none: inferred from the code). */
+  private readonly speedClasses = new WeakMap<object, unknown>();
+
   /** Fills the form from a draft's content, tolerating whatever is missing or malformed. */
   load(content: Json): void {
     const aircraft = record(content['aircraft']);
+    this.carried = {
+      top: Object.fromEntries(CARRIED_FIELDS.filter((key) => content[key] !== undefined).map((key) => [key, content[key]])),
+      tatRecoveryFactor: aircraft['tatRecoveryFactor'],
+    };
     const weights = record(content['weights']);
     const limits = record(content['limits']);
     const vfe = record(limits['vfeKt']);
@@ -174,7 +190,11 @@ export class RevisionForm {
       this.configurations.push(configurationGroup(str(c['key']), str(c['label']), num(vfe[str(c['key'])]), points));
     }
     this.speeds.clear();
-    for (const item of list(content['speeds'])) this.speeds.push(speedGroup(record(item)));
+    for (const item of list(content['speeds'])) {
+      const group = speedGroup(record(item));
+      if (record(item)['speedClass'] !== undefined) this.speedClasses.set(group, record(item)['speedClass']);
+      this.speeds.push(group);
+    }
     for (const key of LIMIT_KEYS) this.group.controls.limits.controls[key].setValue(num(limits[key]));
     this.group.controls.indicatorMarkingBasis.setValue(oneOf(SPEED_BASES, content['indicatorMarkingBasis']));
     this.group.controls.notes.setValue(str(content['notes']));
@@ -190,7 +210,7 @@ export class RevisionForm {
     }
     return {
       schemaVersion: REVISION_SCHEMA_VERSION,
-      aircraft: withoutUndefined({ category: v.aircraft.category ?? undefined, engines: out(v.aircraft.engines), ceilingFt: out(v.aircraft.ceilingFt) }),
+      aircraft: withoutUndefined({ category: v.aircraft.category ?? undefined, engines: out(v.aircraft.engines), ceilingFt: out(v.aircraft.ceilingFt), tatRecoveryFactor: this.carried.tatRecoveryFactor }),
       weights: withoutUndefined({
         minimumKg: out(v.weights.minimumKg),
         maximumTakeoffKg: out(v.weights.maximumTakeoffKg),
@@ -202,10 +222,11 @@ export class RevisionForm {
         label: c.label,
         positionError: c.positionError.map((p) => withoutUndefined({ iasKt: out(p.iasKt), casKt: out(p.casKt) })),
       })),
-      speeds: v.speeds.map((s) => speedContent(s)),
+      speeds: this.speeds.controls.map((group) => withoutUndefined({ ...speedContent(group.getRawValue()), speedClass: this.speedClasses.get(group) })),
       limits: { ...withoutUndefined(Object.fromEntries(LIMIT_KEYS.map((key) => [key, out(v.limits[key])]))), vfeKt },
       indicatorMarkingBasis: v.indicatorMarkingBasis ?? undefined,
       notes: v.notes,
+      ...this.carried.top,
     };
   }
 
