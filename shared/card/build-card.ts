@@ -408,13 +408,13 @@ function aerodrome(conditions: AerodromeConditions, where: 'departure' | 'arriva
       const { elevationFt, qnhHpa, oatC, dewPointC } = conditions;
       const pressureFt = pressureAltitudeFt(elevationFt, qnhHpa);
       const deviationC = isaDeviationC(pressureFt, oatC);
-      const densityFt = densityAltitudeFt(pressureFt, oatC, dewPointC);
+      const densityFt = densityAltitudeOrNull(pressureFt, oatC, dewPointC);
       return {
         pressureAltitudeFt: pressureFt,
         oatC,
         card: {
-          densityAltitudeFt: roundFt(densityFt),
-          highDensityAltitude: densityFt >= HIGH_DENSITY_ALTITUDE_FT || densityFt - elevationFt >= HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT,
+          densityAltitudeFt: densityFt === null ? null : roundFt(densityFt),
+          highDensityAltitude: densityFt !== null && (densityFt >= HIGH_DENSITY_ALTITUDE_FT || densityFt - elevationFt >= HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT),
           isaDeviationC: round1(deviationC),
           pressureAltitudeFt: roundFt(pressureFt),
         },
@@ -423,6 +423,21 @@ function aerodrome(conditions: AerodromeConditions, where: 'departure' | 'arriva
     fieldOf,
     where === 'departure' ? 'Departure: ' : 'Arrival: ',
   );
+}
+
+/**
+ * Density altitude feeds no speed: a figure, never a reason to refuse (issue 11). With the
+ * atmosphere down to −5 km no ordinary day leaves the model; a day that still does (denser air
+ * than ISA at −5 km) shows no figure. A dew point above the air temperature is still refused
+ * (a typing error the pilot must see).
+ */
+function densityAltitudeOrNull(pressureFt: number, oatC: number, dewPointC: number | undefined): number | null {
+  try {
+    return densityAltitudeFt(pressureFt, oatC, dewPointC);
+  } catch (error) {
+    if (error instanceof AeroInputError && error.code === 'altitude-out-of-range') return null;
+    throw error;
+  }
 }
 
 // ---------------------------------------------------------------------------------------------

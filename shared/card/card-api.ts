@@ -34,8 +34,8 @@ export const speedCardSchema = z.object({
   inputs: cardInputsSchema,
   takeoffConfiguration: z.object({ key: z.string(), label: z.string() }),
   landing: z.object({ source: z.enum(['entered', 'takeoff-weight', 'maximum-landing-weight']), statement: z.string(), weightKg: z.number() }),
-  departure: z.object({ pressureAltitudeFt: z.number(), densityAltitudeFt: z.number(), isaDeviationC: z.number(), highDensityAltitude: z.boolean() }),
-  arrival: z.object({ pressureAltitudeFt: z.number(), densityAltitudeFt: z.number(), isaDeviationC: z.number(), highDensityAltitude: z.boolean() }).nullable(),
+  departure: z.object({ pressureAltitudeFt: z.number(), densityAltitudeFt: z.number().nullable(), isaDeviationC: z.number(), highDensityAltitude: z.boolean() }),
+  arrival: z.object({ pressureAltitudeFt: z.number(), densityAltitudeFt: z.number().nullable(), isaDeviationC: z.number(), highDensityAltitude: z.boolean() }).nullable(),
   speeds: z.array(
     z.object({
       code: z.string(),

@@ -127,7 +127,8 @@ export interface CardContext {
 /** Pressure and density altitude at an aerodrome (departure or arrival). */
 export interface CardAerodrome {
   readonly pressureAltitudeFt: number;
-  readonly densityAltitudeFt: number;
+  /** Null only for air denser than the model reaches (ISA at −5 km): density altitude never refuses a card. */
+  readonly densityAltitudeFt: number | null;
   /** OAT minus the ISA temperature at the pressure altitude, °C (0.1). */
   readonly isaDeviationC: number;
   /** Density altitude is high enough for the card's caution (see `HIGH_DENSITY_ALTITUDE_*` in build-card.ts). */

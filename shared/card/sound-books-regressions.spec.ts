@@ -204,3 +204,17 @@ describe('issue 11: a cold surface day carried aloft', () => {
     expect(c.altitudeTable[0]).toMatchObject({ pressureAltitudeFt: 0, cruiseNote: null });
   });
 });
+
+describe('issue 11: density altitude is a figure, never a refusal', () => {
+  it('air denser than ISA at −5 km (−90 °C at a sea-level field, QNH 1100 hPa: 2.09 kg/m³ against 1.93) gives a card without a density altitude', () => {
+    const content = demoPistonTrainerContent();
+    content.envelope = {
+      takeoff: { pressureAltitudeFt: { min: -3000, max: 10000 }, oatC: { min: -100, max: 50 } },
+      landing: { pressureAltitudeFt: { min: -3000, max: 10000 }, oatC: { min: -100, max: 50 } },
+    };
+    const c = card(content, { weightKg: 1000, departure: { elevationFt: 0, qnhHpa: 1100, oatC: -90 } });
+    expect(c.departure.densityAltitudeFt).toBeNull();
+    expect(c.departure.highDensityAltitude).toBe(false);
+    expect(c.speeds.length).toBeGreaterThan(0);
+  });
+});
