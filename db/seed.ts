@@ -76,7 +76,7 @@ export const DEMO_OPERATORS: SeedOperator[] = [
           title: 'Sedgeling 4 speed book',
           revisions: [
             { content: demoPistonTrainerContent(), changeSummary: 'First issue from the flight manual (invented demo data — not for flight).' },
-            { content: demoPistonTrainerContentRevised(), changeSummary: 'Corrects VR, VX and the flaps-30° VFE; adds an approach speed (invented demo data — not for flight).' },
+            { content: demoPistonTrainerContentRevised(), changeSummary: 'Corrects VR, VX, VREF and the flaps-30° VFE; adds an approach speed (invented demo data — not for flight).' },
           ],
         },
       },

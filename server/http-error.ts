@@ -1,6 +1,6 @@
 /**
  * The one error services throw. The error middleware turns it into
- * `{ error: { code, message, fields? } }` with its status; anything else becomes a 500
+ * `{ error: { code, message, fields?, …details } }` with its status; anything else becomes a 500
  * whose body says nothing about the internals.
  */
 export class HttpError extends Error {
@@ -11,6 +11,8 @@ export class HttpError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: Record<string, string>,
+    /** More of the answer, beside code and message (e.g. the coverage report of a 422). */
+    readonly details?: Readonly<Record<string, unknown>>,
   ) {
     super(message);
   }

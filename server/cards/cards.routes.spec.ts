@@ -143,8 +143,8 @@ describe('POST /api/cards/preview', () => {
       fields: { 'inputs.weightKg': expect.stringContaining('4,800 kg') },
     });
     expect((await refused(jetInputs({ landingWeightKg: 4450 }))).fields).toHaveProperty(['inputs.landingWeightKg']);
-    // The jet's V1 and VR are tabulated from 0 to 10,000 ft.
-    expect((await refused(jetInputs({ departure: { elevationFt: 11000, qnhHpa: 1013, oatC: 0 } }))).fields['inputs.departure.elevationFt']).toMatch(/outside the flight manual's table/);
+    // The jet's book declares its takeoff envelope from −1,000 to 10,000 ft (its tables' range).
+    expect((await refused(jetInputs({ departure: { elevationFt: 11000, qnhHpa: 1013, oatC: 0 } }))).fields['inputs.departure.elevationFt']).toMatch(/^The day is outside this book's takeoff envelope: the departure pressure altitude of 11,006 ft is above its range of −1,000 to 10,000 ft\.$/);
     expect((await refused(jetInputs({ departure: { elevationFt: 1200, qnhHpa: 1009, oatC: 95 } }))).fields).toHaveProperty(['inputs.departure.oatC']);
     // An airframe of another type.
     expect((await refused(jetInputs({ airframeId: demo.trainerAirframeId }))).fields['inputs.airframeId']).toMatch(/is not a Heronbolt J2/);

@@ -49,6 +49,7 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, next) => {
       code: known?.code ?? 'internal_error',
       message: known?.message ?? 'Something went wrong on the server. The problem was logged.',
       ...(known?.fields ? { fields: known.fields } : {}),
+      ...(known?.details ?? {}),
       ...(requestId ? { requestId } : {}),
     },
   });

@@ -37,6 +37,7 @@ import { mailboxResponseSchema } from '../../shared/api/mailbox';
 import { invitationSentSchema } from '../../shared/api/people';
 import {
   createRevisionSchema,
+  contentCoverageRequestSchema,
   createSpeedBookSchema,
   diffQuerySchema,
   reasonSchema,
@@ -191,8 +192,10 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   route('get', '/api/revisions/:id', { summary: 'A revision with its content', tags: ['revisions'], who: 'read-published (drafts: edit-speed-books)', params: true, ok: { status: 200, schema: revisionResponseSchema } });
   route('patch', '/api/revisions/:id', { summary: 'Change a draft', tags: ['revisions'], who: 'edit-speed-books', params: true, body: updateRevisionSchema, ok: { status: 200, schema: revisionResponseSchema }, errors: [409] });
   route('delete', '/api/revisions/:id', { summary: 'Discard a draft and its source pages (audited)', tags: ['revisions'], who: 'edit-speed-books', params: true, ok: { status: 204, description: 'Discarded' }, errors: [409] });
-  route('post', '/api/revisions/:id/submit', { summary: 'Draft → in review (content must be valid)', tags: ['revisions'], who: 'edit-speed-books', params: true, ok: { status: 200, schema: revisionResponseSchema }, errors: [409, 422] });
-  route('post', '/api/revisions/:id/approve', { summary: 'In review → published, signed; supersedes the previous', tags: ['revisions'], who: 'publish-revisions (not the author)', params: true, ok: { status: 200, schema: revisionResponseSchema }, errors: [409, 422] });
+  route('post', '/api/revisions/:id/submit', { summary: 'Draft → in review (content valid, envelope declared and swept: 422 coverage_failed carries error.report)', tags: ['revisions'], who: 'edit-speed-books', params: true, ok: { status: 200, schema: revisionResponseSchema }, errors: [409, 422] });
+  route('get', '/api/revisions/:id/coverage', { summary: 'The envelope sweep of a revision: { report } (CoverageReport)', tags: ['revisions'], who: 'read-published (drafts: edit-speed-books)', params: true, ok: { status: 200, description: '{ report }: the coverage report (shared/card/coverage-report.ts)' }, errors: [422] });
+  route('post', '/api/revisions/coverage', { summary: 'The envelope sweep of unsaved content: { report } (CoverageReport)', tags: ['revisions'], who: 'edit-speed-books', body: contentCoverageRequestSchema, ok: { status: 200, description: '{ report }: the coverage report (shared/card/coverage-report.ts)' }, errors: [422] });
+  route('post', '/api/revisions/:id/approve', { summary: 'In review → published, signed; supersedes the previous (re-checks the envelope sweep: 422 coverage_failed)', tags: ['revisions'], who: 'publish-revisions (not the author)', params: true, ok: { status: 200, schema: revisionResponseSchema }, errors: [409, 422] });
   route('post', '/api/revisions/:id/return', { summary: 'In review → draft, with a reason', tags: ['revisions'], who: 'publish-revisions (not the author)', params: true, body: reasonSchema, ok: { status: 200, schema: revisionResponseSchema }, errors: [409] });
   route('post', '/api/revisions/:id/withdraw', { summary: 'Published → withdrawn, with a reason', tags: ['revisions'], who: 'publish-revisions', params: true, body: reasonSchema, ok: { status: 200, schema: revisionResponseSchema }, errors: [409] });
   route('get', '/api/revisions/:id/diff', { summary: 'Field-by-field changes from ?against to this revision', tags: ['revisions'], who: 'read-published', params: true, query: diffQuerySchema, ok: { status: 200, schema: revisionDiffSchema } });

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { diffQuerySchema, reasonSchema, updateRevisionSchema } from '../../shared/api/revisions';
+import { contentCoverageRequestSchema, diffQuerySchema, reasonSchema, updateRevisionSchema } from '../../shared/api/revisions';
 import { AttachmentStore } from '../attachments/attachments.service';
 import { actorOf } from '../audit/actor';
 import { requireCapability } from '../middleware/authorize';
@@ -13,6 +13,11 @@ export function revisionsRoutes({ signingKeySecret, attachmentsDir }: { signingK
   const attachments = new AttachmentStore(attachmentsDir);
   const id = (value: string | string[] | undefined) => recordId(value, 'That revision');
 
+  // The envelope sweep of unsaved editor content (before '/:id', which it is not).
+  router.post('/coverage', requireCapability('edit-speed-books'), (req, res) => {
+    const { content } = parseOrThrow(contentCoverageRequestSchema, req.body, 'coverage');
+    res.json({ report: revisions.contentCoverage(content) });
+  });
   router.get('/:id', requireCapability('read-published'), async (req, res) => {
     res.json({ revision: await revisions.getRevision(actorOf(req), id(req.params['id'])) });
   });
@@ -20,6 +25,9 @@ export function revisionsRoutes({ signingKeySecret, attachmentsDir }: { signingK
     const revisionId = id(req.params['id']);
     const { against } = parseOrThrow(diffQuerySchema, req.query, 'comparison');
     res.json(await revisions.diffRevisions(actorOf(req), revisionId, Number(against)));
+  });
+  router.get('/:id/coverage', requireCapability('read-published'), async (req, res) => {
+    res.json({ report: await revisions.revisionCoverage(actorOf(req), id(req.params['id'])) });
   });
   router.patch('/:id', requireCapability('edit-speed-books'), async (req, res) => {
     const revisionId = id(req.params['id']);

@@ -9,7 +9,9 @@ import type { RevisionView } from '../../shared/api/revisions';
 import { can, type Role } from '../../shared/auth/roles';
 import { canonicalJson, contentSha256 } from '../../shared/speed-book/canonical';
 import { diffContent, type ContentChange } from '../../shared/speed-book/diff';
-import { revisionContentProblems, revisionContentSchema } from '../../shared/speed-book/revision-content';
+import { revisionContentProblems, revisionContentSchema, type RevisionContent } from '../../shared/speed-book/revision-content';
+import { sweepEnvelope } from '../../shared/card/coverage';
+import type { CoverageReport } from '../../shared/card/coverage-report';
 import { signedRevisionStatement } from '../../shared/speed-book/signature';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
@@ -204,13 +206,65 @@ async function contentProblems(revision: Revision, book: SpeedBook, transaction:
   return fields;
 }
 
-/** Draft → in review, only when the content is complete and consistent. */
+// ---------------------------------------------------------------------------------------------
+// The envelope proof (shared/card/coverage.ts): the same computation the card runs.
+
+/** Content parsed as revision content, or a 422 with every field problem under `content.…`. */
+function parsedContent(content: unknown, message: string): RevisionContent {
+  const parsed = revisionContentSchema.safeParse(content);
+  if (parsed.success) return parsed.data;
+  const fields: Record<string, string> = {};
+  for (const [path, sentence] of Object.entries(revisionContentProblems(content))) fields[`content.${path}`] = sentence;
+  throw new HttpError(422, 'content_invalid', message, fields);
+}
+
+/** The coverage report of a revision anyone who may read it may see. */
+export async function revisionCoverage(viewer: Viewer, id: number): Promise<CoverageReport> {
+  const revision = await visibleRevision(viewer, id);
+  return sweepEnvelope(parsedContent(JSON.parse(revision.content), 'The revision’s content is not complete yet; the envelope can be swept once these fields are right.'));
+}
+
+/** The coverage report of content not saved yet (the editor's live picture). */
+export function contentCoverage(content: unknown): CoverageReport {
+  return sweepEnvelope(parsedContent(content, 'The content is not complete yet; the envelope can be swept once these fields are right.'));
+}
+
+/**
+ * Refuses submit and publish unless the content declares its envelope and the sweep passes:
+ * no point inside the envelope refused, and every broken ordering rule with the flight
+ * manual's reason recorded. The 422 carries the report (`error.report`).
+ */
+function requireCoverage(content: unknown, step: 'submitted' | 'published'): void {
+  const parsed = revisionContentSchema.parse(content);
+  if (!parsed.envelope) {
+    throw new HttpError(422, 'content_invalid', `The revision cannot be ${step} until it declares its envelope.`, {
+      'content.envelope': 'Declare the takeoff and landing pressure-altitude and temperature ranges this book covers.',
+    });
+  }
+  const report = sweepEnvelope(parsed);
+  if (report.passes) return;
+  const unexcepted = report.rules.filter((rule) => !rule.exception);
+  const parts = [
+    report.counts.refused ? `${report.counts.refused} of ${report.counts.points} points inside the envelope give no card` : '',
+    unexcepted.length ? `${unexcepted.map((rule) => rule.title).join(', ')} ${unexcepted.length === 1 ? 'is' : 'are'} broken without a recorded exception` : '',
+  ].filter(Boolean);
+  throw new HttpError(
+    422,
+    'coverage_failed',
+    `The revision cannot be ${step}: ${parts.join('; ')}. Narrow the envelope, correct the tables, or record the flight manual's reason for an exception.`,
+    undefined,
+    { report },
+  );
+}
+
+/** Draft → in review, only when the content is complete and consistent and covers its envelope. */
 export async function submitRevision(actor: Actor, id: number): Promise<RevisionView> {
   const revision = await transact(async (transaction) => {
     const { book, revision } = await lockBookAndRevision(actor.operatorId, id, transaction);
     if (revision.status !== 'draft') throw wrongStatus(revision, 'only a draft can be submitted');
     const fields = await contentProblems(revision, book, transaction);
     if (Object.keys(fields).length) throw new HttpError(422, 'content_invalid', 'The revision cannot be submitted until these fields are right.', fields);
+    requireCoverage(JSON.parse(revision.content), 'submitted');
     await revision.update({ status: 'in_review', submittedAt: new Date() }, { transaction });
     await recordContribution(actor, revision.id, 'submitted', transaction);
     await audit(actor, 'revision.submitted', revision, {}, transaction);
@@ -235,6 +289,7 @@ export async function approveRevision(actor: Actor, id: number, signingKeySecret
     if (revision.status !== 'in_review') throw wrongStatus(revision, 'only a revision in review can be approved');
     const fields = await contentProblems(revision, book, transaction);
     if (Object.keys(fields).length) throw new HttpError(422, 'content_invalid', 'The revision’s content is not valid; return it to its author.', fields);
+    requireCoverage(JSON.parse(revision.content), 'published');
 
     const key = await activeSigningKey(actor.operatorId, signingKeySecret, transaction, actor);
     // Whole seconds: what is signed must survive the round trip through a DATETIME column.

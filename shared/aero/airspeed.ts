@@ -51,7 +51,7 @@ export type AirspeedGiven =
 
 /** Input of `convertAirspeed`: where the aircraft is, and one speed. */
 export type AirspeedInput = {
-  /** Geopotential pressure altitude, ft, −6 561 to 154 199. */
+  /** Geopotential pressure altitude, ft, −16 404 to 154 199. */
   readonly pressureAltitudeFt: number;
   /** Outside (static) air temperature, °C, −100 to ISA +55 (never above +70). */
   readonly oatC: number;
@@ -143,7 +143,7 @@ function refuseSpeed(value: unknown, key: SpeedKey): never {
  * Mach 1, Rayleigh pitot formula from Mach 1 to 5; static pressure from the ISO 2533 standard
  * atmosphere at the pressure altitude, density and speed of sound from the actual temperature.
  *
- * @param input `pressureAltitudeFt` (ft, −6 561 to 154 199), `oatC` (static air temperature,
+ * @param input `pressureAltitudeFt` (ft, −16 404 to 154 199), `oatC` (static air temperature,
  *   °C, −100 to ISA +55, never above +70) and exactly one of `casKt`, `easKt`, `tasKt` (kt, at
  *   least 1) or `mach` (at least 0.001); the flight must be slower than Mach 5.
  * @example convertAirspeed({ pressureAltitudeFt: 10_000, oatC: -4.81, casKt: 250 })

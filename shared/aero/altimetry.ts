@@ -67,7 +67,7 @@ function stationPressurePa(elevationFt: number, qnhHpa: number): number {
  * `qnhHpa`: p = QNH·(1 − L·h/T0)^(g0/(R·L)), the standard-atmosphere troposphere law an altimeter
  * is calibrated on (ICAO Doc 7488/3).
  *
- * @param elevationFt ft, −6 561 to 36 089 (the troposphere, where the law holds)
+ * @param elevationFt ft, −16 404 to 36 089 (the troposphere, where the law holds)
  * @param qnhHpa hPa, 850 to 1100
  * @example stationPressureHpa(0, 1013.25) // 1013.25
  * @example stationPressureHpa(5000, 1013.25) // 843.07
@@ -83,7 +83,7 @@ export function stationPressureHpa(elevationFt: number, qnhHpa: number): number 
  * the station pressure from the altimeter law (see `stationPressureHpa`), then the ISA altitude
  * of that pressure (ISO 2533:1975). Exact, not the "27–30 ft per hPa" rule of thumb.
  *
- * @param elevationFt ft, −6 561 to 36 089
+ * @param elevationFt ft, −16 404 to 36 089
  * @param qnhHpa hPa, 850 to 1100 (for inHg use `inhgToHpa`)
  * @example pressureAltitudeFt(0, 1013.25) // 0
  * @example pressureAltitudeFt(0, inhgToHpa(29.70)) // ≈ 205 (FAA worked example, sea-level field)
@@ -120,7 +120,7 @@ export function saturationVapourPressureHpa(temperatureC: number): number {
  * Tv = T / (1 − (e/p)(1 − ε)) with one, e the vapour pressure at the dew point (Magnus-type
  * formula over water, Alduchov & Eskridge 1996) and ε = 0.622.
  *
- * @param pressureAltitudeFt ft, −6 561 to 154 199
+ * @param pressureAltitudeFt ft, −16 404 to 154 199
  * @param oatC outside air temperature, °C, −100 to ISA +55 (never above +70)
  * @param dewPointC optional dew point, °C, from −100 up to `oatC`
  * @example densityAltitudeFt(0, 15) // 0

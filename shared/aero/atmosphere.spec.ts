@@ -110,8 +110,30 @@ describe('pressureAltitudeFtForPressureHpa: the barometric formula inverted (ISO
   });
 });
 
+describe('isa below sea level: ICAO Doc 7488/3 extends the troposphere to −5 km', () => {
+  // ISO 2533:1975 Table 5 row H = −2000 m (the table's first row); ICAO Doc 7488/3 row
+  // H = −5000 m (from memory: 320.65 K, 1.77687 × 10⁵ Pa, 1.93047 kg/m³, 358.972 m/s).
+  it.each([
+    [-2000, '301.15', '1277.74', '1.47808', '347.886'],
+    [-5000, '320.65', '1776.87', '1.93047', '358.972'],
+  ] as const)('H = %d m: T %s K, p %s hPa, ρ %s kg/m³, a %s m/s', (altitudeM, temperatureK, pressureHpa, densityKgM3, speedMs) => {
+    const conditions = isa(ft(altitudeM));
+    expectPublished(conditions.temperatureK, temperatureK);
+    expectPublished(conditions.pressurePa / 100, pressureHpa);
+    expectPublished(conditions.densityKgM3, densityKgM3);
+    expectPublished(speedOfSoundMs(altitudeM), speedMs);
+  });
+
+  it('gives the pressure altitude of a pressure the old −2 km floor refused (1,500 hPa lies near −3.6 km)', () => {
+    const altitudeFt = pressureAltitudeFtForPressureHpa(1500);
+    expect(altitudeFt).toBeLessThan(ft(-2000));
+    expect(altitudeFt).toBeGreaterThan(ft(-5000));
+    expectRelative(isa(altitudeFt).pressurePa / 100, 1500, 1e-12);
+  });
+});
+
 describe('isa: the envelope (library policy, constants.ts)', () => {
-  it('covers −5,000 ft to 104,987 ft as the issue requires, and the model ends at −2 km and 47 km', () => {
+  it('covers −5,000 ft to 104,987 ft as the issue requires, and the model ends at −5 km and 47 km', () => {
     expect(() => isa(-5000)).not.toThrow();
     expect(() => isa(104987)).not.toThrow();
     expect(() => isa(MIN_PRESSURE_ALTITUDE_FT)).not.toThrow();
@@ -133,6 +155,7 @@ describe('isa: the envelope (library policy, constants.ts)', () => {
     expectAeroError(() => isa(0, -115.1), 'temperature-out-of-range');
     expectAeroError(() => isa(30000, 60), 'temperature-out-of-range');
     expectAeroError(() => isa(-5000, 50), 'temperature-out-of-range'); // ISA there is 24.9 °C; +74.9 °C is above +70
+    expect(MIN_PRESSURE_ALTITUDE_FT).toBeCloseTo(-16404.2, 1); // −5 km (ICAO Doc 7488/3's lowest row)
     expectAeroError(() => isaDeviationC(0, -300), 'temperature-out-of-range'); // below absolute zero
   });
 

@@ -1,5 +1,5 @@
 /**
- * The ICAO / ISO standard atmosphere (ICAO Doc 7488/3; ISO 2533:1975) from −2 km to 47 km
+ * The ICAO / ISO standard atmosphere (ICAO Doc 7488/3; ISO 2533:1975) from −5 km to 47 km
  * geopotential: temperature linear in each layer, pressure from the barometric formula (a power
  * law where the lapse rate is not zero, an exponential where the layer is isothermal), density
  * from the gas law ρ = p / (R·T), speed of sound a = √(κ·R·T). An ISA deviation shifts the
@@ -180,7 +180,7 @@ export interface IsaConditions {
  * Method: ICAO Doc 7488/3 and ISO 2533:1975 (layers and barometric formula); the deviation
  * shifts temperature only, so density and the speed of sound follow the actual temperature.
  *
- * @param pressureAltitudeFt geopotential pressure altitude, ft, −6 561 ft (−2 km) to 154 199 ft (47 km)
+ * @param pressureAltitudeFt geopotential pressure altitude, ft, −16 404 ft (−5 km) to 154 199 ft (47 km)
  * @param isaDeviationC temperature difference from ISA, °C; the resulting temperature must lie in
  *   the envelope of `requireOatC` (−100 °C to ISA +55 °C, never above +70 °C)
  * @example isa(0) // { temperatureK: 288.15, pressurePa: 101325, densityKgM3: 1.225, speedOfSoundKt: 661.48, sigma: 1 }
@@ -212,7 +212,7 @@ function signed(value: number): string {
  * Outside air temperature, °C, of a day at `isaDeviationC` from ISA at a pressure altitude: the
  * OAT column of the card's altitude table. Method: ISO 2533:1975 temperature layers.
  *
- * @param pressureAltitudeFt ft, −6 561 to 154 199
+ * @param pressureAltitudeFt ft, −16 404 to 154 199
  * @param isaDeviationC °C; the result must lie in the temperature envelope (see `isa`)
  * @example isaTemperatureC(10_000, 0) // −4.812
  * @throws AeroInputError `not-a-number`, `altitude-out-of-range`, `temperature-out-of-range`
@@ -229,7 +229,7 @@ export function isaTemperatureC(pressureAltitudeFt: number, isaDeviationC = 0): 
  * ISA deviation, °C, of an outside air temperature at a pressure altitude (OAT − T_ISA).
  * Method: ISO 2533:1975 temperature layers.
  *
- * @param pressureAltitudeFt ft, −6 561 to 154 199
+ * @param pressureAltitudeFt ft, −16 404 to 154 199
  * @param oatC outside air temperature, °C, in the envelope of `isa`
  * @example isaDeviationC(0, 25) // 10
  * @throws AeroInputError `not-a-number`, `altitude-out-of-range`, `temperature-out-of-range`
@@ -244,7 +244,7 @@ export function isaDeviationC(pressureAltitudeFt: number, oatC: number): number 
  * Pressure altitude, ft, of a static pressure: the ISA altitude at which the pressure is
  * `pressureHpa` (e.g. a station pressure, QFE). Method: ISO 2533:1975 barometric formula inverted.
  *
- * @param pressureHpa hPa, from the ISA pressure at 47 km (1.109 hPa) to that at −2 km (1277.8 hPa)
+ * @param pressureHpa hPa, from the ISA pressure at 47 km (1.109 hPa) to that at −5 km (1776.9 hPa)
  * @example pressureAltitudeFtForPressureHpa(1013.25) // 0
  * @example pressureAltitudeFtForPressureHpa(696.817) // ≈ 10000
  * @throws AeroInputError `not-a-number`, `pressure-out-of-range`

@@ -64,7 +64,7 @@ export interface AtmosphereLayerDefinition {
 
 /**
  * The layers of ISO 2533:1975 (temperature and vertical temperature gradient by geopotential
- * altitude) up to 47 km: troposphere −6.5 K/km (ISO 2533 starts it at −2 km, 301.15 K),
+ * altitude) up to 47 km: troposphere −6.5 K/km (continued below sea level to −5 km, 320.65 K, as ICAO Doc 7488/3 tabulates it),
  * tropopause isothermal at 216.65 K from 11 km, +1.0 K/km from 20 km, +2.8 K/km from 32 km.
  * Base pressures are derived from p0 by the barometric formula in `atmosphere.ts`.
  */
@@ -75,8 +75,13 @@ export const ATMOSPHERE_LAYERS: readonly AtmosphereLayerDefinition[] = [
   { baseAltitudeM: 32000, baseTemperatureK: 228.65, lapseRateKPerM: 0.0028 },
 ];
 
-/** Lowest geopotential altitude of the model, m: the bottom of ISO 2533's table (−2 km). */
-export const MIN_ALTITUDE_M = -2000;
+/**
+ * Lowest geopotential altitude of the model, m: −5 km, where ICAO Doc 7488/3 begins its tables
+ * (ISO 2533:1975 begins at −2 km; both continue the troposphere's −6.5 K/km below sea level).
+ * Low enough that no ordinary cold or high-pressure day falls outside the model: a sea-level
+ * field at QNH 1100 hPa and −60 °C has a density altitude of about −11,000 ft (−3.4 km).
+ */
+export const MIN_ALTITUDE_M = -5000;
 
 /** Highest geopotential altitude of the model, m: the top of the +2.8 K/km layer (47 km). */
 export const MAX_ALTITUDE_M = 47000;
@@ -117,7 +122,7 @@ export const ZERO_CELSIUS_K = 273.15;
 /** Speed of sound at ISA sea level in knots, derived: 661.4786 kt (flight-physics.md). */
 export const SEA_LEVEL_SPEED_OF_SOUND_KT = SEA_LEVEL_SPEED_OF_SOUND_MS / MPS_PER_KNOT;
 
-/** Lowest pressure altitude of the model, ft (−2 km geopotential = −6 561.7 ft). */
+/** Lowest pressure altitude of the model, ft (−5 km geopotential = −16 404.2 ft). */
 export const MIN_PRESSURE_ALTITUDE_FT = MIN_ALTITUDE_M / METRES_PER_FOOT;
 
 /** Highest pressure altitude of the model, ft (47 km geopotential = 154 199.5 ft). */

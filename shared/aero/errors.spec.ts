@@ -58,6 +58,7 @@ const CALLS: Readonly<Record<string, (n: number[]) => unknown>> = {
   interpolateSpeedTableKt: ([w, h, t]) => aero.interpolateSpeedTableKt(SPEED_TABLE, { weightKg: w, pressureAltitudeFt: h, oatC: t }),
   checkSpeedTable: ([a, b, c, d]) => aero.checkSpeedTable({ byWeightKg: [a, b], valuesKt: [c, d] }),
   stallSpeedInTurnKt: ([v, b]) => aero.stallSpeedInTurnKt(v, b),
+  tatToSatC: ([t, m, k]) => aero.tatToSatC(t, m, k),
   loadFactorInTurn: ([b]) => aero.loadFactorInTurn(b),
   geopotentialAltitudeM: ([z]) => aero.geopotentialAltitudeM(z),
   geometricAltitudeM: ([h]) => aero.geometricAltitudeM(h),

@@ -35,6 +35,8 @@ export const AERO_INPUT_ERROR_CODES = [
   'missing-input',
   /** The inputs are valid one by one but together give a figure too large to represent. */
   'result-out-of-range',
+  /** A dimensionless factor (a probe's recovery factor) is outside its accepted range. */
+  'factor-out-of-range',
 ] as const;
 
 /** The machine-readable reason of an `AeroInputError`; see `AERO_INPUT_ERROR_CODES`. */

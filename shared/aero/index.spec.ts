@@ -24,6 +24,8 @@ describe('the barrel', () => {
         // speeds
         'convertAirspeed', 'casToIasKt', 'checkPositionErrorTable', 'iasToCasKt', 'crossoverAltitudeFt',
         'weightScaledSpeedKt', 'checkSpeedTable', 'interpolateSpeedTableKt', 'loadFactorInTurn', 'stallSpeedInTurnKt',
+        // temperature
+        'tatToSatC',
       ].sort(),
     );
   });

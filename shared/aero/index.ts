@@ -94,3 +94,5 @@ export {
 } from './speed-table';
 
 export { loadFactorInTurn, stallSpeedInTurnKt } from './turn';
+
+export { tatToSatC } from './total-temperature';

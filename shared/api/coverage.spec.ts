@@ -47,19 +47,15 @@ describe('coverageReportSchema', () => {
 describe('coverageFailedSchema (the 422 of submit)', () => {
   const report = smallCoverageReport();
 
-  it('reads the contract’s spelling', () => {
-    const parsed = coverageFailedSchema.parse({ error: 'coverage_failed', message: 'The book leaves 1 point refused.', report });
+  it('reads the server’s answer: the error middleware’s error with the report inside it', () => {
+    const parsed = coverageFailedSchema.parse({ error: { code: 'coverage_failed', message: 'The book leaves 1 point refused.', report } });
     expect(parsed).toEqual({ code: 'coverage_failed', message: 'The book leaves 1 point refused.', report });
-  });
-
-  it('reads the error middleware’s spelling', () => {
-    const parsed = coverageFailedSchema.parse({ error: { code: 'coverage_failed', message: 'The book leaves 1 point refused.' }, report });
-    expect(parsed.message).toBe('The book leaves 1 point refused.');
     expect(parsed.report.counts.refused).toBe(1);
   });
 
   it('does not take another refusal for a coverage failure', () => {
     expect(coverageFailedSchema.safeParse({ error: { code: 'validation_failed', message: 'No.' } }).success).toBe(false);
-    expect(coverageFailedSchema.safeParse({ error: 'coverage_failed', message: 'No report.' }).success).toBe(false);
+    expect(coverageFailedSchema.safeParse({ error: { code: 'coverage_failed', message: 'No report.' } }).success).toBe(false);
+    expect(coverageFailedSchema.safeParse({ error: 'coverage_failed', message: 'A bare code.', report }).success).toBe(false);
   });
 });

@@ -7,7 +7,7 @@ import { COVERAGE_OUTCOMES, type CoverageReport } from '../card/coverage-report'
  *
  * - `GET /api/revisions/:id/coverage` → `{ report }`
  * - `POST /api/revisions/coverage` with `{ content }` → `{ report }` (the editor's unsaved content)
- * - `POST /api/revisions/:id/submit` → 422 `{ error: 'coverage_failed', message, report }`
+ * - `POST /api/revisions/:id/submit` and `…/approve` → 422 `{ error: { code: 'coverage_failed', message, report } }`
  *
  * Every number is finite: a report that carried NaN or Infinity would be a broken sweep, and the
  * client refuses it rather than draw it.
@@ -75,20 +75,12 @@ export type CoverageResponse = z.infer<typeof coverageResponseSchema>;
 export const coverageRequestSchema = z.object({ content: z.record(z.string(), z.unknown()) });
 
 /**
- * The 422 of `POST /api/revisions/:id/submit` when the envelope proof fails. The contract names
- * `{ error: 'coverage_failed', message, report }`; the server's error middleware writes
- * `{ error: { code, message }, … }`, so both spellings are read and given as one shape.
+ * The 422 of `POST /api/revisions/:id/submit` (and of approve) when the envelope proof fails: the
+ * error middleware's usual `{ error: { code, message } }` with the report inside the error.
  */
 export const coverageFailedSchema = z
-  .union([
-    z.object({ error: z.literal('coverage_failed'), message: z.string(), report: coverageReportSchema }),
-    z.object({ error: z.object({ code: z.literal('coverage_failed'), message: z.string() }), report: coverageReportSchema }),
-  ])
-  .transform((body) => ({
-    code: 'coverage_failed' as const,
-    message: typeof body.error === 'string' ? (body as { message: string }).message : body.error.message,
-    report: body.report,
-  }));
+  .object({ error: z.object({ code: z.literal('coverage_failed'), message: z.string(), report: coverageReportSchema }) })
+  .transform((body) => ({ code: 'coverage_failed' as const, message: body.error.message, report: body.error.report }));
 export type CoverageFailed = z.output<typeof coverageFailedSchema>;
 
 // The schema and the contract's type must describe the same thing: either drifting breaks the build.

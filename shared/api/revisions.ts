@@ -102,6 +102,13 @@ export const updateRevisionSchema = z
   .strictObject({ content: draftContentSchema.optional(), changeSummary: changeSummary.optional() })
   .refine((value) => value.content !== undefined || value.changeSummary !== undefined, 'Change the content or the change summary.');
 
+/**
+ * `POST /api/revisions/coverage`: the envelope sweep of content not saved yet (the editor's live
+ * picture). The content is checked as revision content by the server, field by field.
+ */
+export const contentCoverageRequestSchema = z.strictObject({ content: draftContentSchema });
+export type ContentCoverageRequest = z.infer<typeof contentCoverageRequestSchema>;
+
 export const reasonSchema = z.strictObject({
   reason: z.string({ error: 'Give the reason.' }).trim().min(1, 'Give the reason.').max(2000, 'At most 2,000 characters.'),
 });

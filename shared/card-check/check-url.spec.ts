@@ -47,8 +47,14 @@ describe('the compact payload', () => {
   ])('round-trips %s to the same inputs, revision and digest', (_what, payload) => {
     const text = encodeCheckPayload(payload);
     expect(text).toMatch(UNRESERVED);
-    expect(text[0]).toBe('1');
+    expect(text[0]).toBe('2');
     expect(decodeCheckPayload(text)).toEqual({ ok: true, value: payload });
+  });
+
+  it('still reads a version-1 payload (a card printed before issue 11), marked as made under earlier card rules', () => {
+    const text = '1' + encodeCheckPayload(pistonPayload).slice(1);
+    expect(decodeCheckPayload(text)).toEqual({ ok: true, value: { ...pistonPayload, earlierCardRules: true } });
+    expect(decodeCheckPayload('3' + text.slice(1))).toMatchObject({ ok: false, message: expect.stringMatching(/in a form this version of Speedwright does not read/) });
   });
 
   it('re-derives the same card, to the digest, from the decoded inputs', () => {
@@ -131,7 +137,7 @@ describe('a damaged payload is a sentence', () => {
     ['empty', '', 'carries no figures'],
     ['too long', good + 'x'.repeat(600), 'far longer'],
     ['odd characters', good.replace('_', '%'), 'characters no card code uses'],
-    ['another version', `2${good.slice(1)}`, 'does not read'],
+    ['another version', `9${good.slice(1)}`, 'does not read'],
     ['a cut digest', good.slice(0, 30), 'digest is not readable'],
     ['a field missing', head + fields.slice(0, -1).join('_'), 'has 15 fields where a card has 16'],
     ['an unreadable number', withField(2, '9x0'), 'the takeoff weight is not readable'],

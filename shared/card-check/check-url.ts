@@ -8,6 +8,11 @@
  * without the card log. It is compact (a QR code on a kneeboard card must stay small), URL-safe
  * (only A–Z a–z 0–9 - . _ characters, nothing to escape) and versioned (the first character).
  *
+ * Version 2 (cards of CARD_VERSION 2: envelope, ordering rules, rounding by class) has the fields
+ * of version 1; the version says which card rules made the digest. A version-1 payload still
+ * decodes, marked `earlierCardRules`: its figures were computed under the earlier rules, so they
+ * are not re-derived (the check compares its digest with the issued card's instead).
+ *
  * Version 1, our own positional form: `1`, the digest as 43 characters of base64url (32 bytes,
  * RFC 4648 §5, no padding), then `_` and the fields below joined by `_`; an absent optional
  * field is empty. Numbers are written as ECMAScript writes them (shortest form that reads back
@@ -23,8 +28,13 @@
 import { cardInputsSchema, type AerodromeConditions, type CardInputs } from '../card/card';
 import { formatCardCode, validateCardCode } from './card-code';
 
-/** The payload's form; a change of fields means a new version (decoders keep reading the old). */
-export const CHECK_PAYLOAD_VERSION = '1';
+/**
+ * The payload's form; a change of fields, or of the card rules behind the digest, means a new
+ * version (decoders keep reading the old).
+ */
+export const CHECK_PAYLOAD_VERSION = '2';
+/** Versions before `CHECK_PAYLOAD_VERSION` that decoders still read: their cards follow earlier card rules. */
+const EARLIER_PAYLOAD_VERSIONS = new Set(['1']);
 /** Longest payload a decoder reads (a version-1 payload is about 120 characters). */
 export const MAX_CHECK_PAYLOAD_LENGTH = 600;
 
@@ -34,6 +44,8 @@ export interface CheckPayload {
   readonly inputs: CardInputs;
   /** SHA-256 of the card, 64 lower-case hex digits (`SpeedCard.digest`). */
   readonly digest: string;
+  /** Set when the payload is of a card made under earlier card rules (payload version 1): not re-derivable now. */
+  readonly earlierCardRules?: true;
 }
 
 export type Decoded<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly message: string };
@@ -141,7 +153,8 @@ export function decodeCheckPayload(text: string): Decoded<CheckPayload> {
   if (text.length === 0) return bad(`${NOT_A_CARD}: the code carries no figures.`);
   if (text.length > MAX_CHECK_PAYLOAD_LENGTH) return bad(`${NOT_A_CARD}: it is far longer than any card’s.`);
   if (!PAYLOAD_CHARACTERS.test(text)) return bad(`${NOT_A_CARD}: it holds characters no card code uses.`);
-  if (text[0] !== CHECK_PAYLOAD_VERSION) {
+  const earlierCardRules = EARLIER_PAYLOAD_VERSIONS.has(text[0]);
+  if (text[0] !== CHECK_PAYLOAD_VERSION && !earlierCardRules) {
     return bad('The figures in this code are in a form this version of Speedwright does not read; open the check page on the operator’s Speedwright site.');
   }
   const digest = base64UrlToDigest(text.slice(1, 1 + DIGEST_B64_LENGTH));
@@ -196,7 +209,7 @@ export function decodeCheckPayload(text: string): Decoded<CheckPayload> {
     const issue = parsed.error.issues[0];
     return bad(`${NOT_A_CARD}: ${issue.message[0].toLowerCase()}${issue.message.slice(1).replace(/\.$/, '')} (${issue.path.join('.')}).`);
   }
-  return { ok: true, value: { revisionId, inputs: parsed.data, digest } };
+  return { ok: true, value: { revisionId, inputs: parsed.data, digest, ...(earlierCardRules ? { earlierCardRules: true as const } : {}) } };
 }
 
 // ---------------------------------------------------------------------------------------------

@@ -301,7 +301,7 @@ function front(input: CardPdfInput, width: number): Content {
     },
     title(`Speeds at ${cardNumber(card.inputs.weightKg)} kg`, 5),
     { table: { headerRows: 1, dontBreakRows: true, widths: speedWidths, body: speedBody }, layout: FIGURES_LAYOUT },
-    fine(`IAS through the speed book's position-error table. Stall speeds rounded up, limits down, other speeds to the nearest knot.${showWeight ? ' Approach and landing speeds at the landing weight.' : ''}`),
+    fine(`IAS through the speed book's position-error table. Stall and minimum speeds (V2, VREF, VMC) rounded up, limits down, other speeds to the nearest knot.${showWeight ? ' Approach and landing speeds at the landing weight.' : ''}`),
     {
       stack: [
         title('Limits', 5),
@@ -350,7 +350,7 @@ function inputRows(card: SpeedCard): [string, string, string | null][] {
   const qnh = (hpa: number) => cardNumber(hpa, 1).replace(/,/g, '');
   const aerodrome = (a: NonNullable<SpeedCard['inputs']['arrival']>) =>
     `elevation ${cardNumber(a.elevationFt)} ft · QNH ${qnh(a.qnhHpa)} hPa · OAT ${cardNumber(a.oatC, 1)} °C${a.dewPointC === undefined ? '' : ` · dew point ${cardNumber(a.dewPointC, 1)} °C`}`;
-  const landing = i.landingWeightKg === undefined ? 'landing at the takeoff weight' : `${cardNumber(i.landingWeightKg)} kg landing`;
+  const landing = `${cardNumber(card.landing.weightKg)} kg landing${card.landing.source === 'entered' ? '' : card.landing.source === 'takeoff-weight' ? ' (the takeoff weight)' : ' (the maximum landing weight)'}`;
   return [
     ['Weight', `${cardNumber(i.weightKg)} kg takeoff · ${landing}`, null],
     ['Configuration', `${card.takeoffConfiguration.label} (takeoff)`, lineKey.takeoffConfiguration()],
@@ -374,6 +374,7 @@ function back(input: CardPdfInput, width: number): Content {
   if (card.arrival) aerodromeBody.push(aerodromeRow('Arrival', card.arrival));
 
   const cautions: Content[] = [];
+  if (card.landing.source === 'maximum-landing-weight') cautions.push(caution(card.landing.statement));
   if (card.departure.highDensityAltitude) {
     cautions.push(caution(`High density altitude at departure (${cardNumber(card.departure.densityAltitudeFt)} ft): expect a longer takeoff run and a weaker climb.`));
   }
@@ -457,6 +458,7 @@ function back(input: CardPdfInput, width: number): Content {
       title(`Altitude table · planned cruise ${cruiseWords(card)} · ISA ${signedCardNumber(card.inputs.isaDeviationC)} °C`),
       { table: { headerRows: 1, dontBreakRows: true, widths: [BAR_WIDTH, 40, 30, 30, 26, 26, 26, 30, '*'], body: altitudeBody }, layout: { ...FIGURES_LAYOUT, paddingTop: () => 0.9, paddingBottom: () => 0.3 }, fontSize: 7 } as Content,
       fine('“–”: no IAS for this CAS in the position-error table. Limits rounded down. OVER (shaded): the planned cruise is above the limit.'),
+      ...[...new Set(card.altitudeTable.map((row) => row.cruiseNote).filter((note): note is string => note !== null))].map((note) => fine(`“–”: ${note}`)),
     ],
   };
 }

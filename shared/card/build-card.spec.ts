@@ -74,8 +74,9 @@ describe('weight-scaled speeds, position error and rounding (hand-worked)', () =
   it('lists only the takeoff speeds of the takeoff configuration', () => {
     const jet = buildCard(revisionOf(handJetContent()), { ...handPistonInputs(), weightKg: 7200, landingWeightKg: undefined, configuration: 'flap', cruise: { iasKt: 250 } }, HAND_CONTEXT);
     // V2 at 7,200 kg from 125 KCAS at 8,000 kg: 125·√0.9 = 118.585 → 119 KCAS; flap table
-    // 84→250 KCAS over 80→250 KIAS: IAS = 80 + (118.585 − 84)·170/166 = 115.42 → 115.
-    expect(speed(jet, 'V2')).toMatchObject({ casKt: 119, iasKt: 115 });
+    // 84→250 KCAS over 80→250 KIAS: IAS = 80 + (118.585 − 84)·170/166 = 115.42.
+    // V2 is a minimum speed: rounded up (flight-physics.md, "Rounding by kind"), 115.42 → 116.
+    expect(speed(jet, 'V2')).toMatchObject({ casKt: 119, iasKt: 116 });
     expect(() => buildCard(revisionOf(handJetContent()), { ...handPistonInputs(), weightKg: 7200, configuration: 'clean' }, HAND_CONTEXT)).toThrow(CardRefusedError);
   });
 });
@@ -188,8 +189,14 @@ describe('the altitude table', () => {
     expect(row(jetCard({ iasKt: 250 }), 10000)).toMatchObject({ iasKt: 250, casKt: 250, easKt: 248, tasKt: 289, limitKind: 'vmo', limitCasKt: 300, aboveLimit: false });
   });
 
-  it('matches NASA RP 1046: 400 KCAS at 30,000 ft is 602.6 KTAS, above VMO there', () => {
-    expect(row(jetCard({ iasKt: 400 }), 30000)).toMatchObject({ casKt: 400, tasKt: 603, aboveLimit: true, limitKind: 'vmo', limitCasKt: 300 });
+  it('dashes an IAS cruise that would be supersonic: 400 KCAS at 30,000 ft is 602.6 KTAS (NASA RP 1046), Mach 1.02', () => {
+    // Issue 11 (regression): the row used to print 603 KTAS and Mach 1.02 silently; now it gives
+    // no figure and says why, while the limit column still stands.
+    const supersonic = row(jetCard({ iasKt: 400 }), 30000);
+    expect(supersonic).toMatchObject({ iasKt: 400, casKt: null, easKt: null, tasKt: null, mach: null, aboveLimit: true, limitKind: 'vmo', limitCasKt: 300 });
+    expect(supersonic.cruiseNote).toMatch(/^At 30,000 ft the cruise IAS of 400 kt would be Mach 1\.02\d?, at or above Mach 1; no figure is given\.$/);
+    // At 10,000 ft the same IAS is subsonic (Mach 0.72): every figure, no note.
+    expect(row(jetCard({ iasKt: 400 }), 10000)).toMatchObject({ casKt: 400, cruiseNote: null });
   });
 
   it('matches NASA RP 1046: Mach 0.8 at 30,000 ft is 471.46 KTAS; MMO governs above the crossover', () => {
@@ -216,14 +223,17 @@ describe('refusals', () => {
     expectRefused(refusal({ weightKg: 1000, landingWeightKg: 960 }), 'landing-weight-out-of-range', 'landingWeightKg', /above the maximum landing weight of 950 kg/);
   });
 
-  it('refuses a tabulated speed outside its altitudes, never extrapolating', () => {
+  // The hand-worked book declares no envelope (content from before envelopes): its envelope is
+  // derived from its tables (envelope.ts), so a day beyond a table is refused in one sentence
+  // that names the envelope, before any table is read — never extrapolated.
+  it('refuses a day beyond its tables’ altitudes as outside the envelope derived from them, never extrapolating', () => {
     // VR is tabulated from 0 to 4,000 ft; a 5,000 ft field on a standard QNH is at 5,000 ft.
     const error = refusal({ departure: { elevationFt: 5000, qnhHpa: 1013.25, oatC: 0 } });
-    expectRefused(error, 'outside-flight-manual-data', 'departure.elevationFt', /^VR \(Rotate\): A pressure altitude of 5,000.0 ft is outside the flight manual's table \(0.0 to 4,000.0 ft\)/);
+    expectRefused(error, 'outside-book-envelope', 'departure.elevationFt', /^The day is outside this book's takeoff envelope: the departure pressure altitude of 5,000 ft is above its range of 0 to 4,000 ft\.$/);
   });
 
-  it('refuses a tabulated speed outside its temperatures', () => {
-    expectRefused(refusal({ departure: { elevationFt: 2000, qnhHpa: 1013.25, oatC: 35 } }), 'outside-flight-manual-data', 'departure.oatC', /temperature of 35.0 °C is outside the flight manual's table/);
+  it('refuses a day beyond its tables’ temperatures as outside the envelope derived from them', () => {
+    expectRefused(refusal({ departure: { elevationFt: 2000, qnhHpa: 1013.25, oatC: 35 } }), 'outside-book-envelope', 'departure.oatC', /^The day is outside this book's takeoff envelope: the departure temperature of 35 °C is above its range of/);
   });
 
   it('refuses content that does not match its published hash', () => {
@@ -249,8 +259,14 @@ describe('refusals', () => {
     expectRefused(refusal({ isaDeviationC: 60 }), 'out-of-envelope', 'isaDeviationC', /^At 0 ft: The temperature at ISA \+60.0 °C/);
   });
 
-  it('refuses a cruise IAS outside the cruise configuration’s position-error table', () => {
-    expectRefused(refusal({ cruise: { iasKt: 160 } }), 'outside-flight-manual-data', 'cruise.iasKt', /outside this configuration's position-error table/);
+  it('gives the card but dashes every altitude row for a cruise IAS outside the cruise configuration’s position-error table', () => {
+    // Issue 11: the cruise is no reason to refuse the takeoff and landing speeds; the table says why it has no figure.
+    const card = buildCard(revisionOf(handPistonContent()), { ...handPistonInputs(), cruise: { iasKt: 160 } }, HAND_CONTEXT);
+    expect(card.cruise).toEqual({ casKt: null, iasKt: 160 });
+    for (const altitudeRow of card.altitudeTable) {
+      expect(altitudeRow).toMatchObject({ casKt: null, tasKt: null, mach: null });
+      expect(altitudeRow.cruiseNote).toMatch(/^The cruise IAS of 160 kt is outside the cruise configuration's position-error table \(30 to \d+ KIAS\); no figure is given\.$/);
+    }
   });
 
   it('refuses inputs that are not numbers, an unknown configuration, and another airframe', () => {

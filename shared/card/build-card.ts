@@ -20,6 +20,9 @@
 import * as aero from '../aero';
 import { AeroInputError, type PositionErrorTable, type SpeedTable } from '../aero';
 import { contentSha256 } from '../speed-book/canonical';
+import { bookEnvelope, formatRange, formatWhole, type BookEnvelope, type PhaseEnvelope } from '../speed-book/envelope';
+import { roundingOfClass, speedClassOf, speedRole, type SpeedRounding } from '../speed-book/speed-class';
+import { ORDERING_RULES, orderingViolations, type OrderingFigure, type OrderingFigures, type OrderingViolation } from './ordering-rules';
 import {
   revisionContentSchema,
   type Configuration,
@@ -41,6 +44,7 @@ import {
   type CardIndicatorArc,
   type CardIndicatorLine,
   type CardInputs,
+  type CardLanding,
   type CardLimitKind,
   type CardLimitSpeed,
   type CardLimits,
@@ -78,8 +82,31 @@ const {
 export const HIGH_DENSITY_ALTITUDE_FT = 5000;
 export const HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT = 2000;
 
-/** Stall speeds are rounded up on the card (flight-physics.md). */
-const STALL_CODES = new Set(['VS0', 'VS1', 'VS']);
+/** The rounding function of each rounding kind (flight-physics.md, "Rounding by kind"). */
+const ROUNDERS: Readonly<Record<SpeedRounding, (kt: number) => number>> = {
+  'stall-up': roundStallKt,
+  'limit-down': roundLimitKt,
+  nearest: roundSpeedKt,
+};
+
+/** MMO rounded down to 0.001 (a limit; 10⁻⁹ tolerance as for knots, shared/aero/rounding.ts). */
+const floorMach3 = (mach: number) => Math.floor(mach * 1000 + 1e-9) / 1000 + 0;
+
+/**
+ * How much of the card the envelope sweep needs: one phase's speeds and the ordering rules,
+ * without the altitude table or the digest. Internal to shared/card (coverage.ts).
+ */
+export interface CardScope {
+  readonly phase: 'takeoff' | 'landing';
+  /** Landing only: the approach and landing speeds of this configuration (every one when absent). */
+  readonly landingConfigurationKey?: string;
+}
+
+/** A card's speeds and the ordering rules they break, before any refusal for a broken rule. */
+export interface CardFigures {
+  readonly speeds: readonly CardSpeed[];
+  readonly violations: readonly OrderingViolation[];
+}
 
 /**
  * The speed card for `inputs`, from `revision` (content checked against its hash first) for
@@ -96,14 +123,17 @@ export function buildCard(revision: CardRevision, rawInputs: CardInputs, context
   if (context.airframe.id !== inputs.airframeId) {
     refuse('airframe-mismatch', 'airframeId', `These inputs are for airframe ${inputs.airframeId}, not ${context.airframe.registration}.`);
   }
-  const book = new SpeedBook(content);
+  const book = SpeedBook.of(content);
   const takeoffConfiguration = book.takeoffConfiguration(inputs.configuration);
   checkWeights(content, inputs);
+  const landing = landingWeight(content, inputs);
 
   const departure = aerodrome(inputs.departure, 'departure');
   const arrival = inputs.arrival ? aerodrome(inputs.arrival, 'arrival') : null;
-  const speeds = book.speeds(inputs, takeoffConfiguration.key, departure, arrival);
+  checkEnvelope(book.envelope, departure, arrival, inputs);
+  const speeds = book.speeds(inputs, landing.weightKg, takeoffConfiguration.key, departure, arrival);
   const limits = book.limits();
+  refuseBrokenRules(content, orderingViolations(book.orderingFigures(speeds, limits)));
   const cruise = book.cruise(inputs.cruise);
 
   // Every object of the card is written with its keys in RFC 8785 order, so that the digest
@@ -126,6 +156,7 @@ export function buildCard(revision: CardRevision, rawInputs: CardInputs, context
     departure: departure.card,
     indicator: book.indicator(speeds, limits),
     inputs: sortedKeys(inputs),
+    landing,
     limits: limits.card,
     revision: { contentSha256: revision.contentSha256, id: revision.id, number: revision.number, publishedAt: revision.publishedAt },
     speedBook: { id: context.speedBook.id, title: context.speedBook.title },
@@ -134,6 +165,47 @@ export function buildCard(revision: CardRevision, rawInputs: CardInputs, context
     takeoffConfiguration: { key: takeoffConfiguration.key, label: takeoffConfiguration.label },
   };
   return { digest: cardDigest(body), ...body };
+}
+
+/**
+ * The speeds of one phase of a card and the ordering rules they break, for the envelope sweep:
+ * the same reading of the book, the same tables and rounding as `buildCard`, from content
+ * already parsed. Refusals throw `CardRefusedError` as `buildCard` does; broken rules are
+ * returned rather than thrown, so the sweep can tell "refused" from "rule broken".
+ * Takeoff: the takeoff configuration's speeds at `inputs.departure`; landing: the approach and
+ * landing speeds at `inputs.arrival` and `inputs.landingWeightKg`. Both check the envelope.
+ */
+export function cardFigures(content: RevisionContent, inputs: CardInputs, scope: CardScope): CardFigures {
+  const book = SpeedBook.of(content);
+  const takeoffKey = scope.phase === 'takeoff' ? book.takeoffConfiguration(inputs.configuration).key : null;
+  checkWeights(content, inputs);
+  const landing = landingWeight(content, inputs);
+  const conditions = scope.phase === 'takeoff' ? inputs.departure : inputs.arrival ?? inputs.departure;
+  const where = aerodrome(conditions, scope.phase === 'takeoff' ? 'departure' : 'arrival');
+  if (scope.phase === 'takeoff') checkPhaseEnvelope(book.envelope.takeoff, where, 'departure', 'takeoff');
+  else checkPhaseEnvelope(book.envelope.landing, where, 'arrival', 'landing');
+  const speeds = book.speeds(inputs, landing.weightKg, takeoffKey, where, where, scope.phase, scope.landingConfigurationKey);
+  const limits = book.limits();
+  const violations = orderingViolations(book.orderingFigures(speeds, limits));
+  return { speeds: speeds.map((speed) => speed.card), violations };
+}
+
+/** The ids of the rules `content` records an exception for (the flight manual's reason). */
+export function exceptedRuleIds(content: RevisionContent): Set<string> {
+  return new Set((content.ruleExceptions ?? []).map((exception) => exception.ruleId));
+}
+
+/** Refuses the card for the first broken rule the book records no exception for. */
+function refuseBrokenRules(content: RevisionContent, violations: readonly OrderingViolation[]): void {
+  const excepted = exceptedRuleIds(content);
+  const broken = violations.find((violation) => !excepted.has(violation.ruleId));
+  if (!broken) return;
+  const rule = ORDERING_RULES.find((candidate) => candidate.id === broken.ruleId)!;
+  refuse(
+    'ordering-rule-broken',
+    'revision',
+    `This speed book breaks the rule ${rule.title} at these inputs: ${broken.message} The card is refused; ask the fleet engineer to correct the book.`,
+  );
 }
 
 /**
@@ -250,6 +322,57 @@ function checkWeights(content: RevisionContent, inputs: CardInputs): void {
   }
 }
 
+/**
+ * The landing weight the approach and landing speeds use: the one entered; else the takeoff
+ * weight when it is within the maximum landing weight; else the maximum landing weight, which
+ * the card says in words (the pilot may enter the landing weight instead).
+ */
+function landingWeight(content: RevisionContent, inputs: CardInputs): CardLanding {
+  const { maximumLandingKg } = content.weights;
+  if (inputs.landingWeightKg !== undefined) {
+    return { source: 'entered', statement: `Landing speeds at the landing weight entered, ${kg(inputs.landingWeightKg)}.`, weightKg: inputs.landingWeightKg };
+  }
+  if (inputs.weightKg <= maximumLandingKg) {
+    return { source: 'takeoff-weight', statement: `Landing speeds at the takeoff weight, ${kg(inputs.weightKg)}; enter a landing weight for lighter landing speeds.`, weightKg: inputs.weightKg };
+  }
+  return {
+    source: 'maximum-landing-weight',
+    statement: `The takeoff weight ${kg(inputs.weightKg)} is above the maximum landing weight, so the landing speeds are for the maximum landing weight, ${kg(maximumLandingKg)}; enter the landing weight for the day's figures.`,
+    weightKg: maximumLandingKg,
+  };
+}
+
+/**
+ * Refuses a day outside the book's envelope in one sentence: the departure against the takeoff
+ * envelope, the arrival (or, without one, the departure) against the landing envelope.
+ */
+function checkEnvelope(envelope: BookEnvelope, departure: Aerodrome, arrival: Aerodrome | null, inputs: CardInputs): void {
+  checkPhaseEnvelope(envelope.takeoff, departure, 'departure', 'takeoff');
+  if (arrival) checkPhaseEnvelope(envelope.landing, arrival, 'arrival', 'landing');
+  else if (inputs.arrival === undefined) checkPhaseEnvelope(envelope.landing, departure, 'departure', 'landing');
+}
+
+function checkPhaseEnvelope(envelope: PhaseEnvelope, where: Aerodrome, field: 'departure' | 'arrival', phase: 'takeoff' | 'landing'): void {
+  const [lowFt, highFt] = envelope.pressureAltitudeFt;
+  const place = field === 'departure' ? 'departure' : 'arrival';
+  const altitudeFt = where.pressureAltitudeFt;
+  if (altitudeFt < lowFt - 0.5 || altitudeFt > highFt + 0.5) {
+    refuse(
+      'outside-book-envelope',
+      `${field}.elevationFt`,
+      `The day is outside this book's ${phase} envelope: the ${place} pressure altitude of ${formatWhole(altitudeFt)} ft is ${altitudeFt > highFt ? 'above' : 'below'} its range of ${formatRange(envelope.pressureAltitudeFt, 'ft')}.`,
+    );
+  }
+  const [lowC, highC] = envelope.oatC;
+  if (where.oatC < lowC || where.oatC > highC) {
+    refuse(
+      'outside-book-envelope',
+      `${field}.oatC`,
+      `The day is outside this book's ${phase} envelope: the ${place} temperature of ${round1(where.oatC)} °C is ${where.oatC > highC ? 'above' : 'below'} its range of ${formatRange(envelope.oatC, '°C')}.`,
+    );
+  }
+}
+
 /** A copy of plain data with every object's keys in UTF-16 order (the inputs, as zod returns them in schema order). */
 function sortedKeys<T>(value: T): T {
   if (Array.isArray(value)) return value.map(sortedKeys) as T;
@@ -285,13 +408,13 @@ function aerodrome(conditions: AerodromeConditions, where: 'departure' | 'arriva
       const { elevationFt, qnhHpa, oatC, dewPointC } = conditions;
       const pressureFt = pressureAltitudeFt(elevationFt, qnhHpa);
       const deviationC = isaDeviationC(pressureFt, oatC);
-      const densityFt = densityAltitudeFt(pressureFt, oatC, dewPointC);
+      const densityFt = densityAltitudeOrNull(pressureFt, oatC, dewPointC);
       return {
         pressureAltitudeFt: pressureFt,
         oatC,
         card: {
-          densityAltitudeFt: roundFt(densityFt),
-          highDensityAltitude: densityFt >= HIGH_DENSITY_ALTITUDE_FT || densityFt - elevationFt >= HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT,
+          densityAltitudeFt: densityFt === null ? null : roundFt(densityFt),
+          highDensityAltitude: densityFt !== null && (densityFt >= HIGH_DENSITY_ALTITUDE_FT || densityFt - elevationFt >= HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT),
           isaDeviationC: round1(deviationC),
           pressureAltitudeFt: roundFt(pressureFt),
         },
@@ -300,6 +423,21 @@ function aerodrome(conditions: AerodromeConditions, where: 'departure' | 'arriva
     fieldOf,
     where === 'departure' ? 'Departure: ' : 'Arrival: ',
   );
+}
+
+/**
+ * Density altitude feeds no speed: a figure, never a reason to refuse (issue 11). With the
+ * atmosphere down to −5 km no ordinary day leaves the model; a day that still does (denser air
+ * than ISA at −5 km) shows no figure. A dew point above the air temperature is still refused
+ * (a typing error the pilot must see).
+ */
+function densityAltitudeOrNull(pressureFt: number, oatC: number, dewPointC: number | undefined): number | null {
+  try {
+    return densityAltitudeFt(pressureFt, oatC, dewPointC);
+  } catch (error) {
+    if (error instanceof AeroInputError && error.code === 'altitude-out-of-range') return null;
+    throw error;
+  }
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -315,6 +453,8 @@ interface ComputedSpeed {
 interface ComputedLimits {
   readonly card: CardLimits;
   readonly crossoverFt: number | null;
+  /** Unrounded CAS of VMC (for the ordering rules). */
+  readonly vmcCasKt: number | null;
   /** Unrounded CAS of VMO, VNE (for the altitude table's limit column). */
   readonly vmoCasKt: number | null;
   readonly vneCasKt: number | null;
@@ -323,19 +463,36 @@ interface ComputedLimits {
 
 interface ComputedCruise {
   readonly card: SpeedCard['cruise'];
-  /** CAS of an IAS cruise (null for a Mach cruise). */
+  /** CAS of an IAS cruise (null for a Mach cruise, or an IAS outside the table). */
   readonly casKt: number | null;
+  /** Why an IAS cruise has no CAS: outside the cruise configuration's table (every row dashed). */
+  readonly outsideTable: string | null;
 }
 
 /** Reads the figures of one revision's content. */
 class SpeedBook {
+  private static readonly cache = new WeakMap<RevisionContent, SpeedBook>();
+
+  /** One reader per (frozen, parsed) content: the sweep reads the same book thousands of times. */
+  static of(content: RevisionContent): SpeedBook {
+    let book = SpeedBook.cache.get(content);
+    if (!book) {
+      book = new SpeedBook(content);
+      SpeedBook.cache.set(content, book);
+    }
+    return book;
+  }
+
   private readonly byKey = new Map<string, Configuration>();
   /** The first configuration is the cruise configuration (revision-content.ts). */
   private readonly cruiseTable: PositionErrorTable;
+  readonly envelope: BookEnvelope;
+  private computedLimits: ComputedLimits | null = null;
 
-  constructor(private readonly content: RevisionContent) {
+  private constructor(private readonly content: RevisionContent) {
     for (const configuration of content.configurations) this.byKey.set(configuration.key, configuration);
     this.cruiseTable = content.configurations[0].positionError;
+    this.envelope = bookEnvelope(content);
   }
 
   takeoffConfiguration(key: string): Configuration {
@@ -354,23 +511,38 @@ class SpeedBook {
     return configuration;
   }
 
-  /** The card's V-speeds: takeoff speeds of the takeoff configuration, every other speed as published. */
-  speeds(inputs: CardInputs, takeoffKey: string, departure: Aerodrome, arrival: Aerodrome | null): ComputedSpeed[] {
+  /**
+   * The card's V-speeds: takeoff speeds of the takeoff configuration, every other speed as
+   * published. With `only`, the speeds of that phase (and those of every phase, 'any').
+   */
+  speeds(
+    inputs: CardInputs,
+    landingWeightKg: number,
+    takeoffKey: string | null,
+    departure: Aerodrome,
+    arrival: Aerodrome | null,
+    only?: 'takeoff' | 'landing',
+    landingKey?: string,
+  ): ComputedSpeed[] {
     const result: ComputedSpeed[] = [];
     for (const speed of this.content.speeds) {
       if (speed.phase === 'takeoff' && speed.configurationKey !== takeoffKey) continue;
-      result.push(this.speed(speed, inputs, departure, arrival));
+      const landing = speed.phase === 'landing' || speed.phase === 'approach';
+      if (only === 'takeoff' && landing) continue;
+      if (only === 'landing' && !landing && speed.phase !== 'any') continue;
+      if (only === 'landing' && landing && landingKey !== undefined && speed.configurationKey !== landingKey) continue;
+      result.push(this.speed(speed, inputs, landingWeightKg, departure, arrival));
     }
     return result;
   }
 
-  /** Approach and landing speeds at the landing weight (when given) and arrival (when given). */
-  private speed(speed: Speed, inputs: CardInputs, departure: Aerodrome, arrival: Aerodrome | null): ComputedSpeed {
+  /** Approach and landing speeds at the landing weight and arrival (when given). */
+  private speed(speed: Speed, inputs: CardInputs, landingWeightKg: number, departure: Aerodrome, arrival: Aerodrome | null): ComputedSpeed {
     const configuration = this.byKey.get(speed.configurationKey)!;
     const table = configuration.positionError;
     const landing = speed.phase === 'landing' || speed.phase === 'approach';
     const weightField = landing && inputs.landingWeightKg !== undefined ? 'landingWeightKg' : 'weightKg';
-    const weightKg = inputs[weightField]!;
+    const weightKg = landing ? landingWeightKg : inputs.weightKg;
     const where = landing && arrival ? 'arrival' : 'departure';
     const atmosphere = where === 'arrival' ? arrival! : departure;
     const fieldOf = (field: string) =>
@@ -394,8 +566,8 @@ class SpeedBook {
           casKt = speed.basis === 'ias' ? iasToCasKt(table, valueKt) : valueKt;
         }
         const iasKt = casToIasKt(table, casKt);
-        const stall = STALL_CODES.has(speed.code.toUpperCase());
-        const round = stall ? roundStallKt : roundSpeedKt;
+        const rounding = roundingOfClass(speedClassOf(speed));
+        const round = ROUNDERS[rounding];
         return {
           casKt,
           table,
@@ -409,7 +581,7 @@ class SpeedBook {
             kind: speed.kind,
             label: speed.label,
             phase: speed.phase,
-            rounding: stall ? 'stall-up' : 'nearest',
+            rounding,
             weightKg,
           },
         };
@@ -419,25 +591,74 @@ class SpeedBook {
     );
   }
 
-  /** Stall speed at each bank from VS1 (or VS) at the weight it was computed at, in its configuration. */
+  /**
+   * Stall speed at each bank from VS1 (or VS) at the weight it was computed at, in its
+   * configuration. A bank whose stall speed lies beyond the configuration's position-error
+   * table has no line (its IAS would be an extrapolation); the card's other figures stand.
+   */
   stallInTurn(speeds: readonly ComputedSpeed[]): CardStallInTurn[] {
-    const vs1 =
-      speeds.find((speed) => speed.card.code.toUpperCase() === 'VS1') ?? speeds.find((speed) => speed.card.code.toUpperCase() === 'VS');
+    const vs1 = speeds.find((speed) => speedRole(speed.card.code) === 'VS1') ?? speeds.find((speed) => speedRole(speed.card.code) === 'VS');
     if (!vs1) return [];
-    return STALL_TURN_BANKS_DEG.map((bankDeg) =>
-      guarded(
-        () => {
-          const loadFactor = loadFactorInTurn(bankDeg);
-          const casKt = vs1.casKt * Math.sqrt(loadFactor);
-          return { bankDeg, casKt: roundStallKt(casKt), iasKt: roundStallKt(casToIasKt(vs1.table, casKt)), loadFactor: round2(loadFactor) };
-        },
-        () => 'weightKg',
-        `${vs1.card.code} in a ${bankDeg}° bank: `,
-      ),
-    );
+    const topCasKt = vs1.table[vs1.table.length - 1].casKt;
+    const lines: CardStallInTurn[] = [];
+    for (const bankDeg of STALL_TURN_BANKS_DEG) {
+      const loadFactor = loadFactorInTurn(bankDeg);
+      const casKt = vs1.casKt * Math.sqrt(loadFactor);
+      if (casKt > topCasKt) break;
+      lines.push(
+        guarded(
+          () => ({ bankDeg, casKt: roundStallKt(casKt), iasKt: roundStallKt(casToIasKt(vs1.table, casKt)), loadFactor: round2(loadFactor) }),
+          () => 'weightKg',
+          `${vs1.card.code} in a ${bankDeg}° bank: `,
+        ),
+      );
+    }
+    return lines;
   }
 
+  /** The figures the ordering rules read, from this card's speeds and the book's limits. */
+  orderingFigures(speeds: readonly ComputedSpeed[], limits: ComputedLimits): OrderingFigures {
+    const figure = (speed: ComputedSpeed): OrderingFigure => ({
+      code: speed.card.code,
+      iasKt: speed.card.iasKt,
+      casKt: speed.card.casKt,
+      exactCasKt: speed.casKt,
+      weightKg: speed.card.weightKg,
+    });
+    const byRole = (role: string) => {
+      const found = speeds.find((speed) => speedRole(speed.card.code) === role);
+      return found ? figure(found) : undefined;
+    };
+    const basis = this.content.indicatorMarkingBasis;
+    const inBasis = (speed: CardLimitSpeed | null) => (speed ? (basis === 'ias' ? speed.iasKt : speed.casKt) : undefined);
+    const card = limits.card;
+    return {
+      v1: byRole('V1'),
+      vr: byRole('VR'),
+      v2: byRole('V2'),
+      vref: speeds.filter((speed) => speedRole(speed.card.code) === 'VREF').map(figure),
+      vs0: byRole('VS0'),
+      vs1: byRole('VS1') ?? byRole('VS'),
+      vx: byRole('VX'),
+      vy: byRole('VY'),
+      vmc: card.vmc && limits.vmcCasKt !== null ? { code: 'VMC', iasKt: card.vmc.iasKt, casKt: card.vmc.casKt, exactCasKt: limits.vmcCasKt, weightKg: null } : undefined,
+      vnoKt: inBasis(card.vno),
+      vneKt: inBasis(card.vne),
+      vleKt: inBasis(card.vle),
+      vloKt: inBasis(card.vlo),
+      vfe: card.vfe.map((vfe) => ({ label: vfe.configurationLabel, kt: inBasis(vfe)! })),
+      mmo: limits.mmo ?? undefined,
+      referenceStallSpeeds: this.content.statesReferenceStallSpeeds === true,
+    };
+  }
+
+  /** The book's limits; they depend on nothing of the day, so they are read once per book. */
   limits(): ComputedLimits {
+    this.computedLimits ??= this.readLimits();
+    return this.computedLimits;
+  }
+
+  private readLimits(): ComputedLimits {
     const { limits, indicatorMarkingBasis: basis, configurations } = this.content;
     const cruise = configurations[0];
     const vmc = limits.vmcKt === undefined ? null : this.limit('VMC', limits.vmcKt, cruise, basis, roundStallKt);
@@ -458,7 +679,7 @@ class SpeedBook {
     return {
       card: {
         basis,
-        mmo: mmo === null ? null : round3(mmo),
+        mmo: mmo === null ? null : floorMach3(mmo),
         vfe,
         vle: optional('VLE', limits.vleKt),
         vlo: optional('VLO', limits.vloKt),
@@ -472,6 +693,7 @@ class SpeedBook {
         vyse: optional('VYSE', limits.vyseKt, roundSpeedKt),
       },
       crossoverFt,
+      vmcCasKt: vmc?.casKt ?? null,
       vmoCasKt: vmo?.casKt ?? null,
       vneCasKt: vne?.casKt ?? null,
       mmo,
@@ -498,10 +720,20 @@ class SpeedBook {
     );
   }
 
+  /**
+   * The planned cruise. An IAS outside the cruise configuration's position-error table gives no
+   * CAS (never extrapolated): the card stands, and every altitude row says why it has a dash.
+   */
   cruise(cruise: CardInputs['cruise']): ComputedCruise {
-    if ('mach' in cruise) return { card: { mach: cruise.mach }, casKt: null };
+    if ('mach' in cruise) return { card: { mach: cruise.mach }, casKt: null, outsideTable: null };
+    const first = this.cruiseTable[0].iasKt;
+    const last = this.cruiseTable[this.cruiseTable.length - 1].iasKt;
+    if (cruise.iasKt < first || cruise.iasKt > last) {
+      const note = `The cruise IAS of ${group(Math.round(cruise.iasKt))} kt is outside the cruise configuration's position-error table (${group(first)} to ${group(last)} KIAS); no figure is given.`;
+      return { card: { casKt: null, iasKt: cruise.iasKt }, casKt: null, outsideTable: note };
+    }
     const casKt = guarded(() => iasToCasKt(this.cruiseTable, cruise.iasKt), () => 'cruise.iasKt', 'Cruise: ');
-    return { card: { casKt: roundSpeedKt(casKt), iasKt: cruise.iasKt }, casKt };
+    return { card: { casKt: roundSpeedKt(casKt), iasKt: cruise.iasKt }, casKt, outsideTable: null };
   }
 
   /** Rows from 0 ft every `altitudeStepFt` below the ceiling, then the ceiling, on the day's ISA deviation. */
@@ -512,19 +744,63 @@ class SpeedBook {
     const fieldOf = (field: string) => (field === 'oatC' || field === 'isaDeviationC' ? 'isaDeviationC' : cruiseField);
     for (let altitudeFt = 0; ; altitudeFt += inputs.altitudeStepFt) {
       const rowFt = Math.min(altitudeFt, ceilingFt);
-      rows.push(guarded(() => this.altitudeRow(rowFt, inputs, cruise, limits), fieldOf, `At ${group(rowFt)} ft: `));
+      // A deviation that leaves even the surface row outside the atmosphere is a mistyped input:
+      // the card is refused at that field. Aloft only, the rows concerned show a dash.
+      const outside = rowFt === 0 ? null : this.outsideAtmosphereRow(rowFt, inputs, cruise);
+      rows.push(outside ?? guarded(() => this.altitudeRow(rowFt, inputs, cruise, limits), fieldOf, `At ${group(rowFt)} ft: `));
       if (rowFt >= ceilingFt) break;
     }
     return rows;
   }
 
+  /**
+   * A row whose temperature on the day's ISA deviation lies outside the modelled atmosphere
+   * (a cold surface day's deviation carried up to the ceiling gives −100 °C and below): every
+   * figure is a dash, with the reason. The en-route table is no reason to refuse the takeoff and
+   * landing speeds. Null for a row inside the atmosphere.
+   */
+  private outsideAtmosphereRow(pressureAltitudeFt: number, inputs: CardInputs, cruise: ComputedCruise): CardAltitudeRow | null {
+    try {
+      isaTemperatureC(pressureAltitudeFt, inputs.isaDeviationC);
+      return null;
+    } catch (error) {
+      if (!(error instanceof AeroInputError) || error.code !== 'temperature-out-of-range') throw error;
+      const oatC = isaTemperatureC(pressureAltitudeFt, 0) + inputs.isaDeviationC;
+      return {
+        aboveLimit: false,
+        casKt: null,
+        cruiseNote: `At ${group(pressureAltitudeFt)} ft: ${error.message} No figure is given; check the en-route ISA deviation.`,
+        easKt: null,
+        iasKt: 'iasKt' in inputs.cruise && cruise.outsideTable === null ? inputs.cruise.iasKt : null,
+        limitCasKt: null,
+        limitIasKt: null,
+        limitKind: null,
+        mach: null,
+        oatC: round1(oatC),
+        pressureAltitudeFt,
+        tasKt: null,
+      };
+    }
+  }
+
   private altitudeRow(pressureAltitudeFt: number, inputs: CardInputs, cruise: ComputedCruise, limits: ComputedLimits): CardAltitudeRow {
     const oatC = isaTemperatureC(pressureAltitudeFt, inputs.isaDeviationC);
+    const machCruise = 'mach' in inputs.cruise ? inputs.cruise.mach : null;
     const speeds =
-      cruise.casKt === null
-        ? convertAirspeed({ pressureAltitudeFt, oatC, mach: (inputs.cruise as { mach: number }).mach })
-        : convertAirspeed({ pressureAltitudeFt, oatC, casKt: cruise.casKt });
-    const iasKt = cruise.casKt === null ? this.iasWithinTable(speeds.casKt, roundSpeedKt) : (inputs.cruise as { iasKt: number }).iasKt;
+      machCruise !== null
+        ? convertAirspeed({ pressureAltitudeFt, oatC, mach: machCruise })
+        : cruise.casKt === null
+          ? null
+          : convertAirspeed({ pressureAltitudeFt, oatC, casKt: cruise.casKt });
+    let cruiseNote: string | null = cruise.outsideTable;
+    if (speeds && machCruise === null && speeds.mach >= 1) {
+      cruiseNote = `At ${group(pressureAltitudeFt)} ft the cruise IAS of ${group(Math.round((inputs.cruise as { iasKt: number }).iasKt))} kt would be Mach ${round3(speeds.mach)}, at or above Mach 1; no figure is given.`;
+    }
+    const figures = cruiseNote === null ? speeds : null;
+    const iasKt = machCruise !== null ? this.iasWithinTable(speeds!.casKt, roundSpeedKt) : (inputs.cruise as { iasKt: number }).iasKt;
+    if (machCruise !== null && iasKt === null) {
+      cruiseNote = `At ${group(pressureAltitudeFt)} ft Mach ${machCruise} is ${roundSpeedKt(speeds!.casKt)} KCAS, outside the cruise configuration's position-error table: no IAS is given.`;
+    }
 
     let limitCasKt: number | null = null;
     let limitKind: CardLimitKind | null = null;
@@ -543,17 +819,18 @@ class SpeedBook {
       limitKind = 'vne';
     }
     return {
-      aboveLimit: limitCasKt !== null && speeds.casKt > limitCasKt + 1e-9,
-      casKt: roundSpeedKt(speeds.casKt),
-      easKt: roundSpeedKt(speeds.easKt),
+      aboveLimit: limitCasKt !== null && speeds !== null && speeds.casKt > limitCasKt + 1e-9,
+      casKt: figures ? roundSpeedKt(figures.casKt) : null,
+      cruiseNote,
+      easKt: figures ? roundSpeedKt(figures.easKt) : null,
       iasKt,
       limitCasKt: limitCasKt === null ? null : roundLimitKt(limitCasKt),
       limitIasKt: limitCasKt === null ? null : this.iasWithinTable(limitCasKt, roundLimitKt),
       limitKind,
-      mach: round3(speeds.mach),
+      mach: figures ? round3(figures.mach) : null,
       oatC: round1(oatC),
       pressureAltitudeFt,
-      tasKt: roundSpeedKt(speeds.tasKt),
+      tasKt: figures ? roundSpeedKt(figures.tasKt) : null,
     };
   }
 
@@ -570,10 +847,15 @@ class SpeedBook {
     const basis = this.content.indicatorMarkingBasis;
     const inBasis = (speed: CardLimitSpeed | CardSpeed | null | undefined) =>
       speed ? (basis === 'ias' ? speed.iasKt : speed.casKt) : null;
-    const stall = (code: string) => inBasis(speeds.find((speed) => speed.card.code.toUpperCase() === code)?.card);
-    const vs0 = stall('VS0');
-    const vs1 = stall('VS1') ?? stall('VS');
-    const vfeTop = limits.card.vfe.length ? Math.max(...limits.card.vfe.map((vfe) => inBasis(vfe)!)) : null;
+    const stallSpeed = (role: string) => speeds.find((speed) => speedRole(speed.card.code) === role);
+    const vs0Speed = stallSpeed('VS0');
+    const vs0 = inBasis(vs0Speed?.card);
+    const vs1 = inBasis(stallSpeed('VS1')?.card) ?? inBasis(stallSpeed('VS')?.card);
+    // The white arc ends at the VFE of the landing flap (14 CFR 23.1545(b)(1), from memory): the
+    // configuration VS0 is given in, else the landing speeds' configuration.
+    const landingKey = vs0Speed?.card.configurationKey ?? speeds.find((speed) => speed.card.phase === 'landing')?.card.configurationKey;
+    const landingVfe = limits.card.vfe.find((vfe) => vfe.configurationKey === landingKey);
+    const vfeTop = landingVfe ? inBasis(landingVfe) : null;
     const vno = inBasis(limits.card.vno);
     const vne = inBasis(limits.card.vne);
     const vmo = inBasis(limits.card.vmo);

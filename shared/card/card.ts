@@ -14,8 +14,11 @@ import * as z from 'zod';
 import type { AircraftCategory, SpeedBasis, SpeedPhase } from '../speed-book/revision-content';
 import { configurationKeySchema } from '../speed-book/revision-content';
 
-/** Schema version of the card JSON; part of the digest, so a change of meaning changes it. */
-export const CARD_VERSION = 1;
+/**
+ * Schema version of the card JSON; part of the digest, so a change of meaning changes it.
+ * 2: speeds rounded by class, the landing weight used, the book's envelope and ordering rules.
+ */
+export const CARD_VERSION = 2;
 
 /** The banks of the stall-speed-in-turn lines, degrees (product.md, "What a card shows"). */
 export const STALL_TURN_BANKS_DEG = [0, 15, 30, 45, 60] as const;
@@ -72,7 +75,10 @@ export const cardInputsSchema = z.strictObject({
     .positive('Choose the airframe.'),
   /** Takeoff weight, kg. */
   weightKg: weight('the takeoff weight in kg'),
-  /** Landing weight, kg; without it the landing and approach speeds use the takeoff weight. */
+  /**
+   * Landing weight, kg; without it the landing and approach speeds use the takeoff weight when
+   * that is within the maximum landing weight, else the maximum landing weight (the card says so).
+   */
   landingWeightKg: weight('the landing weight in kg').optional(),
   /** The takeoff configuration's key (a configuration of the speed book). */
   configuration: configurationKeySchema,
@@ -121,7 +127,8 @@ export interface CardContext {
 /** Pressure and density altitude at an aerodrome (departure or arrival). */
 export interface CardAerodrome {
   readonly pressureAltitudeFt: number;
-  readonly densityAltitudeFt: number;
+  /** Null only for air denser than the model reaches (ISA at −5 km): density altitude never refuses a card. */
+  readonly densityAltitudeFt: number | null;
   /** OAT minus the ISA temperature at the pressure altitude, °C (0.1). */
   readonly isaDeviationC: number;
   /** Density altitude is high enough for the card's caution (see `HIGH_DENSITY_ALTITUDE_*` in build-card.ts). */
@@ -147,6 +154,15 @@ export interface CardSpeed {
   readonly iasKt: number;
   readonly casKt: number;
   readonly rounding: CardRounding;
+}
+
+/** The landing weight the approach and landing speeds were computed at, and why that one. */
+export interface CardLanding {
+  /** `entered` by the pilot; the `takeoff-weight` (within the maximum landing weight); or the `maximum-landing-weight`. */
+  readonly source: 'entered' | 'takeoff-weight' | 'maximum-landing-weight';
+  /** One sentence the card prints. */
+  readonly statement: string;
+  readonly weightKg: number;
 }
 
 /** Stall speed in a level coordinated turn at `bankDeg`, from VS1 at the takeoff weight. */
@@ -199,10 +215,17 @@ export interface CardAltitudeRow {
    * lies outside the cruise configuration's position-error table (never extrapolated).
    */
   readonly iasKt: number | null;
-  readonly casKt: number;
-  readonly easKt: number;
-  readonly tasKt: number;
-  readonly mach: number;
+  /** CAS, EAS, TAS and Mach of the planned cruise; null (a dash) where `cruiseNote` says why. */
+  readonly casKt: number | null;
+  readonly easKt: number | null;
+  readonly tasKt: number | null;
+  readonly mach: number | null;
+  /**
+   * Why this row shows a dash instead of a figure: the IAS cruise is at or above Mach 1 here, or
+   * lies outside the cruise configuration's position-error table; a Mach cruise's CAS outside it
+   * (IAS dashed). Null when every figure of the row is given.
+   */
+  readonly cruiseNote: string | null;
   /**
    * The speed limit at this altitude as IAS, rounded down: VMO or the CAS of MMO at this altitude,
    * whichever is lower, or VNE. Null when the type has neither VNE nor VMO, or when the limit's
@@ -277,6 +300,8 @@ export interface SpeedCard {
   /** The inputs as entered (canonical units), so the card can be re-derived. */
   readonly inputs: CardInputs;
   readonly takeoffConfiguration: { readonly key: string; readonly label: string };
+  /** The landing weight the approach and landing speeds use. */
+  readonly landing: CardLanding;
   readonly departure: CardAerodrome;
   readonly arrival: CardAerodrome | null;
   readonly speeds: readonly CardSpeed[];
@@ -285,7 +310,7 @@ export interface SpeedCard {
   /** Where VMO and MMO meet, ft; null unless the type has both. */
   readonly crossoverAltitudeFt: number | null;
   /** The planned cruise as entered: IAS through the cruise configuration, or Mach. */
-  readonly cruise: { readonly iasKt: number; readonly casKt: number } | { readonly mach: number };
+  readonly cruise: { readonly iasKt: number; readonly casKt: number | null } | { readonly mach: number };
   readonly altitudeTable: readonly CardAltitudeRow[];
   readonly indicator: CardIndicator;
 }
@@ -311,6 +336,10 @@ export const CARD_REFUSAL_CODES = [
   'landing-weight-out-of-range',
   /** A figure would need the flight manual's data beyond its tables (never extrapolated). */
   'outside-flight-manual-data',
+  /** The day lies outside the pressure-altitude or temperature envelope the speed book declares. */
+  'outside-book-envelope',
+  /** The card's speeds would break an ordering rule the book records no exception for. */
+  'ordering-rule-broken',
   /** An input lies outside the atmosphere, the altimeter relation or the airspeed relations. */
   'out-of-envelope',
 ] as const;

@@ -95,4 +95,4 @@ export function handPistonInputs(): CardInputs {
  * update it here (card-digest.spec.ts checks it in Node, test/e2e/card-digest.e2e.ts in
  * Chromium) and raise CARD_VERSION if a field changed its meaning.
  */
-export const HAND_PISTON_CARD_DIGEST = '4cc69e6bb6b1e1a3ac6724e82638cb45bde6a349459ff76776a1f7913cfdae62';
+export const HAND_PISTON_CARD_DIGEST = '4f215f766a6ca925d9d3092137b30571333d5d84af689e1d4cea04d0f9d116bc';

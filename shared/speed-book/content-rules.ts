@@ -6,6 +6,10 @@
 import type * as z from 'zod';
 import { AeroInputError, casToIasKt, iasToCasKt } from '../aero';
 import type { revisionContentShape } from './content-shape';
+import { speedRole } from './speed-class';
+import { ORDERING_RULE_IDS } from './ordering-rule-table';
+
+const KNOWN_RULE_IDS: ReadonlySet<string> = new Set(ORDERING_RULE_IDS);
 
 type Content = z.infer<typeof revisionContentShape>;
 type Speed = Content['speeds'][number];
@@ -29,6 +33,7 @@ export function contentRuleIssues(content: Content): RuleIssue[] {
   const configurations = checkConfigurations(content, add);
   checkSpeeds(content, configurations, add);
   checkLimits(content, configurations, add);
+  checkEnvelope(content, add);
   return issues;
 }
 
@@ -85,17 +90,34 @@ function flatValues(values: unknown): number[] {
   return Array.isArray(values) ? values.flatMap(flatValues) : typeof values === 'number' ? [values] : [];
 }
 
-/** The lowest and highest value a speed takes between the minimum and maximum takeoff weight. */
-function speedSpan(speed: Speed, weights: Content['weights']): [number, number] | undefined {
+/**
+ * The lowest and highest value a speed takes between the minimum and maximum takeoff weight,
+ * and the column of the position-error table it must lie in. A weight-scaled speed is scaled
+ * as the card scales it (build-card.ts): its CAS by √(W/Wref), so an IAS reference is read to
+ * CAS through the table first and the span is checked in the CAS column.
+ */
+function speedSpan(speed: Speed, weights: Content['weights'], configuration: Configuration | undefined): { span: [number, number]; basis: Basis } | undefined {
   switch (speed.kind) {
     case 'fixed':
-      return [speed.valueKt, speed.valueKt];
-    case 'scaled':
+      return { span: [speed.valueKt, speed.valueKt], basis: speed.basis };
+    case 'scaled': {
       if (weights.referenceKg === undefined) return undefined;
-      return [speed.referenceKt * Math.sqrt(weights.minimumKg / weights.referenceKg), speed.referenceKt * Math.sqrt(weights.maximumTakeoffKg / weights.referenceKg)];
+      const scale = (weightKg: number) => Math.sqrt(weightKg / weights.referenceKg!);
+      let referenceKt = speed.referenceKt;
+      if (speed.basis === 'ias') {
+        if (!configuration || configuration.positionError.length < 2) return undefined;
+        try {
+          referenceKt = iasToCasKt(configuration.positionError, speed.referenceKt);
+        } catch (error) {
+          if (error instanceof AeroInputError) return { span: [speed.referenceKt, speed.referenceKt], basis: 'ias' };
+          throw error;
+        }
+      }
+      return { span: [referenceKt * scale(weights.minimumKg), referenceKt * scale(weights.maximumTakeoffKg)], basis: 'cas' };
+    }
     case 'tabulated': {
       const values = flatValues(speed.valuesKt);
-      return values.length ? [Math.min(...values), Math.max(...values)] : undefined;
+      return values.length ? { span: [Math.min(...values), Math.max(...values)], basis: speed.basis } : undefined;
     }
   }
 }
@@ -111,15 +133,16 @@ function checkSpeeds({ speeds, weights, aircraft }: Content, configurations: Map
     if (seen.has(id)) add(['speeds', i, 'code'], `${speed.code} appears twice in configuration ${speed.configurationKey}; each code once per configuration.`);
     seen.add(id);
     if (speed.kind === 'tabulated') checkTable(speed, i, weights, aircraft, add);
-    const span = speedSpan(speed, weights);
-    const range = configuration && tableRange(configuration, speed.basis);
-    if (range && span && !tabulatedShapeBroken(speed)) {
+    const found = speedSpan(speed, weights, configuration);
+    const range = found && configuration && tableRange(configuration, found.basis);
+    if (range && found && !tabulatedShapeBroken(speed)) {
       const [low, high] = range;
+      const { span, basis } = found;
       if (span[0] < low - 1e-9 || span[1] > high + 1e-9) {
         const field = speed.kind === 'fixed' ? 'valueKt' : speed.kind === 'scaled' ? 'referenceKt' : 'valuesKt';
         add(
           ['speeds', i, field],
-          `${speed.code} runs from ${fmt(span[0])} to ${fmt(span[1])} kt ${speed.basis.toUpperCase()} over the weight range, outside the ${speed.configurationKey} position-error table (${fmt(low)} to ${fmt(high)} kt ${speed.basis.toUpperCase()}).`,
+          `${speed.code} runs from ${fmt(span[0])} to ${fmt(span[1])} kt ${basis.toUpperCase()} over the weight range, outside the ${speed.configurationKey} position-error table (${fmt(low)} to ${fmt(high)} kt ${basis.toUpperCase()}).`,
         );
       }
     }
@@ -210,7 +233,7 @@ function atMaximumWeight(speed: Speed, content: Content, configuration: Configur
   }
 }
 
-const STALL_CODES = new Set(['VS0', 'VS1', 'VS']);
+const STALL_ROLES = new Set(['VS0', 'VS1', 'VS']);
 
 function checkLimits(content: Content, configurations: Map<string, Configuration>, add: Add): void {
   const { limits, aircraft, indicatorMarkingBasis: basis } = content;
@@ -253,11 +276,35 @@ function checkLimits(content: Content, configurations: Map<string, Configuration
       add(['limits', 'vfeKt', key], `${fmt(vfeKt)} kt is outside the ${key} position-error table (${fmt(low)} to ${fmt(high)} kt ${basis.toUpperCase()}).`);
     }
     for (const speed of content.speeds) {
-      if (speed.configurationKey !== key || !STALL_CODES.has(speed.code.toUpperCase())) continue;
+      if (speed.configurationKey !== key || !STALL_ROLES.has(speedRole(speed.code) ?? '')) continue;
       const stallKt = atMaximumWeight(speed, content, configuration, basis);
       if (stallKt !== undefined && vfeKt <= stallKt) {
         add(['limits', 'vfeKt', key], `VFE ${fmt(vfeKt)} kt is not above ${speed.code} at the maximum takeoff weight (${fmt(stallKt)} kt ${basis.toUpperCase()}); the flaps could not be used.`);
       }
     }
   }
+}
+
+/**
+ * The declared envelope must lie below the ceiling, and rule exceptions must name a rule. Whether
+ * the tables cover the envelope is not a field rule: the envelope sweep (shared/card/coverage.ts)
+ * reads every point through the card's own computation and reports each hole with the table's
+ * reason, and the server refuses submit and publish until it passes (one rule set).
+ */
+function checkEnvelope(content: Content, add: Add): void {
+  const { envelope, aircraft } = content;
+  if (envelope) {
+    for (const phase of ['takeoff', 'landing'] as const) {
+      const declared = envelope[phase];
+      if (declared.pressureAltitudeFt.max > aircraft.ceilingFt) {
+        add(['envelope', phase, 'pressureAltitudeFt', 'max'], `The ${phase} envelope reaches ${fmt(declared.pressureAltitudeFt.max)} ft, above the type’s ceiling (${fmt(aircraft.ceilingFt)} ft).`);
+      }
+    }
+  }
+  const seen = new Set<string>();
+  (content.ruleExceptions ?? []).forEach((exception, i) => {
+    if (!KNOWN_RULE_IDS.has(exception.ruleId)) add(['ruleExceptions', i, 'ruleId'], `There is no ordering rule ${exception.ruleId}; use one of ${[...KNOWN_RULE_IDS].join(', ')}.`);
+    else if (seen.has(exception.ruleId)) add(['ruleExceptions', i, 'ruleId'], `The rule ${exception.ruleId} has an exception already; give its reason once.`);
+    seen.add(exception.ruleId);
+  });
 }

@@ -2,6 +2,11 @@
  * Revision content of the demo operator's three types. Invented demo data — not for flight:
  * every figure is made up to be plausible and self-consistent (it passes the revision schema),
  * and none comes from a flight manual. The seed and the tests use these.
+ *
+ * Each book declares its envelope (pressure altitude from −1,000 ft, temperatures wider than
+ * −35…+45 °C), its tables and position-error tables cover it at every weight from the minimum
+ * weight up, and its speeds obey every ordering rule there (shared/card/ordering-rules.ts) —
+ * the envelope sweep proves it in shared/card/demo-books.spec.ts.
  */
 import type { RevisionContent } from './revision-content';
 
@@ -18,7 +23,7 @@ export function demoPistonTrainerContent(): RevisionContent {
         key: 'clean',
         label: 'Flaps up',
         positionError: [
-          { iasKt: 35, casKt: 44 },
+          { iasKt: 30, casKt: 40 },
           { iasKt: 60, casKt: 63 },
           { iasKt: 80, casKt: 81 },
           { iasKt: 100, casKt: 100 },
@@ -31,7 +36,7 @@ export function demoPistonTrainerContent(): RevisionContent {
         key: 'takeoff-flap',
         label: 'Flaps 10°',
         positionError: [
-          { iasKt: 40, casKt: 47 },
+          { iasKt: 30, casKt: 39 },
           { iasKt: 50, casKt: 55 },
           { iasKt: 60, casKt: 63 },
           { iasKt: 80, casKt: 80 },
@@ -43,7 +48,7 @@ export function demoPistonTrainerContent(): RevisionContent {
         key: 'landing-flap',
         label: 'Flaps 30°',
         positionError: [
-          { iasKt: 30, casKt: 40 },
+          { iasKt: 25, casKt: 36 },
           { iasKt: 45, casKt: 50 },
           { iasKt: 55, casKt: 58 },
           { iasKt: 70, casKt: 70 },
@@ -64,6 +69,10 @@ export function demoPistonTrainerContent(): RevisionContent {
     ],
     limits: { vnoKt: 125, vneKt: 160, vfeKt: { 'takeoff-flap': 110, 'landing-flap': 85 } },
     indicatorMarkingBasis: 'ias',
+    envelope: {
+      takeoff: { pressureAltitudeFt: { min: -1500, max: 10000 }, oatC: { min: -40, max: 50 } },
+      landing: { pressureAltitudeFt: { min: -1500, max: 10000 }, oatC: { min: -40, max: 50 } },
+    },
     notes: DEMO_NOTES,
   };
 }
@@ -75,17 +84,19 @@ export function demoPistonTrainerContentRevised(): RevisionContent {
   for (const speed of content.speeds) {
     if (speed.code === 'VR' && speed.kind === 'scaled') speed.referenceKt = 56;
     if (speed.code === 'VX' && speed.kind === 'scaled') speed.referenceKt = 63;
+    // With the corrected flaps-30° calibration VS0 reads 50.3 KCAS: VREF moves to stay above 1.3 VS0.
+    if (speed.code === 'VREF' && speed.kind === 'scaled') speed.referenceKt = 65;
   }
   content.speeds.push({ code: 'VAPP', label: 'Approach, flaps 10°', phase: 'approach', configurationKey: 'takeoff-flap', basis: 'ias', kind: 'scaled', referenceKt: 68 });
   content.limits.vfeKt['landing-flap'] = 87;
-  content.notes = `${DEMO_NOTES} Revision 2 corrects VR, VX and the flaps-30° VFE.`;
+  content.notes = `${DEMO_NOTES} Revision 2 corrects VR, VX, VREF and the flaps-30° VFE.`;
   return content;
 }
 
 /** A twin turboprop. */
 export function demoTwinTurbopropContent(): RevisionContent {
-  const byWeightKg = [4000, 4800, 5700];
-  const byPressureAltitudeFt = [0, 4000, 8000];
+  const byWeightKg = [3600, 4800, 5700];
+  const byPressureAltitudeFt = [-1000, 4000, 8000];
   return {
     schemaVersion: 1,
     aircraft: { category: 'turboprop', engines: 2, ceilingFt: 30000 },
@@ -136,18 +147,24 @@ export function demoTwinTurbopropContent(): RevisionContent {
       { code: 'VS0', label: 'Stall, landing configuration', phase: 'landing', configurationKey: 'landing-flap', basis: 'ias', kind: 'scaled', referenceKt: 74 },
       {
         code: 'V1', label: 'Decision speed', phase: 'takeoff', configurationKey: 'takeoff-flap', basis: 'ias', kind: 'tabulated',
-        byWeightKg, byPressureAltitudeFt, valuesKt: [[92, 90, 88], [98, 96, 94], [104, 102, 100]],
+        byWeightKg, byPressureAltitudeFt, valuesKt: [[98, 96, 94], [102, 100, 98], [106, 104, 102]],
       },
       {
         code: 'VR', label: 'Rotate', phase: 'takeoff', configurationKey: 'takeoff-flap', basis: 'ias', kind: 'tabulated',
-        byWeightKg, byPressureAltitudeFt, valuesKt: [[95, 93, 91], [101, 99, 97], [107, 105, 103]],
+        byWeightKg, byPressureAltitudeFt, valuesKt: [[101, 99, 97], [106, 104, 102], [111, 109, 107]],
       },
-      { code: 'V2', label: 'Takeoff safety speed', phase: 'takeoff', configurationKey: 'takeoff-flap', basis: 'ias', kind: 'scaled', referenceKt: 112 },
+      // V2 by weight: at least VR and 1.1 × VMC (97.3 KCAS) at every weight.
+      { code: 'V2', label: 'Takeoff safety speed', phase: 'takeoff', configurationKey: 'takeoff-flap', basis: 'ias', kind: 'tabulated', byWeightKg, valuesKt: [106, 112, 118] },
       { code: 'VY', label: 'Best rate of climb', phase: 'climb', configurationKey: 'clean', basis: 'ias', kind: 'scaled', referenceKt: 125 },
-      { code: 'VREF', label: 'Final approach', phase: 'landing', configurationKey: 'landing-flap', basis: 'ias', kind: 'scaled', referenceKt: 104 },
+      // VREF by landing weight: 1.3 × VS0, and never below VMC (88.5 KCAS) at light weights.
+      { code: 'VREF', label: 'Final approach', phase: 'landing', configurationKey: 'landing-flap', basis: 'ias', kind: 'tabulated', byWeightKg: [3600, 4600, 5500], valuesKt: [92, 97, 104] },
     ],
     limits: { vmoKt: 245, mmo: 0.55, vfeKt: { 'takeoff-flap': 175, 'landing-flap': 145 }, vleKt: 175, vloKt: 160, vmcKt: 86, vyseKt: 112 },
     indicatorMarkingBasis: 'ias',
+    envelope: {
+      takeoff: { pressureAltitudeFt: { min: -1000, max: 8000 }, oatC: { min: -40, max: 50 } },
+      landing: { pressureAltitudeFt: { min: -1000, max: 8000 }, oatC: { min: -40, max: 50 } },
+    },
     notes: DEMO_NOTES,
   };
 }
@@ -155,9 +172,9 @@ export function demoTwinTurbopropContent(): RevisionContent {
 /** A light twin-jet; takeoff speeds tabulated in CAS against weight, altitude and OAT. */
 export function demoLightTwinJetContent(): RevisionContent {
   const tables = {
-    byWeightKg: [3400, 4100, 4800],
-    byPressureAltitudeFt: [0, 5000, 10000],
-    byOatC: [-20, 15, 40],
+    byWeightKg: [3100, 4100, 4800],
+    byPressureAltitudeFt: [-1000, 5000, 10000],
+    byOatC: [-40, 15, 50],
   };
   return {
     schemaVersion: 1,
@@ -168,6 +185,7 @@ export function demoLightTwinJetContent(): RevisionContent {
         key: 'clean',
         label: 'Flaps up, gear up',
         positionError: [
+          { iasKt: 70, casKt: 75 },
           { iasKt: 80, casKt: 84 },
           { iasKt: 110, casKt: 111 },
           { iasKt: 140, casKt: 140 },
@@ -193,6 +211,7 @@ export function demoLightTwinJetContent(): RevisionContent {
         key: 'landing-flap',
         label: 'Flaps 35°, gear down',
         positionError: [
+          { iasKt: 55, casKt: 63 },
           { iasKt: 65, casKt: 71 },
           { iasKt: 85, casKt: 88 },
           { iasKt: 100, casKt: 101 },
@@ -222,11 +241,17 @@ export function demoLightTwinJetContent(): RevisionContent {
           [[109, 110, 111], [110, 111, 112], [111, 112, 114]],
         ],
       },
-      { code: 'V2', label: 'Takeoff safety speed', phase: 'takeoff', configurationKey: 'takeoff-flap', basis: 'cas', kind: 'scaled', referenceKt: 118 },
-      { code: 'VREF', label: 'Final approach, flaps 35°', phase: 'landing', configurationKey: 'landing-flap', basis: 'ias', kind: 'scaled', referenceKt: 112 },
+      // V2 by weight: above every VR of that weight and 1.1 × VMC (104.3 KCAS).
+      { code: 'V2', label: 'Takeoff safety speed', phase: 'takeoff', configurationKey: 'takeoff-flap', basis: 'cas', kind: 'tabulated', byWeightKg: [3100, 4100, 4800], valuesKt: [108, 113, 118] },
+      // VREF by landing weight: 1.3 × VS0, and never below VMC (94.8 KCAS) at light weights.
+      { code: 'VREF', label: 'Final approach, flaps 35°', phase: 'landing', configurationKey: 'landing-flap', basis: 'ias', kind: 'tabulated', byWeightKg: [3100, 3800, 4400], valuesKt: [100, 105, 110] },
     ],
     limits: { vmoKt: 275, mmo: 0.7, vfeKt: { 'takeoff-flap': 195, 'landing-flap': 170 }, vleKt: 190, vloKt: 190, vmcKt: 92, vyseKt: 150 },
     indicatorMarkingBasis: 'ias',
+    envelope: {
+      takeoff: { pressureAltitudeFt: { min: -1000, max: 10000 }, oatC: { min: -40, max: 50 } },
+      landing: { pressureAltitudeFt: { min: -1000, max: 10000 }, oatC: { min: -40, max: 50 } },
+    },
     notes: DEMO_NOTES,
   };
 }

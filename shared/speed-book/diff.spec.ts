@@ -21,6 +21,7 @@ describe('diffContent', () => {
       { path: 'configurations[landing-flap].positionError.1.casKt', before: 50, after: 51, kind: 'changed' },
       { path: 'speeds[VR@takeoff-flap].referenceKt', before: 55, after: 56, kind: 'changed' },
       { path: 'speeds[VX@clean].referenceKt', before: 62, after: 63, kind: 'changed' },
+      { path: 'speeds[VREF@landing-flap].referenceKt', before: 63, after: 65, kind: 'changed' },
       {
         path: 'speeds[VAPP@takeoff-flap]',
         after: { code: 'VAPP', label: 'Approach, flaps 10°', phase: 'approach', configurationKey: 'takeoff-flap', basis: 'ias', kind: 'scaled', referenceKt: 68 },

@@ -190,13 +190,14 @@ describe('revision content schema', () => {
   });
 
   it('refuses a speed outside its configuration’s position-error table over the weight range', () => {
-    // VX 62 KIAS at 1 100 kg scales to 62·√(700/1100) = 49.5 KIAS at 700 kg (√(W/Wref), common practice).
+    // Scaled as the card scales it, in CAS (√(W/Wref), FAA handbooks): VS1 50 KIAS reads 54 KCAS
+    // through the changed table (50 → 54, 60 → 63) and scales to 54·√(700/1100) = 43.08 KCAS at 700 kg.
     expect(problemsAfter((c) => (c.configurations[0].positionError[0] = { iasKt: 50, casKt: 54 }))).toMatchObject({
-      'speeds.0.referenceKt': expect.stringMatching(/^VS1 runs from 39\.89 to 50 kt IAS over the weight range, outside the clean position-error table \(50 to 160 kt IAS\)\.$/),
+      'speeds.0.referenceKt': expect.stringMatching(/^VS1 runs from 43\.08 to 54 kt CAS over the weight range, outside the clean position-error table \(54 to 157 kt CAS\)\.$/),
     });
     expect(
       problemsAfter((c) => c.speeds.push({ code: 'VFAST', label: 'Too fast', phase: 'cruise', configurationKey: 'clean', basis: 'ias', kind: 'fixed', valueKt: 170 })),
-    ).toEqual({ 'speeds.8.valueKt': 'VFAST runs from 170 to 170 kt IAS over the weight range, outside the clean position-error table (35 to 160 kt IAS).' });
+    ).toEqual({ 'speeds.8.valueKt': 'VFAST runs from 170 to 170 kt IAS over the weight range, outside the clean position-error table (30 to 160 kt IAS).' });
   });
 
   it('refuses a limit outside the cruise configuration’s table', () => {

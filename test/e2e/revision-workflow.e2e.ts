@@ -15,7 +15,7 @@ const BOOK = 'Sedgeling 4 speed book';
 
 /** The trainer's flaps-up table with four CAS figures changed; the bad one has a decimal comma. */
 const positionErrorCsv = (cas100: string) =>
-  ['configuration_key,ias_kt,cas_kt', 'clean,35,44', 'clean,60,63', 'clean,80,81', `clean,100,${cas100}`, 'clean,120,118', 'clean,140,137', 'clean,160,156', ''].join('\n');
+  ['configuration_key,ias_kt,cas_kt', 'clean,30,40', 'clean,60,63', 'clean,80,81', `clean,100,${cas100}`, 'clean,120,118', 'clean,140,137', 'clean,160,156', ''].join('\n');
 
 let browser: Browser;
 let folder: string;

@@ -5,6 +5,7 @@ import { iasToCasKt } from '../../shared/aero';
 import { buildCard, type CardInputs } from '../../shared/card';
 import { cardIssueBatchSchema, cardIssuePageSchema } from '../../shared/card/card-api';
 import { revisionContentSchema } from '../../shared/speed-book/revision-content';
+import { roundingOfClass, speedClassOf } from '../../shared/speed-book/speed-class';
 import { launchBrowser, newPage } from './browser';
 import { E2E_PASSWORD } from './constants';
 import { chooseAirframe, expectText, signInThroughPage as signIn } from './page-helpers';
@@ -89,8 +90,9 @@ describe('speed card in Chromium', () => {
       if (speed.kind !== 'scaled') throw new Error(`${code} is not weight-scaled`);
       const table = content.configurations.find((c) => c.key === speed.configurationKey)!.positionError;
       const referenceCasKt = speed.basis === 'ias' ? iasToCasKt(table, speed.referenceKt) : speed.referenceKt;
-      // Stall speeds are rounded up on the card, other speeds to the nearest knot (flight-physics.md, "Rounding on cards").
-      const round = /^VS[01]?$/.test(code) ? Math.ceil : Math.round;
+      // Rounded by class (flight-physics.md, "Rounding by kind"): stall and minimum speeds up, limits (VA) down, others nearest.
+      const rounding = roundingOfClass(speedClassOf(speed));
+      const round = rounding === 'stall-up' ? Math.ceil : rounding === 'limit-down' ? Math.floor : Math.round;
       expect(light[code].cas).toBe(round(referenceCasKt * Math.sqrt(w1 / referenceKg)));
       expect(heavy[code].cas).toBe(round(referenceCasKt * Math.sqrt(w2 / referenceKg)));
       // Heavier, faster: CAS by the square-root law within the knot of rounding; IAS too, through the position error.

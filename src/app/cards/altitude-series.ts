@@ -30,8 +30,9 @@ export function altitudeSeries(card: SpeedCard): AltitudeSeries {
   const limitTasKt: AltitudePoint[] = [];
   const limitMach: AltitudePoint[] = [];
   for (const row of card.altitudeTable) {
-    cruiseTasKt.push({ x: row.tasKt, y: row.pressureAltitudeFt });
-    cruiseMach.push({ x: row.mach, y: row.pressureAltitudeFt });
+    // A dashed row (cruiseNote) has no figure to draw: the line stops there, never drawn as NaN.
+    if (row.tasKt !== null) cruiseTasKt.push({ x: row.tasKt, y: row.pressureAltitudeFt });
+    if (row.mach !== null) cruiseMach.push({ x: row.mach, y: row.pressureAltitudeFt });
     if (row.limitCasKt === null) continue;
     try {
       const limit = convertAirspeed({ pressureAltitudeFt: row.pressureAltitudeFt, oatC: row.oatC, casKt: row.limitCasKt });

@@ -256,10 +256,31 @@ describe('CardsPage', () => {
     // Still the old card straight after typing (debounced).
     expect(speed('VS1', 'cas')).toBe(vs1Before);
     await settle();
-    // VS1: 50 KIAS at 1,100 kg → CAS 44 + (50 − 35)·(63 − 44)/(60 − 35) = 55.4 kt through the flaps-up table (demo content),
-    // × √(800/1100) = 47.246 → 48 kt rounded up (stall speeds round up, flight-physics.md).
-    expect(speed('VS1', 'cas')).toBe(Math.ceil(55.4 * Math.sqrt(800 / 1100)));
+    // VS1: 50 KIAS at 1,100 kg → CAS 40 + (50 − 30)·(63 − 40)/(60 − 30) = 55.33 kt through the flaps-up table (demo content),
+    // × √(800/1100) = 47.19 → 48 kt rounded up (stall speeds round up, flight-physics.md).
+    expect(speed('VS1', 'cas')).toBe(Math.ceil((40 + (20 * 23) / 30) * Math.sqrt(800 / 1100)));
     expect(speed('VS1', 'cas')).toBeLessThan(vs1Before);
+  });
+
+  it('starts the en-route ISA deviation from the departure’s and asks to confirm one more than 20 °C away before issuing', async () => {
+    // OAT +40 °C at a sea-level field on QNH 1013 is ISA +25 °C (ISO 2533: 15 °C at 0 ft; 1013 hPa is 7 ft).
+    await type('input-departure.oat', '40');
+    await settle();
+    await settle();
+    expect(field('input-isaDeviation').value).toBe('25');
+    expect(page.querySelector('[data-testid="isa-confirm"]')).toBeNull();
+    // The pilot types ISA −30: 55 °C from the departure's, so the card asks before it can be issued.
+    await type('input-isaDeviation', '-30');
+    await settle();
+    expect(page.querySelector('[data-testid="isa-confirm"]')!.textContent).toContain("differs from the departure's (ISA +25 °C) by 55 °C");
+    expect(page.querySelector<HTMLButtonElement>('[data-testid="issue-card"]')!.disabled).toBe(true);
+    page.querySelector<HTMLInputElement>('[data-testid="confirm-isa-deviation"] input')!.click();
+    await fixture.whenStable();
+    expect(page.querySelector<HTMLButtonElement>('[data-testid="issue-card"]')!.disabled).toBe(false);
+    // Typed by the pilot, it no longer follows the departure.
+    await type('input-departure.oat', '30');
+    await settle();
+    expect(field('input-isaDeviation').value).toBe('-30');
   });
 
   it('shows the refusal sentence at the weight field and no card figures', async () => {

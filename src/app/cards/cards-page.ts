@@ -14,7 +14,8 @@ import { MatSelectModule } from '@angular/material/select';
 import { EMPTY, Subject, catchError, debounceTime, distinctUntilChanged, firstValueFrom, merge, of, switchMap, tap } from 'rxjs';
 import type { RevisionSummary } from '../../../shared/api/revisions';
 import { can } from '../../../shared/auth/roles';
-import { CardRefusedError, buildCard, takeoffConfigurationKeys, type CardInputs, type SpeedCard } from '../../../shared/card';
+import { CardRefusedError, buildCard, enRouteDeviationCheck, startingEnRouteDeviationC, takeoffConfigurationKeys, type CardInputs, type SpeedCard } from '../../../shared/card';
+import { AeroInputError, isaDeviationC, pressureAltitudeFt } from '../../../shared/aero';
 import { revisionContentSchema, type RevisionContent } from '../../../shared/speed-book/revision-content';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { AuthService } from '../core/auth/auth-service';
@@ -54,6 +55,7 @@ import { checkUrl, formatCardCode } from '../../../shared/card-check';
 import { CARD_PAPERS, CARD_PAPER_SIZES, cardChanges, cardPdf, previousCardOf, type CardPaperSize, type PreviousCard } from '../../../shared/card-pdf';
 import { DeviceStore } from '../core/storage/device-store';
 import { SpeedCardView, utcDate, type EnteredInput } from './speed-card-view';
+import { TatDeviation } from './tat-deviation';
 
 /** Long enough that typing "1050" builds one card, short enough to feel live. */
 export const CARD_DEBOUNCE_MS = 300;
@@ -107,6 +109,7 @@ const UNIT_CONTROL: Readonly<Record<UnitField, FormFieldPath>> = {
     MatProgressBarModule,
     CardNumberPipe,
     SpeedCardView,
+    TatDeviation,
     DeviceCardLog,
     SyncStatusPanel,
     RevisionNotices,
@@ -242,8 +245,45 @@ export class CardsPage {
     const content = this.content();
     if (!content) return '';
     const unit = this.units().landingWeight;
-    return `Optional, up to ${cardNumber(fromCanonical(unit, content.weights.maximumLandingKg, 'mass'))} ${unit}; empty: the takeoff weight`;
+    return `Optional, up to ${cardNumber(fromCanonical(unit, content.weights.maximumLandingKg, 'mass'))} ${unit}; empty: the takeoff weight, or the maximum landing weight when the takeoff weight is above it`;
   });
+
+  /** The departure's own ISA deviation, °C, from what is typed; null until it can be computed. */
+  protected readonly departureDeviationC = computed<number | null>(() => {
+    const snapshot = this.snapshot();
+    if (!snapshot) return null;
+    const reading = cardInputsFrom(snapshot.value, snapshot.units, 1);
+    if (!reading.inputs) return null;
+    const { elevationFt, qnhHpa, oatC } = reading.inputs.departure;
+    try {
+      return isaDeviationC(pressureAltitudeFt(elevationFt, qnhHpa), oatC);
+    } catch (error) {
+      if (error instanceof AeroInputError) return null;
+      throw error;
+    }
+  });
+
+  /** A sentence asking to confirm an en-route deviation more than 20 °C from the departure's. */
+  protected readonly enRouteCheck = computed(() => {
+    const departureC = this.departureDeviationC();
+    const snapshot = this.snapshot();
+    // While it follows the departure's own there is nothing to confirm (and no flash while it catches up).
+    if (departureC === null || !snapshot || this.isaDeviationFollowsDeparture()) return null;
+    const reading = cardInputsFrom(snapshot.value, snapshot.units, 1);
+    return reading.inputs ? enRouteDeviationCheck(departureC, reading.inputs.isaDeviationC) : null;
+  });
+  private readonly confirmedEnRouteCheck = signal<string | null>(null);
+  protected readonly needsIsaConfirmation = computed(() => this.enRouteCheck() !== null && this.confirmedEnRouteCheck() !== this.enRouteCheck());
+  protected readonly isaDeviationHint = computed(() => {
+    const departureC = this.departureDeviationC();
+    if (departureC === null) return 'Above ISA: positive';
+    const whole = startingEnRouteDeviationC(departureC);
+    return `Above ISA: positive; the departure is at ISA ${whole >= 0 ? '+' : '−'}${Math.abs(whole)} °C`;
+  });
+  protected readonly tatRecoveryFactor = computed(() => this.content()?.aircraft.tatRecoveryFactor ?? 1);
+  /** The en-route deviation follows the departure's until the pilot types one. */
+  private readonly isaDeviationFollowsDeparture = signal(true);
+  private settingIsaDeviation = false;
 
   protected readonly publishedWords = computed(() => {
     const revision = this.revision();
@@ -304,10 +344,29 @@ export class CardsPage {
     this.recompute.next();
   }
 
+  protected confirmEnRouteDeviation(confirmed: boolean): void {
+    this.confirmedEnRouteCheck.set(confirmed ? this.enRouteCheck() : null);
+  }
+
+  /** Sets the en-route ISA deviation (°C) from the TAT reading, in the field's unit. */
+  protected useTatDeviation(deviationC: number): void {
+    this.isaDeviationFollowsDeparture.set(false);
+    this.setIsaDeviation(deviationC);
+  }
+
+  private setIsaDeviation(deviationC: number): void {
+    const unit = this.units().isaDeviation;
+    const text = formatInUnit(unit, fromCanonical(unit, deviationC, UNIT_FIELDS.isaDeviation));
+    if (this.form.controls.isaDeviation.value === text) return;
+    this.settingIsaDeviation = true;
+    this.form.controls.isaDeviation.setValue(text);
+    this.settingIsaDeviation = false;
+  }
+
   protected async issueCard(): Promise<void> {
     const card = this.card();
     const user = this.user();
-    if (!card || !user || this.isDraft() || this.issuing() || this.currencyRefusal()) return;
+    if (!card || !user || this.isDraft() || this.issuing() || this.currencyRefusal() || this.needsIsaConfirmation()) return;
     this.issuing.set(true);
     try {
       const { entry, outcome } = await this.cardLog.issue(card, user);
@@ -340,7 +399,7 @@ export class CardsPage {
     const card = this.card();
     const choice = this.choice();
     const user = this.user();
-    if (!card || !choice?.book || !user || this.isDraft() || this.printing()) return;
+    if (!card || !choice?.book || !user || this.isDraft() || this.printing() || this.needsIsaConfirmation()) return;
     const refusal = this.currencyRefusal();
     if (refusal) {
       this.printed.set({ digest: card.digest, ok: false, sentence: refusal });
@@ -529,14 +588,25 @@ export class CardsPage {
 
   private startForm(): void {
     const content = this.content();
+    this.isaDeviationFollowsDeparture.set(true);
+    this.settingIsaDeviation = true;
     if (content) this.form.setValue(startingValues(content, this.units()));
     else this.recompute.next();
+    this.settingIsaDeviation = false;
   }
 
   private followForm(): void {
     merge(this.form.valueChanges, this.recompute)
       .pipe(debounceTime(CARD_DEBOUNCE_MS), takeUntilDestroyed(this.destroyRef))
       .subscribe(() => this.snapshot.set({ value: this.form.getRawValue(), units: this.units() }));
+    // A deviation the pilot types is theirs; until then it follows the departure's own.
+    this.form.controls.isaDeviation.valueChanges.pipe(takeUntilDestroyed(this.destroyRef)).subscribe(() => {
+      if (!this.settingIsaDeviation) this.isaDeviationFollowsDeparture.set(false);
+    });
+    effect(() => {
+      const departureC = this.departureDeviationC();
+      if (departureC !== null && this.isaDeviationFollowsDeparture()) this.setIsaDeviation(startingEnRouteDeviationC(departureC));
+    });
   }
 }
 

@@ -67,13 +67,25 @@ export async function runCardCheck(deps: CardCheckDeps, rawCode: string, payload
   }
 }
 
+/**
+ * A card printed before the card rules of issue 11 (envelope, ordering rules, rounding by class):
+ * its figures cannot be re-derived by today's rules, so only its digest is compared with the
+ * issued card's (online).
+ */
+const EARLIER_RULES_ISSUED =
+  'The digest in this code is the digest of the card issued under it. The card was made under an earlier version of Speedwright’s card rules, so its figures are not re-derived here.';
+const EARLIER_RULES_OFFLINE =
+  'This card was made under an earlier version of Speedwright’s card rules: its figures can only be compared with the card log, online.';
+
 async function onlineFigures(deps: CardCheckDeps, code: ParsedCheckUrl, verify: VerifyResponse): Promise<FiguresNote> {
   const none = withoutFigures(code);
   if (none) return none;
   if (verify.status === 'unknown') return { kind: 'none', sentence: 'With no card behind the code, the figures in it cannot be checked.' };
   try {
     const source = await deps.source(code.code);
-    return { kind: 'checked', check: checkFigures(code.payload as CheckPayload, { revision: source.revision, context: source.context, issuedDigest: source.digest }) };
+    const payload = code.payload as CheckPayload;
+    if (payload.earlierCardRules && payload.digest === source.digest) return { kind: 'none', sentence: EARLIER_RULES_ISSUED };
+    return { kind: 'checked', check: checkFigures(payload, { revision: source.revision, context: source.context, issuedDigest: source.digest }) };
   } catch (error) {
     return { kind: 'none', sentence: `The figures could not be checked: ${ApiRequestError.from(error).message}` };
   }
@@ -87,5 +99,6 @@ async function offlineCheck(deps: CardCheckDeps, code: ParsedCheckUrl, reason: s
   const data = await deps.offline.read(user.operatorId, code.payload.revisionId, code.payload.inputs.airframeId);
   if (!data) return { ...base, data: null, figures: { kind: 'none', sentence: 'This device holds no synced copy of the revision this card was built from, so its figures cannot be checked here.' } };
   if (!data.source) return { ...base, data, figures: { kind: 'none', sentence: 'This device holds the revision but not the airframe of this card, so its figures cannot be re-derived here.' } };
+  if (code.payload.earlierCardRules) return { ...base, data, figures: { kind: 'none', sentence: EARLIER_RULES_OFFLINE } };
   return { ...base, data, figures: { kind: 'checked', check: checkFigures(code.payload, { ...data.source, issuedDigest: null }) } };
 }

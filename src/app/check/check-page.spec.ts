@@ -114,6 +114,20 @@ describe('CheckPage', () => {
     expect(figures.compareDocumentPosition(status) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
   });
 
+  it('a card printed under the earlier card rules (payload version 1): its digest is compared with the issued card’s, its figures not re-derived', async () => {
+    // An issued card's digest from before issue 11 (any 64 hex digits stand for it here).
+    const earlierDigest = 'ab'.repeat(32);
+    const earlier = '1' + encodeCheckPayload({ revisionId: revision.id, inputs: card.inputs, digest: earlierDigest }).slice(1);
+    await open(code, earlier);
+    backend.expectOne(`/api/verify/${code}`).flush(known);
+    await settle();
+    backend.expectOne(`/api/verify/${code}/source`).flush({ ...source, digest: earlierDigest });
+    await settle();
+    expect(page.querySelector('[data-testid="check-figures-result"]')?.getAttribute('data-outcome')).toBe('none');
+    expect(text('check-figures-result')).toContain('The digest in this code is the digest of the card issued under it. The card was made under an earlier version');
+    expect(page.querySelector('[data-testid="speed-card"]')).toBeNull();
+  });
+
   it('names an unknown code and asks nothing more', async () => {
     await open(code, payload);
     backend.expectOne(`/api/verify/${code}`).flush({ status: 'unknown' });

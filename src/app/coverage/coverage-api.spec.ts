@@ -77,7 +77,7 @@ describe('CoverageApi', () => {
     const answer = firstValueFrom(api.submit(12));
     backend
       .expectOne(COVERAGE_PATHS.submit(12))
-      .flush({ error: 'coverage_failed', message: 'The book gives no card at 1 point of its envelope.', report: smallCoverageReport() }, { status: 422, statusText: 'Unprocessable Content' });
+      .flush({ error: { code: 'coverage_failed', message: 'The book gives no card at 1 point of its envelope.', report: smallCoverageReport() } }, { status: 422, statusText: 'Unprocessable Content' });
     const error = await answer.catch((e: unknown) => e);
     expect(error).toBeInstanceOf(CoverageRefusal);
     expect((error as CoverageRefusal).message).toBe('The book gives no card at 1 point of its envelope.');
@@ -98,7 +98,7 @@ describe('CoverageApi', () => {
     const answer = firstValueFrom(api.approve(12));
     const request = backend.expectOne(COVERAGE_PATHS.approve(12));
     expect(request.request.method).toBe('POST');
-    request.flush({ error: { code: 'coverage_failed', message: 'Publishing refused: 1 point gives no card.' }, report: smallCoverageReport() }, { status: 422, statusText: 'Unprocessable Content' });
+    request.flush({ error: { code: 'coverage_failed', message: 'Publishing refused: 1 point gives no card.', report: smallCoverageReport() } }, { status: 422, statusText: 'Unprocessable Content' });
     const error = await answer.catch((e: unknown) => e);
     expect(error).toBeInstanceOf(CoverageRefusal);
     expect((error as CoverageRefusal).message).toBe('Publishing refused: 1 point gives no card.');

@@ -271,7 +271,7 @@ describe('RevisionReview', () => {
     await fixture.whenStable();
     backend
       .expectOne({ method: 'POST', url: REVISION_PATHS.step(IN_REVIEW, 'approve') })
-      .flush({ error: 'coverage_failed', message: 'The book gives no card at 1 point of its envelope.', report: smallCoverageReport() }, { status: 422, statusText: 'Unprocessable Content' });
+      .flush({ error: { code: 'coverage_failed', message: 'The book gives no card at 1 point of its envelope.', report: smallCoverageReport() } }, { status: 422, statusText: 'Unprocessable Content' });
     await fixture.whenStable();
     expect(page.querySelector('[data-testid="review-action-error"]')?.textContent).toContain('The book gives no card at 1 point of its envelope.');
     expect(page.querySelector('[data-testid="review-coverage"] button.cell[data-outcome="refused"]')?.getAttribute('aria-label')).toBe('3,400 kg, 4,000 ft, +40 °C: card refused');

@@ -218,7 +218,7 @@ describe('RevisionEditor: envelope, speed classes, rule exceptions and the live 
     backend
       .expectOne({ method: 'POST', url: COVERAGE_PATHS.submit(DRAFT_ID) })
       .flush(
-        { error: 'coverage_failed', message: 'The book gives no card at 1 point of its envelope and breaks 1 rule without a recorded exception.', report: smallCoverageReport() },
+        { error: { code: 'coverage_failed', message: 'The book gives no card at 1 point of its envelope and breaks 1 rule without a recorded exception.', report: smallCoverageReport() } },
         { status: 422, statusText: 'Unprocessable Content' },
       );
     await fixture.whenStable();

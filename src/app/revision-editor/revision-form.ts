@@ -138,6 +138,7 @@ function withoutUndefined(value: Json): Json {
  * follow the content's field names, so a schema path such as
  * `configurations.1.positionError.2.casKt` finds its control (see `fieldControls`).
  */
+
 export class RevisionForm {
   readonly group = new FormGroup({
     aircraft: new FormGroup({
@@ -191,9 +192,16 @@ export class RevisionForm {
     this.ruleExceptions.push(ruleExceptionGroup(ruleId));
   }
 
+  /**
+   * The TAT probe's recovery factor has no control in this form yet: kept as loaded and written
+   * back unchanged, so that saving a draft never drops it.
+   */
+  private carriedTatRecoveryFactor: unknown = undefined;
+
   /** Fills the form from a draft's content, tolerating whatever is missing or malformed. */
   load(content: Json): void {
     const aircraft = record(content['aircraft']);
+    this.carriedTatRecoveryFactor = aircraft['tatRecoveryFactor'];
     const weights = record(content['weights']);
     const limits = record(content['limits']);
     const vfe = record(limits['vfeKt']);
@@ -215,7 +223,9 @@ export class RevisionForm {
       this.configurations.push(configurationGroup(str(c['key']), str(c['label']), num(vfe[str(c['key'])]), points));
     }
     this.speeds.clear();
-    for (const item of list(content['speeds'])) this.speeds.push(speedGroup(record(item)));
+    for (const item of list(content['speeds'])) {
+      this.speeds.push(speedGroup(record(item)));
+    }
     for (const key of LIMIT_KEYS) this.group.controls.limits.controls[key].setValue(num(limits[key]));
     this.group.controls.indicatorMarkingBasis.setValue(oneOf(SPEED_BASES, content['indicatorMarkingBasis']));
     this.group.controls.notes.setValue(str(content['notes']));
@@ -236,7 +246,7 @@ export class RevisionForm {
     }
     return {
       schemaVersion: REVISION_SCHEMA_VERSION,
-      aircraft: withoutUndefined({ category: v.aircraft.category ?? undefined, engines: out(v.aircraft.engines), ceilingFt: out(v.aircraft.ceilingFt) }),
+      aircraft: withoutUndefined({ category: v.aircraft.category ?? undefined, engines: out(v.aircraft.engines), ceilingFt: out(v.aircraft.ceilingFt), tatRecoveryFactor: this.carriedTatRecoveryFactor }),
       weights: withoutUndefined({
         minimumKg: out(v.weights.minimumKg),
         maximumTakeoffKg: out(v.weights.maximumTakeoffKg),
@@ -248,7 +258,7 @@ export class RevisionForm {
         label: c.label,
         positionError: c.positionError.map((p) => withoutUndefined({ iasKt: out(p.iasKt), casKt: out(p.casKt) })),
       })),
-      speeds: v.speeds.map((s) => speedContent(s)),
+      speeds: this.speeds.controls.map((group) => speedContent(group.getRawValue())),
       limits: { ...withoutUndefined(Object.fromEntries(LIMIT_KEYS.map((key) => [key, out(v.limits[key])]))), vfeKt },
       indicatorMarkingBasis: v.indicatorMarkingBasis ?? undefined,
       notes: v.notes,
