@@ -1,5 +1,6 @@
 import { Router, type RequestHandler } from 'express';
-import { acceptInvitationRequestSchema, passwordResetConfirmSchema, passwordResetRequestSchema } from '../../shared/api/auth';
+import { passwordResetRequestSchema } from '../../shared/api/auth';
+import { acceptInvitationRequestSchema, passwordResetConfirmSchema } from '../../shared/api/new-password';
 import { parseOrThrow } from '../middleware/validate';
 import { acceptInvitation } from './invitations.service';
 import { confirmPasswordReset, requestPasswordReset } from './password-reset.service';

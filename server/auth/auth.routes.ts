@@ -1,9 +1,11 @@
 import { Router, type RequestHandler } from 'express';
 import type { PassportStatic } from 'passport';
 import { loginRequestSchema } from '../../shared/api/auth';
+import { changePasswordRequestSchema } from '../../shared/api/new-password';
 import { HttpError } from '../http-error';
 import { requireSignIn } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
+import { changeOwnPassword } from './change-password.service';
 
 export interface AuthRoutesDeps {
   passport: PassportStatic;
@@ -40,6 +42,12 @@ export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionC
         res.clearCookie(sessionCookieName, { path: '/' }).status(204).end();
       });
     });
+  });
+
+  router.post('/password', requireSignIn, async (req, res) => {
+    const input = parseOrThrow(changePasswordRequestSchema, req.body, 'password change');
+    await changeOwnPassword(req.user!.id, input, req);
+    res.status(204).end();
   });
 
   router.get('/me', requireSignIn, (req, res) => {

@@ -4,14 +4,14 @@
  */
 import type { Request } from 'express';
 import { Op, type Transaction } from 'sequelize';
-import type { AcceptInvitationRequest } from '../../shared/api/auth';
+import type { AcceptInvitationRequest } from '../../shared/api/new-password';
 import { recordAudit } from '../audit/audit.service';
 import { HttpError } from '../http-error';
 import { invitationMail } from '../mail/messages';
 import { outbox } from '../mail/outbox';
 import { Invitation, Operator, User } from '../models';
 import { assertLinkUsable, hashLinkToken, newLinkToken, type LinkWording } from './link-tokens';
-import { hashPassword } from './passwords';
+import { assertPasswordNotPersonal, hashPassword } from './passwords';
 
 export const INVITATION_DAYS = 7;
 
@@ -60,7 +60,9 @@ export async function sendInvitation(user: User, invitedById: number, invitation
 export async function acceptInvitation(input: AcceptInvitationRequest, req: Request): Promise<{ email: string }> {
   const tokenHash = hashLinkToken(input.token);
   // Check before hashing the password, so made-up tokens cost no argon2 work.
-  assertLinkUsable(await Invitation.findOne({ where: { tokenHash } }), WORDS);
+  const pending = await Invitation.findOne({ where: { tokenHash } });
+  assertLinkUsable(pending, WORDS);
+  await refuseIfPersonal(pending.userId, input.password);
   const passwordHash = await hashPassword(input.password);
 
   return User.sequelize!.transaction(async (transaction) => {
@@ -94,4 +96,10 @@ export async function acceptInvitation(input: AcceptInvitationRequest, req: Requ
     );
     return { email: user.email };
   });
+}
+
+/** A password built on the person's own name, address or operator is refused before any hashing. */
+export async function refuseIfPersonal(userId: number, password: string): Promise<void> {
+  const user = await User.findByPk(userId, { include: [{ model: Operator, as: 'operator' }] });
+  if (user) assertPasswordNotPersonal(password, user, user.operator?.name ?? '', 'password');
 }

@@ -6,9 +6,9 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31, type ResponseConfig, type RouteConfig } from '@asteasolutions/zod-to-openapi';
 import * as z from 'zod';
 import { passwordResetRequestedSchema } from '../../shared/api/account-links';
+import { acceptInvitationRequestSchema, changePasswordRequestSchema, passwordResetConfirmSchema } from '../../shared/api/new-password';
 import { auditPageSchema, auditQuerySchema } from '../../shared/api/audit';
 import {
-  acceptInvitationRequestSchema,
   apiErrorSchema,
   csrfResponseSchema,
   healthSchema,
@@ -17,7 +17,6 @@ import {
   loginResponseSchema,
   operatorPeopleSchema,
   operatorPersonResponseSchema,
-  passwordResetConfirmSchema,
   passwordResetRequestSchema,
   passwordSetResponseSchema,
   sessionUserSchema,
@@ -147,6 +146,7 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   route('get', '/api/auth/csrf', { summary: 'A CSRF token for this session', tags: ['auth'], who: 'public', ok: { status: 200, schema: csrfResponseSchema } });
   route('post', '/api/auth/login', { summary: 'Sign in', tags: ['auth'], who: 'public', body: loginRequestSchema, ok: { status: 200, schema: loginResponseSchema }, errors: [400, 401, 423, 429] });
   route('post', '/api/auth/logout', { summary: 'Sign out', tags: ['auth'], who: 'public', ok: { status: 204, description: 'Signed out' } });
+  route('post', '/api/auth/password', { summary: 'Change one’s own password (other sessions end)', tags: ['auth'], who: 'signed-in', body: changePasswordRequestSchema, ok: { status: 204, description: 'Changed' } });
   route('get', '/api/auth/me', { summary: 'Who is signed in', tags: ['auth'], who: 'signed-in', ok: { status: 200, schema: loginResponseSchema } });
   route('get', '/api/users', { summary: 'The operator’s people', tags: ['people'], who: 'manage-people', ok: { status: 200, schema: operatorPeopleSchema } });
   route('post', '/api/users', { summary: 'Invite a person by e-mail', tags: ['people'], who: 'manage-people', body: invitePersonRequestSchema, ok: { status: 201, schema: invitationSentSchema }, errors: [409] });

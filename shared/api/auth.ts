@@ -1,5 +1,6 @@
 import * as z from 'zod';
 import { ROLES } from '../auth/roles';
+import { plainText } from '../text/plain-text';
 
 /** The signed-in person as the API returns it (`/api/auth/login`, `/api/auth/me`). */
 export const sessionUserSchema = z.object({
@@ -40,19 +41,12 @@ export const operatorPeopleSchema = z.object({ users: z.array(operatorPersonSche
 export const operatorPersonResponseSchema = z.object({ user: operatorPersonSchema });
 
 const emailField = z.string().trim().toLowerCase().email('Enter an e-mail address such as name@example.com.').max(254);
-const displayNameField = z
+export const displayNameField = z
   .string()
+  .check(plainText('The name'))
   .trim()
   .min(1, 'Enter the name colleagues know this person by.')
   .max(200, 'Keep the name under 200 characters.');
-
-/** Password rules for a new password, in one place for the form and the server. */
-export const NEW_PASSWORD_MIN_LENGTH = 12;
-export const newPasswordSchema = z
-  .string()
-  .min(NEW_PASSWORD_MIN_LENGTH, `Choose a password of at least ${NEW_PASSWORD_MIN_LENGTH} characters; a few unrelated words work well.`)
-  .max(200, 'Keep the password under 200 characters.')
-  .refine((password) => password.trim().length > 0, 'A password of only spaces is not accepted.');
 
 /** The token of an invitation or password-reset link: 32 random bytes, base64url. */
 export const linkTokenSchema = z
@@ -79,21 +73,9 @@ export const updatePersonRequestSchema = z
   });
 export type UpdatePersonRequest = z.infer<typeof updatePersonRequestSchema>;
 
-/** `POST /api/auth/invitations/accept`: the invited person chooses a password. */
-export const acceptInvitationRequestSchema = z.strictObject({
-  token: linkTokenSchema,
-  password: newPasswordSchema,
-  displayName: displayNameField.optional(),
-});
-export type AcceptInvitationRequest = z.infer<typeof acceptInvitationRequestSchema>;
-
 /** `POST /api/auth/password-reset`: always answered 202, whether or not the account exists. */
 export const passwordResetRequestSchema = z.strictObject({ email: emailField });
 export type PasswordResetRequest = z.infer<typeof passwordResetRequestSchema>;
-
-/** `POST /api/auth/password-reset/confirm`. */
-export const passwordResetConfirmSchema = z.strictObject({ token: linkTokenSchema, password: newPasswordSchema });
-export type PasswordResetConfirm = z.infer<typeof passwordResetConfirmSchema>;
 
 /** The answer of accept and confirm: the address to sign in with next. */
 export const passwordSetResponseSchema = z.object({ email: z.string() });

@@ -1,11 +1,7 @@
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
-import {
-  AcceptInvitationRequest,
-  PasswordResetConfirm,
-  PasswordResetRequest,
-  passwordSetResponseSchema,
-} from '../../../shared/api/auth';
+import { PasswordResetRequest, passwordSetResponseSchema } from '../../../shared/api/auth';
+import type { AcceptInvitationRequest, PasswordResetConfirm } from '../../../shared/api/new-password';
 import { passwordResetRequestedSchema } from '../../../shared/api/account-links';
 import { API_PATHS } from '../core/api/api-paths';
 import { ApiClient } from '../core/api/api-client';
