@@ -135,8 +135,9 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   );
 
   const passport = configurePassport({
-    lockAfterFailedSignIns: config.LOCK_AFTER_FAILED_SIGN_INS,
-    lockMinutes: config.LOCK_MINUTES,
+    policy: { lockAfterFailedSignIns: config.LOCK_AFTER_FAILED_SIGN_INS, lockMinutes: config.LOCK_MINUTES },
+    sequelize,
+    secret: config.SESSION_SECRET,
   });
   app.use('/api', passport.initialize(), passport.session());
 
@@ -156,7 +157,17 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
       next(new HttpError(429, 'too_many_attempts', 'Too many sign-in attempts from this device. Wait 15 minutes and try again.')),
   });
 
-  app.use('/api/auth', authRoutes({ passport, generateCsrfToken: generateToken, loginLimiter, sessionCookieName: SESSION_COOKIE }));
+  app.use(
+    '/api/auth',
+    authRoutes({
+      passport,
+      generateCsrfToken: generateToken,
+      loginLimiter,
+      sessionCookieName: SESSION_COOKIE,
+      secret: config.SESSION_SECRET,
+      cookieSecure: (req) => (config.COOKIE_SECURE === 'auto' ? req.secure : config.COOKIE_SECURE === 'true'),
+    }),
+  );
   app.use('/api/users', usersRoutes());
   app.use('/api/aircraft-types', aircraftTypesRoutes());
   app.use('/api/airframes', airframesRoutes());
@@ -178,7 +189,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
     handler: (_req, _res, next) =>
       next(new HttpError(429, 'too_many_attempts', 'Too many requests from this device. Wait 15 minutes and try again.')),
   });
-  app.use('/api/auth', accountLinksRoutes({ limiter: accountLinkLimiter }));
+  app.use('/api/auth', accountLinksRoutes({ limiter: accountLinkLimiter, sequelize, secret: config.SESSION_SECRET }));
   if (config.MAILBOX_DIR) app.use('/api/dev/mailbox', mailboxRoutes(resolve(config.MAILBOX_DIR)));
   app.use('/api/uploads', uploadsRoutes());
   app.use('/api', attachmentsRoutes({ attachmentsDir: config.ATTACHMENTS_DIR }));

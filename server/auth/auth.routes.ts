@@ -6,16 +6,20 @@ import { HttpError } from '../http-error';
 import { requireSignIn } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
 import { changeOwnPassword } from './change-password.service';
+import { DEVICE_COOKIE, deviceCookieOptions, deviceCookieValue } from './device-cookie';
 
 export interface AuthRoutesDeps {
   passport: PassportStatic;
   generateCsrfToken: (req: Parameters<RequestHandler>[0], overwrite?: boolean) => string;
   loginLimiter: RequestHandler;
   sessionCookieName: string;
+  /** SESSION_SECRET, which signs the known-device cookie. */
+  secret: string;
+  cookieSecure: (req: Parameters<RequestHandler>[0]) => boolean;
 }
 
 /** `/api/auth`: CSRF token, sign-in, sign-out, who am I. */
-export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionCookieName }: AuthRoutesDeps): Router {
+export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionCookieName, secret, cookieSecure }: AuthRoutesDeps): Router {
   const router = Router();
 
   router.get('/csrf', (req, res) => {
@@ -29,6 +33,7 @@ export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionC
       if (!user) return next(info instanceof HttpError ? info : new HttpError(401, 'invalid_credentials', 'The e-mail or password is not right.'));
       req.logIn(user, (loginError) => {
         if (loginError) return next(loginError);
+        res.cookie(DEVICE_COOKIE, deviceCookieValue(user.id, secret), deviceCookieOptions(cookieSecure(req)));
         res.json({ user });
       });
     })(req, res, next);

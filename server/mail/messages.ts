@@ -92,3 +92,18 @@ export function formatUtc(date: Date): string {
   const pad = (n: number) => String(n).padStart(2, '0');
   return `${date.getUTCDate()} ${months[date.getUTCMonth()]} ${date.getUTCFullYear()}, ${pad(date.getUTCHours())}:${pad(date.getUTCMinutes())} UTC`;
 }
+
+export function signInWaitMail(p: { to: string; displayName: string; link: string; expiresAt: Date; failures: number }): OutgoingMail {
+  return {
+    to: p.to,
+    subject: 'Wrong passwords were typed for your Speedwright account',
+    text:
+      `Hello ${p.displayName},\n\n` +
+      `A wrong password was typed ${p.failures} times in a row for this address. Until the right one is typed, new sign-ins ` +
+      `from a device you have not used before have to wait a few minutes between tries. Devices you have signed in on before are not affected.\n\n` +
+      `If it was you and you want to try again at once, open this link:\n${p.link}\n\n` +
+      `The link works until ${formatUtc(p.expiresAt)}. If you have forgotten the password, ask for a new one on the sign-in page.\n\n` +
+      `If it was not you, your account is safe as long as nobody knows the password; you can change it under "Change password" in the account menu.` +
+      SIGNATURE,
+  };
+}

@@ -20,6 +20,7 @@ import {
   passwordResetRequestSchema,
   passwordSetResponseSchema,
   sessionUserSchema,
+  unlockRequestSchema,
   updatePersonRequestSchema,
 } from '../../shared/api/auth';
 import {
@@ -154,6 +155,7 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   route('post', '/api/users/:id/invitation', { summary: 'Send the invitation again', tags: ['people'], who: 'manage-people', params: true, ok: { status: 201, schema: invitationSentSchema }, errors: [409] });
   route('post', '/api/auth/invitations/accept', { summary: 'Accept an invitation: choose a password', tags: ['auth'], who: 'public', body: acceptInvitationRequestSchema, ok: { status: 200, schema: passwordSetResponseSchema }, errors: [400, 410, 429] });
   route('post', '/api/auth/password-reset', { summary: 'Ask for a password-reset link by e-mail', tags: ['auth'], who: 'public', body: passwordResetRequestSchema, ok: { status: 202, schema: passwordResetRequestedSchema }, errors: [400, 429] });
+  route('post', '/api/auth/unlock', { summary: 'Lift the sign-in wait with the link from the mail', tags: ['auth'], who: 'public', body: unlockRequestSchema, ok: { status: 200, schema: passwordSetResponseSchema }, errors: [400, 410, 429] });
   route('post', '/api/auth/password-reset/confirm', { summary: 'Choose a new password with a reset link', tags: ['auth'], who: 'public', body: passwordResetConfirmSchema, ok: { status: 200, schema: passwordSetResponseSchema }, errors: [400, 410, 429] });
   route('get', '/api/dev/mailbox', { summary: 'The local fake mailbox (only when MAILBOX_DIR is set)', tags: ['people'], who: 'manage-people', ok: { status: 200, schema: mailboxResponseSchema } });
   route('post', '/api/uploads/speed-table', {

@@ -3,6 +3,7 @@ import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import type { InvitePersonRequest, OperatorPerson, UpdatePersonRequest } from '../../shared/api/auth';
 import { recordAudit } from '../audit/audit.service';
 import { issueInvitation, sendInvitation } from '../auth/invitations.service';
+import { clearFailures } from '../auth/sign-in-throttle';
 import { HttpError, notFound } from '../http-error';
 import { Operator, User } from '../models';
 
@@ -113,9 +114,10 @@ export async function updatePerson(operatorId: number, actorId: number, userId: 
       user.lockedByAdmin = input.locked;
     }
     if (input.locked === false) {
-      // Unlocking also lifts a lock after failed sign-ins.
+      // Unlocking also lifts the wait after failed sign-ins.
       user.lockedUntil = null;
       user.failedSignIns = 0;
+      await clearFailures(User.sequelize!, user.email);
     }
     if (input.displayName !== undefined && input.displayName !== user.displayName) {
       audits.push({ action: 'user.renamed', details: { from: user.displayName, to: input.displayName } });

@@ -95,3 +95,10 @@ export const apiErrorSchema = z.object({
 export type ApiError = z.infer<typeof apiErrorSchema>;
 
 export const healthSchema = z.object({ status: z.enum(['ok', 'degraded']), db: z.enum(['ok', 'down']) });
+
+/** `POST /api/auth/unlock`: the token of the link in the "wrong passwords were typed" mail. */
+export const unlockRequestSchema = z.strictObject({
+  token: z
+    .string({ error: 'This link is not complete. Open it again from the e-mail, or copy the whole link.' })
+    .regex(/^[1-9]\d{0,15}\.\d{1,12}\.[A-Za-z0-9_-]{43}$/, 'This link is not complete. Open it again from the e-mail, or copy the whole link.'),
+});

@@ -39,8 +39,16 @@ export function newPasswordProblem(password: string, personal: readonly string[]
   }
   if (password.length > NEW_PASSWORD_MAX_LENGTH) return `Keep the password under ${NEW_PASSWORD_MAX_LENGTH} characters.`;
   if (password.trim().length === 0) return 'A password of only spaces is not accepted.';
-  const inputs = personal.flatMap((text) => [text, ...text.split(/[^\p{L}\p{N}]+/u)]).filter((word) => word.length >= 3);
+  const inputs = personal
+    .flatMap((text) => [text, text.replace(/[^\p{L}\p{N}]+/gu, ''), ...text.split(/[^\p{L}\p{N}]+/u)])
+    .filter((word) => word.length >= 3);
   const result = strengthEstimator().check(password, inputs);
+  // NIST SP 800-63B §5.1.1.2: context-specific words (the service, the person's name or address)
+  // are refused too; half the password made of them is enough to refuse it.
+  const personalLength = result.sequence
+    .filter((match) => match.pattern === 'dictionary' && 'dictionaryName' in match && match.dictionaryName === 'userInputs')
+    .reduce((sum, match) => sum + match.token.length, 0);
+  if (personalLength * 2 >= password.length) return 'This password is built on your own name or e-mail address. Choose another; a few unrelated words work well.';
   if (result.score >= MIN_PASSWORD_SCORE) return null;
   return `${weakness(result.sequence)} Choose another; a few unrelated words work well.`;
 }

@@ -1,0 +1,176 @@
+/**
+ * Issue 12, finding 4: sign-in tells nobody which addresses have accounts, and a stranger
+ * typing wrong passwords cannot keep a colleague out. Finding 5: weak passwords are refused and
+ * a signed-in person changes their own password.
+ */
+import { QueryTypes } from 'sequelize';
+import { csrfAgent, demoEmail, mailTo, signIn, startHarness, TEST_PASSWORD, type Harness } from '../../test/api/harness';
+import { User } from '../models';
+import * as passwords from './passwords';
+
+jest.setTimeout(60_000);
+
+let harness: Harness;
+beforeAll(() => {
+  harness = startHarness({ LOCK_AFTER_FAILED_SIGN_INS: '3', LOGIN_RATE_LIMIT_PER_15_MIN: '1000' });
+});
+afterAll(() => harness.close());
+afterEach(async () => {
+  jest.restoreAllMocks();
+  await harness.sequelize.query("DELETE FROM rate_limit_hits WHERE `key` LIKE 'sign-in-address:%'", { type: QueryTypes.DELETE });
+});
+
+async function attempt(email: string, password: string, agentAndToken?: Awaited<ReturnType<typeof csrfAgent>>) {
+  const { agent, token } = agentAndToken ?? (await csrfAgent(harness.app));
+  const res = await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email, password });
+  const error = res.body.error as { code: string; message: string } | undefined;
+  // The request id differs by design; everything else must not.
+  return { status: res.status, body: { error: error && { code: error.code, message: error.message } } };
+}
+
+const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
+
+describe('sign-in answers the same for known and unknown addresses (finding 4)', () => {
+  it('gives an unknown address the same answers, in the same order, as a real account', async () => {
+    const known = demoEmail('engineer');
+    const unknown = 'nobody-here@demo.speedwright.example';
+    const answers = async (email: string) => {
+      const seen = [];
+      for (let i = 0; i < 4; i++) seen.push(await attempt(email, `wrong-password-${i}`));
+      return seen;
+    };
+    const forKnown = await answers(known);
+    const forUnknown = await answers(unknown);
+    expect(forKnown.map((a) => a.status)).toEqual([401, 401, 423, 423]);
+    expect(forUnknown).toEqual(forKnown);
+  });
+
+  it('verifies an argon2id hash for an unknown address, an invitation not accepted and an account its administrator locked', async () => {
+    const verify = jest.spyOn(passwords, 'verifyPassword');
+    const invited = await User.create({ operatorId: (await User.findOne({ where: { email: demoEmail('admin') }, rejectOnEmpty: true })).operatorId, email: 'invited-only@demo.speedwright.example', displayName: 'Invited Only', role: 'pilot', passwordHash: null, lockedUntil: null, lastSignInAt: null });
+    const lockedEmail = demoEmail('inspector');
+    await User.update({ lockedByAdmin: true }, { where: { email: lockedEmail } });
+    try {
+      for (const email of ['nobody-at-all@demo.speedwright.example', invited.email, lockedEmail]) {
+        verify.mockClear();
+        const answer = await attempt(email, 'not-the-password');
+        expect(answer.status).toBe(401);
+        expect(answer.body.error?.message).toBe('The e-mail or password is not right.');
+        expect(verify).toHaveBeenCalledTimes(1);
+        expect(verify.mock.calls[0]![0]).toMatch(/^\$argon2id\$/);
+      }
+      // Only the right password learns that the administrator locked the account.
+      expect((await attempt(lockedEmail, TEST_PASSWORD)).body.error?.message).toMatch(/locked by your administrator/);
+    } finally {
+      await User.update({ lockedByAdmin: false }, { where: { email: lockedEmail } });
+      await invited.destroy();
+    }
+  });
+
+  it('takes as long for an account its administrator locked as for an unknown address (medians of interleaved tries)', async () => {
+    const lockedEmail = demoEmail('inspector');
+    await User.update({ lockedByAdmin: true }, { where: { email: lockedEmail } });
+    const timesLocked: number[] = [];
+    const timesUnknown: number[] = [];
+    try {
+      for (let i = 0; i < 7; i++) {
+        for (const [email, times] of [[lockedEmail, timesLocked], [`nobody-${i}@demo.speedwright.example`, timesUnknown]] as const) {
+          const { agent, token } = await csrfAgent(harness.app);
+          const started = performance.now();
+          await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email, password: `wrong-${i}` });
+          times.push(performance.now() - started);
+        }
+        await harness.sequelize.query("DELETE FROM rate_limit_hits WHERE `key` LIKE 'sign-in-address:%'", { type: QueryTypes.DELETE });
+      }
+    } finally {
+      await User.update({ lockedByAdmin: false }, { where: { email: lockedEmail } });
+    }
+    // Before the fix the locked account answered in ~5 ms against ~140 ms (a ratio near 0.04);
+    // both now verify one argon2id hash, so the ratio sits near 1. Bounds generous for a busy machine.
+    const ratio = median(timesLocked) / median(timesUnknown);
+    expect(ratio).toBeGreaterThan(0.5);
+    expect(ratio).toBeLessThan(2);
+  });
+});
+
+describe('a stranger cannot keep a colleague out (finding 4)', () => {
+  it('lets the person in from a device they used before, and by the mailed link elsewhere', async () => {
+    const email = demoEmail('approver');
+    const ownDevice = await signIn(harness.app, email);
+    await ownDevice.agent.post('/api/auth/logout').set('x-csrf-token', ownDevice.token).expect(204);
+    const deviceToken = (await ownDevice.agent.get('/api/auth/csrf').expect(200)).body.token as string;
+
+    // A stranger types three wrong passwords: the address now waits.
+    for (let i = 0; i < 3; i++) await attempt(email, `guess-${i}`);
+    expect((await attempt(email, TEST_PASSWORD)).status).toBe(423);
+
+    // The person's own device (its known-device cookie) still signs in with the right password.
+    const own = await ownDevice.agent.post('/api/auth/login').set('x-csrf-token', deviceToken).send({ email, password: TEST_PASSWORD });
+    expect(own.status).toBe(200);
+    // ...and that success ended the wait for everyone.
+    expect((await attempt(email, TEST_PASSWORD)).status).toBe(200);
+
+    // Again from scratch: on a new device, the link in the mail ends the wait.
+    for (let i = 0; i < 3; i++) await attempt(email, `guess-again-${i}`);
+    const mail = await mailTo(email, (entry) => entry.subject.startsWith('Wrong passwords were typed'));
+    const link = mail.links.find((href) => href.includes('/unlock#token='));
+    expect(link).toBeDefined();
+    const token = decodeURIComponent(link!.split('#token=')[1]!);
+    const fresh = await csrfAgent(harness.app);
+    expect((await attempt(email, TEST_PASSWORD, fresh)).status).toBe(423);
+    const unlocked = await fresh.agent.post('/api/auth/unlock').set('x-csrf-token', fresh.token).send({ token });
+    expect(unlocked.status).toBe(200);
+    expect(unlocked.body).toEqual({ email });
+    expect((await attempt(email, TEST_PASSWORD, fresh)).status).toBe(200);
+  });
+
+  it('refuses a forged unlock link with a field message', async () => {
+    const { agent, token } = await csrfAgent(harness.app);
+    const res = await agent.post('/api/auth/unlock').set('x-csrf-token', token).send({ token: `1.9999999999.${'A'.repeat(43)}` });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.token).toMatch(/not valid/);
+  });
+});
+
+describe('passwords (finding 5)', () => {
+  it('refuses a weak new password when changing one’s own, and changes it with the current one', async () => {
+    const email = demoEmail('pilot', 'second');
+    const mine = await signIn(harness.app, email);
+    const other = await signIn(harness.app, email);
+    const change = (body: object) => mine.agent.post('/api/auth/password').set('x-csrf-token', mine.token).send(body);
+
+    try {
+    const weak = await change({ currentPassword: TEST_PASSWORD, newPassword: 'aaaaaaaaaaaa' });
+    expect(weak.status).toBe(400);
+    expect(weak.body.error.fields.newPassword).toMatch(/repeats the same characters/);
+
+    const personal = await change({ currentPassword: TEST_PASSWORD, newPassword: 'larkspur-second-2026' });
+    expect(personal.status).toBe(400);
+    expect(personal.body.error.fields.newPassword).toMatch(/own name or e-mail/);
+
+    const wrongCurrent = await change({ currentPassword: 'not-my-password', newPassword: 'tailwind-quiet-harbour' });
+    expect(wrongCurrent.status).toBe(400);
+    expect(wrongCurrent.body.error.fields.currentPassword).toBe('This is not your current password.');
+
+      expect((await change({ currentPassword: TEST_PASSWORD, newPassword: 'tailwind-quiet-harbour' })).status).toBe(204);
+      // This session stays; the other one ended; the old password no longer works.
+      await mine.agent.get('/api/auth/me').expect(200);
+      await other.agent.get('/api/auth/me').expect(401);
+      expect((await attempt(email, TEST_PASSWORD)).status).toBe(401);
+      expect((await attempt(email, 'tailwind-quiet-harbour')).status).toBe(200);
+      const audit = await harness.sequelize.query<{ action: string }>(
+        "SELECT action FROM audit_events WHERE action LIKE 'user.password-change%' ORDER BY id",
+        { type: QueryTypes.SELECT },
+      );
+      expect(audit.map((row) => row.action)).toEqual(['user.password-change-refused', 'user.password-changed']);
+    } finally {
+      await User.update({ passwordHash: await passwords.hashPassword(TEST_PASSWORD) }, { where: { email } });
+    }
+  });
+
+  it('refuses the change when signed out', async () => {
+    const { agent, token } = await csrfAgent(harness.app);
+    const res = await agent.post('/api/auth/password').set('x-csrf-token', token).send({ currentPassword: 'x', newPassword: 'tailwind-quiet-harbour' });
+    expect(res.status).toBe(401);
+  });
+});
