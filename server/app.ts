@@ -16,6 +16,7 @@ import { accountLinksRoutes } from './auth/account-links.routes';
 import { authRoutes } from './auth/auth.routes';
 import { configurePassport } from './auth/passport';
 import { MariaDbRateLimitStore } from './auth/rate-limit-store';
+import { absoluteSessionLifetime } from './auth/session-lifetime';
 import type { ServerConfig } from './config';
 import { healthRoutes } from './health/health.routes';
 import { HttpError } from './http-error';
@@ -139,7 +140,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
     sequelize,
     secret: config.SESSION_SECRET,
   });
-  app.use('/api', passport.initialize(), passport.session());
+  app.use('/api', passport.initialize(), passport.session(), absoluteSessionLifetime());
 
   const { csrfSynchronisedProtection, generateToken } = csrfSync({
     getTokenFromRequest: (req) => req.headers['x-csrf-token'] as string | undefined,

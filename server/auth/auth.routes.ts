@@ -6,6 +6,7 @@ import { HttpError } from '../http-error';
 import { requireSignIn } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
 import { changeOwnPassword } from './change-password.service';
+import { markSignedIn, sessionEndsAt } from './session-lifetime';
 import { DEVICE_COOKIE, deviceCookieOptions, deviceCookieValue } from './device-cookie';
 
 export interface AuthRoutesDeps {
@@ -33,8 +34,9 @@ export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionC
       if (!user) return next(info instanceof HttpError ? info : new HttpError(401, 'invalid_credentials', 'The e-mail or password is not right.'));
       req.logIn(user, (loginError) => {
         if (loginError) return next(loginError);
+        const sessionExpiresAt = markSignedIn(req);
         res.cookie(DEVICE_COOKIE, deviceCookieValue(user.id, secret), deviceCookieOptions(cookieSecure(req)));
-        res.json({ user });
+        res.json({ user, sessionExpiresAt: sessionExpiresAt.toISOString() });
       });
     })(req, res, next);
   });
@@ -56,7 +58,7 @@ export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionC
   });
 
   router.get('/me', requireSignIn, (req, res) => {
-    res.set('Cache-Control', 'no-store').json({ user: req.user });
+    res.set('Cache-Control', 'no-store').json({ user: req.user, sessionExpiresAt: sessionEndsAt(req)?.toISOString() });
   });
 
   return router;

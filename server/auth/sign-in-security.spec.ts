@@ -174,3 +174,50 @@ describe('passwords (finding 5)', () => {
     expect(res.status).toBe(401);
   });
 });
+
+describe('absolute session lifetime (finding 8)', () => {
+  const setSignedInAt = (email: string, epochMs: number | null) =>
+    harness.sequelize.query(
+      epochMs === null
+        ? "UPDATE sessions SET data = JSON_REMOVE(data, '$.signedInAt') WHERE JSON_VALUE(data, '$.passport.user') = (SELECT id FROM users WHERE email = ?)"
+        : "UPDATE sessions SET data = JSON_SET(data, '$.signedInAt', ?) WHERE JSON_VALUE(data, '$.passport.user') = (SELECT id FROM users WHERE email = ?)",
+      { replacements: epochMs === null ? [email] : [epochMs, email], type: QueryTypes.UPDATE },
+    );
+
+  it('tells the device when the sign-in ends and keeps the cookie inside it', async () => {
+    const { agent, token } = await csrfAgent(harness.app);
+    const before = Date.now();
+    const res = await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email: demoEmail('pilot'), password: TEST_PASSWORD }).expect(200);
+    const endsAt = Date.parse(res.body.sessionExpiresAt as string);
+    // ASVS 4.0.3 §3.3.2: 12 hours.
+    expect(endsAt - before).toBeGreaterThanOrEqual(12 * 3600_000 - 1000);
+    expect(endsAt - Date.now()).toBeLessThanOrEqual(12 * 3600_000);
+    const me = await agent.get('/api/auth/me').expect(200);
+    expect(me.body.sessionExpiresAt).toBe(res.body.sessionExpiresAt);
+  });
+
+  it('ends a session 12 hours after its sign-in even while it is in use', async () => {
+    const email = demoEmail('engineer', 'demo');
+    const { agent } = await signIn(harness.app, email);
+    await agent.get('/api/auth/me').expect(200);
+    // 11 h 59 min after sign-in: still in; the renewed cookie expires with the sign-in.
+    await setSignedInAt(email, Date.now() - (12 * 60 - 1) * 60_000);
+    const late = await agent.get('/api/speed-books').expect(200);
+    const cookie = ([] as string[]).concat(late.headers['set-cookie'] ?? []).find((c) => c.startsWith('speedwright.sid='));
+    const expires = Date.parse(/Expires=([^;]+)/.exec(cookie ?? '')?.[1] ?? '');
+    expect(expires - Date.now()).toBeLessThanOrEqual(2 * 60_000);
+    // 12 h 1 min after: signed out, with a sentence that says why.
+    await setSignedInAt(email, Date.now() - (12 * 60 + 1) * 60_000);
+    const ended = await agent.get('/api/speed-books');
+    expect(ended.status).toBe(401);
+    expect(ended.body.error.code).toBe('session_expired');
+    await agent.get('/api/auth/me').expect(401);
+  });
+
+  it('treats a session without a sign-in time as ended', async () => {
+    const email = demoEmail('inspector');
+    const { agent } = await signIn(harness.app, email);
+    await setSignedInAt(email, null);
+    expect((await agent.get('/api/auth/me')).status).toBe(401);
+  });
+});

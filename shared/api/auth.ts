@@ -21,7 +21,11 @@ export const loginRequestSchema = z.strictObject({
 });
 export type LoginRequest = z.infer<typeof loginRequestSchema>;
 
-export const loginResponseSchema = z.object({ user: sessionUserSchema });
+export const loginResponseSchema = z.object({
+  user: sessionUserSchema,
+  /** When this sign-in ends whatever happens (12 hours after it, ASVS 3.3.2); the device keeps it. */
+  sessionExpiresAt: z.string().optional(),
+});
 export const csrfResponseSchema = z.object({ token: z.string().min(1) });
 
 /** A person of the operator as the admin's people list shows it (`GET /api/users`). */

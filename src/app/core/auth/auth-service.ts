@@ -52,14 +52,14 @@ export class AuthService {
 
   signIn(request: LoginRequest): Observable<SessionUser> {
     return this.api.post(API_PATHS.login, request, loginResponseSchema).pipe(
-      map(({ user }) => user),
-      tap((user) => {
+      tap(({ user, sessionExpiresAt }) => {
         // The server regenerated the session, so the old token no longer counts.
         this.csrf.forget();
         this.lastProbeProblem.set(null);
         this.settle(user);
-        this.remember(user);
+        this.remember(user, sessionExpiresAt);
       }),
+      map(({ user }) => user),
     );
   }
 
@@ -88,10 +88,8 @@ export class AuthService {
 
   private askServerForSession(): Observable<SessionUser | null> {
     return this.api.get(API_PATHS.me, loginResponseSchema).pipe(
+      tap(({ user, sessionExpiresAt }) => this.remember(user, sessionExpiresAt)),
       map(({ user }): SessionUser | null => user),
-      tap((user) => {
-        if (user) this.remember(user);
-      }),
       catchError((error: ApiRequestError) => {
         if (error.status === 401) {
           // The server's own answer: nobody is signed in here, whatever the device remembers.
@@ -110,9 +108,9 @@ export class AuthService {
     );
   }
 
-  private remember(user: SessionUser): void {
+  private remember(user: SessionUser, sessionExpiresAt?: string): void {
     this.fromCache.set(false);
-    void this.withCache((cache, db) => cache.rememberSession(db, user));
+    void this.withCache((cache, db) => cache.rememberSession(db, user, new Date(), sessionExpiresAt));
   }
 
   /**
