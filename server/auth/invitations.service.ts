@@ -22,6 +22,14 @@ const WORDS: LinkWording = {
   expired: 'This invitation has expired. Ask your administrator to send a new one.',
 };
 
+const ADDRESS_IN_USE =
+  'This address already signs in to Speedwright for another operator, and one address signs in for one operator only. Ask the administrator who invited you to invite another of your addresses.';
+
+/** The person who signs in with `email` (the one with a password), if any. */
+export function signingInAccount(email: string): Promise<User | null> {
+  return User.findOne({ where: { email, passwordHash: { [Op.ne]: null } }, include: [{ model: Operator, as: 'operator' }] });
+}
+
 export interface IssuedInvitation {
   token: string;
   expiresAt: Date;
@@ -44,8 +52,10 @@ export async function issueInvitation(user: User, invitedById: number, transacti
 export async function sendInvitation(user: User, invitedById: number, invitation: IssuedInvitation): Promise<boolean> {
   const [operator, invitedBy] = await Promise.all([Operator.findByPk(user.operatorId), User.findByPk(invitedById)]);
   const link = outbox().link('/invitation', { token: invitation.token });
+  const addressInUse = (await signingInAccount(user.email)) !== null;
   return outbox().send(
     invitationMail({
+      addressInUse,
       to: user.email,
       displayName: user.displayName,
       operatorName: operator?.name ?? 'your operator',
@@ -71,6 +81,11 @@ export async function acceptInvitation(input: AcceptInvitationRequest, req: Requ
     const user = await User.findByPk(invitation.userId, { lock: transaction.LOCK.UPDATE, transaction });
     if (!user || user.operatorId !== invitation.operatorId) throw new HttpError(410, 'link_used', WORDS.used);
     if (user.passwordHash) throw new HttpError(410, 'link_used', WORDS.used);
+    // One person per address signs in: locking every row of the address serialises two accepts.
+    const sameAddress = await User.findAll({ where: { email: user.email }, lock: transaction.LOCK.UPDATE, transaction });
+    if (sameAddress.some((other) => other.id !== user.id && other.passwordHash !== null)) {
+      throw new HttpError(409, 'address_in_use', ADDRESS_IN_USE);
+    }
 
     const now = new Date();
     await user.update(

@@ -17,7 +17,8 @@ import type { Sequelize } from 'sequelize';
 import { HttpError } from '../http-error';
 import { signInWaitMail } from '../mail/messages';
 import { outbox } from '../mail/outbox';
-import { Operator, User } from '../models';
+import type { User } from '../models';
+import { signingInAccount } from './invitations.service';
 import { isKnownDevice } from './device-cookie';
 import { decoyPasswordHash, verifyPassword } from './passwords';
 import { clearFailures, recordFailure, throttleState, waitAfterMs, type ThrottlePolicy } from './sign-in-throttle';
@@ -44,7 +45,8 @@ export function throttlePolicy(policy: LockPolicy): ThrottlePolicy {
 
 export async function checkSignIn(req: Request, email: string, password: string, deps: SignInDeps): Promise<User> {
   const policy = throttlePolicy(deps.policy);
-  const user = await User.findOne({ where: { email }, include: [{ model: Operator, as: 'operator' }] });
+  // The person who signs in with this address; a pending invitation (no password) is like no account.
+  const user = await signingInAccount(email);
   const knownDevice = user !== null && isKnownDevice(req, user.id, deps.secret);
   if (!knownDevice) {
     const { waitUntil } = await throttleState(deps.sequelize, email, policy);

@@ -6,7 +6,36 @@ import type { OutgoingMail } from './outbox';
 
 const SIGNATURE = '\n\n— Speedwright\nYou get this message because of your account with this operator in Speedwright.';
 
-export function invitationMail(p: { to: string; displayName: string; operatorName: string; invitedBy: string; link: string; expiresAt: Date }): OutgoingMail {
+export function invitationMail(p: {
+  to: string;
+  displayName: string;
+  operatorName: string;
+  invitedBy: string;
+  link: string;
+  expiresAt: Date;
+  /** The address already signs in for another operator (only its owner reads this mail). */
+  addressInUse?: boolean;
+}): OutgoingMail {
+  if (p.addressInUse) {
+    return {
+      to: p.to,
+      subject: `You are invited to ${p.operatorName} on Speedwright`,
+      text:
+        `Hello ${p.displayName},
+
+` +
+        `${p.invitedBy} has invited you to ${p.operatorName} on Speedwright. This address already signs in to Speedwright for another operator, ` +
+        `and one address signs in for one operator only, so this invitation cannot be accepted with it.
+
+` +
+        `To join ${p.operatorName}, ask ${p.invitedBy} to invite another of your e-mail addresses. ` +
+        `Your existing account is not changed, and ${p.operatorName} has not been told that it exists.
+
+` +
+        `If you were not expecting this, you can ignore the message.` +
+        SIGNATURE,
+    };
+  }
   return {
     to: p.to,
     subject: `You are invited to ${p.operatorName} on Speedwright`,

@@ -138,16 +138,51 @@ describe('invitations', () => {
     expect(await AuditEvent.count({ where: { action: 'user.invitation-resent', entityId: String(id) } })).toBe(1);
   });
 
-  it('refuses an address that already has an account, even at another operator', async () => {
+  it('refuses an address that already belongs to one of the operator’s own people', async () => {
     const admin = await signIn(harness.app, demoEmail('admin'));
-    const before = mailsTo(demoEmail('pilot', 'second')).length;
-    const res = await admin.agent
-      .post('/api/users')
-      .set('x-csrf-token', admin.token)
-      .send({ email: ' Pilot@Second.Speedwright.Example ', displayName: 'Someone', role: 'pilot' });
+    const before = mailsTo(demoEmail('pilot')).length;
+    const res = await admin.agent.post('/api/users').set('x-csrf-token', admin.token).send({ email: ' Pilot@Demo.Speedwright.Example ', displayName: 'Someone', role: 'pilot' });
     expect(res.status).toBe(409);
     expect(res.body.error).toMatchObject({ code: 'email_taken', fields: { email: expect.any(String) } });
-    expect(mailsTo(demoEmail('pilot', 'second')).length).toBe(before);
+    expect(mailsTo(demoEmail('pilot')).length).toBe(before);
+  });
+
+  it('answers an address that signs in at another operator exactly like a new one, and tells its owner what to do (issue 12, finding 10)', async () => {
+    const admin = await signIn(harness.app, demoEmail('admin'));
+    const send = (email: string) => admin.agent.post('/api/users').set('x-csrf-token', admin.token).send({ email, displayName: 'Someone New', role: 'pilot' });
+    const elsewhere = await send(demoEmail('pilot', 'second'));
+    try {
+    const fresh = await send(freshEmail('fresh'));
+    const shape = (res: typeof fresh) => ({ status: res.status, keys: Object.keys(res.body).sort(), user: Object.keys(res.body.user ?? {}).sort(), pending: res.body.user?.invitationPending, mailSent: res.body.mailSent });
+    expect(shape(elsewhere)).toEqual(shape(fresh));
+    expect(elsewhere.status).toBe(201);
+    // The people list shows both alike, as pending invitations.
+    const list = (await admin.agent.get('/api/users').expect(200)).body.users as { email: string; invitationPending: boolean }[];
+    expect(list.find((p) => p.email === demoEmail('pilot', 'second'))?.invitationPending).toBe(true);
+
+    const mail = await mailTo(demoEmail('pilot', 'second'), (entry) => entry.subject.startsWith('You are invited to Kestrel Fen'));
+    expect(mail.text).toMatch(/already signs in to Speedwright for another operator/);
+    expect(mail.text).toMatch(/invite another of your e-mail addresses/);
+    expect(mail.links.some((link) => link.includes('/invitation'))).toBe(false);
+    // The account elsewhere keeps working.
+    const second = await signIn(harness.app, demoEmail('pilot', 'second'));
+    expect((await second.agent.get('/api/auth/me').expect(200)).body.user.operatorName).toMatch(/Larkspur/);
+    } finally {
+      await User.destroy({ where: { id: elsewhere.body.user.id } });
+    }
+  });
+
+  it('lets one of two operators’ invitations to the same new address be accepted, not both', async () => {
+    const address = freshEmail('both');
+    const { token: first } = await invite(address, 'pilot');
+    const otherAdmin = await signIn(harness.app, demoEmail('admin', 'second'));
+    expect((await otherAdmin.agent.post('/api/users').set('x-csrf-token', otherAdmin.token).send({ email: address, displayName: 'Both Places', role: 'pilot' })).status).toBe(201);
+    const secondMail = await mailTo(address, (entry) => entry.subject.includes('Larkspur'));
+    const second = tokenOf(secondMail.links[0]!, '/invitation');
+    expect((await accept(first)).status).toBe(200);
+    const refused = await accept(second);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.code).toBe('address_in_use');
   });
 
   it('names every wrong field of an invitation and creates nothing', async () => {

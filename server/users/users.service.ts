@@ -39,7 +39,9 @@ export async function invitePerson(operatorId: number, actorId: number, input: I
   let created: { user: User; invitation: Awaited<ReturnType<typeof issueInvitation>> };
   try {
     created = await User.sequelize!.transaction(async (transaction) => {
-      if (await User.findOne({ where: { email: input.email }, transaction })) throw emailTaken();
+      // Only this operator's own people are checked: whether the address signs in elsewhere is not
+      // this administrator's business, and the invitation mail tells its owner what to do.
+      if (await User.findOne({ where: { operatorId, email: input.email }, transaction })) throw emailTaken();
       const user = await User.create(
         { operatorId, email: input.email, displayName: input.displayName, role: input.role, passwordHash: null, lockedUntil: null, lastSignInAt: null },
         { transaction },
@@ -139,7 +141,7 @@ function otherActiveAdmins(operatorId: number, exceptUserId: number, transaction
 }
 
 function emailTaken(): HttpError {
-  return new HttpError(409, 'email_taken', 'This e-mail address already belongs to an account.', {
-    email: 'This e-mail address already belongs to an account.',
+  return new HttpError(409, 'email_taken', 'This e-mail address already belongs to one of your people.', {
+    email: 'This e-mail address already belongs to one of your people.',
   });
 }
