@@ -4,20 +4,27 @@
  * a signed-in person changes their own password.
  */
 import { QueryTypes } from 'sequelize';
-import { csrfAgent, demoEmail, mailTo, signIn, startHarness, TEST_PASSWORD, type Harness } from '../../test/api/harness';
+import { csrfAgent, mailTo, signIn, startHarness, TEST_PASSWORD, type Harness } from '../../test/api/harness';
 import { User } from '../models';
+import { newTeam } from '../speed-books/test-helpers';
 import * as passwords from './passwords';
+import { clearFailures } from './sign-in-throttle';
 
 jest.setTimeout(60_000);
 
 let harness: Harness;
-beforeAll(() => {
+/** People of a team of this file's own, so other files signing in as the demo people are never made to wait. */
+const people = {} as Record<'engineer' | 'approver' | 'inspector' | 'pilot' | 'changer' | 'lifetime' | 'legacy', string>;
+beforeAll(async () => {
   harness = startHarness({ LOCK_AFTER_FAILED_SIGN_INS: '3', LOGIN_RATE_LIMIT_PER_15_MIN: '1000' });
+  const names = Object.keys({ engineer: 0, approver: 0, inspector: 0, pilot: 0, changer: 0, lifetime: 0, legacy: 0 }) as (keyof typeof people)[];
+  const team = await newTeam(harness.app, ['engineer', 'approver', 'inspector', 'pilot', 'pilot', 'engineer', 'inspector']);
+  for (const [i, name] of names.entries()) people[name] = (await User.findByPk(team[i]!.id, { rejectOnEmpty: true })).email;
 });
 afterAll(() => harness.close());
 afterEach(async () => {
   jest.restoreAllMocks();
-  await harness.sequelize.query("DELETE FROM rate_limit_hits WHERE `key` LIKE 'sign-in-address:%'", { type: QueryTypes.DELETE });
+  for (const email of Object.values(people)) await clearFailures(harness.sequelize, email);
 });
 
 async function attempt(email: string, password: string, agentAndToken?: Awaited<ReturnType<typeof csrfAgent>>) {
@@ -32,7 +39,7 @@ const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floo
 
 describe('sign-in answers the same for known and unknown addresses (finding 4)', () => {
   it('gives an unknown address the same answers, in the same order, as a real account', async () => {
-    const known = demoEmail('engineer');
+    const known = people.engineer;
     const unknown = 'nobody-here@demo.speedwright.example';
     const answers = async (email: string) => {
       const seen = [];
@@ -47,8 +54,8 @@ describe('sign-in answers the same for known and unknown addresses (finding 4)',
 
   it('verifies an argon2id hash for an unknown address, an invitation not accepted and an account its administrator locked', async () => {
     const verify = jest.spyOn(passwords, 'verifyPassword');
-    const invited = await User.create({ operatorId: (await User.findOne({ where: { email: demoEmail('admin') }, rejectOnEmpty: true })).operatorId, email: 'invited-only@demo.speedwright.example', displayName: 'Invited Only', role: 'pilot', passwordHash: null, lockedUntil: null, lastSignInAt: null });
-    const lockedEmail = demoEmail('inspector');
+    const invited = await User.create({ operatorId: (await User.findOne({ where: { email: people.pilot }, rejectOnEmpty: true })).operatorId, email: `invited-only-${Date.now()}@test.speedwright.example`, displayName: 'Invited Only', role: 'pilot', passwordHash: null, lockedUntil: null, lastSignInAt: null });
+    const lockedEmail = people.inspector;
     await User.update({ lockedByAdmin: true }, { where: { email: lockedEmail } });
     try {
       for (const email of ['nobody-at-all@demo.speedwright.example', invited.email, lockedEmail]) {
@@ -68,7 +75,7 @@ describe('sign-in answers the same for known and unknown addresses (finding 4)',
   });
 
   it('takes as long for an account its administrator locked as for an unknown address (medians of interleaved tries)', async () => {
-    const lockedEmail = demoEmail('inspector');
+    const lockedEmail = people.inspector;
     await User.update({ lockedByAdmin: true }, { where: { email: lockedEmail } });
     const timesLocked: number[] = [];
     const timesUnknown: number[] = [];
@@ -80,7 +87,7 @@ describe('sign-in answers the same for known and unknown addresses (finding 4)',
           await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email, password: `wrong-${i}` });
           times.push(performance.now() - started);
         }
-        await harness.sequelize.query("DELETE FROM rate_limit_hits WHERE `key` LIKE 'sign-in-address:%'", { type: QueryTypes.DELETE });
+        await clearFailures(harness.sequelize, lockedEmail);
       }
     } finally {
       await User.update({ lockedByAdmin: false }, { where: { email: lockedEmail } });
@@ -95,7 +102,7 @@ describe('sign-in answers the same for known and unknown addresses (finding 4)',
 
 describe('a stranger cannot keep a colleague out (finding 4)', () => {
   it('lets the person in from a device they used before, and by the mailed link elsewhere', async () => {
-    const email = demoEmail('approver');
+    const email = people.approver;
     const ownDevice = await signIn(harness.app, email);
     await ownDevice.agent.post('/api/auth/logout').set('x-csrf-token', ownDevice.token).expect(204);
     const deviceToken = (await ownDevice.agent.get('/api/auth/csrf').expect(200)).body.token as string;
@@ -134,7 +141,7 @@ describe('a stranger cannot keep a colleague out (finding 4)', () => {
 
 describe('passwords (finding 5)', () => {
   it('refuses a weak new password when changing one’s own, and changes it with the current one', async () => {
-    const email = demoEmail('pilot', 'second');
+    const email = people.changer;
     const mine = await signIn(harness.app, email);
     const other = await signIn(harness.app, email);
     const change = (body: object) => mine.agent.post('/api/auth/password').set('x-csrf-token', mine.token).send(body);
@@ -144,7 +151,7 @@ describe('passwords (finding 5)', () => {
     expect(weak.status).toBe(400);
     expect(weak.body.error.fields.newPassword).toMatch(/repeats the same characters/);
 
-    const personal = await change({ currentPassword: TEST_PASSWORD, newPassword: 'larkspur-second-2026' });
+    const personal = await change({ currentPassword: TEST_PASSWORD, newPassword: `${email.split('@')[0]}-2026` });
     expect(personal.status).toBe(400);
     expect(personal.body.error.fields.newPassword).toMatch(/own name or e-mail/);
 
@@ -159,8 +166,8 @@ describe('passwords (finding 5)', () => {
       expect((await attempt(email, TEST_PASSWORD)).status).toBe(401);
       expect((await attempt(email, 'tailwind-quiet-harbour')).status).toBe(200);
       const audit = await harness.sequelize.query<{ action: string }>(
-        "SELECT action FROM audit_events WHERE action LIKE 'user.password-change%' ORDER BY id",
-        { type: QueryTypes.SELECT },
+        "SELECT action FROM audit_events WHERE action LIKE 'user.password-change%' AND entity_id = (SELECT id FROM users WHERE email = ?) ORDER BY id",
+        { replacements: [email], type: QueryTypes.SELECT },
       );
       expect(audit.map((row) => row.action)).toEqual(['user.password-change-refused', 'user.password-changed']);
     } finally {
@@ -187,7 +194,7 @@ describe('absolute session lifetime (finding 8)', () => {
   it('tells the device when the sign-in ends and keeps the cookie inside it', async () => {
     const { agent, token } = await csrfAgent(harness.app);
     const before = Date.now();
-    const res = await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email: demoEmail('pilot'), password: TEST_PASSWORD }).expect(200);
+    const res = await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email: people.pilot, password: TEST_PASSWORD }).expect(200);
     const endsAt = Date.parse(res.body.sessionExpiresAt as string);
     // ASVS 4.0.3 §3.3.2: 12 hours.
     expect(endsAt - before).toBeGreaterThanOrEqual(12 * 3600_000 - 1000);
@@ -197,7 +204,7 @@ describe('absolute session lifetime (finding 8)', () => {
   });
 
   it('ends a session 12 hours after its sign-in even while it is in use', async () => {
-    const email = demoEmail('engineer', 'demo');
+    const email = people.lifetime;
     const { agent } = await signIn(harness.app, email);
     await agent.get('/api/auth/me').expect(200);
     // 11 h 59 min after sign-in: still in; the renewed cookie expires with the sign-in.
@@ -215,7 +222,7 @@ describe('absolute session lifetime (finding 8)', () => {
   });
 
   it('treats a session without a sign-in time as ended', async () => {
-    const email = demoEmail('inspector');
+    const email = people.legacy;
     const { agent } = await signIn(harness.app, email);
     await setSignedInAt(email, null);
     expect((await agent.get('/api/auth/me')).status).toBe(401);

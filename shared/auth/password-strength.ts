@@ -40,7 +40,7 @@ export function newPasswordProblem(password: string, personal: readonly string[]
   if (password.length > NEW_PASSWORD_MAX_LENGTH) return `Keep the password under ${NEW_PASSWORD_MAX_LENGTH} characters.`;
   if (password.trim().length === 0) return 'A password of only spaces is not accepted.';
   const inputs = personal
-    .flatMap((text) => [text, text.replace(/[^\p{L}\p{N}]+/gu, ''), ...text.split(/[^\p{L}\p{N}]+/u)])
+    .flatMap((text) => [text, ...text.split('@'), text.replace(/[^\p{L}\p{N}]+/gu, ''), ...text.split(/[^\p{L}\p{N}]+/u)])
     .filter((word) => word.length >= 3);
   const result = strengthEstimator().check(password, inputs);
   // NIST SP 800-63B §5.1.1.2: context-specific words (the service, the person's name or address)
