@@ -362,6 +362,19 @@ describe('PATCH /api/users/:id', () => {
 });
 
 describe('the fake mailbox page', () => {
+  it('never shows an administrator the token of a person’s password-reset link (issue 12, informational)', async () => {
+    const { email } = await member('pilot', 'reset-mailbox');
+    const { agent, token } = await csrfAgent(harness.app);
+    await agent.post('/api/auth/password-reset').set('x-csrf-token', token).send({ email }).expect(202);
+    const sent = await mailTo(email, (entry) => /new Speedwright password/.test(entry.subject));
+    expect(sent.links.some((link) => /\/reset-password#token=[A-Za-z0-9_-]{43}$/.test(link))).toBe(true);
+    const admin = await signIn(harness.app, demoEmail('admin'));
+    const shown = mailboxResponseSchema.parse((await admin.agent.get('/api/dev/mailbox').expect(200)).body).messages.find((m) => m.id === sent.id);
+    expect(shown).toBeDefined();
+    expect(JSON.stringify(shown)).not.toMatch(/#token=[A-Za-z0-9_-]{43}/);
+    expect(shown!.links[0]).toMatch(/\/reset-password#token=\(hidden/);
+  });
+
   it('shows an admin the mail to their own operator’s people only', async () => {
     const email = freshEmail('mailbox');
     await invite(email);
