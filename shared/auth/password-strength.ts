@@ -42,15 +42,22 @@ export function newPasswordProblem(password: string, personal: readonly string[]
   const inputs = personal
     .flatMap((text) => [text, ...text.split('@'), text.replace(/[^\p{L}\p{N}]+/gu, ''), ...text.split(/[^\p{L}\p{N}]+/u)])
     .filter((word) => word.length >= 3);
-  const result = strengthEstimator().check(password, inputs);
   // NIST SP 800-63B §5.1.1.2: context-specific words (the service, the person's name or address)
   // are refused too; half the password made of them is enough to refuse it.
-  const personalLength = result.sequence
-    .filter((match) => match.pattern === 'dictionary' && 'dictionaryName' in match && match.dictionaryName === 'userInputs')
-    .reduce((sum, match) => sum + match.token.length, 0);
-  if (personalLength * 2 >= password.length) return 'This password is built on your own name or e-mail address. Choose another; a few unrelated words work well.';
+  if (personalShare(password, inputs) >= 0.5) return 'This password is built on your own name or e-mail address. Choose another; a few unrelated words work well.';
+  const result = strengthEstimator().check(password, inputs);
   if (result.score >= MIN_PASSWORD_SCORE) return null;
   return `${weakness(result.sequence)} Choose another; a few unrelated words work well.`;
+}
+
+/** The share of the password's characters covered by the person's own words (case ignored). */
+function personalShare(password: string, words: readonly string[]): number {
+  const lower = password.toLowerCase();
+  const covered = new Array<boolean>(lower.length).fill(false);
+  for (const word of new Set(words.map((w) => w.toLowerCase()))) {
+    for (let at = lower.indexOf(word); at !== -1; at = lower.indexOf(word, at + 1)) covered.fill(true, at, at + word.length);
+  }
+  return covered.filter(Boolean).length / Math.max(1, lower.length);
 }
 
 /** What made the password guessable, from the longest part an attacker would try first. */
