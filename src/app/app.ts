@@ -55,6 +55,7 @@ export class App {
 
   protected readonly safetyCaution = SAFETY_CAUTION;
   protected readonly user = this.auth.user;
+  protected readonly offlineSignInEnded = this.auth.offlineSignInEnded;
   protected readonly roleLabel = computed(() => {
     const user = this.user();
     return user ? ROLE_LABELS[user.role] : '';

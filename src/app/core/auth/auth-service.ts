@@ -28,6 +28,7 @@ export class AuthService {
   private readonly currentState = signal<SessionState>('unknown');
   private readonly lastProbeProblem = signal<ApiRequestError | null>(null);
   private readonly fromCache = signal(false);
+  private readonly signInEnded = signal(false);
   private probe: Observable<SessionUser | null> | null = null;
 
   readonly user = this.currentUser.asReadonly();
@@ -40,6 +41,11 @@ export class AuthService {
    * reached at page load; the next answer of the server (sync, any request) settles it.
    */
   readonly sessionFromCache = this.fromCache.asReadonly();
+  /**
+   * Opened offline as a person whose sign-in is past its 12 hours: the cards on the device still
+   * work (within the currency limit), and the next answer of the server asks for the password.
+   */
+  readonly offlineSignInEnded = computed(() => this.fromCache() && this.signInEnded());
 
   /** The signed-in person, asking the server once per page load; guards wait on this. */
   session(): Observable<SessionUser | null> {
@@ -98,9 +104,13 @@ export class AuthService {
         }
         this.lastProbeProblem.set(error);
         if (!serverUnreachable(error.status)) return of(null);
-        return from(this.withCache((cache, db) => cache.cachedSessionForOffline(db)).then((cached) => cached ?? null)).pipe(
-          tap((cached) => this.fromCache.set(cached !== null)),
-        );
+        return from(
+          this.withCache(async (cache, db) => {
+            const cached = await cache.cachedSessionForOffline(db);
+            this.signInEnded.set(cached !== null && cache.offlineSessionEnded(await db.sessions.get(cached.id)));
+            return cached;
+          }).then((cached) => cached ?? null),
+        ).pipe(tap((cached) => this.fromCache.set(cached !== null)));
       }),
       tap((user) => this.settle(user)),
       finalize(() => (this.probe = null)),
