@@ -66,7 +66,11 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
         useDefaults: true,
         directives: {
           'script-src': ["'self'"],
-          // Angular adds component styles at run time as <style> elements.
+          // Angular adds component styles at run time as <style> elements. Its CSP nonce
+          // (ngCspNonce) would need a fresh nonce stamped into index.html on every answer, but the
+          // service worker checks index.html against the hash in ngsw.json and would refuse the
+          // changed file, breaking the offline app; a fixed nonce protects nothing. Scripts stay
+          // 'self' only, so injected markup cannot run code (issue 12, informational).
           'style-src': ["'self'", "'unsafe-inline'"],
           'img-src': ["'self'", 'data:', 'blob:'],
           'font-src': ["'self'", 'data:'],
