@@ -57,8 +57,9 @@ export async function checkSignIn(req: Request, email: string, password: string,
   if (!user || !user.passwordHash || !passwordRight) {
     const failures = await recordFailure(deps.sequelize, email);
     if (user?.passwordHash && failures === policy.freeFailures) await startWait(user, failures, deps);
-    // The failure that starts the wait says so, for known and unknown addresses alike.
-    if (failures >= policy.freeFailures) throw waitError(new Date(Date.now() + waitAfterMs(failures, policy)));
+    // The failure that starts the wait says so, for known and unknown addresses alike (a device
+    // the person used before does not wait, so it is not told to).
+    if (failures >= policy.freeFailures && !knownDevice) throw waitError(new Date(Date.now() + waitAfterMs(failures, policy)));
     throw wrong();
   }
   if (user.lockedByAdmin) {
