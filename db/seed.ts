@@ -153,8 +153,9 @@ export async function seedOperators(sequelize: Sequelize, operators: readonly Se
         transaction,
       });
       for (const person of seedOperator.people) {
+        // The operator's own person of that address (an invitation elsewhere may share it).
         const [user, created] = await User.findOrCreate({
-          where: { email: person.email },
+          where: { email: person.email, operatorId: operator.id },
           defaults: { ...person, operatorId: operator.id, passwordHash, lockedUntil: null, lastSignInAt: null },
           transaction,
         });
