@@ -176,7 +176,7 @@ async function seedFleet(sequelize: Sequelize, seedOperator: SeedOperator, signi
   const operator = await Operator.findOne({ where: { slug: seedOperator.slug }, rejectOnEmpty: true });
   const byRole = async (role: Role): Promise<Actor | undefined> => {
     const email = seedOperator.people.find((person) => person.role === role)?.email;
-    const user = email ? await User.findOne({ where: { email } }) : null;
+    const user = email ? await User.findOne({ where: { email, operatorId: operator.id } }) : null;
     return user ? { operatorId: operator.id, userId: user.id, role } : undefined;
   };
   const engineer = await byRole('engineer');
