@@ -12,6 +12,12 @@ export interface InstanceSpec {
   /** Folder that holds `data/`, `sock`, `pid` and the server log. */
   dir: string;
   port: number;
+  /**
+   * Password of `root@localhost`, the only root account, reachable on the socket alone (with
+   * `--skip-name-resolve`, `localhost` matches socket connections only, never TCP). The product
+   * connects over TCP as its own user (`createDatabase`).
+   */
+  rootPassword: string;
 }
 
 export interface RunningInstance extends InstanceSpec {
@@ -25,8 +31,8 @@ const SEARCH_PATH = ['/usr/sbin', '/usr/bin', '/usr/local/sbin', '/usr/local/bin
 /** The repository root, whatever the current directory. */
 export const projectRoot = resolve(__dirname, '..');
 
-export function instanceSpec(name: string, port: number): InstanceSpec {
-  return { dir: join(projectRoot, '.data', `mariadb-${name}`), port };
+export function instanceSpec(name: string, port: number, rootPassword: string): InstanceSpec {
+  return { dir: join(projectRoot, '.data', `mariadb-${name}`), port, rootPassword };
 }
 
 function findProgram(name: string): string | undefined {
@@ -83,9 +89,46 @@ function isAlive(pid: number): boolean {
   }
 }
 
-async function answers(socketPath: string): Promise<boolean> {
+const ACCESS_DENIED = 1045;
+
+/**
+ * A root connection on the instance's socket. An instance made before root had a password (or
+ * one just made by mariadb-install-db) still lets root in without one: it is hardened at once.
+ */
+export async function rootConnection(spec: InstanceSpec & { socketPath?: string }, connectTimeout = 10_000): Promise<mariadb.Connection> {
+  const socketPath = spec.socketPath ?? join(spec.dir, 'sock');
   try {
-    const conn = await mariadb.createConnection({ socketPath, user: 'root', connectTimeout: 500 });
+    return await mariadb.createConnection({ socketPath, user: 'root', password: spec.rootPassword, connectTimeout });
+  } catch (error) {
+    if ((error as { errno?: number }).errno !== ACCESS_DENIED) throw error;
+  }
+  const conn = await mariadb.createConnection({ socketPath, user: 'root', connectTimeout });
+  try {
+    await hardenRoot(conn, spec.rootPassword);
+  } catch (error) {
+    await conn.end();
+    throw error;
+  }
+  return conn;
+}
+
+/**
+ * Gives `root@localhost` the password and drops every other root and anonymous account
+ * (`root@127.0.0.1`, `root@::1`, `root@<host name>`, `''@…` that mariadb-install-db makes), so
+ * nothing on TCP answers to root (issue 12, finding 12).
+ */
+async function hardenRoot(conn: mariadb.Connection, rootPassword: string): Promise<void> {
+  await conn.query("ALTER USER 'root'@'localhost' IDENTIFIED BY ?", [rootPassword]);
+  const others = (await conn.query("SELECT User AS user, Host AS host FROM mysql.user WHERE (User = 'root' AND Host <> 'localhost') OR User = ''")) as {
+    user: string;
+    host: string;
+  }[];
+  for (const account of others) await conn.query('DROP USER ?@?', [account.user, account.host]);
+}
+
+async function answers(spec: InstanceSpec, socketPath: string): Promise<boolean> {
+  try {
+    const conn = await rootConnection({ ...spec, socketPath }, 500);
     await conn.end();
     return true;
   } catch {
@@ -99,7 +142,7 @@ const sleep = (ms: number) => new Promise((done) => setTimeout(done, ms));
 export async function startInstance(spec: InstanceSpec, log: (line: string) => void = console.log): Promise<RunningInstance> {
   const socketPath = join(spec.dir, 'sock');
   const running = readPid(spec);
-  if (running && isAlive(running) && (await answers(socketPath))) {
+  if (running && isAlive(running) && (await answers(spec, socketPath))) {
     return { ...spec, socketPath, startedHere: false };
   }
 
@@ -139,7 +182,7 @@ export async function startInstance(spec: InstanceSpec, log: (line: string) => v
   const deadline = Date.now() + 30_000;
   while (Date.now() < deadline) {
     if (child.exitCode !== null) break;
-    if (await answers(socketPath)) return { ...spec, socketPath, startedHere: true };
+    if (await answers(spec, socketPath)) return { ...spec, socketPath, startedHere: true };
     await sleep(100);
   }
   const tail = existsSync(join(spec.dir, 'mariadbd.log')) ? readFileSync(join(spec.dir, 'mariadbd.log'), 'utf8').slice(-1500) : '';
@@ -149,7 +192,7 @@ export async function startInstance(spec: InstanceSpec, log: (line: string) => v
 /** Creates the database and an application user reachable over TCP on 127.0.0.1. */
 export async function createDatabase(instance: RunningInstance, database: string, user: string, password: string): Promise<string> {
   if (!/^[a-z0-9_]+$/.test(database) || !/^[a-z0-9_]+$/.test(user)) throw new Error('Database and user names must be [a-z0-9_].');
-  const conn = await mariadb.createConnection({ socketPath: instance.socketPath, user: 'root' });
+  const conn = await rootConnection(instance);
   try {
     await conn.query(`CREATE DATABASE IF NOT EXISTS \`${database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
     await conn.query(`CREATE USER IF NOT EXISTS '${user}'@'127.0.0.1' IDENTIFIED BY ?`, [password]);
@@ -163,7 +206,7 @@ export async function createDatabase(instance: RunningInstance, database: string
 
 /** Drops and recreates a database: tests start from nothing. */
 export async function recreateDatabase(instance: RunningInstance, database: string): Promise<void> {
-  const conn = await mariadb.createConnection({ socketPath: instance.socketPath, user: 'root' });
+  const conn = await rootConnection(instance);
   try {
     await conn.query(`DROP DATABASE IF EXISTS \`${database}\``);
   } finally {

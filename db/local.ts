@@ -6,7 +6,7 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { createDatabase, instanceSpec, projectRoot, recreateDatabase, startInstance, stopInstance, type RunningInstance } from './instance';
+import { createDatabase, instanceSpec, projectRoot, recreateDatabase, startInstance, stopInstance, type InstanceSpec, type RunningInstance } from './instance';
 
 /**
  * `dev` for the start command, `test` for the test suites, `fault` for the one test that stops
@@ -22,7 +22,10 @@ export const INSTANCE_PORTS: Record<InstanceName, number> = {
 };
 
 interface LocalSecrets {
+  /** Password of the product's own database user `speedwright@127.0.0.1`. */
   dbPassword: string;
+  /** Password of `root@localhost`, on the socket only; nothing of the product connects as root over TCP. */
+  rootPassword: string;
   sessionSecret: string;
   /** SIGNING_KEY_SECRET of the local server: encrypts the operators' signing keys at rest. */
   signingKeySecret: string;
@@ -34,6 +37,7 @@ export function localSecrets(): LocalSecrets {
   // A secret added in a later version is made once and written beside the older ones.
   const secrets: LocalSecrets = {
     dbPassword: stored.dbPassword ?? randomBytes(18).toString('base64url'),
+    rootPassword: stored.rootPassword ?? randomBytes(18).toString('base64url'),
     sessionSecret: stored.sessionSecret ?? randomBytes(32).toString('base64url'),
     signingKeySecret: stored.signingKeySecret ?? randomBytes(32).toString('base64url'),
   };
@@ -58,12 +62,17 @@ export async function openLocalDatabase(
   database: string,
   { fresh = false, log }: { fresh?: boolean; log?: (line: string) => void } = {},
 ): Promise<LocalDatabase> {
-  const instance = await startInstance(instanceSpec(name, INSTANCE_PORTS[name]), log);
+  const instance = await startInstance(localInstanceSpec(name), log);
   if (fresh) await recreateDatabase(instance, database);
   const url = await createDatabase(instance, database, 'speedwright', localSecrets().dbPassword);
   return { url, instance };
 }
 
 export function stopLocalInstance(name: InstanceName): Promise<boolean> {
-  return stopInstance(instanceSpec(name, INSTANCE_PORTS[name]));
+  return stopInstance(localInstanceSpec(name));
+}
+
+/** Where the named instance lives, its port and its root password. */
+export function localInstanceSpec(name: InstanceName): InstanceSpec {
+  return instanceSpec(name, INSTANCE_PORTS[name], localSecrets().rootPassword);
 }

@@ -10,6 +10,7 @@ import * as cardIssues from './migrations/20261201-0501-card-issues';
 import * as syncChangesAndCurrencyLimit from './migrations/20261202-0601-sync-changes-and-currency-limit';
 import * as cardIssueCodes from './migrations/20261202-0701-card-issue-codes';
 import * as revisionContributors from './migrations/20261205-0801-revision-contributors';
+import * as userAddressPerOperator from './migrations/20261205-0802-user-address-per-operator';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -29,6 +30,7 @@ const MIGRATIONS: { name: string; module: { up: Migration; down: Migration } }[]
   { name: '20261202-0601-sync-changes-and-currency-limit', module: syncChangesAndCurrencyLimit },
   { name: '20261202-0701-card-issue-codes', module: cardIssueCodes },
   { name: '20261205-0801-revision-contributors', module: revisionContributors },
+  { name: '20261205-0802-user-address-per-operator', module: userAddressPerOperator },
 ];
 
 export function createMigrator(sequelize: Sequelize, logger: Umzug<QueryInterface>['options']['logger'] = undefined): Umzug<QueryInterface> {

@@ -153,8 +153,9 @@ export async function seedOperators(sequelize: Sequelize, operators: readonly Se
         transaction,
       });
       for (const person of seedOperator.people) {
+        // The operator's own person of that address (an invitation elsewhere may share it).
         const [user, created] = await User.findOrCreate({
-          where: { email: person.email },
+          where: { email: person.email, operatorId: operator.id },
           defaults: { ...person, operatorId: operator.id, passwordHash, lockedUntil: null, lastSignInAt: null },
           transaction,
         });
@@ -175,7 +176,7 @@ async function seedFleet(sequelize: Sequelize, seedOperator: SeedOperator, signi
   const operator = await Operator.findOne({ where: { slug: seedOperator.slug }, rejectOnEmpty: true });
   const byRole = async (role: Role): Promise<Actor | undefined> => {
     const email = seedOperator.people.find((person) => person.role === role)?.email;
-    const user = email ? await User.findOne({ where: { email } }) : null;
+    const user = email ? await User.findOne({ where: { email, operatorId: operator.id } }) : null;
     return user ? { operatorId: operator.id, userId: user.id, role } : undefined;
   };
   const engineer = await byRole('engineer');

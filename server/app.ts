@@ -17,6 +17,7 @@ import { authRoutes } from './auth/auth.routes';
 import { configurePassport } from './auth/passport';
 import { MariaDbRateLimitStore } from './auth/rate-limit-store';
 import { jsonBoundsBreach, REQUEST_BODY_BOUNDS } from '../shared/api/json-bounds';
+import { absoluteSessionLifetime } from './auth/session-lifetime';
 import type { ServerConfig } from './config';
 import { healthRoutes } from './health/health.routes';
 import { HttpError } from './http-error';
@@ -76,7 +77,11 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
         useDefaults: true,
         directives: {
           'script-src': ["'self'"],
-          // Angular adds component styles at run time as <style> elements.
+          // Angular adds component styles at run time as <style> elements. Its CSP nonce
+          // (ngCspNonce) would need a fresh nonce stamped into index.html on every answer, but the
+          // service worker checks index.html against the hash in ngsw.json and would refuse the
+          // changed file, breaking the offline app; a fixed nonce protects nothing. Scripts stay
+          // 'self' only, so injected markup cannot run code (issue 12, informational).
           'style-src': ["'self'", "'unsafe-inline'"],
           'img-src': ["'self'", 'data:', 'blob:'],
           'font-src': ["'self'", 'data:'],
@@ -157,10 +162,11 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   );
 
   const passport = configurePassport({
-    lockAfterFailedSignIns: config.LOCK_AFTER_FAILED_SIGN_INS,
-    lockMinutes: config.LOCK_MINUTES,
+    policy: { lockAfterFailedSignIns: config.LOCK_AFTER_FAILED_SIGN_INS, lockMinutes: config.LOCK_MINUTES },
+    sequelize,
+    secret: config.SESSION_SECRET,
   });
-  app.use('/api', passport.initialize(), passport.session());
+  app.use('/api', passport.initialize(), passport.session(), absoluteSessionLifetime());
 
   const { csrfSynchronisedProtection, generateToken } = csrfSync({
     getTokenFromRequest: (req) => req.headers['x-csrf-token'] as string | undefined,
@@ -178,7 +184,17 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
       next(new HttpError(429, 'too_many_attempts', 'Too many sign-in attempts from this device. Wait 15 minutes and try again.')),
   });
 
-  app.use('/api/auth', authRoutes({ passport, generateCsrfToken: generateToken, loginLimiter, sessionCookieName: SESSION_COOKIE }));
+  app.use(
+    '/api/auth',
+    authRoutes({
+      passport,
+      generateCsrfToken: generateToken,
+      loginLimiter,
+      sessionCookieName: SESSION_COOKIE,
+      secret: config.SESSION_SECRET,
+      cookieSecure: (req) => (config.COOKIE_SECURE === 'auto' ? req.secure : config.COOKIE_SECURE === 'true'),
+    }),
+  );
   app.use('/api/users', usersRoutes());
   app.use('/api/aircraft-types', aircraftTypesRoutes());
   app.use('/api/airframes', airframesRoutes());
@@ -200,7 +216,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
     handler: (_req, _res, next) =>
       next(new HttpError(429, 'too_many_attempts', 'Too many requests from this device. Wait 15 minutes and try again.')),
   });
-  app.use('/api/auth', accountLinksRoutes({ limiter: accountLinkLimiter }));
+  app.use('/api/auth', accountLinksRoutes({ limiter: accountLinkLimiter, sequelize, secret: config.SESSION_SECRET }));
   if (config.MAILBOX_DIR) app.use('/api/dev/mailbox', mailboxRoutes(resolve(config.MAILBOX_DIR)));
   app.use('/api/uploads', uploadsRoutes());
   app.use('/api', attachmentsRoutes({ attachmentsDir: config.ATTACHMENTS_DIR }));

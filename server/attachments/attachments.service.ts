@@ -16,6 +16,7 @@ import { recordContribution } from '../revisions/revision-contributors';
 import { OPEN_STATUSES } from '../revisions/revision-views';
 import { seesOpenRevisions, type Viewer } from '../revisions/revisions.service';
 import { detectAttachmentType } from './file-type';
+import { withoutForbiddenCharacters } from '../../shared/text/plain-text';
 
 export const ATTACHMENT_MAX_BYTES = 10 * 1024 * 1024;
 export const ATTACHMENTS_PER_REVISION = 20;
@@ -173,8 +174,7 @@ function audit(actor: Actor, action: string, attachment: Attachment, revision: R
 
 /** The name as shown: no folders, no control characters, at most 200 characters. */
 function cleanName(name: string): string {
-  // eslint-disable-next-line no-control-regex
-  const cleaned = basename(name.replace(/\\/g, '/')).replace(/[\u0000-\u001f\u007f"]/g, '').trim().slice(0, 200);
+  const cleaned = withoutForbiddenCharacters(basename(name.replace(/\\/g, '/'))).replace(/"/g, '').trim().slice(0, 200);
   return cleaned || 'source-page';
 }
 

@@ -1,6 +1,9 @@
 import { Router, type RequestHandler } from 'express';
-import { acceptInvitationRequestSchema, passwordResetConfirmSchema, passwordResetRequestSchema } from '../../shared/api/auth';
+import { passwordResetRequestSchema, unlockRequestSchema } from '../../shared/api/auth';
+import { acceptInvitationRequestSchema, passwordResetConfirmSchema } from '../../shared/api/new-password';
+import type { Sequelize } from 'sequelize';
 import { parseOrThrow } from '../middleware/validate';
+import { unlockSignIn } from './unlock.service';
 import { acceptInvitation } from './invitations.service';
 import { confirmPasswordReset, requestPasswordReset } from './password-reset.service';
 
@@ -8,7 +11,7 @@ import { confirmPasswordReset, requestPasswordReset } from './password-reset.ser
  * `/api/auth`: the links people get by mail — accepting an invitation and resetting a
  * password. Nobody is signed in for these; the token in the link is the proof.
  */
-export function accountLinksRoutes({ limiter }: { limiter: RequestHandler }): Router {
+export function accountLinksRoutes({ limiter, sequelize, secret }: { limiter: RequestHandler; sequelize: Sequelize; secret: string }): Router {
   const router = Router();
 
   router.post('/invitations/accept', limiter, async (req, res) => {
@@ -26,6 +29,11 @@ export function accountLinksRoutes({ limiter }: { limiter: RequestHandler }): Ro
   router.post('/password-reset/confirm', limiter, async (req, res) => {
     const input = parseOrThrow(passwordResetConfirmSchema, req.body, 'new password');
     res.json(await confirmPasswordReset(input, req));
+  });
+
+  router.post('/unlock', limiter, async (req, res) => {
+    const { token } = parseOrThrow(unlockRequestSchema, req.body, 'unlock');
+    res.json(await unlockSignIn(token, { sequelize, secret }, req));
   });
 
   return router;

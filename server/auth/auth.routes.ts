@@ -1,19 +1,26 @@
 import { Router, type RequestHandler } from 'express';
 import type { PassportStatic } from 'passport';
 import { loginRequestSchema } from '../../shared/api/auth';
+import { changePasswordRequestSchema } from '../../shared/api/new-password';
 import { HttpError } from '../http-error';
 import { requireSignIn } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
+import { changeOwnPassword } from './change-password.service';
+import { markSignedIn, sessionEndsAt } from './session-lifetime';
+import { DEVICE_COOKIE, deviceCookieOptions, deviceCookieValue } from './device-cookie';
 
 export interface AuthRoutesDeps {
   passport: PassportStatic;
   generateCsrfToken: (req: Parameters<RequestHandler>[0], overwrite?: boolean) => string;
   loginLimiter: RequestHandler;
   sessionCookieName: string;
+  /** SESSION_SECRET, which signs the known-device cookie. */
+  secret: string;
+  cookieSecure: (req: Parameters<RequestHandler>[0]) => boolean;
 }
 
 /** `/api/auth`: CSRF token, sign-in, sign-out, who am I. */
-export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionCookieName }: AuthRoutesDeps): Router {
+export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionCookieName, secret, cookieSecure }: AuthRoutesDeps): Router {
   const router = Router();
 
   router.get('/csrf', (req, res) => {
@@ -27,7 +34,9 @@ export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionC
       if (!user) return next(info instanceof HttpError ? info : new HttpError(401, 'invalid_credentials', 'The e-mail or password is not right.'));
       req.logIn(user, (loginError) => {
         if (loginError) return next(loginError);
-        res.json({ user });
+        const sessionExpiresAt = markSignedIn(req);
+        res.cookie(DEVICE_COOKIE, deviceCookieValue(user.id, secret), deviceCookieOptions(cookieSecure(req)));
+        res.json({ user, sessionExpiresAt: sessionExpiresAt.toISOString() });
       });
     })(req, res, next);
   });
@@ -42,8 +51,14 @@ export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionC
     });
   });
 
+  router.post('/password', requireSignIn, async (req, res) => {
+    const input = parseOrThrow(changePasswordRequestSchema, req.body, 'password change');
+    await changeOwnPassword(req.user!.id, input, req);
+    res.status(204).end();
+  });
+
   router.get('/me', requireSignIn, (req, res) => {
-    res.set('Cache-Control', 'no-store').json({ user: req.user });
+    res.set('Cache-Control', 'no-store').json({ user: req.user, sessionExpiresAt: sessionEndsAt(req)?.toISOString() });
   });
 
   return router;

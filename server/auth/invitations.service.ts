@@ -4,14 +4,14 @@
  */
 import type { Request } from 'express';
 import { Op, type Transaction } from 'sequelize';
-import type { AcceptInvitationRequest } from '../../shared/api/auth';
+import type { AcceptInvitationRequest } from '../../shared/api/new-password';
 import { recordAudit } from '../audit/audit.service';
 import { HttpError } from '../http-error';
 import { invitationMail } from '../mail/messages';
 import { outbox } from '../mail/outbox';
 import { Invitation, Operator, User } from '../models';
 import { assertLinkUsable, hashLinkToken, newLinkToken, type LinkWording } from './link-tokens';
-import { hashPassword } from './passwords';
+import { assertPasswordNotPersonal, hashPassword } from './passwords';
 
 export const INVITATION_DAYS = 7;
 
@@ -21,6 +21,14 @@ const WORDS: LinkWording = {
   replaced: 'A newer invitation was sent after this one. Use the link in the latest e-mail.',
   expired: 'This invitation has expired. Ask your administrator to send a new one.',
 };
+
+const ADDRESS_IN_USE =
+  'This address already signs in to Speedwright for another operator, and one address signs in for one operator only. Ask the administrator who invited you to invite another of your addresses.';
+
+/** The person who signs in with `email` (the one with a password), if any. */
+export function signingInAccount(email: string): Promise<User | null> {
+  return User.findOne({ where: { email, passwordHash: { [Op.ne]: null } }, include: [{ model: Operator, as: 'operator' }] });
+}
 
 export interface IssuedInvitation {
   token: string;
@@ -44,8 +52,10 @@ export async function issueInvitation(user: User, invitedById: number, transacti
 export async function sendInvitation(user: User, invitedById: number, invitation: IssuedInvitation): Promise<boolean> {
   const [operator, invitedBy] = await Promise.all([Operator.findByPk(user.operatorId), User.findByPk(invitedById)]);
   const link = outbox().link('/invitation', { token: invitation.token });
+  const addressInUse = (await signingInAccount(user.email)) !== null;
   return outbox().send(
     invitationMail({
+      addressInUse,
       to: user.email,
       displayName: user.displayName,
       operatorName: operator?.name ?? 'your operator',
@@ -60,7 +70,9 @@ export async function sendInvitation(user: User, invitedById: number, invitation
 export async function acceptInvitation(input: AcceptInvitationRequest, req: Request): Promise<{ email: string }> {
   const tokenHash = hashLinkToken(input.token);
   // Check before hashing the password, so made-up tokens cost no argon2 work.
-  assertLinkUsable(await Invitation.findOne({ where: { tokenHash } }), WORDS);
+  const pending = await Invitation.findOne({ where: { tokenHash } });
+  assertLinkUsable(pending, WORDS);
+  await refuseIfPersonal(pending.userId, input.password);
   const passwordHash = await hashPassword(input.password);
 
   return User.sequelize!.transaction(async (transaction) => {
@@ -69,6 +81,11 @@ export async function acceptInvitation(input: AcceptInvitationRequest, req: Requ
     const user = await User.findByPk(invitation.userId, { lock: transaction.LOCK.UPDATE, transaction });
     if (!user || user.operatorId !== invitation.operatorId) throw new HttpError(410, 'link_used', WORDS.used);
     if (user.passwordHash) throw new HttpError(410, 'link_used', WORDS.used);
+    // One person per address signs in: locking every row of the address serialises two accepts.
+    const sameAddress = await User.findAll({ where: { email: user.email }, lock: transaction.LOCK.UPDATE, transaction });
+    if (sameAddress.some((other) => other.id !== user.id && other.passwordHash !== null)) {
+      throw new HttpError(409, 'address_in_use', ADDRESS_IN_USE);
+    }
 
     const now = new Date();
     await user.update(
@@ -94,4 +111,10 @@ export async function acceptInvitation(input: AcceptInvitationRequest, req: Requ
     );
     return { email: user.email };
   });
+}
+
+/** A password built on the person's own name, address or operator is refused before any hashing. */
+export async function refuseIfPersonal(userId: number, password: string): Promise<void> {
+  const user = await User.findByPk(userId, { include: [{ model: Operator, as: 'operator' }] });
+  if (user) assertPasswordNotPersonal(password, user, user.operator?.name ?? '', 'password');
 }

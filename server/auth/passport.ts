@@ -3,17 +3,17 @@ import { Strategy as LocalStrategy } from 'passport-local';
 import { HttpError } from '../http-error';
 import { Operator, User } from '../models';
 import { toSessionUser } from './session-user';
-import { checkSignIn, type LockPolicy } from './sign-in.service';
+import { checkSignIn, type SignInDeps } from './sign-in.service';
 
 /**
  * passport with one local strategy (e-mail + password). The session holds only the user id;
  * each request reloads the person, so a role change or a lock takes effect at once.
  */
-export function configurePassport(policy: LockPolicy): PassportStatic {
+export function configurePassport(deps: SignInDeps): PassportStatic {
   const instance = new passport.Passport() as unknown as PassportStatic;
   instance.use(
-    new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true }, (email, password, done) => {
-      checkSignIn(email, password, policy).then(
+    new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true, passReqToCallback: true }, (req, email, password, done) => {
+      checkSignIn(req, email, password, deps).then(
         (user) => done(null, toSessionUser(user)),
         (error: unknown) => (error instanceof HttpError ? done(null, false, error) : done(error)),
       );

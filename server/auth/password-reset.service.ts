@@ -4,7 +4,7 @@
  */
 import type { Request } from 'express';
 import { Op, QueryTypes } from 'sequelize';
-import type { PasswordResetConfirm } from '../../shared/api/auth';
+import type { PasswordResetConfirm } from '../../shared/api/new-password';
 import { recordAudit } from '../audit/audit.service';
 import { HttpError } from '../http-error';
 import { passwordResetMail } from '../mail/messages';
@@ -12,6 +12,7 @@ import { outbox } from '../mail/outbox';
 import { Invitation, PasswordResetToken, User } from '../models';
 import { assertLinkUsable, hashLinkToken, newLinkToken, type LinkWording } from './link-tokens';
 import { hashPassword } from './passwords';
+import { refuseIfPersonal, signingInAccount } from './invitations.service';
 
 export const RESET_LINK_MINUTES = 60;
 /** More requests than this in an hour for one account send no further mail (a mailbox is not a target). */
@@ -29,7 +30,9 @@ const WORDS: LinkWording = {
  * otherwise. The mail goes out after the caller has answered, so the time taken says nothing.
  */
 export async function requestPasswordReset(email: string, req: Request): Promise<void> {
-  const user = await User.findOne({ where: { email } });
+  // The account that signs in with the address; else a pending invitation of it (a reset also
+  // answers an invitation), the oldest first.
+  const user = (await signingInAccount(email)) ?? (await User.findOne({ where: { email }, order: [['id', 'ASC']] }));
   if (!user || user.lockedByAdmin) return;
   const since = new Date(Date.now() - 3600_000);
   if ((await PasswordResetToken.count({ where: { userId: user.id, createdAt: { [Op.gt]: since } } })) >= RESET_LINKS_PER_HOUR) {
@@ -53,7 +56,9 @@ export async function requestPasswordReset(email: string, req: Request): Promise
 /** Sets the new password, spends the link and every other open link, and signs the person out everywhere. */
 export async function confirmPasswordReset(input: PasswordResetConfirm, req: Request): Promise<{ email: string }> {
   const tokenHash = hashLinkToken(input.token);
-  assertLinkUsable(await PasswordResetToken.findOne({ where: { tokenHash } }), WORDS);
+  const pending = await PasswordResetToken.findOne({ where: { tokenHash } });
+  assertLinkUsable(pending, WORDS);
+  await refuseIfPersonal(pending.userId, input.password);
   const passwordHash = await hashPassword(input.password);
 
   return User.sequelize!.transaction(async (transaction) => {

@@ -1,4 +1,7 @@
 import * as argon2 from 'argon2';
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { newPasswordProblem } from '../../shared/auth/password-strength';
+import { HttpError } from '../http-error';
 
 /**
  * argon2id with the library's defaults (m = 64 MiB, t = 3, p = 4), which meet OWASP's
@@ -22,4 +25,22 @@ let decoyHash: Promise<string> | undefined;
 export function decoyPasswordHash(): Promise<string> {
   decoyHash ??= hashPassword(`decoy-${Math.random()}`);
   return decoyHash;
+}
+
+/**
+ * Refuses a new password built on the person's own details (400 on `field`), after the shared
+ * schema has checked length and the common-password list; `newPasswordProblem` is the one rule.
+ */
+export function assertPasswordNotPersonal(password: string, user: { email: string; displayName: string }, operatorName: string, field: string): void {
+  const problem = newPasswordProblem(password, [user.email, user.displayName, operatorName, 'speedwright']);
+  if (problem) throw new HttpError(400, 'weak_password', problem, { [field]: problem });
+}
+
+/** Signs `userId` out everywhere except the session `keepSessionId` (when given). */
+export async function endSessionsOf(sequelize: Sequelize, userId: number, transaction: Transaction, keepSessionId?: string): Promise<void> {
+  await sequelize.query("DELETE FROM sessions WHERE JSON_VALUE(data, '$.passport.user') = ? AND sid <> ?", {
+    replacements: [userId, keepSessionId ?? ''],
+    type: QueryTypes.DELETE,
+    transaction,
+  });
 }

@@ -80,10 +80,14 @@ const isDeadlock = (error: unknown) => (error as { parent?: { errno?: number } }
 export async function recordCardIssue(actor: Actor, entry: CardIssueEntry): Promise<CardIssueResult> {
   const hash = entryHash(actor, entry);
   const existing = await findOnPrimary(entry.id);
-  if (existing) return answerForExisting(existing, hash, actor);
+  if (existing?.operatorId === actor.operatorId) return answerForExisting(existing, hash, actor);
 
+  // An id another operator holds is answered like a new one (the same refusal for a card that
+  // does not re-derive), so the answer does not tell that the id exists elsewhere; only a valid
+  // card under that id, which nobody but its holder knows, meets the conflict.
   const refusal = await rederive(actor, entry);
   if (refusal) return refusal.result;
+  if (existing) return answerForExisting(existing, hash, actor);
 
   const receivedAt = new Date();
   let code = generateCardCode();

@@ -214,13 +214,18 @@ describe('POST and GET /api/card-issues', () => {
     expect(await stored([a.id, b.id, c.id])).toEqual({ rows: 3, audits: 3 });
   });
 
-  it('refuses the same id with a different entry (409), also from another person or operator', async () => {
+  it('refuses the same id with a different entry (409), also from another person of the operator', async () => {
     const a = await entryFor(as.pilot);
     await report(as.pilot, [a]);
     const later = await report(as.pilot, [{ ...a, issuedAt: new Date(Date.now() + 60_000).toISOString() }]);
     expect(later).toEqual([{ id: a.id, outcome: 'conflict', status: 409, error: expect.objectContaining({ code: 'entry_id_taken' }) }]);
     expect((await report(as.engineer, [a]))[0]).toMatchObject({ outcome: 'conflict', status: 409 });
-    expect((await report(as.secondPilot, [a]))[0]).toMatchObject({ outcome: 'conflict', status: 409 });
+    // Another operator learns nothing about the id: its answer is the one for a new id
+    // (issue 12, informational: the card it names is not this operator's, so it is refused).
+    const fromElsewhere = (await report(as.secondPilot, [a]))[0]!;
+    const newIdElsewhere = (await report(as.secondPilot, [{ ...a, id: randomUUID() }]))[0]!;
+    expect(fromElsewhere.outcome).toBe('refused');
+    expect({ ...fromElsewhere, id: 'x' }).toEqual({ ...newIdElsewhere, id: 'x' });
     expect(await stored([a.id])).toEqual({ rows: 1, audits: 1 });
   });
 

@@ -64,6 +64,28 @@ describe('aircraft types', () => {
     await write(as.admin, 'patch', '/api/aircraft-types/1').send({}).expect(400);
   });
 
+  it('refuses control characters, direction overrides and broken characters with a field message (issue 12, finding 11)', async () => {
+    const typesBefore = await AircraftType.count();
+    const typeRes = await write(as.admin, 'post', '/api/aircraft-types')
+      .send({ designator: 'ZZQ9', name: 'Tug\u0007 bell', category: 'piston-single', engines: 1, ceilingFt: 12000 })
+      .expect(400);
+    expect(typeRes.body.error.fields.name).toBe('The name may not contain an invisible control character (U+0007); type it again without it.');
+    expect(await AircraftType.count()).toBe(typesBefore);
+    const type = (await AircraftType.findOne({ rejectOnEmpty: true })).id;
+    const framesBefore = await Airframe.count();
+    for (const [field, value, sentence] of [
+      ['serial', 'S-1\u0000', /U\+0000/],
+      ['serial', 'S-1\r\nX', /a line break/],
+      ['serial', 'S-\u202E1', /a direction control \(U\+202E\)/],
+      ['serial', 'S-\uD800', /a broken character/],
+      ['registration', 'ZZ-K\u202EA', /a direction control/],
+    ] as const) {
+      const res = await write(as.admin, 'post', '/api/airframes').send({ registration: 'ZZ-KQA', serial: 'S-1', aircraftTypeId: type, [field]: value }).expect(400);
+      expect(res.body.error.fields[field]).toMatch(sentence);
+    }
+    expect(await Airframe.count()).toBe(framesBefore);
+  });
+
   it('answers 404 for another operator’s type and for ids that are not ids', async () => {
     const other = await AircraftType.findOne({ where: { designator: 'ZZP2' }, rejectOnEmpty: true });
     await as.admin.agent.get(`/api/aircraft-types/${other.id}`).expect(404);

@@ -6,7 +6,36 @@ import type { OutgoingMail } from './outbox';
 
 const SIGNATURE = '\n\n— Speedwright\nYou get this message because of your account with this operator in Speedwright.';
 
-export function invitationMail(p: { to: string; displayName: string; operatorName: string; invitedBy: string; link: string; expiresAt: Date }): OutgoingMail {
+export function invitationMail(p: {
+  to: string;
+  displayName: string;
+  operatorName: string;
+  invitedBy: string;
+  link: string;
+  expiresAt: Date;
+  /** The address already signs in for another operator (only its owner reads this mail). */
+  addressInUse?: boolean;
+}): OutgoingMail {
+  if (p.addressInUse) {
+    return {
+      to: p.to,
+      subject: `You are invited to ${p.operatorName} on Speedwright`,
+      text:
+        `Hello ${p.displayName},
+
+` +
+        `${p.invitedBy} has invited you to ${p.operatorName} on Speedwright. This address already signs in to Speedwright for another operator, ` +
+        `and one address signs in for one operator only, so this invitation cannot be accepted with it.
+
+` +
+        `To join ${p.operatorName}, ask ${p.invitedBy} to invite another of your e-mail addresses. ` +
+        `Your existing account is not changed, and ${p.operatorName} has not been told that it exists.
+
+` +
+        `If you were not expecting this, you can ignore the message.` +
+        SIGNATURE,
+    };
+  }
   return {
     to: p.to,
     subject: `You are invited to ${p.operatorName} on Speedwright`,
@@ -91,4 +120,19 @@ export function formatUtc(date: Date): string {
   const months = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
   const pad = (n: number) => String(n).padStart(2, '0');
   return `${date.getUTCDate()} ${months[date.getUTCMonth()]} ${date.getUTCFullYear()}, ${pad(date.getUTCHours())}:${pad(date.getUTCMinutes())} UTC`;
+}
+
+export function signInWaitMail(p: { to: string; displayName: string; link: string; expiresAt: Date; failures: number }): OutgoingMail {
+  return {
+    to: p.to,
+    subject: 'Wrong passwords were typed for your Speedwright account',
+    text:
+      `Hello ${p.displayName},\n\n` +
+      `A wrong password was typed ${p.failures} times in a row for this address. Until the right one is typed, new sign-ins ` +
+      `from a device you have not used before have to wait a few minutes between tries. Devices you have signed in on before are not affected.\n\n` +
+      `If it was you and you want to try again at once, open this link:\n${p.link}\n\n` +
+      `The link works until ${formatUtc(p.expiresAt)}. If you have forgotten the password, ask for a new one on the sign-in page.\n\n` +
+      `If it was not you, your account is safe as long as nobody knows the password; you can change it under "Change password" in the account menu.` +
+      SIGNATURE,
+  };
 }

@@ -1,12 +1,19 @@
 import '../auth/session-user';
-import type { RequestHandler } from 'express';
+import type { RequestHandler, Response } from 'express';
 import { can, type Capability } from '../../shared/auth/roles';
 import { HttpError } from '../http-error';
 
+/** The 401 of a request nobody is signed in for; it says so when the 12 hours of a sign-in ran out. */
+function signedOut(res: Response): HttpError {
+  return res.locals['sessionEnded']
+    ? new HttpError(401, 'session_expired', 'Your sign-in is 12 hours old, so it has ended. Sign in again to continue.')
+    : new HttpError(401, 'not_signed_in', 'Sign in to continue.');
+}
+
 /** 401 unless someone is signed in. */
-export const requireSignIn: RequestHandler = (req, _res, next) => {
+export const requireSignIn: RequestHandler = (req, res, next) => {
   if (!req.user) {
-    next(new HttpError(401, 'not_signed_in', 'Sign in to continue.'));
+    next(signedOut(res));
     return;
   }
   next();
@@ -14,9 +21,9 @@ export const requireSignIn: RequestHandler = (req, _res, next) => {
 
 /** 401 when signed out, 403 unless the signed-in role holds `capability`. */
 export function requireCapability(capability: Capability): RequestHandler {
-  return (req, _res, next) => {
+  return (req, res, next) => {
     if (!req.user) {
-      next(new HttpError(401, 'not_signed_in', 'Sign in to continue.'));
+      next(signedOut(res));
       return;
     }
     if (!can(req.user.role, capability)) {

@@ -11,7 +11,10 @@ import {
 import { ROLES, type Role } from '../../shared/auth/roles';
 import type { Operator } from './operator';
 
-/** A person who signs in. E-mail addresses are unique across operators and stored lower-case. */
+/**
+ * A person who signs in. E-mail addresses are stored lower-case and unique within an operator;
+ * across operators at most one person per address has a password (the one who signs in).
+ */
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>;
   declare operatorId: ForeignKey<Operator['id']>;
@@ -35,7 +38,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
     User.init(
       {
         id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
-        email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
+        email: { type: DataTypes.STRING(254), allowNull: false },
         displayName: { type: DataTypes.STRING(200), allowNull: false },
         role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
         passwordHash: { type: DataTypes.STRING(255), allowNull: true },

@@ -6,9 +6,9 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31, type ResponseConfig, type RouteConfig } from '@asteasolutions/zod-to-openapi';
 import * as z from 'zod';
 import { passwordResetRequestedSchema } from '../../shared/api/account-links';
+import { acceptInvitationRequestSchema, changePasswordRequestSchema, passwordResetConfirmSchema } from '../../shared/api/new-password';
 import { auditPageSchema, auditQuerySchema } from '../../shared/api/audit';
 import {
-  acceptInvitationRequestSchema,
   apiErrorSchema,
   csrfResponseSchema,
   healthSchema,
@@ -17,10 +17,10 @@ import {
   loginResponseSchema,
   operatorPeopleSchema,
   operatorPersonResponseSchema,
-  passwordResetConfirmSchema,
   passwordResetRequestSchema,
   passwordSetResponseSchema,
   sessionUserSchema,
+  unlockRequestSchema,
   updatePersonRequestSchema,
 } from '../../shared/api/auth';
 import {
@@ -148,6 +148,7 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   route('get', '/api/auth/csrf', { summary: 'A CSRF token for this session', tags: ['auth'], who: 'public', ok: { status: 200, schema: csrfResponseSchema } });
   route('post', '/api/auth/login', { summary: 'Sign in', tags: ['auth'], who: 'public', body: loginRequestSchema, ok: { status: 200, schema: loginResponseSchema }, errors: [400, 401, 423, 429] });
   route('post', '/api/auth/logout', { summary: 'Sign out', tags: ['auth'], who: 'public', ok: { status: 204, description: 'Signed out' } });
+  route('post', '/api/auth/password', { summary: 'Change one’s own password (other sessions end)', tags: ['auth'], who: 'signed-in', body: changePasswordRequestSchema, ok: { status: 204, description: 'Changed' } });
   route('get', '/api/auth/me', { summary: 'Who is signed in', tags: ['auth'], who: 'signed-in', ok: { status: 200, schema: loginResponseSchema } });
   route('get', '/api/users', { summary: 'The operator’s people', tags: ['people'], who: 'manage-people', ok: { status: 200, schema: operatorPeopleSchema } });
   route('post', '/api/users', { summary: 'Invite a person by e-mail', tags: ['people'], who: 'manage-people', body: invitePersonRequestSchema, ok: { status: 201, schema: invitationSentSchema }, errors: [409] });
@@ -155,6 +156,7 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   route('post', '/api/users/:id/invitation', { summary: 'Send the invitation again', tags: ['people'], who: 'manage-people', params: true, ok: { status: 201, schema: invitationSentSchema }, errors: [409] });
   route('post', '/api/auth/invitations/accept', { summary: 'Accept an invitation: choose a password', tags: ['auth'], who: 'public', body: acceptInvitationRequestSchema, ok: { status: 200, schema: passwordSetResponseSchema }, errors: [400, 410, 429] });
   route('post', '/api/auth/password-reset', { summary: 'Ask for a password-reset link by e-mail', tags: ['auth'], who: 'public', body: passwordResetRequestSchema, ok: { status: 202, schema: passwordResetRequestedSchema }, errors: [400, 429] });
+  route('post', '/api/auth/unlock', { summary: 'Lift the sign-in wait with the link from the mail', tags: ['auth'], who: 'public', body: unlockRequestSchema, ok: { status: 200, schema: passwordSetResponseSchema }, errors: [400, 410, 429] });
   route('post', '/api/auth/password-reset/confirm', { summary: 'Choose a new password with a reset link', tags: ['auth'], who: 'public', body: passwordResetConfirmSchema, ok: { status: 200, schema: passwordSetResponseSchema }, errors: [400, 410, 429] });
   route('get', '/api/dev/mailbox', { summary: 'The local fake mailbox (only when MAILBOX_DIR is set)', tags: ['people'], who: 'manage-people', ok: { status: 200, schema: mailboxResponseSchema } });
   route('post', '/api/uploads/speed-table', {

@@ -1,4 +1,5 @@
 import request from 'supertest';
+import { appRoutes as appRoutesOf } from '../../test/api/app-routes';
 import { startHarness, type Harness } from '../../test/api/harness';
 
 let harness: Harness;
@@ -7,29 +8,7 @@ beforeAll(() => {
 });
 afterAll(() => harness.close());
 
-interface Layer {
-  route?: { path: string; methods: Record<string, boolean> };
-  rawPath?: unknown;
-  handle: { stack?: Layer[] };
-}
-
-/** Every `METHOD /path` the Express app serves under /api, found by walking its routers. */
-function appRoutes(): string[] {
-  const found = new Set<string>();
-  const stack = (harness.app as unknown as { router: { stack: Layer[] } }).router.stack;
-  for (const layer of stack) {
-    const mount = typeof layer.rawPath === 'string' ? layer.rawPath : '';
-    if (!mount.startsWith('/api') || !layer.handle.stack) continue;
-    for (const inner of layer.handle.stack) {
-      if (!inner.route) continue;
-      for (const method of Object.keys(inner.route.methods)) {
-        const path = `${mount}${inner.route.path === '/' ? '' : inner.route.path}`.replace(/^\/api\/\//, '/api/');
-        found.add(`${method.toUpperCase()} ${path}`);
-      }
-    }
-  }
-  return [...found].sort();
-}
+const appRoutes = () => appRoutesOf(harness.app);
 
 describe('GET /api/openapi.json', () => {
   it('describes every route of the app, generated from the zod schemas', async () => {

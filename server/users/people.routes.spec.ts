@@ -4,6 +4,7 @@ import { mailboxResponseSchema } from '../../shared/api/mailbox';
 import { csrfAgent, demoEmail, mailTo, mailsTo, signIn, startHarness, TEST_PASSWORD, TEST_PUBLIC_URL, type Harness } from '../../test/api/harness';
 import { AuditEvent, Invitation, PasswordResetToken, User } from '../models';
 import { sessionOf } from '../../test/api/role-sessions';
+import { newTeam } from '../speed-books/test-helpers';
 
 // argon2id takes a noticeable moment per password, and these tests set many.
 jest.setTimeout(30_000);
@@ -138,16 +139,53 @@ describe('invitations', () => {
     expect(await AuditEvent.count({ where: { action: 'user.invitation-resent', entityId: String(id) } })).toBe(1);
   });
 
-  it('refuses an address that already has an account, even at another operator', async () => {
+  it('refuses an address that already belongs to one of the operator’s own people', async () => {
     const admin = await signIn(harness.app, demoEmail('admin'));
-    const before = mailsTo(demoEmail('pilot', 'second')).length;
-    const res = await admin.agent
-      .post('/api/users')
-      .set('x-csrf-token', admin.token)
-      .send({ email: ' Pilot@Second.Speedwright.Example ', displayName: 'Someone', role: 'pilot' });
+    const before = mailsTo(demoEmail('pilot')).length;
+    const res = await admin.agent.post('/api/users').set('x-csrf-token', admin.token).send({ email: ' Pilot@Demo.Speedwright.Example ', displayName: 'Someone', role: 'pilot' });
     expect(res.status).toBe(409);
     expect(res.body.error).toMatchObject({ code: 'email_taken', fields: { email: expect.any(String) } });
-    expect(mailsTo(demoEmail('pilot', 'second')).length).toBe(before);
+    expect(mailsTo(demoEmail('pilot')).length).toBe(before);
+  });
+
+  it('answers an address that signs in at another operator exactly like a new one, and tells its owner what to do (issue 12, finding 10)', async () => {
+    const admin = await signIn(harness.app, demoEmail('admin'));
+    const [elsewherePerson] = await newTeam(harness.app, ['pilot']);
+    const address = (await User.findByPk(elsewherePerson!.id, { rejectOnEmpty: true })).email;
+    const send = (email: string) => admin.agent.post('/api/users').set('x-csrf-token', admin.token).send({ email, displayName: 'Someone New', role: 'pilot' });
+    const elsewhere = await send(address);
+    try {
+    const fresh = await send(freshEmail('fresh'));
+    const shape = (res: typeof fresh) => ({ status: res.status, keys: Object.keys(res.body).sort(), user: Object.keys(res.body.user ?? {}).sort(), pending: res.body.user?.invitationPending, mailSent: res.body.mailSent });
+    expect(shape(elsewhere)).toEqual(shape(fresh));
+    expect(elsewhere.status).toBe(201);
+    // The people list shows both alike, as pending invitations.
+    const list = (await admin.agent.get('/api/users').expect(200)).body.users as { email: string; invitationPending: boolean }[];
+    expect(list.find((p) => p.email === address)?.invitationPending).toBe(true);
+
+    const mail = await mailTo(address, (entry) => entry.subject.startsWith('You are invited to Kestrel Fen'));
+    expect(mail.text).toMatch(/already signs in to Speedwright for another operator/);
+    expect(mail.text).toMatch(/invite another of your e-mail addresses/);
+    expect(mail.links.some((link) => link.includes('/invitation'))).toBe(false);
+    // The account elsewhere keeps working.
+    const second = await signIn(harness.app, address);
+    expect((await second.agent.get('/api/auth/me').expect(200)).body.user.operatorName).toMatch(/^Test team/);
+    } finally {
+      await User.destroy({ where: { id: elsewhere.body.user.id } });
+    }
+  });
+
+  it('lets one of two operators’ invitations to the same new address be accepted, not both', async () => {
+    const address = freshEmail('both');
+    const { token: first } = await invite(address, 'pilot');
+    const otherAdmin = await signIn(harness.app, demoEmail('admin', 'second'));
+    expect((await otherAdmin.agent.post('/api/users').set('x-csrf-token', otherAdmin.token).send({ email: address, displayName: 'Both Places', role: 'pilot' })).status).toBe(201);
+    const secondMail = await mailTo(address, (entry) => entry.subject.includes('Larkspur'));
+    const second = tokenOf(secondMail.links[0]!, '/invitation');
+    expect((await accept(first)).status).toBe(200);
+    const refused = await accept(second);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.code).toBe('address_in_use');
   });
 
   it('names every wrong field of an invitation and creates nothing', async () => {
@@ -324,6 +362,19 @@ describe('PATCH /api/users/:id', () => {
 });
 
 describe('the fake mailbox page', () => {
+  it('never shows an administrator the token of a person’s password-reset link (issue 12, informational)', async () => {
+    const { email } = await member('pilot', 'reset-mailbox');
+    const { agent, token } = await csrfAgent(harness.app);
+    await agent.post('/api/auth/password-reset').set('x-csrf-token', token).send({ email }).expect(202);
+    const sent = await mailTo(email, (entry) => /new Speedwright password/.test(entry.subject));
+    expect(sent.links.some((link) => /\/reset-password#token=[A-Za-z0-9_-]{43}$/.test(link))).toBe(true);
+    const admin = await signIn(harness.app, demoEmail('admin'));
+    const shown = mailboxResponseSchema.parse((await admin.agent.get('/api/dev/mailbox').expect(200)).body).messages.find((m) => m.id === sent.id);
+    expect(shown).toBeDefined();
+    expect(JSON.stringify(shown)).not.toMatch(/#token=[A-Za-z0-9_-]{43}/);
+    expect(shown!.links[0]).toMatch(/\/reset-password#token=\(hidden/);
+  });
+
   it('shows an admin the mail to their own operator’s people only', async () => {
     const email = freshEmail('mailbox');
     await invite(email);

@@ -3,6 +3,7 @@ import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import type { InvitePersonRequest, OperatorPerson, UpdatePersonRequest } from '../../shared/api/auth';
 import { recordAudit } from '../audit/audit.service';
 import { issueInvitation, sendInvitation } from '../auth/invitations.service';
+import { clearFailures } from '../auth/sign-in-throttle';
 import { HttpError, notFound } from '../http-error';
 import { Operator, User } from '../models';
 
@@ -38,7 +39,9 @@ export async function invitePerson(operatorId: number, actorId: number, input: I
   let created: { user: User; invitation: Awaited<ReturnType<typeof issueInvitation>> };
   try {
     created = await User.sequelize!.transaction(async (transaction) => {
-      if (await User.findOne({ where: { email: input.email }, transaction })) throw emailTaken();
+      // Only this operator's own people are checked: whether the address signs in elsewhere is not
+      // this administrator's business, and the invitation mail tells its owner what to do.
+      if (await User.findOne({ where: { operatorId, email: input.email }, transaction })) throw emailTaken();
       const user = await User.create(
         { operatorId, email: input.email, displayName: input.displayName, role: input.role, passwordHash: null, lockedUntil: null, lastSignInAt: null },
         { transaction },
@@ -113,9 +116,10 @@ export async function updatePerson(operatorId: number, actorId: number, userId: 
       user.lockedByAdmin = input.locked;
     }
     if (input.locked === false) {
-      // Unlocking also lifts a lock after failed sign-ins.
+      // Unlocking also lifts the wait after failed sign-ins.
       user.lockedUntil = null;
       user.failedSignIns = 0;
+      await clearFailures(User.sequelize!, user.email);
     }
     if (input.displayName !== undefined && input.displayName !== user.displayName) {
       audits.push({ action: 'user.renamed', details: { from: user.displayName, to: input.displayName } });
@@ -137,7 +141,7 @@ function otherActiveAdmins(operatorId: number, exceptUserId: number, transaction
 }
 
 function emailTaken(): HttpError {
-  return new HttpError(409, 'email_taken', 'This e-mail address already belongs to an account.', {
-    email: 'This e-mail address already belongs to an account.',
+  return new HttpError(409, 'email_taken', 'This e-mail address already belongs to one of your people.', {
+    email: 'This e-mail address already belongs to one of your people.',
   });
 }

@@ -1,5 +1,6 @@
 import * as z from 'zod';
 import { ROLES } from '../auth/roles';
+import { plainText } from '../text/plain-text';
 
 /** The signed-in person as the API returns it (`/api/auth/login`, `/api/auth/me`). */
 export const sessionUserSchema = z.object({
@@ -20,7 +21,11 @@ export const loginRequestSchema = z.strictObject({
 });
 export type LoginRequest = z.infer<typeof loginRequestSchema>;
 
-export const loginResponseSchema = z.object({ user: sessionUserSchema });
+export const loginResponseSchema = z.object({
+  user: sessionUserSchema,
+  /** When this sign-in ends whatever happens (12 hours after it, ASVS 3.3.2); the device keeps it. */
+  sessionExpiresAt: z.string().optional(),
+});
 export const csrfResponseSchema = z.object({ token: z.string().min(1) });
 
 /** A person of the operator as the admin's people list shows it (`GET /api/users`). */
@@ -40,19 +45,12 @@ export const operatorPeopleSchema = z.object({ users: z.array(operatorPersonSche
 export const operatorPersonResponseSchema = z.object({ user: operatorPersonSchema });
 
 const emailField = z.string().trim().toLowerCase().email('Enter an e-mail address such as name@example.com.').max(254);
-const displayNameField = z
+export const displayNameField = z
   .string()
+  .check(plainText('The name'))
   .trim()
   .min(1, 'Enter the name colleagues know this person by.')
   .max(200, 'Keep the name under 200 characters.');
-
-/** Password rules for a new password, in one place for the form and the server. */
-export const NEW_PASSWORD_MIN_LENGTH = 12;
-export const newPasswordSchema = z
-  .string()
-  .min(NEW_PASSWORD_MIN_LENGTH, `Choose a password of at least ${NEW_PASSWORD_MIN_LENGTH} characters; a few unrelated words work well.`)
-  .max(200, 'Keep the password under 200 characters.')
-  .refine((password) => password.trim().length > 0, 'A password of only spaces is not accepted.');
 
 /** The token of an invitation or password-reset link: 32 random bytes, base64url. */
 export const linkTokenSchema = z
@@ -79,21 +77,9 @@ export const updatePersonRequestSchema = z
   });
 export type UpdatePersonRequest = z.infer<typeof updatePersonRequestSchema>;
 
-/** `POST /api/auth/invitations/accept`: the invited person chooses a password. */
-export const acceptInvitationRequestSchema = z.strictObject({
-  token: linkTokenSchema,
-  password: newPasswordSchema,
-  displayName: displayNameField.optional(),
-});
-export type AcceptInvitationRequest = z.infer<typeof acceptInvitationRequestSchema>;
-
 /** `POST /api/auth/password-reset`: always answered 202, whether or not the account exists. */
 export const passwordResetRequestSchema = z.strictObject({ email: emailField });
 export type PasswordResetRequest = z.infer<typeof passwordResetRequestSchema>;
-
-/** `POST /api/auth/password-reset/confirm`. */
-export const passwordResetConfirmSchema = z.strictObject({ token: linkTokenSchema, password: newPasswordSchema });
-export type PasswordResetConfirm = z.infer<typeof passwordResetConfirmSchema>;
 
 /** The answer of accept and confirm: the address to sign in with next. */
 export const passwordSetResponseSchema = z.object({ email: z.string() });
@@ -113,3 +99,10 @@ export const apiErrorSchema = z.object({
 export type ApiError = z.infer<typeof apiErrorSchema>;
 
 export const healthSchema = z.object({ status: z.enum(['ok', 'degraded']), db: z.enum(['ok', 'down']) });
+
+/** `POST /api/auth/unlock`: the token of the link in the "wrong passwords were typed" mail. */
+export const unlockRequestSchema = z.strictObject({
+  token: z
+    .string({ error: 'This link is not complete. Open it again from the e-mail, or copy the whole link.' })
+    .regex(/^[1-9]\d{0,15}\.\d{1,12}\.[A-Za-z0-9_-]{43}$/, 'This link is not complete. Open it again from the e-mail, or copy the whole link.'),
+});

@@ -4,6 +4,7 @@
  */
 import * as z from 'zod';
 import { AIRCRAFT_CATEGORIES } from '../speed-book/revision-content';
+import { plainText } from '../text/plain-text';
 
 const id = z.number().int().positive();
 
@@ -22,10 +23,11 @@ export type AircraftTypeView = z.infer<typeof aircraftTypeSchema>;
 const aircraftTypeFields = {
   designator: z
     .string({ error: 'Give the type’s designator.' })
+    .check(plainText('The designator'))
     .trim()
     .toUpperCase()
     .regex(/^[A-Z0-9]{2,8}$/, 'A designator is 2 to 8 letters and digits, such as ZZP1.'),
-  name: z.string({ error: 'Give the type’s name.' }).trim().min(1, 'Give the type’s name.').max(120, 'At most 120 characters.'),
+  name: z.string({ error: 'Give the type’s name.' }).check(plainText('The name')).trim().min(1, 'Give the type’s name.').max(120, 'At most 120 characters.'),
   category: z.enum(AIRCRAFT_CATEGORIES, { error: 'Choose piston-single, piston-twin, turboprop or jet.' }),
   engines: z.number({ error: 'Give the number of engines.' }).int('A whole number of engines.').min(1, 'At least one engine.').max(8, 'At most 8 engines.'),
   ceilingFt: z.number({ error: 'Give the ceiling in feet.' }).int('Whole feet.').min(1000, 'At least 1,000 ft.').max(60_000, 'At most 60,000 ft.'),
@@ -49,6 +51,7 @@ export const aircraftTypeResponseSchema = z.object({ aircraftType: aircraftTypeS
  */
 export const registrationSchema = z
   .string({ error: 'Give the registration.' })
+  .check(plainText('The registration'))
   .trim()
   .toUpperCase()
   .regex(/^([A-Z0-9]{1,2}-[A-Z0-9]{1,5}|N[1-9][0-9A-Z]{0,4})$/, 'A registration looks like ZZ-KFA: a nationality prefix, a hyphen and up to five letters or digits.');
@@ -66,7 +69,7 @@ export type AirframeView = z.infer<typeof airframeSchema>;
 
 const airframeFields = {
   registration: registrationSchema,
-  serial: z.string({ error: 'Give the serial number.' }).trim().min(1, 'Give the serial number.').max(40, 'At most 40 characters.'),
+  serial: z.string({ error: 'Give the serial number.' }).check(plainText('The serial number')).trim().min(1, 'Give the serial number.').max(40, 'At most 40 characters.'),
   aircraftTypeId: z.number({ error: 'Choose the aircraft type.' }).int().positive('Choose the aircraft type.'),
   active: z.boolean({ error: 'Active is true or false.' }),
 };

@@ -5,6 +5,7 @@
 import * as z from 'zod';
 import { CONTRIBUTION_KINDS } from '../speed-book/four-eyes';
 import { boundedJsonObject, REVISION_CONTENT_BOUNDS } from './json-bounds';
+import { plainText } from '../text/plain-text';
 
 export const REVISION_STATUSES = ['draft', 'in_review', 'published', 'superseded', 'withdrawn'] as const;
 export type RevisionStatus = (typeof REVISION_STATUSES)[number];
@@ -84,11 +85,12 @@ export const speedBookResponseSchema = z.object({ speedBook: speedBookSchema });
 
 export const createSpeedBookSchema = z.strictObject({
   aircraftTypeId: z.number({ error: 'Choose the aircraft type.' }).int().positive('Choose the aircraft type.'),
-  title: z.string({ error: 'Give the speed book’s title.' }).trim().min(1, 'Give the speed book’s title.').max(200, 'At most 200 characters.'),
+  title: z.string({ error: 'Give the speed book’s title.' }).check(plainText('The title')).trim().min(1, 'Give the speed book’s title.').max(200, 'At most 200 characters.'),
 });
 
 const changeSummary = z
   .string({ error: 'Say in a sentence what this revision changes.' })
+  .check(plainText('The change summary', 'multi-line'))
   .trim()
   .min(1, 'Say in a sentence what this revision changes.')
   .max(2000, 'At most 2,000 characters.');
@@ -110,7 +112,7 @@ export const contentCoverageRequestSchema = z.strictObject({ content: draftConte
 export type ContentCoverageRequest = z.infer<typeof contentCoverageRequestSchema>;
 
 export const reasonSchema = z.strictObject({
-  reason: z.string({ error: 'Give the reason.' }).trim().min(1, 'Give the reason.').max(2000, 'At most 2,000 characters.'),
+  reason: z.string({ error: 'Give the reason.' }).check(plainText('The reason', 'multi-line')).trim().min(1, 'Give the reason.').max(2000, 'At most 2,000 characters.'),
 });
 
 export const contentChangeSchema = z.object({

@@ -4,6 +4,7 @@
  * `content-rules.ts`; `revision-content.ts` joins the two into the one schema.
  */
 import * as z from 'zod';
+import { plainText } from '../text/plain-text';
 
 /** "The ceiling" → "the ceiling" inside a sentence; "VNE" stays as it is. */
 const inSentence = (what: string) => (/^[A-Z][a-z]/.test(what) ? what[0].toLowerCase() + what.slice(1) : what);
@@ -19,9 +20,11 @@ export const knots = (what: string) =>
 export const kilograms = (what: string) =>
   num(what).positive(`${what} must be above zero.`).max(999_999, `${what} must be below 1,000,000 kg.`);
 
+const capitalised = (what: string) => what.charAt(0).toUpperCase() + what.slice(1);
 const text = (what: string, max: number) =>
   z
     .string({ error: (issue) => (issue.input === undefined ? `Give ${what}.` : `${what} must be text.`) })
+    .check(plainText(capitalised(what)))
     .trim()
     .min(1, `Give ${what}.`)
     .max(max, `${what} must be at most ${max} characters.`);
@@ -186,7 +189,7 @@ export const revisionContentShape = z.strictObject({
   speeds: z.array(speedSchema, { error: 'Give the speeds as a list.' }).max(100, 'At most 100 speeds.'),
   limits: limitsSchema,
   indicatorMarkingBasis: z.enum(SPEED_BASES, { error: 'Choose ias or cas.' }),
-  notes: z.string({ error: 'Notes must be text.' }).max(4000, 'Notes must be at most 4,000 characters.'),
+  notes: z.string({ error: 'Notes must be text.' }).check(plainText('Notes', 'multi-line')).max(4000, 'Notes must be at most 4,000 characters.'),
   envelope: envelopeSchema.optional(),
   /** True when the book's stall speeds are reference stall speeds (VSR, CS-25 / Part 25 style). */
   statesReferenceStallSpeeds: z.boolean({ error: 'Say yes or no.' }).optional(),

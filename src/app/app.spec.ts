@@ -22,7 +22,8 @@ const approver: SessionUser = {
 
 describe('App shell', () => {
   const user = signal<SessionUser | null>(null);
-  const auth = { user, signedIn: () => user() !== null, session: () => of(user()), signOut: jest.fn() };
+  const offlineSignInEnded = signal(false);
+  const auth = { user, signedIn: () => user() !== null, session: () => of(user()), signOut: jest.fn(), offlineSignInEnded };
   const sync = {
     sendOutbox: jest.fn(),
     waitingOfOperator: jest.fn(),
@@ -34,6 +35,7 @@ describe('App shell', () => {
 
   beforeEach(async () => {
     user.set(null);
+    offlineSignInEnded.set(false);
     auth.signOut.mockReset();
     sync.sendOutbox.mockReset().mockResolvedValue({ recorded: 0, waiting: 0, refused: 0, problem: null, failed: false, failureStatus: null, failureMessage: null });
     sync.waitingOfOperator.mockReset().mockResolvedValue(0);
@@ -84,6 +86,25 @@ describe('App shell', () => {
     expect(shell.querySelector('[data-testid="signed-in-person"]')?.textContent).toContain('Mira Castell');
     expect(shell.querySelector('[data-testid="signed-in-person"]')?.textContent).toContain('Approver');
     expect(shell.querySelector('[data-testid="nav-list"]')).not.toBeNull();
+  });
+
+  it('offers "Change password" in the account menu of the signed-in person', async () => {
+    user.set(approver);
+    await fixture.whenStable();
+    (shell.querySelector('[data-testid="signed-in-person"]') as HTMLButtonElement).click();
+    await fixture.whenStable();
+    const item = document.querySelector('[data-testid="change-password-link"]');
+    expect(item?.textContent).toContain('Change password');
+    expect(item?.getAttribute('href')).toBe('/account/password');
+  });
+
+  it('says when the app opened offline past the 12 hours of the sign-in', async () => {
+    user.set(approver);
+    await fixture.whenStable();
+    expect(shell.querySelector('[data-testid="offline-sign-in-ended"]')).toBeNull();
+    offlineSignInEnded.set(true);
+    await fixture.whenStable();
+    expect(shell.querySelector('[data-testid="offline-sign-in-ended"]')?.textContent).toMatch(/sign in again when you are online/);
   });
 
   it('signs out and goes to the sign-in page', async () => {

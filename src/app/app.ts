@@ -3,6 +3,7 @@ import { ChangeDetectionStrategy, Component, DestroyRef, Injector, computed, eff
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
 import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatToolbarModule } from '@angular/material/toolbar';
@@ -35,6 +36,7 @@ export { SAFETY_CAUTION };
     MatSidenavModule,
     MatButtonModule,
     MatIconModule,
+    MatMenuModule,
     NavigationList,
     ConnectionIndicator,
     ThemeToggle,
@@ -53,6 +55,7 @@ export class App {
 
   protected readonly safetyCaution = SAFETY_CAUTION;
   protected readonly user = this.auth.user;
+  protected readonly offlineSignInEnded = this.auth.offlineSignInEnded;
   protected readonly roleLabel = computed(() => {
     const user = this.user();
     return user ? ROLE_LABELS[user.role] : '';

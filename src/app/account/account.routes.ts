@@ -1,5 +1,5 @@
 import { Routes } from '@angular/router';
-import { sessionKnownGuard } from '../core/auth/signed-in-guard';
+import { sessionKnownGuard, signedInGuard } from '../core/auth/signed-in-guard';
 
 /**
  * The pages the account mails link to (paths as `server/auth/*.service.ts` builds the links),
@@ -19,6 +19,18 @@ export const ACCOUNT_ROUTES: Routes = [
     canActivate: [sessionKnownGuard],
     data: { kind: 'reset' },
     loadComponent: () => import('./choose-password-page').then((m) => m.ChoosePasswordPage),
+  },
+  {
+    path: 'unlock',
+    title: 'Sign in again now · Speedwright',
+    canActivate: [sessionKnownGuard],
+    loadComponent: () => import('./unlock-page').then((m) => m.UnlockPage),
+  },
+  {
+    path: 'account/password',
+    title: 'Change password · Speedwright',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./change-password-page').then((m) => m.ChangePasswordPage),
   },
   {
     path: 'forgot-password',

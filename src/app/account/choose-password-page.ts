@@ -8,7 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ActivatedRoute, RouterLink } from '@angular/router';
 import { finalize } from 'rxjs';
-import { newPasswordSchema } from '../../../shared/api/auth';
+import { newPasswordSchema } from '../../../shared/api/new-password';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';

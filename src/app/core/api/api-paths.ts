@@ -12,6 +12,8 @@ export const API_PATHS = {
   acceptInvitation: '/api/auth/invitations/accept',
   passwordReset: '/api/auth/password-reset',
   passwordResetConfirm: '/api/auth/password-reset/confirm',
+  changePassword: '/api/auth/password',
+  unlock: '/api/auth/unlock',
   health: '/api/health',
 } as const;
 

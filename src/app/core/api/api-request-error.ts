@@ -43,12 +43,21 @@ export class ApiRequestError extends Error {
     if (!(error instanceof HttpErrorResponse)) {
       return new ApiRequestError(0, 'client_error', 'Something went wrong in this app. Reload the page and try again.');
     }
-    const body = apiErrorSchema.safeParse(error.error);
+    // A request made for text (no answer expected) gets its error body as text, too.
+    const body = apiErrorSchema.safeParse(typeof error.error === 'string' ? parseJson(error.error) : error.error);
     if (body.success) {
       const { code, message, fields, requestId } = body.data.error;
       return new ApiRequestError(error.status, code, message, fields ?? {}, true, requestId);
     }
     return new ApiRequestError(error.status, codeForStatus(error.status), sentenceForStatus(error.status));
+  }
+}
+
+function parseJson(text: string): unknown {
+  try {
+    return JSON.parse(text);
+  } catch {
+    return undefined;
   }
 }
 

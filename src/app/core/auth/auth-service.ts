@@ -28,6 +28,7 @@ export class AuthService {
   private readonly currentState = signal<SessionState>('unknown');
   private readonly lastProbeProblem = signal<ApiRequestError | null>(null);
   private readonly fromCache = signal(false);
+  private readonly signInEnded = signal(false);
   private probe: Observable<SessionUser | null> | null = null;
 
   readonly user = this.currentUser.asReadonly();
@@ -40,6 +41,11 @@ export class AuthService {
    * reached at page load; the next answer of the server (sync, any request) settles it.
    */
   readonly sessionFromCache = this.fromCache.asReadonly();
+  /**
+   * Opened offline as a person whose sign-in is past its 12 hours: the cards on the device still
+   * work (within the currency limit), and the next answer of the server asks for the password.
+   */
+  readonly offlineSignInEnded = computed(() => this.fromCache() && this.signInEnded());
 
   /** The signed-in person, asking the server once per page load; guards wait on this. */
   session(): Observable<SessionUser | null> {
@@ -52,14 +58,14 @@ export class AuthService {
 
   signIn(request: LoginRequest): Observable<SessionUser> {
     return this.api.post(API_PATHS.login, request, loginResponseSchema).pipe(
-      map(({ user }) => user),
-      tap((user) => {
+      tap(({ user, sessionExpiresAt }) => {
         // The server regenerated the session, so the old token no longer counts.
         this.csrf.forget();
         this.lastProbeProblem.set(null);
         this.settle(user);
-        this.remember(user);
+        this.remember(user, sessionExpiresAt);
       }),
+      map(({ user }) => user),
     );
   }
 
@@ -88,10 +94,8 @@ export class AuthService {
 
   private askServerForSession(): Observable<SessionUser | null> {
     return this.api.get(API_PATHS.me, loginResponseSchema).pipe(
+      tap(({ user, sessionExpiresAt }) => this.remember(user, sessionExpiresAt)),
       map(({ user }): SessionUser | null => user),
-      tap((user) => {
-        if (user) this.remember(user);
-      }),
       catchError((error: ApiRequestError) => {
         if (error.status === 401) {
           // The server's own answer: nobody is signed in here, whatever the device remembers.
@@ -100,9 +104,13 @@ export class AuthService {
         }
         this.lastProbeProblem.set(error);
         if (!serverUnreachable(error.status)) return of(null);
-        return from(this.withCache((cache, db) => cache.cachedSessionForOffline(db)).then((cached) => cached ?? null)).pipe(
-          tap((cached) => this.fromCache.set(cached !== null)),
-        );
+        return from(
+          this.withCache(async (cache, db) => {
+            const cached = await cache.cachedSessionForOffline(db);
+            this.signInEnded.set(cached !== null && cache.offlineSessionEnded(await db.sessions.get(cached.id)));
+            return cached;
+          }).then((cached) => cached ?? null),
+        ).pipe(tap((cached) => this.fromCache.set(cached !== null)));
       }),
       tap((user) => this.settle(user)),
       finalize(() => (this.probe = null)),
@@ -110,9 +118,9 @@ export class AuthService {
     );
   }
 
-  private remember(user: SessionUser): void {
+  private remember(user: SessionUser, sessionExpiresAt?: string): void {
     this.fromCache.set(false);
-    void this.withCache((cache, db) => cache.rememberSession(db, user));
+    void this.withCache((cache, db) => cache.rememberSession(db, user, new Date(), sessionExpiresAt));
   }
 
   /**

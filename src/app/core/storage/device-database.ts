@@ -93,6 +93,8 @@ export interface CachedSessionRecord {
   readonly user: SessionUser;
   /** When the server last confirmed this session (ISO 8601 UTC). */
   readonly confirmedAt: string;
+  /** When the sign-in ends whatever happens (12 hours after it; ISO 8601 UTC); absent before it was kept. */
+  readonly sessionExpiresAt?: string;
 }
 
 /** A small setting of this device (key → JSON value). */

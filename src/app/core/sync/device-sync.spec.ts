@@ -17,6 +17,7 @@ import {
   dataCurrency,
   flushOutbox,
   nextRetryDelayMs,
+  offlineSessionEnded,
   rememberSession,
   removeOperatorData,
   revisionNotices,
@@ -433,6 +434,20 @@ describe('notices, cached session and sign-out', () => {
     const signer = await newSigner();
     await applySync(db, OPERATOR_ID, response(signer, 'c1', []));
     expect(await cachedSessionForOffline(db)).toEqual(PILOT);
+  });
+
+  it('still opens offline past the 12 hours of the sign-in (cards keep working) and says the sign-in has ended', async () => {
+    // ASVS 4.0.3 §3.3.2: the sign-in ends 12 hours after it; offline, the device cannot ask.
+    await rememberSession(db, PILOT, new Date('2026-12-01T10:00:00.000Z'), '2026-12-01T22:00:00.000Z');
+    const signer = await newSigner();
+    await applySync(db, OPERATOR_ID, response(signer, 'c1', []));
+    expect(await cachedSessionForOffline(db)).toEqual(PILOT);
+    const record = await db.sessions.get(PILOT.id);
+    expect(offlineSessionEnded(record, new Date('2026-12-01T21:59:59.000Z'))).toBe(false);
+    expect(offlineSessionEnded(record, new Date('2026-12-01T22:00:00.000Z'))).toBe(true);
+    // A record from before the end was kept says nothing either way.
+    await rememberSession(db, PILOT, new Date('2026-12-01T10:00:00.000Z'));
+    expect(offlineSessionEnded(await db.sessions.get(PILOT.id), new Date('2027-01-01T00:00:00.000Z'))).toBe(false);
   });
 
   it('removes the operator’s data and card log on sign-out, and nothing of another operator', async () => {

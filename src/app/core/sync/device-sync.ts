@@ -28,7 +28,7 @@
 import type { SessionUser } from '../../../../shared/api/auth';
 import type { SyncResponse } from '../../../../shared/api/sync';
 import { MAX_CARD_ISSUES_PER_BATCH, type CardIssueEntry, type CardIssueResult } from '../../../../shared/card/card-api';
-import type { CardLogRecord, RefusedRevision, RevisionRecord, SpeedwrightDeviceDatabase, SyncStateRecord } from '../storage/device-database';
+import type { CachedSessionRecord, CardLogRecord, RefusedRevision, RevisionRecord, SpeedwrightDeviceDatabase, SyncStateRecord } from '../storage/device-database';
 import { importOperatorKey, verifyRevision } from './revision-verification';
 
 export interface SyncTransport {
@@ -325,8 +325,8 @@ export function nextRetryDelayMs(failures: number, baseMs = 15_000, maxMs = 15 *
 // Cached session and sign-out
 
 /** Keeps the person the server just confirmed, so the app opens offline after a reload. */
-export async function rememberSession(db: SpeedwrightDeviceDatabase, user: SessionUser, now = new Date()): Promise<void> {
-  await db.sessions.put({ userId: user.id, operatorId: user.operatorId, user, confirmedAt: now.toISOString() });
+export async function rememberSession(db: SpeedwrightDeviceDatabase, user: SessionUser, now = new Date(), sessionExpiresAt?: string): Promise<void> {
+  await db.sessions.put({ userId: user.id, operatorId: user.operatorId, user, confirmedAt: now.toISOString(), ...(sessionExpiresAt ? { sessionExpiresAt } : {}) });
 }
 
 /** Forgets one person's cached session (the server said they are not signed in). */
@@ -342,6 +342,11 @@ export async function forgetAllSessions(db: SpeedwrightDeviceDatabase): Promise<
 /**
  * The person to open the app as when the server cannot be reached: the most recently confirmed
  * cached session whose operator's data is on this device (a completed sync). Null otherwise.
+ *
+ * A session past its absolute end (`sessionExpiresAt`, 12 hours after sign-in) still opens
+ * offline, so the cards on the device keep working within the currency limit; the first answer
+ * of the server then is a 401, which forgets it and asks for the password (`offlineSessionEnded`
+ * lets the app say so meanwhile).
  */
 export async function cachedSessionForOffline(db: SpeedwrightDeviceDatabase): Promise<SessionUser | null> {
   const sessions = (await db.sessions.toArray()).sort((a, b) => b.confirmedAt.localeCompare(a.confirmedAt));
@@ -350,6 +355,11 @@ export async function cachedSessionForOffline(db: SpeedwrightDeviceDatabase): Pr
     if (state?.lastSyncedAt) return session.user;
   }
   return null;
+}
+
+/** Whether the cached sign-in's absolute lifetime has run out (sign in again when next online). */
+export function offlineSessionEnded(record: Pick<CachedSessionRecord, 'sessionExpiresAt'> | undefined, now = new Date()): boolean {
+  return record?.sessionExpiresAt !== undefined && Date.parse(record.sessionExpiresAt) <= now.getTime();
 }
 
 /**
