@@ -8,7 +8,8 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { finalize } from 'rxjs';
-import { loginRequestSchema } from '../../../shared/api/auth';
+import { safeParse } from 'zod/mini';
+import { loginRequestSchema } from '../../../shared/api/session';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { AuthService } from '../core/auth/auth-service';
 import { ConnectionStatus } from '../core/connection/connection-status';
@@ -53,7 +54,7 @@ export class SignInPage {
       return;
     }
     this.form.markAllAsTouched();
-    const request = loginRequestSchema.safeParse(this.form.getRawValue());
+    const request = safeParse(loginRequestSchema, this.form.getRawValue());
     if (this.form.invalid || !request.success) {
       return;
     }

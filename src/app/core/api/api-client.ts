@@ -1,9 +1,9 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, catchError, map, throwError, timeout } from 'rxjs';
-import type { z } from 'zod';
+import type { z } from 'zod/mini';
 import { ApiRequestError } from './api-request-error';
-import { parseResponse } from './parse-response';
+import { parseResponse, type AnySchema } from './parse-response';
 
 /** Long enough for a slow ramp connection, short enough that nobody stares at a spinner. */
 const ANSWER_TIMEOUT_MS = 20_000;
@@ -16,7 +16,7 @@ const ANSWER_TIMEOUT_MS = 20_000;
 export class ApiClient {
   private readonly http = inject(HttpClient);
 
-  get<S extends z.ZodType>(url: string, schema: S): Observable<z.output<S>> {
+  get<S extends AnySchema>(url: string, schema: S): Observable<z.output<S>> {
     return this.http.get<unknown>(url).pipe(
       timeout({ first: ANSWER_TIMEOUT_MS }),
       parseResponse(schema),
@@ -24,7 +24,7 @@ export class ApiClient {
     );
   }
 
-  post<S extends z.ZodType>(url: string, body: unknown, schema: S): Observable<z.output<S>> {
+  post<S extends AnySchema>(url: string, body: unknown, schema: S): Observable<z.output<S>> {
     return this.http.post<unknown>(url, body).pipe(
       timeout({ first: ANSWER_TIMEOUT_MS }),
       parseResponse(schema),
@@ -32,7 +32,7 @@ export class ApiClient {
     );
   }
 
-  patch<S extends z.ZodType>(url: string, body: unknown, schema: S): Observable<z.output<S>> {
+  patch<S extends AnySchema>(url: string, body: unknown, schema: S): Observable<z.output<S>> {
     return this.http.patch<unknown>(url, body).pipe(
       timeout({ first: ANSWER_TIMEOUT_MS }),
       parseResponse(schema),

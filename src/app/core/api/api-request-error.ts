@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { TimeoutError } from 'rxjs';
-import { apiErrorSchema } from '../../../../shared/api/auth';
+import { apiErrorSchema } from '../../../../shared/api/session';
 
 /**
  * The one error every API call of the client fails with: the server's code and sentence when

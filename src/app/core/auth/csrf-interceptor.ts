@@ -1,7 +1,7 @@
 import { HttpErrorResponse, HttpInterceptorFn } from '@angular/common/http';
 import { inject } from '@angular/core';
 import { catchError, switchMap, throwError } from 'rxjs';
-import { apiErrorSchema } from '../../../../shared/api/auth';
+import { apiErrorSchema } from '../../../../shared/api/session';
 import { CSRF_HEADER, isApiUrl } from '../api/api-paths';
 import { CsrfToken } from './csrf-token';
 

@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, catchError, map, shareReplay, throwError } from 'rxjs';
-import { csrfResponseSchema } from '../../../../shared/api/auth';
+import { csrfResponseSchema } from '../../../../shared/api/session';
 import { API_PATHS } from '../api/api-paths';
 import { ApiRequestError } from '../api/api-request-error';
 import { parseResponse } from '../api/parse-response';

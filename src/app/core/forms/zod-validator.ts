@@ -1,13 +1,14 @@
 import { ValidatorFn } from '@angular/forms';
-import type { z } from 'zod';
+import { safeParse, type z } from 'zod/mini';
 
 /**
  * Validates a form control with the same zod schema the server uses, so the inline message and
  * the server's 400 say the same sentence. The error key is `schema`, its value that sentence.
+ * Takes schemas of the full zod build and of the small one (`zod/mini`).
  */
-export function zodValidator(schema: z.ZodType): ValidatorFn {
+export function zodValidator(schema: z.core.$ZodType): ValidatorFn {
   return (control) => {
-    const result = schema.safeParse(control.value);
+    const result = safeParse(schema, control.value);
     if (result.success) {
       return null;
     }
