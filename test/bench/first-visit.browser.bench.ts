@@ -19,22 +19,15 @@
  * on a shared machine a busy neighbour lowers the scores.
  */
 import { spawnSync } from 'node:child_process';
-import { randomUUID } from 'node:crypto';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { projectRoot } from '../../db/instance';
 import { openLocalDatabase, stopLocalInstance } from '../../db/local';
-import { recordCardIssue } from '../../server/cards/card-issues.service';
-import { loadCardSource } from '../../server/cards/card-source';
-import { createSequelize } from '../../server/database';
-import { AircraftType, Airframe, initModels, Revision, SpeedBook, User } from '../../server/models';
-import { checkUrl } from '../../shared/card-check/check-url';
-import { buildCard } from '../../shared/card/build-card';
-import type { CardInputs } from '../../shared/card/card';
 import { CHROMIUM_PATH } from '../e2e/browser';
 import { startAppServer } from '../support/app-server';
+import { issueDemoCard } from '../support/issue-demo-card';
 
 const DATABASE = 'speedwright_bench_first_visit';
 const PASSWORD = 'bench-password-not-for-use';
@@ -61,37 +54,6 @@ interface LighthouseResult {
   runtimeError?: { message: string };
   categories: { performance: { score: number | null } };
   audits: Record<string, { numericValue?: number; details?: { items?: Array<{ resourceType?: string; transferSize?: number }> } }>;
-}
-
-/** One card issued through the card log, as the pilot's device reports it; its check URL. */
-async function issueCard(databaseUrl: string, baseUrl: string): Promise<string> {
-  const sequelize = createSequelize(databaseUrl);
-  initModels(sequelize);
-  try {
-    const pilot = await User.findOne({ where: { email: 'pilot@demo.speedwright.example' }, rejectOnEmpty: true });
-    const actor = { operatorId: pilot.operatorId, userId: pilot.id, role: pilot.role };
-    const type = await AircraftType.findOne({ where: { operatorId: pilot.operatorId, designator: 'ZZP1' }, rejectOnEmpty: true });
-    const book = await SpeedBook.findOne({ where: { aircraftTypeId: type.id }, rejectOnEmpty: true });
-    const revision = await Revision.findOne({ where: { speedBookId: book.id, status: 'published' }, rejectOnEmpty: true });
-    const airframe = await Airframe.findOne({ where: { aircraftTypeId: type.id, active: true }, rejectOnEmpty: true });
-    const source = await loadCardSource(actor, revision.id, airframe.id, 'issue');
-    // Invented demo data — not for flight.
-    const inputs: CardInputs = {
-      airframeId: airframe.id,
-      weightKg: 950,
-      configuration: 'takeoff-flap',
-      departure: { elevationFt: 400, qnhHpa: 1016, oatC: 18 },
-      isaDeviationC: 3,
-      cruise: { iasKt: 110 },
-      altitudeStepFt: 2000,
-    };
-    const card = buildCard(source.revision, inputs, source.context);
-    const result = await recordCardIssue(actor, { id: randomUUID(), airframeId: airframe.id, revisionId: revision.id, inputs, digest: card.digest, issuedAt: new Date().toISOString() });
-    if (result.outcome !== 'recorded') throw new Error(`The card was not recorded: ${result.error.message}`);
-    return checkUrl(baseUrl, result.code, { revisionId: revision.id, inputs: card.inputs, digest: card.digest });
-  } finally {
-    await sequelize.close();
-  }
 }
 
 /** One Lighthouse run (the CLI, mobile preset, performance only) in a fresh Chromium profile. */
@@ -168,7 +130,7 @@ async function main(): Promise<void> {
     const { url: databaseUrl } = await openLocalDatabase('test', DATABASE);
     const pages = [
       { name: '/sign-in', url: `${server.baseUrl}/sign-in` },
-      { name: '/check/<code>?c=…', url: await issueCard(databaseUrl, server.baseUrl) },
+      { name: '/check/<code>?c=…', url: (await issueDemoCard(databaseUrl, server.baseUrl)).url },
     ];
     for (const page of pages) {
       const runs: LighthouseFigures[] = [];

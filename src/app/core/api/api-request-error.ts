@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { TimeoutError } from 'rxjs';
-import { apiErrorSchema } from '../../../../shared/api/session';
+import { readApiErrorBody } from './api-error-body';
 
 /**
  * The one error every API call of the client fails with: the server's code and sentence when
@@ -43,9 +43,9 @@ export class ApiRequestError extends Error {
     if (!(error instanceof HttpErrorResponse)) {
       return new ApiRequestError(0, 'client_error', 'Something went wrong in this app. Reload the page and try again.');
     }
-    const body = apiErrorSchema.safeParse(error.error);
-    if (body.success) {
-      const { code, message, fields, requestId } = body.data.error;
+    const body = readApiErrorBody(error.error);
+    if (body) {
+      const { code, message, fields, requestId } = body;
       return new ApiRequestError(error.status, code, message, fields ?? {}, true, requestId);
     }
     return new ApiRequestError(error.status, codeForStatus(error.status), sentenceForStatus(error.status));

@@ -1,11 +1,12 @@
 import { Injectable, Injector, computed, inject, signal } from '@angular/core';
 import { Observable, catchError, finalize, from, map, of, shareReplay, tap } from 'rxjs';
-import { LoginRequest, SessionUser, loginResponseSchema } from '../../../../shared/api/session';
+import type { LoginRequest, SessionUser } from '../../../../shared/api/session';
 import { API_PATHS } from '../api/api-paths';
 import { ApiClient } from '../api/api-client';
 import { ApiRequestError } from '../api/api-request-error';
 import type { SpeedwrightDeviceDatabase } from '../storage/device-database';
 import { CsrfToken } from './csrf-token';
+import { readSessionAnswer } from './session-answers';
 
 /**
  * Statuses that mean the server could not be reached (no answer, or a proxy or gateway that
@@ -51,7 +52,7 @@ export class AuthService {
   }
 
   signIn(request: LoginRequest): Observable<SessionUser> {
-    return this.api.post(API_PATHS.login, request, loginResponseSchema).pipe(
+    return this.api.post(API_PATHS.login, request, readSessionAnswer).pipe(
       map(({ user }) => user),
       tap((user) => {
         // The server regenerated the session, so the old token no longer counts.
@@ -87,7 +88,7 @@ export class AuthService {
   }
 
   private askServerForSession(): Observable<SessionUser | null> {
-    return this.api.get(API_PATHS.me, loginResponseSchema).pipe(
+    return this.api.get(API_PATHS.me, readSessionAnswer).pipe(
       map(({ user }): SessionUser | null => user),
       tap((user) => {
         if (user) this.remember(user);
