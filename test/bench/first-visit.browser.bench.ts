@@ -16,10 +16,11 @@
  * worst run: performance score ≥ 90 and first-load transfer < 300 KB. The initial JavaScript
  * (the static import closure of the entry scripts of `index.html`, gzip at level 9 as the server
  * would send it at best) must stay under 150 KB. The load average is printed beside the figures:
- * on a shared machine a busy neighbour lowers the scores.
+ * on a shared machine a busy neighbour lowers the scores. `LIGHTHOUSE_REPORT_DIR=<dir>` keeps the
+ * full reports.
  */
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
@@ -68,7 +69,11 @@ function lighthouse(url: string): LighthouseFigures {
       { env: { ...process.env, CHROME_PATH: CHROMIUM_PATH }, stdio: ['ignore', 'ignore', 'inherit'], timeout: 180_000 },
     );
     if (run.status !== 0 || !existsSync(output)) throw new Error(`Lighthouse failed on ${url} (exit ${run.status}).`);
-    const report = JSON.parse(readFileSync(output, 'utf8')) as LighthouseResult;
+    const text = readFileSync(output, 'utf8');
+    // LIGHTHOUSE_REPORT_DIR keeps each run's full report (JSON) for a closer look.
+    const keep = process.env['LIGHTHOUSE_REPORT_DIR'];
+    if (keep) writeFileSync(join(keep, `${new URL(url).pathname.split('/')[1]}-${Date.now()}.json`), text);
+    const report = JSON.parse(text) as LighthouseResult;
     if (report.runtimeError) throw new Error(`Lighthouse on ${url}: ${report.runtimeError.message}`);
     const requests = report.audits['network-requests']?.details?.items ?? [];
     const bytesOf = (type: string) => requests.filter((item) => item.resourceType === type).reduce((sum, item) => sum + (item.transferSize ?? 0), 0);

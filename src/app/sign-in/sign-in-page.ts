@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, PendingTasks, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -8,14 +8,13 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { finalize } from 'rxjs';
-import { safeParse } from 'zod/mini';
-import { loginRequestSchema } from '../../../shared/api/session';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { AuthService } from '../core/auth/auth-service';
 import { ConnectionStatus } from '../core/connection/connection-status';
 import { zodValidator } from '../core/forms/zod-validator';
 
 type SignInField = 'email' | 'password';
+type LoginRequestSchema = typeof import('../../../shared/api/session').loginRequestSchema;
 
 /** Our own sentences for when the server's answer carried none. */
 const FALLBACK_SENTENCES: Readonly<Record<number, string>> = {
@@ -39,22 +38,41 @@ export class SignInPage {
   /** Where to go after signing in; bound from the `returnUrl` query parameter. */
   readonly returnUrl = input<string | undefined>();
 
-  protected readonly form = inject(NonNullableFormBuilder).group({
-    email: ['', zodValidator(loginRequestSchema.shape.email)],
-    password: ['', zodValidator(loginRequestSchema.shape.password)],
-  });
+  /**
+   * The sign-in rules (shared/api/session.ts, zod's small build) load beside the page's first
+   * paint rather than before it; the fields get their validators as soon as they arrive.
+   */
+  private readonly rules = import('../../../shared/api/session');
+  private readonly rulesLoading = inject(PendingTasks).add();
+  protected readonly form = inject(NonNullableFormBuilder).group({ email: [''], password: [''] });
   protected readonly online = inject(ConnectionStatus).online;
   protected readonly probeProblem = this.auth.probeProblem;
   protected readonly pending = signal(false);
   protected readonly problem = signal<string | null>(null);
   protected readonly passwordVisible = signal(false);
 
-  protected signIn(): void {
+  constructor() {
+    void this.rules
+      .then(({ loginRequestSchema }) => this.applyRules(loginRequestSchema))
+      .catch(() => undefined)
+      .finally(this.rulesLoading);
+  }
+
+  protected async signIn(): Promise<void> {
     if (this.pending()) {
       return;
     }
     this.form.markAllAsTouched();
-    const request = safeParse(loginRequestSchema, this.form.getRawValue());
+    const rules = await this.rules.catch(() => null);
+    if (!rules) {
+      this.problem.set('Speedwright could not load this page completely. Reload it when the connection is steady.');
+      return;
+    }
+    const { loginRequestSchema } = rules;
+    if (this.pending()) {
+      return;
+    }
+    const request = loginRequestSchema.safeParse(this.form.getRawValue());
     if (this.form.invalid || !request.success) {
       return;
     }
@@ -70,6 +88,13 @@ export class SignInPage {
         next: () => void this.router.navigateByUrl(this.destination()),
         error: (error: ApiRequestError) => this.showProblem(error),
       });
+  }
+
+  private applyRules(schema: LoginRequestSchema): void {
+    this.form.controls.email.setValidators(zodValidator(schema.shape.email));
+    this.form.controls.password.setValidators(zodValidator(schema.shape.password));
+    this.form.controls.email.updateValueAndValidity();
+    this.form.controls.password.updateValueAndValidity();
   }
 
   protected togglePasswordVisibility(): void {

@@ -6,7 +6,7 @@ import { ApiRequestError } from './api-request-error';
  * Any zod schema, of the full build or the small one (`zod/mini`): both have `safeParse`. Only
  * types come from zod here, so the shell that imports this file carries no zod code.
  */
-export type AnySchema = z.core.$ZodType & { safeParse(data: unknown): { success: boolean; data?: unknown } };
+export type AnySchema = z.core.$ZodType & { safeParse(data: unknown): { success: boolean; data?: unknown; error?: { issues: Array<{ message: string }> } } };
 
 /**
  * A hand-written check of a body, for the few answers the app's shell reads before any zod

@@ -96,7 +96,7 @@ export class AuthService {
       catchError((error: ApiRequestError) => {
         if (error.status === 401) {
           // The server's own answer: nobody is signed in here, whatever the device remembers.
-          void this.withCache((cache, db) => cache.forgetAllSessions(db));
+          void this.forgetCachedSessions();
           return of(null);
         }
         this.lastProbeProblem.set(error);
@@ -109,6 +109,16 @@ export class AuthService {
       finalize(() => (this.probe = null)),
       shareReplay({ bufferSize: 1, refCount: false }),
     );
+  }
+
+  /**
+   * A browser that holds no IndexedDB database of this site (a first visit) has no cached
+   * session to forget, and the device store's code is not loaded for nothing.
+   */
+  private async forgetCachedSessions(): Promise<void> {
+    const databases = await globalThis.indexedDB?.databases?.().catch(() => undefined);
+    if (databases && databases.length === 0) return;
+    await this.withCache((cache, db) => cache.forgetAllSessions(db));
   }
 
   private remember(user: SessionUser): void {

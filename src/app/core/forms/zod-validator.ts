@@ -1,17 +1,17 @@
 import { ValidatorFn } from '@angular/forms';
-import { safeParse, type z } from 'zod/mini';
+import type { AnySchema } from '../api/parse-response';
 
 /**
  * Validates a form control with the same zod schema the server uses, so the inline message and
  * the server's 400 say the same sentence. The error key is `schema`, its value that sentence.
  * Takes schemas of the full zod build and of the small one (`zod/mini`).
  */
-export function zodValidator(schema: z.core.$ZodType): ValidatorFn {
+export function zodValidator(schema: AnySchema): ValidatorFn {
   return (control) => {
-    const result = safeParse(schema, control.value);
+    const result = schema.safeParse(control.value);
     if (result.success) {
       return null;
     }
-    return { schema: result.error.issues[0]?.message ?? 'This value is not valid.' };
+    return { schema: result.error?.issues[0]?.message ?? 'This value is not valid.' };
   };
 }
