@@ -38,12 +38,13 @@ export class SignInPage {
   /** Where to go after signing in; bound from the `returnUrl` query parameter. */
   readonly returnUrl = input<string | undefined>();
 
+  private readonly pendingTasks = inject(PendingTasks);
   /**
-   * The sign-in rules (shared/api/session.ts, zod's small build) load beside the page's first
-   * paint rather than before it; the fields get their validators as soon as they arrive.
+   * The sign-in rules (shared/api/session.ts, zod's small build) load when the person first
+   * focuses the form (or submits it), not with the page; the fields get their validators as
+   * soon as they arrive, well before a field is left.
    */
-  private readonly rules = import('../../../shared/api/session');
-  private readonly rulesLoading = inject(PendingTasks).add();
+  private rules: Promise<typeof import('../../../shared/api/session')> | null = null;
   protected readonly form = inject(NonNullableFormBuilder).group({ email: [''], password: [''] });
   protected readonly online = inject(ConnectionStatus).online;
   protected readonly probeProblem = this.auth.probeProblem;
@@ -51,11 +52,13 @@ export class SignInPage {
   protected readonly problem = signal<string | null>(null);
   protected readonly passwordVisible = signal(false);
 
-  constructor() {
-    void this.rules
-      .then(({ loginRequestSchema }) => this.applyRules(loginRequestSchema))
-      .catch(() => undefined)
-      .finally(this.rulesLoading);
+  protected prepareValidation(): Promise<typeof import('../../../shared/api/session') | null> {
+    if (!this.rules) {
+      const loading = this.pendingTasks.add();
+      this.rules = import('../../../shared/api/session');
+      this.rules.then(({ loginRequestSchema }) => this.applyRules(loginRequestSchema)).catch(() => (this.rules = null)).finally(loading);
+    }
+    return this.rules.catch(() => null);
   }
 
   protected async signIn(): Promise<void> {
@@ -63,7 +66,7 @@ export class SignInPage {
       return;
     }
     this.form.markAllAsTouched();
-    const rules = await this.rules.catch(() => null);
+    const rules = await this.prepareValidation();
     if (!rules) {
       this.problem.set('Speedwright could not load this page completely. Reload it when the connection is steady.');
       return;

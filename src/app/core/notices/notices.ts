@@ -1,4 +1,4 @@
-import { Injectable, Injector, afterNextRender, inject } from '@angular/core';
+import { Injectable, Injector, inject } from '@angular/core';
 import type { MatSnackBar, MatSnackBarRef, TextOnlySnackBar } from '@angular/material/snack-bar';
 import { EMPTY, Observable, from, switchMap } from 'rxjs';
 
@@ -6,9 +6,8 @@ const loadSnackBar = () => import('@angular/material/snack-bar').then((m) => m.M
 
 /**
  * The app's short messages at the foot of the screen (Material's snack bar), with the snack
- * bar's code (and the overlay code under it) loaded just after the first screen has rendered
- * instead of in the first download. Once loaded it stays in memory, so a message about a page
- * that cannot be fetched still shows when the connection has gone.
+ * bar's code (and the overlay code under it) loaded when first needed or once the service
+ * worker is ready, instead of in the first download.
  */
 @Injectable({ providedIn: 'root' })
 export class Notices {
@@ -16,7 +15,9 @@ export class Notices {
   private snackBar: Promise<MatSnackBar> | null = null;
 
   constructor() {
-    afterNextRender(() => void this.load().catch(() => undefined), { injector: this.injector });
+    // Once the service worker holds the app, the snack bar's code is in memory before any
+    // message: one about a page that cannot be fetched offline must not need the network.
+    void globalThis.navigator?.serviceWorker?.ready.then(() => this.load()).catch(() => undefined);
   }
 
   /** Shows `message` with an action button; the observable emits when the action is taken. */
