@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, PendingTasks, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, ChangeDetectorRef, Component, DestroyRef, PendingTasks, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -39,6 +39,7 @@ export class SignInPage {
   readonly returnUrl = input<string | undefined>();
 
   private readonly pendingTasks = inject(PendingTasks);
+  private readonly changeDetector = inject(ChangeDetectorRef);
   /**
    * The sign-in rules (shared/api/session.ts, zod's small build) load when the person first
    * focuses the form (or submits it), not with the page; the fields get their validators as
@@ -98,6 +99,8 @@ export class SignInPage {
     this.form.controls.password.setValidators(zodValidator(schema.shape.password));
     this.form.controls.email.updateValueAndValidity();
     this.form.controls.password.updateValueAndValidity();
+    // The controls' errors are not signals: show the new verdicts (OnPush, zoneless).
+    this.changeDetector.markForCheck();
   }
 
   protected togglePasswordVisibility(): void {
