@@ -67,8 +67,13 @@ type Method = RouteConfig['method'];
 
 const idParams = z.object({ id: z.string().regex(/^[1-9]\d*$/).describe('Record id') });
 const entryIdParams = z.object({ id: z.uuid().describe('The card log entry’s id, a UUID the device chose') });
-// Schemas of zod's small build (shared/api/session.ts) carry the same definitions (`def`) it reads.
-const json = (schema: z.core.$ZodType) => ({ content: { 'application/json': { schema: schema as z.ZodType } } });
+/**
+ * zod-to-openapi reads schemas of the full zod build; those of the small build (`zod/mini`,
+ * shared/api/session.ts) go in as zod's own JSON Schema of their input or output.
+ */
+const json = (schema: z.core.$ZodType, io: 'input' | 'output' = 'output') => ({
+  content: { 'application/json': { schema: schema instanceof z.ZodType ? schema : (z.toJSONSchema(schema, { unrepresentable: 'any', io }) as Record<string, unknown>) } },
+});
 /** A recursive schema (z.lazy) as zod's own JSON Schema; zod-to-openapi recurses on those without end. */
 const jsonSchemaOf = (schema: z.core.$ZodType) => z.toJSONSchema(schema, { unrepresentable: 'any', io: 'output' }) as Record<string, unknown>;
 
@@ -127,7 +132,7 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
       request: {
         ...(spec.params ? { params: spec.params === true ? idParams : spec.params } : {}),
         ...(spec.query ? { query: spec.query } : {}),
-        ...(spec.body ? { body: { required: true, ...json(spec.body) } } : {}),
+        ...(spec.body ? { body: { required: true, ...json(spec.body, 'input') } } : {}),
         ...(spec.upload
           ? {
               body: {
