@@ -34,8 +34,14 @@ describe('the subset icon font', () => {
     }
   });
 
-  it('finds names in string literals and in the text of mat-icon elements, not in interpolations', () => {
-    const words = candidatesIn(`icon: 'flight', x = "menu_open"; <mat-icon class="a">delete</mat-icon> <mat-icon>{{ name }}</mat-icon> 'Not a name' 'two words'`);
-    expect([...words].sort()).toEqual(['delete', 'flight', 'menu_open']);
+  it('reads a template’s mat-icon elements: their text and the strings of their interpolation, nothing else', () => {
+    const words = candidatesIn(`<p role="region" class="note">plain</p> <mat-icon class="ab">delete</mat-icon> <mat-icon>{{ on() ? 'wifi' : 'wifi_off' }}</mat-icon> <mat-icon>{{ name }}</mat-icon>`, 'html');
+    expect([...words].sort()).toEqual(['delete', 'wifi', 'wifi_off']);
+  });
+
+  it('reads every string literal of a TypeScript file that mentions icons, and none of one that does not', () => {
+    expect([...candidatesIn(`const ICONS = { ok: 'check_circle' }; x = "menu_open"; 'Not a name'; 'two words'`, 'ts')].sort()).toEqual(['check_circle', 'menu_open']);
+    expect([...candidatesIn('template: `\n  <mat-icon>campaign</mat-icon>\n`', 'ts')]).toEqual(['campaign']);
+    expect([...candidatesIn(`const kind = 'takeoff'; mode = "night"`, 'ts')]).toEqual([]);
   });
 });
