@@ -36,6 +36,7 @@ import { speedBooksRoutes } from './speed-books/speed-books.routes';
 import { cardIssuesRoutes, cardsRoutes } from './cards/cards.routes';
 import { syncRoutes } from './sync/sync.routes';
 import { verifyRoutes } from './verify/verify.routes';
+import { fontPreloadLinks } from './web-app/font-preload';
 
 export const SESSION_COOKIE = 'speedwright.sid';
 const SESSION_HOURS = 12;
@@ -231,6 +232,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
 /** The production build of the Angular app with its service worker; every other path gets index.html. */
 function serveWebApp(app: Express, distDir: string): void {
   const index = join(distDir, 'index.html');
+  let fontLinks: string | undefined;
   app.use(
     express.static(distDir, {
       index: false,
@@ -251,6 +253,8 @@ function serveWebApp(app: Express, distDir: string): void {
       return;
     }
     res.setHeader('Cache-Control', 'no-cache');
+    fontLinks ??= fontPreloadLinks(distDir) ?? '';
+    if (fontLinks) res.setHeader('Link', fontLinks);
     res.sendFile(index);
   });
 }

@@ -24,7 +24,8 @@ function ensureChromium(): void {
 }
 
 function run(args: string[]): number {
-  const result = spawnSync(process.execPath, args, { cwd: projectRoot, stdio: 'inherit', env: { ...process.env, NG_CLI_ANALYTICS: 'false' } });
+  // NG_BUILD_OPTIMIZE_CHUNKS: the build as `npm run build` makes it (DEVELOPERS.md, "A fast first visit").
+  const result = spawnSync(process.execPath, args, { cwd: projectRoot, stdio: 'inherit', env: { ...process.env, NG_CLI_ANALYTICS: 'false', NG_BUILD_OPTIMIZE_CHUNKS: '1' } });
   return result.status ?? 1;
 }
 

@@ -1,4 +1,4 @@
-import type { z } from 'zod';
+import * as z from 'zod';
 import { HttpError } from '../http-error';
 
 /** Field path → sentence, as the error body's `fields` carries it. */
@@ -16,8 +16,9 @@ export function fieldErrors(error: z.ZodError): Record<string, string> {
 }
 
 /** Parses `value` with `schema` or throws a 400 that names each field and what is wrong with it. */
-export function parseOrThrow<T extends z.ZodType>(schema: T, value: unknown, what = 'request'): z.infer<T> {
-  const result = schema.safeParse(value ?? {});
+export function parseOrThrow<T extends z.core.$ZodType>(schema: T, value: unknown, what = 'request'): z.output<T> {
+  // zod's parse function rather than the method: it takes schemas of the small build (zod/mini) too.
+  const result = z.safeParse(schema, value ?? {});
   if (result.success) return result.data;
   throw new HttpError(400, 'invalid_request', `Some fields of the ${what} are not right.`, fieldErrors(result.error));
 }

@@ -68,9 +68,15 @@ type Method = RouteConfig['method'];
 
 const idParams = z.object({ id: z.string().regex(/^[1-9]\d*$/).describe('Record id') });
 const entryIdParams = z.object({ id: z.uuid().describe('The card log entry’s id, a UUID the device chose') });
-const json = (schema: z.ZodType) => ({ content: { 'application/json': { schema } } });
+/**
+ * zod-to-openapi reads schemas of the full zod build; those of the small build (`zod/mini`,
+ * shared/api/session.ts) go in as zod's own JSON Schema of their input or output.
+ */
+const json = (schema: z.core.$ZodType, io: 'input' | 'output' = 'output') => ({
+  content: { 'application/json': { schema: schema instanceof z.ZodType ? schema : (z.toJSONSchema(schema, { unrepresentable: 'any', io }) as Record<string, unknown>) } },
+});
 /** A recursive schema (z.lazy) as zod's own JSON Schema; zod-to-openapi recurses on those without end. */
-const jsonSchemaOf = (schema: z.ZodType) => z.toJSONSchema(schema, { unrepresentable: 'any', io: 'output' }) as Record<string, unknown>;
+const jsonSchemaOf = (schema: z.core.$ZodType) => z.toJSONSchema(schema, { unrepresentable: 'any', io: 'output' }) as Record<string, unknown>;
 
 const ERRORS: Record<number, string> = {
   400: 'The request is not valid; `fields` names each field at fault.',
@@ -89,10 +95,10 @@ interface RouteSpec {
   /** `true`: a numeric record id `:id`; or the schema of the path parameters. */
   params?: boolean | z.ZodObject;
   query?: z.ZodObject;
-  body?: z.ZodType;
+  body?: z.core.$ZodType;
   /** A multipart upload of one file in the field `file`, instead of a JSON body. */
   upload?: string;
-  ok: { status: number; schema?: z.ZodType; description?: string; recursive?: boolean };
+  ok: { status: number; schema?: z.core.$ZodType; description?: string; recursive?: boolean };
   errors?: number[];
 }
 
@@ -101,7 +107,7 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   const registry = new OpenAPIRegistry();
   // Named components come from zod's own JSON Schema output: `registry.register` needs schemas
   // made after `extendZodWithOpenApi`, and the shared ones are made at import, before it.
-  const component = (name: string, schema: z.ZodType) =>
+  const component = (name: string, schema: z.core.$ZodType) =>
     registry.registerComponent('schemas', name, z.toJSONSchema(schema, { unrepresentable: 'any', io: 'input' }) as Record<string, unknown>);
   component('ApiError', apiErrorSchema);
   component('RevisionContent', revisionContentSchema);
@@ -127,7 +133,7 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
       request: {
         ...(spec.params ? { params: spec.params === true ? idParams : spec.params } : {}),
         ...(spec.query ? { query: spec.query } : {}),
-        ...(spec.body ? { body: { required: true, ...json(spec.body) } } : {}),
+        ...(spec.body ? { body: { required: true, ...json(spec.body, 'input') } } : {}),
         ...(spec.upload
           ? {
               body: {

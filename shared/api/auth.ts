@@ -2,31 +2,9 @@ import * as z from 'zod';
 import { ROLES } from '../auth/roles';
 import { plainText } from '../text/plain-text';
 
-/** The signed-in person as the API returns it (`/api/auth/login`, `/api/auth/me`). */
-export const sessionUserSchema = z.object({
-  id: z.number().int().positive(),
-  email: z.string().email(),
-  displayName: z.string(),
-  role: z.enum(ROLES),
-  operatorId: z.number().int().positive(),
-  operatorName: z.string(),
-  /** A demo operator's figures are invented; its cards say so (and the flag is part of their digest). */
-  operatorIsDemo: z.boolean(),
-});
-export type SessionUser = z.infer<typeof sessionUserSchema>;
-
-export const loginRequestSchema = z.strictObject({
-  email: z.string().trim().toLowerCase().email('Enter an e-mail address such as name@example.com.').max(254),
-  password: z.string().min(1, 'Enter your password.').max(200),
-});
-export type LoginRequest = z.infer<typeof loginRequestSchema>;
-
-export const loginResponseSchema = z.object({
-  user: sessionUserSchema,
-  /** When this sign-in ends whatever happens (12 hours after it, ASVS 3.3.2); the device keeps it. */
-  sessionExpiresAt: z.string().optional(),
-});
-export const csrfResponseSchema = z.object({ token: z.string().min(1) });
+// Signing in and the session: in zod's small build, for the app's first screen (session.ts).
+export { apiErrorSchema, csrfResponseSchema, loginRequestSchema, loginResponseSchema, sessionUserSchema } from './session';
+export type { ApiError, LoginRequest, SessionUser } from './session';
 
 /** A person of the operator as the admin's people list shows it (`GET /api/users`). */
 export const operatorPersonSchema = z.object({
@@ -83,20 +61,6 @@ export type PasswordResetRequest = z.infer<typeof passwordResetRequestSchema>;
 
 /** The answer of accept and confirm: the address to sign in with next. */
 export const passwordSetResponseSchema = z.object({ email: z.string() });
-
-/**
- * Every error the API sends has this shape. `fields` maps a dotted field path to a sentence
- * when the request itself was at fault.
- */
-export const apiErrorSchema = z.object({
-  error: z.object({
-    code: z.string(),
-    message: z.string(),
-    fields: z.record(z.string(), z.string()).optional(),
-    requestId: z.string().optional(),
-  }),
-});
-export type ApiError = z.infer<typeof apiErrorSchema>;
 
 export const healthSchema = z.object({ status: z.enum(['ok', 'degraded']), db: z.enum(['ok', 'down']) });
 

@@ -5,6 +5,7 @@ import { CHECK_ROUTES } from './check/check.routes';
 import { capabilityGuard } from './core/auth/capability-guard';
 import { sessionKnownGuard, signedInGuard, signedOutGuard } from './core/auth/signed-in-guard';
 import { NavigationEntry } from './core/navigation/navigation-entry';
+import { loadSignInPage } from './first-screen-pages';
 
 function routeFor(entry: NavigationEntry): Route {
   return {
@@ -21,7 +22,7 @@ export const routes: Routes = [
     path: 'sign-in',
     title: 'Sign in · Speedwright',
     canActivate: [signedOutGuard],
-    loadComponent: () => import('./sign-in/sign-in-page').then((m) => m.SignInPage),
+    loadComponent: loadSignInPage,
   },
   ...ACCOUNT_ROUTES,
   ...CHECK_ROUTES,

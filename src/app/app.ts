@@ -5,7 +5,6 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatSidenavModule } from '@angular/material/sidenav';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { NavigationEnd, Router, RouterLink, RouterOutlet } from '@angular/router';
 import { filter, firstValueFrom, map } from 'rxjs';
@@ -14,6 +13,7 @@ import { ApiRequestError } from './core/api/api-request-error';
 import { AuthService } from './core/auth/auth-service';
 import type { SyncService } from './core/sync/sync-service';
 import { ThemePreference } from './core/theme/theme-preference';
+import { Notices } from './core/notices/notices';
 import { AppUpdates } from './core/updates/app-updates';
 import { ConnectionIndicator } from './shell/connection-indicator';
 import type { DiscardWaitingData } from './shell/discard-waiting-dialog';
@@ -48,7 +48,7 @@ export { SAFETY_CAUTION };
 export class App {
   private readonly auth = inject(AuthService);
   private readonly router = inject(Router);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly notices = inject(Notices);
   private readonly destroyRef = inject(DestroyRef);
   private readonly appUpdates = inject(AppUpdates);
   private readonly injector = inject(Injector);
@@ -74,9 +74,12 @@ export class App {
   constructor() {
     inject(ThemePreference);
     this.appUpdates.watch();
-    // Sync starts with the app (at sign-in, page load, coming online, on a timer); its code,
-    // with the device store's, loads just after the first screen.
-    void this.syncService();
+    // Sync runs while someone is signed in (from sign-in or page load, coming online, on a
+    // timer); its code, with the device store's, loads once there is someone to sync for, so a
+    // first visit (sign-in page, a stranger's card check) does not download it.
+    effect(() => {
+      if (this.user()) void this.syncService();
+    });
     this.closeMenuAfterNavigation();
   }
 
@@ -124,11 +127,11 @@ export class App {
       try {
         await firstValueFrom(this.auth.signOut());
       } catch (error) {
-        this.snackBar.open(`You are still signed in. ${ApiRequestError.from(error).message}`, 'Close');
+        this.notices.show(`You are still signed in. ${ApiRequestError.from(error).message}`, 'Close');
         return;
       }
       await sync.removeOperatorData(user).catch(() => undefined);
-      this.snackBar.dismiss();
+      this.notices.dismiss();
       void this.router.navigate(['/sign-in']);
     } finally {
       this.signingOut.set(false);

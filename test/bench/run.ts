@@ -18,7 +18,7 @@ const benches = readdirSync(dir)
 // Benchmarks that drive Chromium (`*.browser.bench.ts`) run against the production build.
 if (benches.some((name) => name.endsWith('.browser.bench.ts')) && process.env['SKIP_BUILD'] !== '1') {
   console.log('\u203a Building the web app (production) for the Chromium benchmarks (SKIP_BUILD=1 skips)');
-  const build = spawnSync(process.execPath, [join(dir, '..', '..', 'node_modules/@angular/cli/bin/ng.js'), 'build'], { stdio: 'inherit' });
+  const build = spawnSync(process.execPath, [join(dir, '..', '..', 'node_modules/@angular/cli/bin/ng.js'), 'build'], { stdio: 'inherit', env: { ...process.env, NG_BUILD_OPTIMIZE_CHUNKS: '1' } });
   if (build.status !== 0) process.exit(1);
 }
 

@@ -1,6 +1,6 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { ComponentFixture, DeferBlockBehavior, DeferBlockState, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import { of } from 'rxjs';
 import type { SessionUser } from '../../../shared/api/auth';
@@ -42,7 +42,15 @@ describe('CheckPage', () => {
     user = null;
     offlineData = null;
     read.mockClear();
+    // jsdom has no IntersectionObserver, which `@defer (on viewport)` sets up: one that never reports.
+    (globalThis as { IntersectionObserver?: unknown }).IntersectionObserver ??= class {
+      observe(): void {}
+      unobserve(): void {}
+      disconnect(): void {}
+    };
     TestBed.configureTestingModule({
+      // The card view is deferred until it is in view; settle() renders it.
+      deferBlockBehavior: DeferBlockBehavior.Manual,
       imports: [CheckPage],
       providers: [
         provideRouter([]),
@@ -56,8 +64,11 @@ describe('CheckPage', () => {
   });
   afterEach(() => backend.verify());
 
+  /** Also scrolls the deferred card view into being (`@defer (on viewport)`; jsdom has no viewport). */
   async function settle(): Promise<void> {
     for (let i = 0; i < 5; i++) await new Promise((done) => setTimeout(done, 0));
+    await fixture.whenStable();
+    for (const block of await fixture.getDeferBlocks()) await block.render(DeferBlockState.Complete);
     await fixture.whenStable();
   }
 

@@ -1,5 +1,6 @@
 import { Routes } from '@angular/router';
 import { sessionKnownGuard } from '../core/auth/signed-in-guard';
+import { loadCheckPage } from '../first-screen-pages';
 
 /**
  * The check page a printed card's QR code opens. Open to everyone: the code is what the holder
@@ -11,6 +12,6 @@ export const CHECK_ROUTES: Routes = [
     path: 'check/:code',
     title: 'Card check · Speedwright',
     canActivate: [sessionKnownGuard],
-    loadComponent: () => import('./check-page').then((m) => m.CheckPage),
+    loadComponent: loadCheckPage,
   },
 ];

@@ -1,6 +1,5 @@
-import { Injectable, inject } from '@angular/core';
+import { Injectable, Injector, inject } from '@angular/core';
 import type { CardContext, CardRevision } from '../../../shared/card/card';
-import { DeviceStore } from '../core/storage/device-store';
 import type { RevisionRecord, SpeedwrightDeviceDatabase } from '../core/storage/device-database';
 
 /** What this device holds, from its last sync, about the revision a card names. */
@@ -53,11 +52,20 @@ export async function readOfflineCheck(db: SpeedwrightDeviceDatabase, operatorId
   };
 }
 
+/**
+ * The device store (Dexie) is loaded when first read: a stranger's online check, the common
+ * case on a phone, never needs it, so it stays out of the check page's first download.
+ */
 @Injectable({ providedIn: 'root' })
 export class OfflineCheckData implements OfflineCheckReader {
-  private readonly store = inject(DeviceStore);
+  private readonly injector = inject(Injector);
 
-  read(operatorId: number, revisionId: number, airframeId: number): Promise<OfflineCheck | null> {
-    return readOfflineCheck(this.store.db, operatorId, revisionId, airframeId).catch(() => null);
+  async read(operatorId: number, revisionId: number, airframeId: number): Promise<OfflineCheck | null> {
+    try {
+      const { DeviceStore } = await import('../core/storage/device-store');
+      return await readOfflineCheck(this.injector.get(DeviceStore).db, operatorId, revisionId, airframeId);
+    } catch {
+      return null;
+    }
   }
 }

@@ -1,20 +1,19 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatTooltipModule } from '@angular/material/tooltip';
 import { ThemePreference } from '../core/theme/theme-preference';
 
 /** Switches between the day theme and the dimmed night theme for a dark cockpit. */
 @Component({
   selector: 'sw-theme-toggle',
-  imports: [MatButtonModule, MatIconModule, MatTooltipModule],
+  imports: [MatButtonModule, MatIconModule],
   template: `
     <button
       mat-icon-button
       type="button"
       aria-label="Night theme"
       [attr.aria-pressed]="isNight()"
-      [matTooltip]="isNight() ? 'Night theme is on' : 'Night theme is off'"
+      [attr.title]="isNight() ? 'Night theme is on' : 'Night theme is off'"
       (click)="toggleTheme()"
     >
       <mat-icon>{{ isNight() ? 'dark_mode' : 'light_mode' }}</mat-icon>

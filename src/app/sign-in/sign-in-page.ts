@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, ChangeDetectorRef, Component, DestroyRef, PendingTasks, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -8,13 +8,13 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { finalize } from 'rxjs';
-import { loginRequestSchema } from '../../../shared/api/auth';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { AuthService } from '../core/auth/auth-service';
 import { ConnectionStatus } from '../core/connection/connection-status';
 import { zodValidator } from '../core/forms/zod-validator';
 
 type SignInField = 'email' | 'password';
+type LoginRequestSchema = typeof import('../../../shared/api/session').loginRequestSchema;
 
 /** Our own sentences for when the server's answer carried none. */
 const FALLBACK_SENTENCES: Readonly<Record<number, string>> = {
@@ -38,21 +38,44 @@ export class SignInPage {
   /** Where to go after signing in; bound from the `returnUrl` query parameter. */
   readonly returnUrl = input<string | undefined>();
 
-  protected readonly form = inject(NonNullableFormBuilder).group({
-    email: ['', zodValidator(loginRequestSchema.shape.email)],
-    password: ['', zodValidator(loginRequestSchema.shape.password)],
-  });
+  private readonly pendingTasks = inject(PendingTasks);
+  private readonly changeDetector = inject(ChangeDetectorRef);
+  /**
+   * The sign-in rules (shared/api/session.ts, zod's small build) load when the person first
+   * focuses the form (or submits it), not with the page; the fields get their validators as
+   * soon as they arrive, well before a field is left.
+   */
+  private rules: Promise<typeof import('../../../shared/api/session')> | null = null;
+  protected readonly form = inject(NonNullableFormBuilder).group({ email: [''], password: [''] });
   protected readonly online = inject(ConnectionStatus).online;
   protected readonly probeProblem = this.auth.probeProblem;
   protected readonly pending = signal(false);
   protected readonly problem = signal<string | null>(null);
   protected readonly passwordVisible = signal(false);
 
-  protected signIn(): void {
+  protected prepareValidation(): Promise<typeof import('../../../shared/api/session') | null> {
+    if (!this.rules) {
+      const loading = this.pendingTasks.add();
+      this.rules = import('../../../shared/api/session');
+      this.rules.then(({ loginRequestSchema }) => this.applyRules(loginRequestSchema)).catch(() => (this.rules = null)).finally(loading);
+    }
+    return this.rules.catch(() => null);
+  }
+
+  protected async signIn(): Promise<void> {
     if (this.pending()) {
       return;
     }
     this.form.markAllAsTouched();
+    const rules = await this.prepareValidation();
+    if (!rules) {
+      this.problem.set('Speedwright could not load this page completely. Reload it when the connection is steady.');
+      return;
+    }
+    const { loginRequestSchema } = rules;
+    if (this.pending()) {
+      return;
+    }
     const request = loginRequestSchema.safeParse(this.form.getRawValue());
     if (this.form.invalid || !request.success) {
       return;
@@ -69,6 +92,15 @@ export class SignInPage {
         next: () => void this.router.navigateByUrl(this.destination()),
         error: (error: ApiRequestError) => this.showProblem(error),
       });
+  }
+
+  private applyRules(schema: LoginRequestSchema): void {
+    this.form.controls.email.setValidators(zodValidator(schema.shape.email));
+    this.form.controls.password.setValidators(zodValidator(schema.shape.password));
+    this.form.controls.email.updateValueAndValidity();
+    this.form.controls.password.updateValueAndValidity();
+    // The controls' errors are not signals: show the new verdicts (OnPush, zoneless).
+    this.changeDetector.markForCheck();
   }
 
   protected togglePasswordVisibility(): void {

@@ -1,9 +1,9 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import { Observable, catchError, map, throwError, timeout } from 'rxjs';
-import type { z } from 'zod';
+import { Observable, OperatorFunction, catchError, map, throwError, timeout } from 'rxjs';
+import type { z } from 'zod/mini';
 import { ApiRequestError } from './api-request-error';
-import { parseResponse } from './parse-response';
+import { parseResponse, readResponse, type AnySchema, type BodyReader } from './parse-response';
 
 /** Long enough for a slow ramp connection, short enough that nobody stares at a spinner. */
 const ANSWER_TIMEOUT_MS = 20_000;
@@ -16,23 +16,28 @@ const ANSWER_TIMEOUT_MS = 20_000;
 export class ApiClient {
   private readonly http = inject(HttpClient);
 
-  get<S extends z.ZodType>(url: string, schema: S): Observable<z.output<S>> {
+  /** `schema` may be a hand-written reader (parse-response.ts) where the shell must avoid zod. */
+  get<S extends AnySchema>(url: string, schema: S): Observable<z.output<S>>;
+  get<T>(url: string, read: BodyReader<T>): Observable<T>;
+  get(url: string, schema: AnySchema | BodyReader<unknown>): Observable<unknown> {
     return this.http.get<unknown>(url).pipe(
       timeout({ first: ANSWER_TIMEOUT_MS }),
-      parseResponse(schema),
+      parse(schema),
       catchError((error: unknown) => throwError(() => ApiRequestError.from(error))),
     );
   }
 
-  post<S extends z.ZodType>(url: string, body: unknown, schema: S): Observable<z.output<S>> {
+  post<S extends AnySchema>(url: string, body: unknown, schema: S): Observable<z.output<S>>;
+  post<T>(url: string, body: unknown, read: BodyReader<T>): Observable<T>;
+  post(url: string, body: unknown, schema: AnySchema | BodyReader<unknown>): Observable<unknown> {
     return this.http.post<unknown>(url, body).pipe(
       timeout({ first: ANSWER_TIMEOUT_MS }),
-      parseResponse(schema),
+      parse(schema),
       catchError((error: unknown) => throwError(() => ApiRequestError.from(error))),
     );
   }
 
-  patch<S extends z.ZodType>(url: string, body: unknown, schema: S): Observable<z.output<S>> {
+  patch<S extends AnySchema>(url: string, body: unknown, schema: S): Observable<z.output<S>> {
     return this.http.patch<unknown>(url, body).pipe(
       timeout({ first: ANSWER_TIMEOUT_MS }),
       parseResponse(schema),
@@ -48,4 +53,8 @@ export class ApiClient {
       catchError((error: unknown) => throwError(() => ApiRequestError.from(error))),
     );
   }
+}
+
+function parse(schema: AnySchema | BodyReader<unknown>): OperatorFunction<unknown, unknown> {
+  return typeof schema === 'function' ? readResponse(schema) : parseResponse(schema);
 }

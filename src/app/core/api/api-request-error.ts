@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { TimeoutError } from 'rxjs';
-import { apiErrorSchema } from '../../../../shared/api/auth';
+import { readApiErrorBody } from './api-error-body';
 
 /**
  * The one error every API call of the client fails with: the server's code and sentence when
@@ -44,9 +44,9 @@ export class ApiRequestError extends Error {
       return new ApiRequestError(0, 'client_error', 'Something went wrong in this app. Reload the page and try again.');
     }
     // A request made for text (no answer expected) gets its error body as text, too.
-    const body = apiErrorSchema.safeParse(typeof error.error === 'string' ? parseJson(error.error) : error.error);
-    if (body.success) {
-      const { code, message, fields, requestId } = body.data.error;
+    const body = readApiErrorBody(typeof error.error === 'string' ? parseJson(error.error) : error.error);
+    if (body) {
+      const { code, message, fields, requestId } = body;
       return new ApiRequestError(error.status, code, message, fields ?? {}, true, requestId);
     }
     return new ApiRequestError(error.status, codeForStatus(error.status), sentenceForStatus(error.status));

@@ -1,11 +1,12 @@
 import { Injectable, Injector, computed, inject, signal } from '@angular/core';
 import { Observable, catchError, finalize, from, map, of, shareReplay, tap } from 'rxjs';
-import { LoginRequest, SessionUser, loginResponseSchema } from '../../../../shared/api/auth';
+import type { LoginRequest, SessionUser } from '../../../../shared/api/session';
 import { API_PATHS } from '../api/api-paths';
 import { ApiClient } from '../api/api-client';
 import { ApiRequestError } from '../api/api-request-error';
 import type { SpeedwrightDeviceDatabase } from '../storage/device-database';
 import { CsrfToken } from './csrf-token';
+import { readSessionAnswer } from './session-answers';
 
 /**
  * Statuses that mean the server could not be reached (no answer, or a proxy or gateway that
@@ -57,7 +58,7 @@ export class AuthService {
   }
 
   signIn(request: LoginRequest): Observable<SessionUser> {
-    return this.api.post(API_PATHS.login, request, loginResponseSchema).pipe(
+    return this.api.post(API_PATHS.login, request, readSessionAnswer).pipe(
       tap(({ user, sessionExpiresAt }) => {
         // The server regenerated the session, so the old token no longer counts.
         this.csrf.forget();
@@ -93,13 +94,13 @@ export class AuthService {
   }
 
   private askServerForSession(): Observable<SessionUser | null> {
-    return this.api.get(API_PATHS.me, loginResponseSchema).pipe(
+    return this.api.get(API_PATHS.me, readSessionAnswer).pipe(
       tap(({ user, sessionExpiresAt }) => this.remember(user, sessionExpiresAt)),
       map(({ user }): SessionUser | null => user),
       catchError((error: ApiRequestError) => {
         if (error.status === 401) {
           // The server's own answer: nobody is signed in here, whatever the device remembers.
-          void this.withCache((cache, db) => cache.forgetAllSessions(db));
+          void this.forgetCachedSessions();
           return of(null);
         }
         this.lastProbeProblem.set(error);
@@ -116,6 +117,16 @@ export class AuthService {
       finalize(() => (this.probe = null)),
       shareReplay({ bufferSize: 1, refCount: false }),
     );
+  }
+
+  /**
+   * A browser that holds no IndexedDB database of this site (a first visit) has no cached
+   * session to forget, and the device store's code is not loaded for nothing.
+   */
+  private async forgetCachedSessions(): Promise<void> {
+    const databases = await globalThis.indexedDB?.databases?.().catch(() => undefined);
+    if (databases && databases.length === 0) return;
+    await this.withCache((cache, db) => cache.forgetAllSessions(db));
   }
 
   private remember(user: SessionUser, sessionExpiresAt?: string): void {

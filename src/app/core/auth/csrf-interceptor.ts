@@ -1,7 +1,7 @@
 import { HttpErrorResponse, HttpInterceptorFn } from '@angular/common/http';
 import { inject } from '@angular/core';
 import { catchError, switchMap, throwError } from 'rxjs';
-import { apiErrorSchema } from '../../../../shared/api/auth';
+import { readApiErrorBody } from '../api/api-error-body';
 import { CSRF_HEADER, isApiUrl } from '../api/api-paths';
 import { CsrfToken } from './csrf-token';
 
@@ -35,6 +35,5 @@ function isStaleTokenRejection(error: unknown): boolean {
   if (!(error instanceof HttpErrorResponse) || error.status !== 403) {
     return false;
   }
-  const body = apiErrorSchema.safeParse(error.error);
-  return body.success && body.data.error.code === 'csrf_invalid';
+  return readApiErrorBody(error.error)?.code === 'csrf_invalid';
 }

@@ -1,10 +1,10 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, catchError, map, shareReplay, throwError } from 'rxjs';
-import { csrfResponseSchema } from '../../../../shared/api/auth';
 import { API_PATHS } from '../api/api-paths';
 import { ApiRequestError } from '../api/api-request-error';
-import { parseResponse } from '../api/parse-response';
+import { readResponse } from '../api/parse-response';
+import { readCsrfAnswer } from './session-answers';
 
 /**
  * The CSRF token of the current session, fetched once and shared. The server ties it to the
@@ -26,7 +26,7 @@ export class CsrfToken {
 
   private fetchToken(): Observable<string> {
     return this.http.get<unknown>(API_PATHS.csrf).pipe(
-      parseResponse(csrfResponseSchema),
+      readResponse(readCsrfAnswer),
       map(({ token }) => token),
       catchError((error: unknown) => {
         this.forget();

@@ -28,6 +28,9 @@ describe('AppUpdates', () => {
     TestBed.inject(AppUpdates).watch();
   }
 
+  /** The snack bar's code loads when first needed (core/notices/notices.ts): let it arrive. */
+  const loaded = () => new Promise<void>((done) => setTimeout(done, 0));
+
   beforeEach(() => {
     snackBar.open.mockClear();
     reload.mockClear();
@@ -36,12 +39,14 @@ describe('AppUpdates', () => {
     navigatorState.onLine = true;
   });
 
-  it('offers a reload when a new version is ready, and reloads only when asked', () => {
+  it('offers a reload when a new version is ready, and reloads only when asked', async () => {
     start(true);
     versionUpdates.next({ type: 'VERSION_DETECTED', version: { hash: 'b' } });
+    await loaded();
     expect(snackBar.open).not.toHaveBeenCalled();
 
     versionUpdates.next({ type: 'VERSION_READY', currentVersion: { hash: 'a' }, latestVersion: { hash: 'b' } });
+    await loaded();
     expect(snackBar.open).toHaveBeenCalledWith('A new version of Speedwright is ready.', 'Reload');
     expect(reload).not.toHaveBeenCalled();
 
@@ -49,43 +54,48 @@ describe('AppUpdates', () => {
     expect(reload).toHaveBeenCalledTimes(1);
   });
 
-  it('asks to reload when the offline copy is broken', () => {
+  it('asks to reload when the offline copy is broken', async () => {
     start(true);
     unrecoverable.next({ type: 'UNRECOVERABLE_STATE', reason: 'missing file' });
+    await loaded();
     expect(snackBar.open).toHaveBeenCalledWith('Speedwright must reload to repair its offline copy.', 'Reload');
   });
 
-  it('does nothing without a service worker', () => {
+  it('does nothing without a service worker', async () => {
     start(false);
     versionUpdates.next({ type: 'VERSION_READY', currentVersion: { hash: 'a' }, latestVersion: { hash: 'b' } });
+    await loaded();
     expect(snackBar.open).not.toHaveBeenCalled();
   });
 
   describe('a lazy page whose code cannot be fetched', () => {
     const failed = (message: string) => new NavigationError(1, '/card-log', new TypeError(message));
 
-    it('loads the page afresh at the address asked for, once a minute at most', () => {
+    it('loads the page afresh at the address asked for, once a minute at most', async () => {
       start(true);
       const updates = TestBed.inject(AppUpdates);
       updates.failedNavigation(failed('Failed to fetch dynamically imported module: http://localhost/chunk-ABCD1234.js'));
       expect(assign).toHaveBeenCalledWith('/card-log');
       updates.failedNavigation(failed('Failed to fetch dynamically imported module: http://localhost/chunk-ABCD1234.js'));
       expect(assign).toHaveBeenCalledTimes(1);
+      await loaded();
       expect(snackBar.open).toHaveBeenCalledWith('Speedwright could not load that page. Reload when the connection is steady.', 'Reload');
     });
 
-    it('says so offline instead of reloading into nothing', () => {
+    it('says so offline instead of reloading into nothing', async () => {
       start(true);
       navigatorState.onLine = false;
       TestBed.inject(AppUpdates).failedNavigation(failed('Importing a module script failed.'));
       expect(assign).not.toHaveBeenCalled();
+      await loaded();
       expect(snackBar.open).toHaveBeenCalledWith('That page is not on this device yet. Connect to the network to open it.', 'Dismiss');
     });
 
-    it('leaves other navigation errors to the router', () => {
+    it('leaves other navigation errors to the router', async () => {
       start(true);
       TestBed.inject(AppUpdates).failedNavigation(failed('Cannot match any routes'));
       expect(assign).not.toHaveBeenCalled();
+      await loaded();
       expect(snackBar.open).not.toHaveBeenCalled();
     });
   });

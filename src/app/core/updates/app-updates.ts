@@ -1,10 +1,10 @@
 import { DOCUMENT } from '@angular/common';
 import { DestroyRef, Injectable, inject } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import type { NavigationError } from '@angular/router';
 import { SwUpdate, VersionReadyEvent } from '@angular/service-worker';
 import { filter } from 'rxjs';
+import { Notices } from '../notices/notices';
 
 /** What browsers say when a lazy chunk cannot be fetched (Chromium, WebKit, Firefox). */
 const FAILED_CHUNK = /Failed to fetch dynamically imported module|Importing a module script failed|error loading dynamically imported module/i;
@@ -20,7 +20,7 @@ const CHUNK_RELOAD_KEY = 'speedwright.chunk-reload-at';
 @Injectable({ providedIn: 'root' })
 export class AppUpdates {
   private readonly updates = inject(SwUpdate);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly notices = inject(Notices);
   private readonly document = inject(DOCUMENT);
   private readonly destroyRef = inject(DestroyRef);
 
@@ -39,19 +39,13 @@ export class AppUpdates {
         takeUntilDestroyed(this.destroyRef),
       )
       .subscribe(() => {
-        this.snackBar
-          .open('A new version of Speedwright is ready.', 'Reload')
-          .onAction()
-          .subscribe(() => this.reload());
+        this.notices.open('A new version of Speedwright is ready.', 'Reload').subscribe(() => this.reload());
       });
   }
 
   private reloadWhenUnrecoverable(): void {
     this.updates.unrecoverable.pipe(takeUntilDestroyed(this.destroyRef)).subscribe(() => {
-      this.snackBar
-        .open('Speedwright must reload to repair its offline copy.', 'Reload')
-        .onAction()
-        .subscribe(() => this.reload());
+      this.notices.open('Speedwright must reload to repair its offline copy.', 'Reload').subscribe(() => this.reload());
     });
   }
 
@@ -66,13 +60,13 @@ export class AppUpdates {
     if (!FAILED_CHUNK.test(message)) return;
     const window = this.document.defaultView;
     if (window && !window.navigator.onLine) {
-      this.snackBar.open('That page is not on this device yet. Connect to the network to open it.', 'Dismiss');
+      this.notices.show('That page is not on this device yet. Connect to the network to open it.', 'Dismiss');
       return;
     }
     const storage = window?.sessionStorage;
     const last = Number(storage?.getItem(CHUNK_RELOAD_KEY) ?? 0);
     if (Date.now() - last < 60_000) {
-      this.snackBar.open('Speedwright could not load that page. Reload when the connection is steady.', 'Reload').onAction().subscribe(() => this.reload());
+      this.notices.open('Speedwright could not load that page. Reload when the connection is steady.', 'Reload').subscribe(() => this.reload());
       return;
     }
     storage?.setItem(CHUNK_RELOAD_KEY, String(Date.now()));

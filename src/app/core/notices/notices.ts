@@ -1,0 +1,44 @@
+import { Injectable, Injector, inject } from '@angular/core';
+import type { MatSnackBar, MatSnackBarRef, TextOnlySnackBar } from '@angular/material/snack-bar';
+import { EMPTY, Observable, from, switchMap } from 'rxjs';
+
+const loadSnackBar = () => import('@angular/material/snack-bar').then((m) => m.MatSnackBar);
+
+/**
+ * The app's short messages at the foot of the screen (Material's snack bar), with the snack
+ * bar's code (and the overlay code under it) loaded when first needed or once the service
+ * worker is ready, instead of in the first download.
+ */
+@Injectable({ providedIn: 'root' })
+export class Notices {
+  private readonly injector = inject(Injector);
+  private snackBar: Promise<MatSnackBar> | null = null;
+
+  constructor() {
+    // Once the service worker holds the app, the snack bar's code is in memory before any
+    // message: one about a page that cannot be fetched offline must not need the network.
+    void globalThis.navigator?.serviceWorker?.ready.then(() => this.load()).catch(() => undefined);
+  }
+
+  /** Shows `message` with an action button; the observable emits when the action is taken. */
+  open(message: string, action: string): Observable<void> {
+    return from(this.load().then((snackBar) => snackBar.open(message, action))).pipe(switchMap((ref: MatSnackBarRef<TextOnlySnackBar>) => ref.onAction() ?? EMPTY));
+  }
+
+  /** Shows `message` with an action button, without caring for the action. */
+  show(message: string, action: string): void {
+    void this.load()
+      .then((snackBar) => snackBar.open(message, action))
+      .catch(() => undefined);
+  }
+
+  dismiss(): void {
+    void this.snackBar?.then((snackBar) => snackBar.dismiss()).catch(() => undefined);
+  }
+
+  private load(): Promise<MatSnackBar> {
+    this.snackBar ??= loadSnackBar().then((type) => this.injector.get(type));
+    this.snackBar.catch(() => (this.snackBar = null));
+    return this.snackBar;
+  }
+}
