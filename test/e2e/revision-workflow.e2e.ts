@@ -83,8 +83,8 @@ describe('revision workflow in Chromium', () => {
     const diff = approver.getByTestId('diff-table');
     await expectText(diff, 'Configuration clean › position-error row 4 › CAS (kt)');
     const row = diff.locator('tr', { hasText: 'configurations[clean].positionError.3.casKt' });
-    expect(await row.locator('td.before').innerText()).toBe('100');
-    expect(await row.locator('td.after').innerText()).toBe('99.5');
+    expect(await row.locator('td.before').innerText()).toBe('100 kt');
+    expect(await row.locator('td.after').innerText()).toBe('99.5 kt');
     expect(await diff.locator('tbody tr').count()).toBe(4);
     await approver.getByTestId('publish').click();
     await expectText(approver.getByTestId('review-outcome'), 'Revision 3 is published and signed');
