@@ -4,7 +4,7 @@
  * flight manual's data cannot carry each say that the figures do not match.
  */
 import { buildCard } from '../card/build-card';
-import { HAND_CONTEXT, HAND_PISTON_CARD_DIGEST, handPistonContent, handPistonInputs, revisionOf } from '../card/test-fixtures';
+import { HAND_CONTEXT, HAND_PISTON_CARD_DIGEST, handPistonContent, handPistonInputs, revisionOf } from '../card/testing/test-fixtures';
 import { FIGURES_DIFFER, checkFigures } from './figures-check';
 
 const revision = revisionOf(handPistonContent());

@@ -1,5 +1,5 @@
 import { buildCard } from '../card/build-card';
-import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../card/test-fixtures';
+import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../card/testing/test-fixtures';
 import type { RevisionContent } from '../speed-book/revision-content';
 import { cardChanges, cardLines, lineKey, previousCardOf } from './revision-marks';
 

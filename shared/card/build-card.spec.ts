@@ -12,7 +12,7 @@
 import { inhgToHpa } from '../aero';
 import { buildCard } from './build-card';
 import { CardRefusedError, type CardInputs, type CardRefusalCode, type SpeedCard } from './card';
-import { handJetContent, handPistonContent, handPistonInputs, HAND_CONTEXT, revisionOf } from './test-fixtures';
+import { handJetContent, handPistonContent, handPistonInputs, HAND_CONTEXT, revisionOf } from './testing/test-fixtures';
 
 const piston = () => buildCard(revisionOf(handPistonContent()), handPistonInputs(), HAND_CONTEXT);
 const speed = (card: SpeedCard, code: string) => card.speeds.find((s) => s.code === code)!;

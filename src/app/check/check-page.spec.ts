@@ -7,7 +7,7 @@ import type { SessionUser } from '../../../shared/api/auth';
 import { encodeCheckPayload } from '../../../shared/card-check/check-url';
 import { generateCardCode } from '../../../shared/card-check/card-code';
 import { buildCard } from '../../../shared/card/build-card';
-import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../../../shared/card/test-fixtures';
+import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../../../shared/card/testing/test-fixtures';
 import { AuthService } from '../core/auth/auth-service';
 import { CheckPage } from './check-page';
 import { OfflineCheckData, type OfflineCheck } from './offline-check-data';
