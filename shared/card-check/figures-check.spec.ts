@@ -1,5 +1,5 @@
 /**
- * The digest check of a check URL, on the hand-worked test type (shared/card/test-fixtures.ts):
+ * The digest check of a check URL, on the hand-worked test type (shared/card/testing/test-fixtures.ts):
  * the issued card matches; altered inputs, an altered digest, another revision and inputs the
  * flight manual's data cannot carry each say that the figures do not match.
  */
