@@ -61,6 +61,8 @@ export default tseslint.config(
       'no-restricted-imports': boundary({ regex: reaches(['server', 'db']), message: 'The client never imports the server or the database; share through `shared/`.' }),
       // style.md: every component OnPush (51 of 51 today); stand-ins inside specs are exempt.
       '@angular-eslint/prefer-on-push-component-change-detection': 'error',
+      '@angular-eslint/component-selector': ['error', { type: 'element', prefix: 'sw', style: 'kebab-case' }],
+      '@angular-eslint/directive-selector': ['error', { type: 'attribute', prefix: 'sw', style: 'camelCase' }],
     },
   },
   {
