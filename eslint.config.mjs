@@ -8,8 +8,8 @@
  *    client (`src/`) ↛ `server/`, `db/`; `server/`, `db/` ↛ `src/`; `shared/` ↛ `src/`, `server/`, `db/`;
  *    `db/migrations/` ↛ anything but `../migrator` (its type) and `./frozen/…` (frozen copies);
  *    production ↛ `test/` and any `testing/` folder.
- *    The rule is ESLint's `no-restricted-imports` on the import text; it sees `import … from` and
- *    `export … from`, not `require()` or `import()`.
+ *    ESLint's `no-restricted-imports` reads the import text of `import … from` and `export … from`;
+ *    `no-restricted-syntax` applies the same patterns to `import()` (lazy routes) and `require()`.
  * 3. The few rules switched off, each with its reason.
  */
 import js from '@eslint/js';
@@ -24,8 +24,25 @@ const TEST_SUPPORT = {
   message: 'Test support (a `testing/` folder or `test/`) is for tests only; production code never imports it.',
 };
 
-/** no-restricted-imports with the test-support pattern and `more`. */
-const boundary = (/** @type {{ regex: string; message: string }[]} */ ...more) => ['error', { patterns: [TEST_SUPPORT, ...more] }];
+/**
+ * The rules of one boundary: no-restricted-imports with the test-support pattern and `more`, and
+ * the same patterns for `import()` and `require()` (esquery reads a regex up to the first `/`,
+ * so a slash is written `\x2F`).
+ */
+const boundary = (/** @type {{ regex: string; message: string }[]} */ ...more) => {
+  const patterns = [TEST_SUPPORT, ...more];
+  const literal = (/** @type {string} */ regex) => `/${regex.replaceAll('/', '\\x2F')}/`;
+  return {
+    'no-restricted-imports': ['error', { patterns }],
+    'no-restricted-syntax': [
+      'error',
+      ...patterns.flatMap(({ regex, message }) => [
+        { selector: `ImportExpression[source.value=${literal(regex)}]`, message },
+        { selector: `CallExpression[callee.name='require'][arguments.0.value=${literal(regex)}]`, message },
+      ]),
+    ],
+  };
+};
 
 /** Files that are tests or test support, exempt from the boundaries. */
 const TESTS = ['**/*.spec.ts', '**/*.bench.ts', '**/testing/**', 'src/setup-jest.ts', 'server/speed-books/test-helpers.ts'];
@@ -58,7 +75,7 @@ export default tseslint.config(
     files: ['src/**/*.ts'],
     ignores: TESTS,
     rules: {
-      'no-restricted-imports': boundary({ regex: reaches(['server', 'db']), message: 'The client never imports the server or the database; share through `shared/`.' }),
+      ...boundary({ regex: reaches(['server', 'db']), message: 'The client never imports the server or the database; share through `shared/`.' }),
       // style.md: every component OnPush (51 of 51 today); stand-ins inside specs are exempt.
       '@angular-eslint/prefer-on-push-component-change-detection': 'error',
       '@angular-eslint/component-selector': ['error', { type: 'element', prefix: 'sw', style: 'kebab-case' }],
@@ -69,14 +86,14 @@ export default tseslint.config(
     files: ['server/**/*.ts', 'db/**/*.ts'],
     ignores: [...TESTS, 'db/migrations/**'],
     rules: {
-      'no-restricted-imports': boundary({ regex: reaches(['src']), message: 'The server never imports the client; share through `shared/`.' }),
+      ...boundary({ regex: reaches(['src']), message: 'The server never imports the client; share through `shared/`.' }),
     },
   },
   {
     files: ['db/migrations/**/*.ts'],
     ignores: TESTS,
     rules: {
-      'no-restricted-imports': boundary({
+      ...boundary({
         regex: '^\\.\\./(?!migrator$)',
         message: 'A migration never imports live code (it must do the same whenever it runs): copy what it needs into `db/migrations/frozen/` and never change the copy.',
       }),
@@ -86,7 +103,7 @@ export default tseslint.config(
     files: ['shared/**/*.ts'],
     ignores: TESTS,
     rules: {
-      'no-restricted-imports': boundary({ regex: reaches(['src', 'server', 'db']), message: '`shared/` is used by client and server and imports neither.' }),
+      ...boundary({ regex: reaches(['src', 'server', 'db']), message: '`shared/` is used by client and server and imports neither.' }),
     },
   },
 );
