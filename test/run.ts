@@ -1,9 +1,11 @@
 /**
- * `npm test`: every test. Installs what the tests need from Debian when it is missing
+ * `npm test`: every test. First the static checks — `npm run lint` (eslint with the import
+ * boundaries) and `npm run typecheck` (server, app and the two purity tsconfigs); either failing
+ * ends the run. Then installs what the tests need from Debian when it is missing
  * (mariadb-server, chromium), starts the private test MariaDB instance, builds the web app
- * for production, then runs the jest projects in two phases: the shared library, the client
+ * for production, and runs the jest projects in two phases: the shared library, the client
  * and the API against real MariaDB together, then end-to-end in Chromium alone.
- * `--e2e-only` runs the last alone; other arguments go to one jest run as given.
+ * `--e2e-only` runs the last alone (no static checks); other arguments go to one jest run as given.
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
@@ -29,8 +31,25 @@ function run(args: string[]): number {
   return result.status ?? 1;
 }
 
+/** The static checks of package.json's `lint` and `typecheck` scripts; 0 when both pass. */
+function staticChecks(): number {
+  for (const script of ['lint', 'typecheck']) {
+    console.log(`\u203a npm run ${script}`);
+    const result = spawnSync('npm', ['run', '--silent', script], { cwd: projectRoot, stdio: 'inherit' });
+    if (result.status !== 0) {
+      console.error(`npm run ${script} failed; the tests do not run until it passes.`);
+      return result.status ?? 1;
+    }
+  }
+  return 0;
+}
+
 async function main(): Promise<number> {
   const e2eOnly = process.argv.includes('--e2e-only');
+  if (!e2eOnly) {
+    const checks = staticChecks();
+    if (checks !== 0) return checks;
+  }
   ensureMariadbInstalled();
   ensureChromium();
   const { instance } = await openLocalDatabase('test', 'speedwright_api_test');

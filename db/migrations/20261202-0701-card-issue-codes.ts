@@ -1,9 +1,10 @@
 import { DataTypes, QueryTypes } from 'sequelize';
-import { generateCardCode } from '../../shared/card-check/card-code';
+import { generateCardCode0701 as generateCardCode } from './frozen/card-code-0701';
 import type { Migration } from '../migrator';
 
 /**
- * The card code of every card log entry (shared/card-check/card-code.ts): 9 characters, unique,
+ * The card code of every card log entry (shared/card-check/card-code.ts; this migration uses
+ * its own frozen copy, ./frozen/card-code-0701.ts): 9 characters, unique,
  * printed on the card and asked about at `GET /api/verify/:code`. Entries logged before this
  * migration get a code of their own here, so every entry has one.
  */

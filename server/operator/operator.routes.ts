@@ -4,7 +4,7 @@ import { requireCapability } from '../middleware/authorize';
 import { operatorSettingsSchema } from '../../shared/api/sync';
 import { recordAudit } from '../audit/audit.service';
 import { parseOrThrow } from '../middleware/validate';
-import { Operator, Revision } from '../models';
+import { Operator } from '../models';
 import { publicSigningKey } from '../revisions/signing';
 
 /**

@@ -4,7 +4,7 @@ import { MAX_PRESSURE_ALTITUDE_FT, MIN_PRESSURE_ALTITUDE_FT } from './constants'
 import { type AirspeedGiven, convertAirspeed } from './airspeed';
 import { isa, isaTemperatureC } from './atmosphere';
 import { AeroInputError } from './errors';
-import { expectAeroError, expectPublished, expectRelative } from './test-helpers';
+import { expectAeroError, expectPublished, expectRelative } from './testing/test-helpers';
 
 /** `convertAirspeed` on a day at `isaDeviationC` from ISA. */
 function at(pressureAltitudeFt: number, speed: AirspeedGiven, isaDeviationC = 0) {

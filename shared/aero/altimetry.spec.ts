@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { densityAltitudeFt, pressureAltitudeFt, saturationVapourPressureHpa, stationPressureHpa } from './altimetry';
 import { isa, isaTemperatureC, pressureAltitudeFtForPressureHpa } from './atmosphere';
 import { inhgToHpa } from './units';
-import { expectAeroError, expectRelative } from './test-helpers';
+import { expectAeroError, expectRelative } from './testing/test-helpers';
 
 describe('pressureAltitudeFt: the exact altimeter relation (ICAO Doc 7488 troposphere law)', () => {
   it('FAA worked example: a sea-level field with 29.70 inHg has a pressure altitude of about 205 ft', () => {

@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { MAX_PRESSURE_ALTITUDE_FT, METRES_PER_FOOT, MIN_PRESSURE_ALTITUDE_FT, MPS_PER_KNOT } from './constants';
 import { isa, isaDeviationC, isaTemperatureC, pressureAltitudeFtForPressureHpa } from './atmosphere';
 import { geopotentialAltitudeM } from './geopotential';
-import { expectAeroError, expectPublished, expectRelative } from './test-helpers';
+import { expectAeroError, expectPublished, expectRelative } from './testing/test-helpers';
 
 const ft = (metres: number) => metres / METRES_PER_FOOT;
 const speedOfSoundMs = (altitudeM: number) => isa(ft(altitudeM)).speedOfSoundKt * MPS_PER_KNOT;

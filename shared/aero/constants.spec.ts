@@ -1,5 +1,5 @@
 import * as constants from './constants';
-import { expectPublished } from './test-helpers';
+import { expectPublished } from './testing/test-helpers';
 
 describe('constants: derived values against their published figures', () => {
   it('ρ0 = p0/(R·T0) is 1.225 kg/m³ (ISO 2533:1975 Table 1)', () => {

@@ -3,7 +3,7 @@ import { convertAirspeed } from './airspeed';
 import { isaTemperatureC } from './atmosphere';
 import { crossoverAltitudeFt } from './crossover';
 import { AeroInputError } from './errors';
-import { expectAeroError, expectRelative } from './test-helpers';
+import { expectAeroError, expectRelative } from './testing/test-helpers';
 
 function crossoverOrUndefined(vmoKt: number, mmo: number): number | undefined {
   try {

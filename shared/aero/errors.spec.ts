@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import * as aero from './index';
 import { AERO_INPUT_ERROR_CODES, AeroInputError } from './errors';
-import { obeysErrorPolicy } from './test-helpers';
+import { obeysErrorPolicy } from './testing/test-helpers';
 
 // The error policy is the library's own (style.md "one error policy", issue 3); no outside source.
 describe('AeroInputError', () => {

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { geometricAltitudeM, geopotentialAltitudeM } from './geopotential';
-import { expectAeroError, expectPublished, expectRelative } from './test-helpers';
+import { expectAeroError, expectPublished, expectRelative } from './testing/test-helpers';
 
 describe('geopotential ↔ geometric altitude (ISO 2533:1975, H = r·Z/(r + Z), r = 6 356 766 m)', () => {
   it.each([

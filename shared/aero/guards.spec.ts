@@ -1,6 +1,6 @@
 import { AeroInputError } from './errors';
 import { finiteResult, formatNumber, requireFinite, requirePositiveSpeed, requirePositiveWeight } from './guards';
-import { expectAeroError } from './test-helpers';
+import { expectAeroError } from './testing/test-helpers';
 
 // The error policy itself is the library's own design (style.md, "one error policy"); no outside source.
 describe('guards', () => {

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { MAX_MACH, SONIC_IMPACT_PRESSURE_RATIO, impactPressureRatio, machForImpactPressureRatio } from './pitot';
-import { expectPublished, expectRelative } from './test-helpers';
+import { expectPublished, expectRelative } from './testing/test-helpers';
 
 describe('pitot relations (NASA RP 1046; Rayleigh pitot formula)', () => {
   it('qc/p at Mach 1 is 1.2^3.5 − 1 = 0.8929 from both sides (NASA RP 1046)', () => {

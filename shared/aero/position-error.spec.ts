@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { type PositionErrorTable, casToIasKt, checkPositionErrorTable, iasToCasKt } from './position-error';
-import { expectAeroError, expectRelative } from './test-helpers';
+import { expectAeroError, expectRelative } from './testing/test-helpers';
 
 /** Invented demo data — not for flight. */
 const TABLE: PositionErrorTable = [

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { roundLimitKt, roundSpeedKt, roundStallKt } from './rounding';
-import { expectAeroError } from './test-helpers';
+import { expectAeroError } from './testing/test-helpers';
 
 // Card rounding: flight-physics.md "Rounding on cards" — common practice, no outside source.
 describe('card rounding (common practice: limits down, stall speeds up, others to the nearest knot)', () => {

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { type SpeedTable, checkSpeedTable, interpolateSpeedTableKt } from './speed-table';
-import { expectAeroError, expectRelative } from './test-helpers';
+import { expectAeroError, expectRelative } from './testing/test-helpers';
 
 // Invented demo data — not for flight.
 const BY_WEIGHT: SpeedTable = { byWeightKg: [900, 1000, 1200], valuesKt: [55, 58, 63] };

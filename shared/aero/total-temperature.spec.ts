@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { tatToSatC } from './total-temperature';
-import { expectAeroError } from './test-helpers';
+import { expectAeroError } from './testing/test-helpers';
 
 describe('tatToSatC: SAT = TAT / (1 + 0.2·K·M²) (NASA RP 1046, Gracey 1980; flight-physics.md)', () => {
   it('at Mach 0.78 with K = 1 takes −30 °C TAT to −52.2 °C SAT (243.15 K / 1.121 68 = 216.773 K)', () => {

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { loadFactorInTurn, stallSpeedInTurnKt } from './turn';
-import { expectAeroError } from './test-helpers';
+import { expectAeroError } from './testing/test-helpers';
 
 describe('stall speed in a level turn (FAA Airplane Flying Handbook / PHAK: Vs·√n, n = 1/cos bank)', () => {
   it.each([

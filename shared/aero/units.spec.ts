@@ -18,7 +18,7 @@ import {
   mphToKt,
   mpsToKt,
 } from './units';
-import { expectAeroError, expectRelative } from './test-helpers';
+import { expectAeroError, expectRelative } from './testing/test-helpers';
 
 /**
  * Reference library: mathjs (npm, devDependency). mathjs has no knot and no inch of mercury, so

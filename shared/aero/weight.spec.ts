@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { weightScaledSpeedKt } from './weight';
-import { expectAeroError, expectRelative } from './test-helpers';
+import { expectAeroError, expectRelative } from './testing/test-helpers';
 
 describe('weightScaledSpeedKt: V = Vref·√(W/Wref) (FAA Pilot\'s Handbook of Aeronautical Knowledge)', () => {
   it('follows the square root of the weight ratio', () => {

@@ -1,4 +1,4 @@
-import { coverageSheet, jetSizedCoverageReport, smallCoverageReport } from './coverage-fixtures';
+import { coverageSheet, jetSizedCoverageReport, smallCoverageReport } from './testing/coverage-fixtures';
 import { coverageFailedSchema, coverageReportSchema, coverageResponseSchema } from './coverage';
 
 describe('coverageReportSchema', () => {

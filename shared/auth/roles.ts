@@ -38,11 +38,6 @@ export function can(role: Role, capability: Capability): boolean {
   return GRANTS[role].includes(capability);
 }
 
-/** The roles that hold `capability`, for route guards written as a list. */
-export function rolesWith(capability: Capability): Role[] {
-  return ROLES.filter((role) => can(role, capability));
-}
-
 /** A sentence per role for the home page and the people list. */
 export const ROLE_SUMMARIES: Readonly<Record<Role, string>> = {
   pilot: 'Reads the published speed data of your operator, prepares and issues speed cards, checks cards.',

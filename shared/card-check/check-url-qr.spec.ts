@@ -6,11 +6,10 @@
 import jsQR from 'jsqr';
 import QRCode from 'qrcode';
 import { buildCard } from '../card/build-card';
-import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../card/test-fixtures';
+import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../card/testing/test-fixtures';
 import { generateCardCode } from './card-code';
 import { checkUrl, parseCheckUrl } from './check-url';
 
-// eslint-disable-next-line @typescript-eslint/no-require-imports
 const { PNG } = require('pngjs') as { PNG: { sync: { read(buffer: Buffer): { width: number; height: number; data: Buffer } } } };
 
 const revision = revisionOf(handPistonContent());

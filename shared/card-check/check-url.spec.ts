@@ -7,7 +7,7 @@
 import fc from 'fast-check';
 import { buildCard } from '../card/build-card';
 import { cardInputsSchema, type CardInputs } from '../card/card';
-import { HAND_CONTEXT, handJetContent, handPistonContent, handPistonInputs, revisionOf } from '../card/test-fixtures';
+import { HAND_CONTEXT, handJetContent, handPistonContent, handPistonInputs, revisionOf } from '../card/testing/test-fixtures';
 import { generateCardCode } from './card-code';
 import {
   base64UrlToDigest,

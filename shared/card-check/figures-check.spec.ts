@@ -1,10 +1,10 @@
 /**
- * The digest check of a check URL, on the hand-worked test type (shared/card/test-fixtures.ts):
+ * The digest check of a check URL, on the hand-worked test type (shared/card/testing/test-fixtures.ts):
  * the issued card matches; altered inputs, an altered digest, another revision and inputs the
  * flight manual's data cannot carry each say that the figures do not match.
  */
 import { buildCard } from '../card/build-card';
-import { HAND_CONTEXT, HAND_PISTON_CARD_DIGEST, handPistonContent, handPistonInputs, revisionOf } from '../card/test-fixtures';
+import { HAND_CONTEXT, HAND_PISTON_CARD_DIGEST, handPistonContent, handPistonInputs, revisionOf } from '../card/testing/test-fixtures';
 import { FIGURES_DIFFER, checkFigures } from './figures-check';
 
 const revision = revisionOf(handPistonContent());

@@ -1,13 +1,13 @@
 import jsQR from 'jsqr';
 import { buildCard } from '../card/build-card';
 import { SAFETY_CAUTION } from '../card/card-presentation';
-import { HAND_CONTEXT, handJetContent, handPistonContent, handPistonInputs, revisionOf } from '../card/test-fixtures';
+import { HAND_CONTEXT, handJetContent, handPistonContent, handPistonInputs, revisionOf } from '../card/testing/test-fixtures';
 import { cardPdf, type CardPdfInput } from './card-document';
 import { cardPdfFileName } from './file-name';
 import { CARD_PAPERS, CARD_PAPER_SIZES } from './page-sizes';
 import { qrVector } from './qr';
 import { NO_CHANGES, cardChanges, lineKey, previousCardOf } from './revision-marks';
-import { furnitureOf, markedRows, plainText, tablesOf, textsOf } from './test-helpers';
+import { furnitureOf, markedRows, plainText, tablesOf, textsOf } from './testing/test-helpers';
 
 // Invented test data — not for flight.
 

@@ -65,12 +65,6 @@ export function dialSvg(indicator: CardIndicator, caption: string): string {
   return parts.join('');
 }
 
-/** A legend swatch: the arc's band or the line's stroke, straight, 32 × 12. */
-export function swatchSvg(mark: { kind: 'arc'; arc: Pick<DialArc, 'colour'> } | { kind: 'line'; line: Pick<DialLine, 'colour'> }): string {
-  const body = mark.kind === 'arc' ? arcSvg({ colour: mark.arc.colour, path: 'M 2 6 L 30 6' }, 8) : `<line x1="16" y1="0" x2="16" y2="12" ${lineStroke(mark.line)}/>`;
-  return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 32 12" width="32" height="12">${body}</svg>`;
-}
-
 /**
  * The same swatch as pdfmake canvas vectors, `width` × 8 pt: the marking straight, shaped as on
  * the dial (outlined, solid, striped; a solid or dashed radial line). Canvas vectors cost a

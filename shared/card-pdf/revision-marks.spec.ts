@@ -1,10 +1,10 @@
 import { buildCard } from '../card/build-card';
-import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../card/test-fixtures';
+import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../card/testing/test-fixtures';
 import type { RevisionContent } from '../speed-book/revision-content';
 import { cardChanges, cardLines, lineKey, previousCardOf } from './revision-marks';
 
 // Invented test data — not for flight. Expected sets are worked by hand from the fixture
-// (shared/card/test-fixtures.ts): which printed lines depend on which entry of the speed book.
+// (shared/card/testing/test-fixtures.ts): which printed lines depend on which entry of the speed book.
 
 const inputs = handPistonInputs();
 const current = (content: RevisionContent) => buildCard(revisionOf(content, 12, 4), inputs, HAND_CONTEXT);

@@ -2,7 +2,7 @@
  * `buildCard` against cards worked by hand from the published formulas (flight-physics.md),
  * with the working beside each figure and the source named; then the refusals.
  *
- * The test types (test-fixtures.ts) have two-point position-error tables, so IAS ↔ CAS is a
+ * The test types (testing/test-fixtures.ts) have two-point position-error tables, so IAS ↔ CAS is a
  * straight line read by linear interpolation (FAA Pilot's Handbook of Aeronautical Knowledge,
  * airspeed calibration; read as a flight-manual table is read):
  *   piston clean  CAS = 37 + 0.9·(IAS − 30)   IAS = 30 + (CAS − 37)/0.9
@@ -12,7 +12,7 @@
 import { inhgToHpa } from '../aero';
 import { buildCard } from './build-card';
 import { CardRefusedError, type CardInputs, type CardRefusalCode, type SpeedCard } from './card';
-import { handJetContent, handPistonContent, handPistonInputs, HAND_CONTEXT, revisionOf } from './test-fixtures';
+import { handJetContent, handPistonContent, handPistonInputs, HAND_CONTEXT, revisionOf } from './testing/test-fixtures';
 
 const piston = () => buildCard(revisionOf(handPistonContent()), handPistonInputs(), HAND_CONTEXT);
 const speed = (card: SpeedCard, code: string) => card.speeds.find((s) => s.code === code)!;

@@ -11,7 +11,7 @@ import type { RevisionContent } from '../speed-book/revision-content';
 import { buildCard, takeoffConfigurationKeys } from './build-card';
 import { CardRefusedError, type CardInputs, type SpeedCard } from './card';
 import { canonicalCardJson, cardDigest } from './card-digest';
-import { HAND_PISTON_CARD_DIGEST, handPistonContent, handPistonInputs, HAND_CONTEXT, revisionOf } from './test-fixtures';
+import { HAND_PISTON_CARD_DIGEST, handPistonContent, handPistonInputs, HAND_CONTEXT, revisionOf } from './testing/test-fixtures';
 
 describe('cardDigest', () => {
   it('is the SHA-256 of the canonical JSON of the card without its digest', () => {

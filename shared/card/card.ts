@@ -61,7 +61,6 @@ export const cruiseSchema = z.union(
   ],
   { error: 'Give the planned cruise as an indicated airspeed in kt or as a Mach number, not both.' },
 );
-export type CruiseInput = z.infer<typeof cruiseSchema>;
 
 /**
  * What the pilot enters, in canonical units (the screen converts from the units chosen per

@@ -11,7 +11,7 @@ import { revisionContentSchema, type RevisionContent } from '../speed-book/revis
 import { buildCard, cardFigures, takeoffConfigurationKeys } from './build-card';
 import type { CardInputs } from './card';
 import { sweepEnvelope } from './coverage';
-import { HAND_CONTEXT, revisionOf } from './test-fixtures';
+import { HAND_CONTEXT, revisionOf } from './testing/test-fixtures';
 
 const BOOKS: ReadonlyArray<readonly [string, () => RevisionContent]> = [
   ['piston trainer', demoPistonTrainerContent],

@@ -9,7 +9,7 @@ import { buildCard, takeoffConfigurationKeys } from './build-card';
 import { CardRefusedError, type CardInputs, type SpeedCard } from './card';
 import { sweepEnvelope } from './coverage';
 import { enRouteDeviationCheck, isaDeviationFromTat } from './en-route-deviation';
-import { HAND_CONTEXT, revisionOf } from './test-fixtures';
+import { HAND_CONTEXT, revisionOf } from './testing/test-fixtures';
 
 function inputs(content: RevisionContent, overrides: Partial<CardInputs> = {}): CardInputs {
   return {

@@ -33,9 +33,7 @@ export type SpeedPhase = RevisionContent['speeds'][number]['phase'];
 export type Configuration = RevisionContent['configurations'][number];
 export type PositionErrorPoint = Configuration['positionError'][number];
 export type Speed = RevisionContent['speeds'][number];
-export type ScaledSpeed = Extract<Speed, { kind: 'scaled' }>;
 export type TabulatedSpeed = Extract<Speed, { kind: 'tabulated' }>;
-export type FixedSpeed = Extract<Speed, { kind: 'fixed' }>;
 export type Limits = RevisionContent['limits'];
 
 /**

@@ -14,7 +14,6 @@ import { API_TEST_DATABASE, apiTestAttachmentsDir, apiTestEnvFile, apiTestMailbo
 
 declare global {
   // The fake SMTP server lives in jest's main process for the whole run; teardown stops it.
-  // eslint-disable-next-line no-var
   var speedwrightApiSmtp: FakeSmtp | undefined;
 }
 

@@ -1,14 +1,14 @@
 /**
  * The card's digest is the same in Chromium as in Node: the card model (shared/card) bundled
  * for the browser, run in a page of the served app, builds the hand-worked card of
- * shared/card/test-fixtures.ts and must give the digest pinned there (HAND_PISTON_CARD_DIGEST),
+ * shared/card/testing/test-fixtures.ts and must give the digest pinned there (HAND_PISTON_CARD_DIGEST),
  * which card-digest.spec.ts checks in Node. The bundle is made with esbuild (the bundler under tsx and the Angular
  * build), for the browser platform, so nothing of Node reaches the page.
  */
 import { buildSync } from 'esbuild';
 import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
-import { HAND_PISTON_CARD_DIGEST } from '../../shared/card/test-fixtures';
+import { HAND_PISTON_CARD_DIGEST } from '../../shared/card/testing/test-fixtures';
 import { launchBrowser, newPage } from './browser';
 
 const root = join(__dirname, '..', '..');
@@ -20,7 +20,7 @@ function cardModelBundle(): string {
       contents: [
         "export { buildCard } from './shared/card/build-card';",
         "export { cardDigest } from './shared/card/card-digest';",
-        "export { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from './shared/card/test-fixtures';",
+        "export { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from './shared/card/testing/test-fixtures';",
       ].join('\n'),
       resolveDir: root,
       loader: 'ts',

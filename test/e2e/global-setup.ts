@@ -9,7 +9,6 @@ import { startAppServer } from '../support/app-server';
 import { E2E_PASSWORD } from './constants';
 
 declare global {
-  // eslint-disable-next-line no-var
   var speedwrightE2e: { stop(): Promise<void>; startedDb: boolean } | undefined;
 }
 

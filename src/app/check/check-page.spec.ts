@@ -7,12 +7,12 @@ import type { SessionUser } from '../../../shared/api/auth';
 import { encodeCheckPayload } from '../../../shared/card-check/check-url';
 import { generateCardCode } from '../../../shared/card-check/card-code';
 import { buildCard } from '../../../shared/card/build-card';
-import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../../../shared/card/test-fixtures';
+import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../../../shared/card/testing/test-fixtures';
 import { AuthService } from '../core/auth/auth-service';
 import { CheckPage } from './check-page';
 import { OfflineCheckData, type OfflineCheck } from './offline-check-data';
 
-/** Invented test data — not for flight (shared/card/test-fixtures.ts). */
+/** Invented test data — not for flight (shared/card/testing/test-fixtures.ts). */
 const revision = revisionOf(handPistonContent());
 const card = buildCard(revision, handPistonInputs(), HAND_CONTEXT);
 const payload = encodeCheckPayload({ revisionId: revision.id, inputs: card.inputs, digest: card.digest });

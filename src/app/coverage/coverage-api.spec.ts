@@ -2,10 +2,10 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { firstValueFrom } from 'rxjs';
-import { smallCoverageReport } from '../../../shared/api/coverage-fixtures';
+import { smallCoverageReport } from '../../../shared/api/testing/coverage-fixtures';
 import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
 import { ApiRequestError } from '../core/api/api-request-error';
-import { revisionView } from '../speed-books/revision-fixtures';
+import { revisionView } from '../speed-books/testing/revision-fixtures';
 import { COVERAGE_PATHS, CoverageApi, CoverageRefusal } from './coverage-api';
 
 describe('CoverageApi', () => {

@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { AuthService } from '../core/auth/auth-service';
-import { sessionUser } from '../speed-books/revision-fixtures';
+import { sessionUser } from '../speed-books/testing/revision-fixtures';
 import { OPERATOR_PATHS, OperatorSettingsPage } from './operator-settings-page';
 
 jest.setTimeout(30_000);

@@ -4,11 +4,11 @@ import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import type { SessionUser } from '../../../shared/api/auth';
-import { smallCoverageReport } from '../../../shared/api/coverage-fixtures';
+import { smallCoverageReport } from '../../../shared/api/testing/coverage-fixtures';
 import { demoPistonTrainerContentRevised } from '../../../shared/speed-book/demo-content';
 import { COVERAGE_PATHS } from '../coverage/coverage-api';
 import { AuthService } from '../core/auth/auth-service';
-import { PEOPLE, revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/revision-fixtures';
+import { PEOPLE, revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/testing/revision-fixtures';
 import { REVISION_PATHS } from '../speed-books/revisions-api';
 import { RevisionReview } from './revision-review';
 

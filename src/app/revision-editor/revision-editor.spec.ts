@@ -6,7 +6,7 @@ import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { Router, provideRouter } from '@angular/router';
 import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
 import { AuthService } from '../core/auth/auth-service';
-import { revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/revision-fixtures';
+import { revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/testing/revision-fixtures';
 import { REVISION_PATHS } from '../speed-books/revisions-api';
 import { LIVE_COVERAGE_DEBOUNCE_MS } from './live-coverage';
 import { RevisionEditor } from './revision-editor';

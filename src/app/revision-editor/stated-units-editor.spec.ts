@@ -9,7 +9,7 @@ import fc from 'fast-check';
 import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
 import { STATED_DECIMALS, toCanonical, type StatedQuantity, type StatedUnits } from '../../../shared/speed-book/stated-units';
 import { AuthService } from '../core/auth/auth-service';
-import { revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/revision-fixtures';
+import { revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/testing/revision-fixtures';
 import { REVISION_PATHS } from '../speed-books/revisions-api';
 import { RevisionEditor } from './revision-editor';
 import { StatedUnitInput } from './stated-unit-input';

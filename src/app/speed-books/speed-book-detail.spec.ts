@@ -6,7 +6,7 @@ import { Router, provideRouter } from '@angular/router';
 import type { SessionUser } from '../../../shared/api/auth';
 import type { Role } from '../../../shared/auth/roles';
 import { AuthService } from '../core/auth/auth-service';
-import { AIRCRAFT_TYPES, revisionSummary, revisionView, sessionUser, speedBook } from './revision-fixtures';
+import { AIRCRAFT_TYPES, revisionSummary, revisionView, sessionUser, speedBook } from './testing/revision-fixtures';
 import { REVISION_PATHS } from './revisions-api';
 import { SpeedBookDetail } from './speed-book-detail';
 

@@ -3,9 +3,9 @@
  * cards can be worked by hand: two-point position-error tables (a straight line), round
  * reference speeds. Invented test data — not for flight.
  */
-import { contentSha256 } from '../speed-book/canonical';
-import type { RevisionContent } from '../speed-book/revision-content';
-import type { CardContext, CardInputs, CardRevision } from './card';
+import { contentSha256 } from '../../speed-book/canonical';
+import type { RevisionContent } from '../../speed-book/revision-content';
+import type { CardContext, CardInputs, CardRevision } from '../card';
 
 /**
  * A single-engine piston type. Clean: CAS = 37 + 0.9·(IAS − 30) from 30 to 150 KIAS.

@@ -1,4 +1,4 @@
-import type { CoverageCell, CoverageReport, CoverageSheet } from '../card/coverage-report';
+import type { CoverageCell, CoverageReport, CoverageSheet } from '../../card/coverage-report';
 
 /**
  * Hand-built coverage reports for tests and screenshots (invented, not the output of a sweep):

@@ -1,7 +1,7 @@
 /**
  * Helpers for the library's own specs (not part of the barrel, not shipped to callers).
  */
-import { AeroInputError, type AeroInputErrorCode } from './errors';
+import { AeroInputError, type AeroInputErrorCode } from '../errors';
 
 /**
  * Asserts `actual` matches a published figure to ± `units` in its last printed digit, e.g.
