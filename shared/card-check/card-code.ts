@@ -21,18 +21,18 @@
  * random source (Web Crypto, in browsers and Node alike).
  */
 
-/** The 23 characters of a card code, in value order (the value of a character is its index). */
-export const CARD_CODE_ALPHABET = '23456789ACEFHJKMNPRTWXY';
-/** Random characters of a code. */
-export const CARD_CODE_RANDOM_LENGTH = 8;
-/** Characters of a code, the check character included. */
-export const CARD_CODE_LENGTH = CARD_CODE_RANDOM_LENGTH + 1;
-/** Modulus and radix of the check character (ISO/IEC 7064 pure system). */
-export const CARD_CODE_MODULUS = 23;
-export const CARD_CODE_RADIX = 5;
+// The code's form lives with the card model (shared/card/card-code-form.ts), which the card
+// API's schemas read; the card check depends on shared/card, never the other way.
+import {
+  CARD_CODE_ALPHABET,
+  CARD_CODE_LENGTH,
+  CARD_CODE_MODULUS,
+  CARD_CODE_PATTERN,
+  CARD_CODE_RADIX,
+  CARD_CODE_RANDOM_LENGTH,
+} from '../card/card-code-form';
 
-/** A stored card code: exactly 9 characters of the alphabet, the check character last. */
-export const CARD_CODE_PATTERN = new RegExp(`^[${CARD_CODE_ALPHABET}]{${CARD_CODE_LENGTH}}$`);
+export { CARD_CODE_ALPHABET, CARD_CODE_LENGTH, CARD_CODE_MODULUS, CARD_CODE_PATTERN, CARD_CODE_RADIX, CARD_CODE_RANDOM_LENGTH };
 
 const VALUE = new Map<string, number>([...CARD_CODE_ALPHABET].map((character, index) => [character, index]));
 

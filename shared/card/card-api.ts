@@ -4,7 +4,7 @@
  */
 import * as z from 'zod';
 import { AIRCRAFT_CATEGORIES, SPEED_BASES, SPEED_PHASES } from '../speed-book/revision-content';
-import { CARD_CODE_PATTERN } from '../card-check/card-code';
+import { CARD_CODE_PATTERN } from './card-code-form';
 import { boundedJsonObject, CARD_INPUTS_BOUNDS } from '../api/json-bounds';
 import { CARD_REFUSAL_CODES, CARD_VERSION, cardInputsSchema, type SpeedCard } from './card';
 

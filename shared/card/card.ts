@@ -10,9 +10,8 @@
  *
  * Units are in every name: kt (knots), ft, hPa, °C (`…C`), kg.
  */
-import * as z from 'zod';
 import type { AircraftCategory, SpeedBasis, SpeedPhase } from '../speed-book/revision-content';
-import { configurationKeySchema } from '../speed-book/revision-content';
+import type { CardInputs } from './card-inputs-schema';
 
 /**
  * Schema version of the card JSON; part of the digest, so a change of meaning changes it.
@@ -24,75 +23,9 @@ export const CARD_VERSION = 2;
 export const STALL_TURN_BANKS_DEG = [0, 15, 30, 45, 60] as const;
 
 // ---------------------------------------------------------------------------------------------
-// Inputs
+// Inputs: card-inputs-schema.ts (re-exported here, where every caller finds them)
 
-const num = (what: string) =>
-  z.number({ error: (issue) => (issue.input === undefined ? `Give ${what}.` : `${capitalise(what)} must be a number.`) });
-
-function capitalise(text: string): string {
-  return text[0].toUpperCase() + text.slice(1);
-}
-
-const weight = (what: string) =>
-  num(what).positive(`${capitalise(what)} must be above zero.`).max(999_999, `${capitalise(what)} must be below 1,000,000 kg.`);
-
-/**
- * Conditions at one aerodrome. Only the type and finiteness are checked here; whether a value
- * lies inside the atmosphere and the altimeter relation (e.g. an OAT of 90 °C) is decided by
- * `buildCard`, which refuses the card with the flight-physics library's sentence.
- */
-export const aerodromeConditionsSchema = z.strictObject({
-  /** Field elevation, ft above mean sea level. */
-  elevationFt: num('the field elevation in feet'),
-  /** Altimeter setting QNH, hPa (the screen converts inHg). */
-  qnhHpa: num('the QNH in hPa'),
-  /** Outside air temperature at the field, °C. */
-  oatC: num('the outside air temperature in °C'),
-  /** Dew point, °C; without it density altitude is for dry air. */
-  dewPointC: num('the dew point in °C').optional(),
-});
-export type AerodromeConditions = z.infer<typeof aerodromeConditionsSchema>;
-
-/** The planned cruise: an indicated airspeed (through the cruise configuration's table) or a Mach number. */
-export const cruiseSchema = z.union(
-  [
-    z.strictObject({ iasKt: num('the cruise indicated airspeed in kt').positive('The cruise speed must be above zero.').max(999, 'The cruise speed must be below 1,000 kt.') }),
-    z.strictObject({ mach: num('the cruise Mach number').positive('The cruise Mach number must be above zero.').lt(1, 'The cruise Mach number must be below Mach 1.') }),
-  ],
-  { error: 'Give the planned cruise as an indicated airspeed in kt or as a Mach number, not both.' },
-);
-
-/**
- * What the pilot enters, in canonical units (the screen converts from the units chosen per
- * field). `configuration` is the takeoff configuration; approach and landing speeds use their
- * own configurations and `landingWeightKg` when given.
- */
-export const cardInputsSchema = z.strictObject({
-  airframeId: z
-    .number({ error: 'Choose the airframe.' })
-    .int('Choose the airframe.')
-    .positive('Choose the airframe.'),
-  /** Takeoff weight, kg. */
-  weightKg: weight('the takeoff weight in kg'),
-  /**
-   * Landing weight, kg; without it the landing and approach speeds use the takeoff weight when
-   * that is within the maximum landing weight, else the maximum landing weight (the card says so).
-   */
-  landingWeightKg: weight('the landing weight in kg').optional(),
-  /** The takeoff configuration's key (a configuration of the speed book). */
-  configuration: configurationKeySchema,
-  departure: aerodromeConditionsSchema,
-  arrival: aerodromeConditionsSchema.optional(),
-  /** The day's ISA deviation for the altitude table, °C. */
-  isaDeviationC: num('the ISA deviation in °C'),
-  cruise: cruiseSchema,
-  /** Spacing of the altitude table's rows, whole feet. */
-  altitudeStepFt: num('the altitude step in feet')
-    .int('The altitude step must be whole feet.')
-    .min(100, 'The altitude step must be at least 100 ft.')
-    .max(10_000, 'The altitude step must be at most 10,000 ft.'),
-});
-export type CardInputs = z.infer<typeof cardInputsSchema>;
+export * from './card-inputs-schema';
 
 // ---------------------------------------------------------------------------------------------
 // What buildCard is given besides the inputs
