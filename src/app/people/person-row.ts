@@ -1,4 +1,4 @@
-import { formatDate } from '@angular/common';
+import { utcDateTime } from '../core/format/display-format';
 import { OperatorPerson } from '../../../shared/api/auth';
 import { ROLE_LABELS } from '../../../shared/auth/roles';
 
@@ -30,7 +30,7 @@ export function toPersonRow(person: OperatorPerson): PersonRow {
     accountLabel: accountLabel(person),
     lastSignInMs: known ? lastSignInMs : null,
     lastSignInLabel:
-      person.lastSignInAt === null ? 'Never' : known ? `${formatDate(lastSignInMs, 'd MMM y, HH:mm', 'en-US', 'UTC')} UTC` : 'Not recorded',
+      person.lastSignInAt === null ? 'Never' : known ? utcDateTime(person.lastSignInAt) : 'Not recorded',
   };
 }
 
