@@ -1,8 +1,8 @@
-import { Injectable, computed, effect, inject, signal } from '@angular/core';
+import { Injectable, InjectionToken, computed, effect, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl, NonNullableFormBuilder } from '@angular/forms';
 import type { ErrorStateMatcher } from '@angular/material/core';
-import { Subject, debounceTime, merge } from 'rxjs';
+import { Subject, asyncScheduler, debounceTime, merge, type SchedulerLike } from 'rxjs';
 import { CardRefusedError, buildCard, enRouteDeviationCheck, startingEnRouteDeviationC, type CardInputs, type SpeedCard } from '../../../shared/card';
 import { AeroInputError, isaDeviationC, pressureAltitudeFt } from '../../../shared/aero';
 import { AuthService } from '../core/auth/auth-service';
@@ -15,6 +15,9 @@ import type { EnteredInput } from './speed-card-view';
 
 /** Long enough that typing "1050" builds one card, short enough to feel live. */
 export const CARD_DEBOUNCE_MS = 300;
+
+/** The clock of the typing pause: RxJS's own; a spec provides a virtual one and flushes it. */
+export const CARD_FORM_SCHEDULER = new InjectionToken<SchedulerLike>('CARD_FORM_SCHEDULER', { factory: () => asyncScheduler });
 
 type Outcome =
   | { readonly kind: 'card'; readonly card: SpeedCard }
@@ -53,6 +56,7 @@ export class CardFormModel {
   private readonly selection = inject(CardRevisionSelection);
   private readonly unitPreferences = inject(UnitPreferences);
   private readonly user = inject(AuthService).user;
+  private readonly scheduler = inject(CARD_FORM_SCHEDULER);
 
   readonly form = createCardForm(inject(NonNullableFormBuilder));
   readonly units = signal<UnitChoice>(CANONICAL_UNITS);
@@ -247,7 +251,7 @@ export class CardFormModel {
 
   private followForm(): void {
     merge(this.form.valueChanges, this.recompute)
-      .pipe(debounceTime(CARD_DEBOUNCE_MS), takeUntilDestroyed())
+      .pipe(debounceTime(CARD_DEBOUNCE_MS, this.scheduler), takeUntilDestroyed())
       .subscribe(() => this.snapshot.set({ value: this.form.getRawValue(), units: this.units() }));
     // A deviation the pilot types is theirs; until then it follows the departure's own.
     this.form.controls.isaDeviation.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => {
