@@ -9,9 +9,9 @@ import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
 import { AIRCRAFT_CATEGORY_LABELS } from './aircraft-category-labels';
-import { FLEET_PAGE_SIZES, FleetTableRow, FleetTableState } from './fleet-table-state';
+import { LIST_PAGE_SIZES, ListTableRow, ListTableState } from '../core/table/list-table-state';
 
-interface AircraftTypeRow extends FleetTableRow {
+interface AircraftTypeRow extends ListTableRow {
   readonly aircraftType: AircraftTypeView;
   readonly categoryLabel: string;
   readonly airframeCount: number;
@@ -22,7 +22,7 @@ interface AircraftTypeRow extends FleetTableRow {
   selector: 'sw-aircraft-types-table',
   imports: [DecimalPipe, MatTableModule, MatSortModule, MatPaginatorModule, MatFormFieldModule, MatInputModule, MatIconModule, MatButtonModule],
   templateUrl: './aircraft-types-table.html',
-  styleUrl: './fleet-table.scss',
+  styleUrls: ['../core/table/list-table.scss', './fleet-table.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class AircraftTypesTable {
@@ -31,7 +31,7 @@ export class AircraftTypesTable {
   readonly canEdit = input(false);
   readonly editAircraftType = output<AircraftTypeView>();
 
-  protected readonly pageSizes = FLEET_PAGE_SIZES;
+  protected readonly pageSizes = LIST_PAGE_SIZES;
   protected readonly columns = computed(() => [
     'designator',
     'name',
@@ -46,7 +46,7 @@ export class AircraftTypesTable {
     for (const airframe of this.airframes()) counts.set(airframe.aircraftTypeId, (counts.get(airframe.aircraftTypeId) ?? 0) + 1);
     return this.aircraftTypes().map((type) => toRow(type, counts.get(type.id) ?? 0));
   });
-  protected readonly table = new FleetTableState(this.rows, { active: 'designator', direction: 'asc' });
+  protected readonly table = new ListTableState(this.rows, { active: 'designator', direction: 'asc' });
   protected readonly countSentence = computed(() => {
     const total = this.rows().length;
     const matching = this.table.matching().length;

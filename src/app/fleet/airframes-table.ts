@@ -7,9 +7,9 @@ import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
-import { FLEET_PAGE_SIZES, FleetTableRow, FleetTableState } from './fleet-table-state';
+import { LIST_PAGE_SIZES, ListTableRow, ListTableState } from '../core/table/list-table-state';
 
-interface AirframeRow extends FleetTableRow {
+interface AirframeRow extends ListTableRow {
   readonly airframe: AirframeView;
   readonly registration: string;
   readonly serial: string;
@@ -22,7 +22,7 @@ interface AirframeRow extends FleetTableRow {
   selector: 'sw-airframes-table',
   imports: [MatTableModule, MatSortModule, MatPaginatorModule, MatFormFieldModule, MatInputModule, MatIconModule, MatButtonModule],
   templateUrl: './airframes-table.html',
-  styleUrl: './fleet-table.scss',
+  styleUrls: ['../core/table/list-table.scss', './fleet-table.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class AirframesTable {
@@ -31,7 +31,7 @@ export class AirframesTable {
   readonly canEdit = input(false);
   readonly editAirframe = output<AirframeView>();
 
-  protected readonly pageSizes = FLEET_PAGE_SIZES;
+  protected readonly pageSizes = LIST_PAGE_SIZES;
   protected readonly columns = computed(() => [
     'registration',
     'serial',
@@ -43,7 +43,7 @@ export class AirframesTable {
     const types = new Map(this.aircraftTypes().map((type) => [type.id, type]));
     return this.airframes().map((airframe) => toRow(airframe, types.get(airframe.aircraftTypeId)));
   });
-  protected readonly table = new FleetTableState(this.rows, { active: 'registration', direction: 'asc' });
+  protected readonly table = new ListTableState(this.rows, { active: 'registration', direction: 'asc' });
   protected readonly countSentence = computed(() => {
     const total = this.rows().length;
     const matching = this.table.matching().length;

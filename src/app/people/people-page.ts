@@ -14,13 +14,13 @@ import { Observable } from 'rxjs';
 import { OperatorPerson } from '../../../shared/api/auth';
 import { InvitationSent } from '../../../shared/api/people';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { requestState } from '../core/api/request-state';
+import { ListTableState } from '../core/table/list-table-state';
 import { AuthService } from '../core/auth/auth-service';
 import { ChangePersonDialog } from './change-person-dialog';
 import { InvitePersonDialog } from './invite-person-dialog';
 import { OperatorPeople } from './operator-people';
 import { PersonRow, toPersonRow } from './person-row';
-
-type SortableColumn = 'displayName' | 'roleLabel' | 'accountLabel' | 'lastSignIn';
 
 /**
  * The admin's list of the operator's people: who they are, their role, and their account;
@@ -30,7 +30,7 @@ type SortableColumn = 'displayName' | 'roleLabel' | 'accountLabel' | 'lastSignIn
   selector: 'sw-people-page',
   imports: [MatTableModule, MatSortModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
   templateUrl: './people-page.html',
-  styleUrl: './people-page.scss',
+  styleUrls: ['../core/table/list-table.scss', './people-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PeoplePage {
@@ -41,18 +41,21 @@ export class PeoplePage {
   private readonly auth = inject(AuthService);
 
   protected readonly columns: readonly string[] = ['displayName', 'roleLabel', 'accountLabel', 'lastSignIn', 'actions'];
-  protected readonly loading = signal(true);
-  protected readonly problem = signal<string | null>(null);
+  private readonly request = requestState();
+  protected readonly loading = this.request.busy;
+  protected readonly problem = this.request.problem;
   /** Why the last action on a person was refused; stays until dismissed or the next action. */
   protected readonly refusal = signal<string | null>(null);
-  protected readonly filterText = signal('');
-  protected readonly sort = signal<Sort>({ active: 'displayName', direction: 'asc' });
   protected readonly signedInId = computed(() => this.auth.user()?.id ?? null);
   private readonly everyone = signal<readonly OperatorPerson[]>([]);
   private readonly allRows = computed(() => this.everyone().map(toPersonRow));
 
+  private readonly table = new ListTableState(this.allRows, { active: 'displayName', direction: 'asc' });
+  protected readonly filterText = this.table.filterText;
+  protected readonly sort = this.table.sort;
+
   protected readonly total = computed(() => this.allRows().length);
-  protected readonly rows = computed(() => sortRows(filterRows(this.allRows(), this.filterText()), this.sort()));
+  protected readonly rows = this.table.matching;
   protected readonly countSentence = computed(() => {
     const shown = this.rows().length;
     const total = this.total();
@@ -65,21 +68,7 @@ export class PeoplePage {
   }
 
   protected loadPeople(): void {
-    this.loading.set(true);
-    this.problem.set(null);
-    this.people
-      .list()
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: (people) => {
-          this.everyone.set(people);
-          this.loading.set(false);
-        },
-        error: (error: ApiRequestError) => {
-          this.problem.set(error.message);
-          this.loading.set(false);
-        },
-      });
+    this.request.run(this.people.list(), (people) => this.everyone.set(people));
   }
 
   protected invitePerson(): void {
@@ -129,11 +118,11 @@ export class PeoplePage {
   }
 
   protected filterPeople(event: Event): void {
-    this.filterText.set((event.target as HTMLInputElement).value);
+    this.table.filter((event.target as HTMLInputElement).value);
   }
 
   protected sortPeople(sort: Sort): void {
-    this.sort.set(sort);
+    this.table.sortBy(sort);
   }
 
   private act<T>(request: Observable<T>, succeeded: (answer: T) => string | null): void {
@@ -169,31 +158,4 @@ export class PeoplePage {
       list.some((person) => person.id === saved.id) ? list.map((person) => (person.id === saved.id ? saved : person)) : [...list, saved],
     );
   }
-}
-
-function filterRows(rows: readonly PersonRow[], text: string): readonly PersonRow[] {
-  const needle = text.trim().toLowerCase();
-  if (!needle) {
-    return rows;
-  }
-  return rows.filter((row) =>
-    [row.displayName, row.email, row.roleLabel, row.accountLabel].some((value) => value.toLowerCase().includes(needle)),
-  );
-}
-
-function sortRows(rows: readonly PersonRow[], sort: Sort): readonly PersonRow[] {
-  if (!sort.direction) {
-    return rows;
-  }
-  const sign = sort.direction === 'asc' ? 1 : -1;
-  const column = sort.active as SortableColumn;
-  return [...rows].sort((a, b) => sign * compareBy(column, a, b));
-}
-
-function compareBy(column: SortableColumn, a: PersonRow, b: PersonRow): number {
-  if (column === 'lastSignIn') {
-    // Never signed in counts as the oldest.
-    return (a.lastSignInMs ?? -Infinity) - (b.lastSignInMs ?? -Infinity) || 0;
-  }
-  return a[column].localeCompare(b[column], 'en', { sensitivity: 'base' });
 }
