@@ -1,14 +1,13 @@
 import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
 import { AIRCRAFT_CATEGORY_LABELS } from './aircraft-category-labels';
+import { TableToolbar } from '../core/table/table-toolbar';
 import { LIST_PAGE_SIZES, ListTableRow, ListTableState } from '../core/table/list-table-state';
 
 interface AircraftTypeRow extends ListTableRow {
@@ -20,7 +19,7 @@ interface AircraftTypeRow extends ListTableRow {
 /** The operator's aircraft types: filter, sort, page, and (for administrators) edit. */
 @Component({
   selector: 'sw-aircraft-types-table',
-  imports: [DecimalPipe, MatTableModule, MatSortModule, MatPaginatorModule, MatFormFieldModule, MatInputModule, MatIconModule, MatButtonModule],
+  imports: [DecimalPipe, MatTableModule, MatSortModule, MatPaginatorModule, TableToolbar, MatIconModule, MatButtonModule],
   templateUrl: './aircraft-types-table.html',
   styleUrls: ['../core/table/list-table.scss', './fleet-table.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -54,9 +53,6 @@ export class AircraftTypesTable {
     return matching === total ? `${total} ${noun}` : `${matching} of ${total} ${noun} match`;
   });
 
-  protected filterAircraftTypes(event: Event): void {
-    this.table.filter((event.target as HTMLInputElement).value);
-  }
 }
 
 function toRow(type: AircraftTypeView, airframeCount: number): AircraftTypeRow {

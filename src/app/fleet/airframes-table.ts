@@ -1,12 +1,11 @@
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
+import { TableToolbar } from '../core/table/table-toolbar';
 import { LIST_PAGE_SIZES, ListTableRow, ListTableState } from '../core/table/list-table-state';
 
 interface AirframeRow extends ListTableRow {
@@ -20,7 +19,7 @@ interface AirframeRow extends ListTableRow {
 /** The operator's airframes: filter, sort, page, and (for administrators) edit. */
 @Component({
   selector: 'sw-airframes-table',
-  imports: [MatTableModule, MatSortModule, MatPaginatorModule, MatFormFieldModule, MatInputModule, MatIconModule, MatButtonModule],
+  imports: [MatTableModule, MatSortModule, MatPaginatorModule, TableToolbar, MatIconModule, MatButtonModule],
   templateUrl: './airframes-table.html',
   styleUrls: ['../core/table/list-table.scss', './fleet-table.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -51,9 +50,6 @@ export class AirframesTable {
     return matching === total ? `${total} ${noun}` : `${matching} of ${total} ${noun} match`;
   });
 
-  protected filterAirframes(event: Event): void {
-    this.table.filter((event.target as HTMLInputElement).value);
-  }
 }
 
 function toRow(airframe: AirframeView, type: AircraftTypeView | undefined): AirframeRow {

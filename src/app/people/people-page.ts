@@ -2,9 +2,7 @@ import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signa
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
@@ -16,6 +14,7 @@ import { InvitationSent } from '../../../shared/api/people';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { requestState } from '../core/api/request-state';
 import { ListTableState } from '../core/table/list-table-state';
+import { TableToolbar } from '../core/table/table-toolbar';
 import { AuthService } from '../core/auth/auth-service';
 import { ChangePersonDialog } from './change-person-dialog';
 import { InvitePersonDialog } from './invite-person-dialog';
@@ -28,7 +27,7 @@ import { PersonRow, toPersonRow } from './person-row';
  */
 @Component({
   selector: 'sw-people-page',
-  imports: [MatTableModule, MatSortModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
+  imports: [MatTableModule, MatSortModule, TableToolbar, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
   templateUrl: './people-page.html',
   styleUrls: ['../core/table/list-table.scss', './people-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -117,8 +116,8 @@ export class PeoplePage {
     this.refusal.set(null);
   }
 
-  protected filterPeople(event: Event): void {
-    this.table.filter((event.target as HTMLInputElement).value);
+  protected filterPeople(text: string): void {
+    this.table.filter(text);
   }
 
   protected sortPeople(sort: Sort): void {
