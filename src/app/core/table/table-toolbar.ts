@@ -10,20 +10,7 @@ import { MatInputModule } from '@angular/material/input';
 @Component({
   selector: 'sw-table-toolbar',
   imports: [MatFormFieldModule, MatInputModule, MatIconModule],
-  template: `
-    <div class="toolbar">
-      <mat-form-field appearance="outline" subscriptSizing="dynamic" class="filter">
-        <mat-label>{{ filterLabel() }}</mat-label>
-        <mat-icon matPrefix>search</mat-icon>
-        <input matInput type="search" autocomplete="off" [value]="filterText()" (input)="filterTyped($event)" />
-        <mat-hint>{{ filterHint() }}</mat-hint>
-      </mat-form-field>
-      @if (count(); as count) {
-        <p class="count" aria-live="polite" [attr.data-testid]="countTestId()">{{ count }}</p>
-      }
-      <ng-content />
-    </div>
-  `,
+  templateUrl: './table-toolbar.html',
   styleUrl: './list-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
