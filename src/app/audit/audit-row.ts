@@ -1,4 +1,4 @@
-import { formatDate } from '@angular/common';
+import { utcDateTime } from '../core/format/display-format';
 import { AuditEventView } from '../../../shared/api/audit';
 import { actionLabel, entityLabel } from './audit-vocabulary';
 
@@ -25,7 +25,7 @@ export function toAuditRow(event: AuditEventView): AuditRow {
   const when = Date.parse(event.createdAt);
   return {
     id: event.id,
-    whenLabel: Number.isFinite(when) ? `${formatDate(when, 'd MMM y, HH:mm:ss', 'en-US', 'UTC')} UTC` : event.createdAt,
+    whenLabel: Number.isFinite(when) ? utcDateTime(event.createdAt, { seconds: true }) : event.createdAt,
     personLabel: event.actorName ?? (event.actorId === null ? 'Nobody signed in' : `Person #${event.actorId}`),
     actionLabel: actionLabel(event.action),
     recordLabel: event.entityId === null ? entityLabel(event.entityType) : `${entityLabel(event.entityType)} #${event.entityId}`,

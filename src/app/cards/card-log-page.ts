@@ -18,6 +18,7 @@ import { AuthService } from '../core/auth/auth-service';
 import { RevisionNotices } from '../core/sync/revision-notices';
 import { CardLog, type CardLogFilter } from './card-log';
 import { cardNumber } from './card-number-pipe';
+import { utcMinutesShort } from '../core/format/display-format';
 import { CardSources } from './card-sources';
 import { DeviceCardLog } from './device-card-log';
 
@@ -90,8 +91,7 @@ export class CardLogPage {
 
   /** "2026-12-01 23:45", UTC: short enough for two time columns on a tablet. */
   protected when(iso: string): string {
-    const date = new Date(iso);
-    return Number.isNaN(date.getTime()) ? iso : `${date.toISOString().slice(0, 10)} ${date.toISOString().slice(11, 16)}`;
+    return utcMinutesShort(iso);
   }
 
   /** The card code as printed on the card. */

@@ -17,7 +17,9 @@ import { DeviceStore, SpeedwrightDeviceDatabase, type RevisionRecord } from '../
 import { DAY_MS, dataCurrency, type RevisionNotice } from '../core/sync/device-sync';
 import { SyncService, type DeviceSnapshot, type SyncStatus } from '../core/sync/sync-service';
 import { AltitudeChart } from './altitude-chart';
-import { CARD_DEBOUNCE_MS, CardsPage } from './cards-page';
+import { VirtualTimeScheduler } from 'rxjs';
+import { CardsPage } from './cards-page';
+import { CARD_FORM_SCHEDULER } from './card-form-model';
 import { CARD_PATHS } from './card-sources';
 import { SpeedCardView } from './speed-card-view';
 import { CardPrinter } from './card-printer';
@@ -121,11 +123,14 @@ describe('CardsPage', () => {
   let page: HTMLElement;
   let db: SpeedwrightDeviceDatabase;
   let sync: FakeSync;
+  /** The typing pause runs on this virtual clock: `settle` flushes it instead of waiting. */
+  let clock: VirtualTimeScheduler;
 
   let printer: { download: jest.Mock };
 
   beforeEach(async () => {
     sync = new FakeSync();
+    clock = new VirtualTimeScheduler();
     printer = { download: jest.fn(async () => new Blob(['%PDF-'])) };
     localStorage.clear();
     db = new SpeedwrightDeviceDatabase(`speedwright-test-${Math.random()}`);
@@ -140,6 +145,7 @@ describe('CardsPage', () => {
         { provide: DeviceStore, useValue: { db } },
         { provide: SyncService, useValue: sync },
         { provide: CardPrinter, useValue: printer },
+        { provide: CARD_FORM_SCHEDULER, useValue: clock },
       ],
     });
     TestBed.overrideComponent(SpeedCardView, { remove: { imports: [AltitudeChart] }, add: { imports: [ChartPlaceholder] } });
@@ -156,13 +162,18 @@ describe('CardsPage', () => {
 
   afterEach(async () => {
     backend.verify();
+    // The page's reads of the device store end before it closes: destroy the page, then a
+    // read-write transaction over every table waits for the ones already started.
+    fixture.destroy();
+    await db.transaction('rw', db.tables, async () => undefined);
     db.close();
     await db.delete();
   });
 
-  /** Past the debounce, then Angular's rendering. */
+  /** Past the debounce (on the virtual clock), then Angular's rendering. */
   async function settle(): Promise<void> {
-    await pause(CARD_DEBOUNCE_MS + 60);
+    await fixture.whenStable();
+    clock.flush();
     await fixture.whenStable();
   }
 
@@ -184,7 +195,9 @@ describe('CardsPage', () => {
   async function until(check: () => boolean): Promise<void> {
     let done = false;
     for (let i = 0; i < 250 && !(done = check()); i++) {
+      // IndexedDB (fake-indexeddb) answers on the real event loop; the typing pause is virtual.
       await pause(20);
+      clock.flush();
       await fixture.whenStable();
     }
     expect(done).toBe(true);

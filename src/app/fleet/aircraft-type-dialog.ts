@@ -1,5 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
@@ -7,12 +6,13 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { Observable, finalize } from 'rxjs';
+import type { Observable } from 'rxjs';
 import { AircraftTypeView, UpdateAircraftType, createAircraftTypeSchema } from '../../../shared/api/fleet';
 import type { AircraftCategory } from '../../../shared/speed-book/revision-content';
-import { ApiRequestError } from '../core/api/api-request-error';
 import { zodValidator } from '../core/forms/zod-validator';
-import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
+import { changedFields } from '../core/forms/changed-fields';
+import { dialogSubmit } from '../core/forms/dialog-submit';
+import { controlMessage } from '../core/forms/server-field-errors';
 import { AIRCRAFT_CATEGORY_LABELS } from './aircraft-category-labels';
 import { FleetRecords } from './fleet-records';
 
@@ -34,7 +34,6 @@ const fields = createAircraftTypeSchema.shape;
 export class AircraftTypeDialog {
   private readonly fleet = inject(FleetRecords);
   private readonly dialogRef = inject<MatDialogRef<AircraftTypeDialog, AircraftTypeView>>(MatDialogRef);
-  private readonly destroyRef = inject(DestroyRef);
   private readonly data = inject<AircraftTypeDialogData | null>(MAT_DIALOG_DATA, { optional: true });
 
   protected readonly editing = this.data?.aircraftType;
@@ -46,8 +45,9 @@ export class AircraftTypeDialog {
     engines: [this.editing?.engines ?? (1 as number | null), zodValidator(fields.engines)],
     ceilingFt: [this.editing?.ceilingFt ?? (null as number | null), zodValidator(fields.ceilingFt)],
   });
-  protected readonly saving = signal(false);
-  protected readonly problem = signal<string | null>(null);
+  private readonly submission = dialogSubmit(this.form, this.dialogRef);
+  protected readonly saving = this.submission.busy;
+  protected readonly problem = this.submission.problem;
   protected readonly message = (path: string) => controlMessage(this.form, path);
 
   protected saveAircraftType(): void {
@@ -55,35 +55,13 @@ export class AircraftTypeDialog {
     this.form.markAllAsTouched();
     const parsed = createAircraftTypeSchema.safeParse(this.form.getRawValue());
     if (this.form.invalid || !parsed.success) return;
-    const change = this.editing ? changedFields(this.editing, parsed.data) : null;
+    const change = this.editing ? changedFields<UpdateAircraftType>(this.editing, parsed.data) : null;
     if (this.editing && change && Object.keys(change).length === 0) {
-      this.dialogRef.close();
+      this.submission.closeUnchanged();
       return;
     }
     const request: Observable<AircraftTypeView> =
       this.editing && change ? this.fleet.changeAircraftType(this.editing.id, change) : this.fleet.addAircraftType(parsed.data);
-    this.saving.set(true);
-    this.problem.set(null);
-    request
-      .pipe(
-        finalize(() => this.saving.set(false)),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe({
-        next: (saved) => this.dialogRef.close(saved),
-        error: (error: ApiRequestError) => {
-          if (showServerFieldErrors(this.form, error)) this.problem.set(error.message);
-        },
-      });
+    this.submission.submit(request);
   }
-}
-
-function changedFields(before: AircraftTypeView, after: Required<UpdateAircraftType>): UpdateAircraftType {
-  const change: UpdateAircraftType = {};
-  if (after.designator !== before.designator) change.designator = after.designator;
-  if (after.name !== before.name) change.name = after.name;
-  if (after.category !== before.category) change.category = after.category;
-  if (after.engines !== before.engines) change.engines = after.engines;
-  if (after.ceilingFt !== before.ceilingFt) change.ceilingFt = after.ceilingFt;
-  return change;
 }

@@ -1,17 +1,16 @@
 import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
 import { AIRCRAFT_CATEGORY_LABELS } from './aircraft-category-labels';
-import { FLEET_PAGE_SIZES, FleetTableRow, FleetTableState } from './fleet-table-state';
+import { TableToolbar } from '../core/table/table-toolbar';
+import { LIST_PAGE_SIZES, ListTableRow, ListTableState } from '../core/table/list-table-state';
 
-interface AircraftTypeRow extends FleetTableRow {
+interface AircraftTypeRow extends ListTableRow {
   readonly aircraftType: AircraftTypeView;
   readonly categoryLabel: string;
   readonly airframeCount: number;
@@ -20,9 +19,9 @@ interface AircraftTypeRow extends FleetTableRow {
 /** The operator's aircraft types: filter, sort, page, and (for administrators) edit. */
 @Component({
   selector: 'sw-aircraft-types-table',
-  imports: [DecimalPipe, MatTableModule, MatSortModule, MatPaginatorModule, MatFormFieldModule, MatInputModule, MatIconModule, MatButtonModule],
+  imports: [DecimalPipe, MatTableModule, MatSortModule, MatPaginatorModule, TableToolbar, MatIconModule, MatButtonModule],
   templateUrl: './aircraft-types-table.html',
-  styleUrl: './fleet-table.scss',
+  styleUrls: ['../core/table/list-table.scss', './fleet-table.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class AircraftTypesTable {
@@ -31,7 +30,7 @@ export class AircraftTypesTable {
   readonly canEdit = input(false);
   readonly editAircraftType = output<AircraftTypeView>();
 
-  protected readonly pageSizes = FLEET_PAGE_SIZES;
+  protected readonly pageSizes = LIST_PAGE_SIZES;
   protected readonly columns = computed(() => [
     'designator',
     'name',
@@ -46,7 +45,7 @@ export class AircraftTypesTable {
     for (const airframe of this.airframes()) counts.set(airframe.aircraftTypeId, (counts.get(airframe.aircraftTypeId) ?? 0) + 1);
     return this.aircraftTypes().map((type) => toRow(type, counts.get(type.id) ?? 0));
   });
-  protected readonly table = new FleetTableState(this.rows, { active: 'designator', direction: 'asc' });
+  protected readonly table = new ListTableState(this.rows, { active: 'designator', direction: 'asc' });
   protected readonly countSentence = computed(() => {
     const total = this.rows().length;
     const matching = this.table.matching().length;
@@ -54,9 +53,6 @@ export class AircraftTypesTable {
     return matching === total ? `${total} ${noun}` : `${matching} of ${total} ${noun} match`;
   });
 
-  protected filterAircraftTypes(event: Event): void {
-    this.table.filter((event.target as HTMLInputElement).value);
-  }
 }
 
 function toRow(type: AircraftTypeView, airframeCount: number): AircraftTypeRow {

@@ -1,5 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -8,11 +7,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { Observable, finalize } from 'rxjs';
+import type { Observable } from 'rxjs';
 import { AircraftTypeView, AirframeView, UpdateAirframe, createAirframeSchema } from '../../../shared/api/fleet';
-import { ApiRequestError } from '../core/api/api-request-error';
 import { zodValidator } from '../core/forms/zod-validator';
-import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
+import { changedFields } from '../core/forms/changed-fields';
+import { dialogSubmit } from '../core/forms/dialog-submit';
+import { controlMessage } from '../core/forms/server-field-errors';
 import { FleetRecords } from './fleet-records';
 
 export interface AirframeDialogData {
@@ -34,7 +34,6 @@ const fields = createAirframeSchema.shape;
 export class AirframeDialog {
   private readonly fleet = inject(FleetRecords);
   private readonly dialogRef = inject<MatDialogRef<AirframeDialog, AirframeView>>(MatDialogRef);
-  private readonly destroyRef = inject(DestroyRef);
   protected readonly data = inject<AirframeDialogData>(MAT_DIALOG_DATA);
 
   protected readonly editing = this.data.airframe;
@@ -44,8 +43,9 @@ export class AirframeDialog {
     aircraftTypeId: [this.editing?.aircraftTypeId ?? (null as number | null), zodValidator(fields.aircraftTypeId)],
     active: [this.editing?.active ?? true],
   });
-  protected readonly saving = signal(false);
-  protected readonly problem = signal<string | null>(null);
+  private readonly submission = dialogSubmit(this.form, this.dialogRef);
+  protected readonly saving = this.submission.busy;
+  protected readonly problem = this.submission.problem;
   protected readonly message = (path: string) => controlMessage(this.form, path);
 
   protected saveAirframe(): void {
@@ -53,34 +53,13 @@ export class AirframeDialog {
     this.form.markAllAsTouched();
     const parsed = createAirframeSchema.safeParse(this.form.getRawValue());
     if (this.form.invalid || !parsed.success) return;
-    const change = this.editing ? changedFields(this.editing, parsed.data) : null;
+    const change = this.editing ? changedFields<UpdateAirframe>(this.editing, parsed.data) : null;
     if (this.editing && change && Object.keys(change).length === 0) {
-      this.dialogRef.close();
+      this.submission.closeUnchanged();
       return;
     }
     const request: Observable<AirframeView> =
       this.editing && change ? this.fleet.changeAirframe(this.editing.id, change) : this.fleet.addAirframe(parsed.data);
-    this.saving.set(true);
-    this.problem.set(null);
-    request
-      .pipe(
-        finalize(() => this.saving.set(false)),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe({
-        next: (saved) => this.dialogRef.close(saved),
-        error: (error: ApiRequestError) => {
-          if (showServerFieldErrors(this.form, error)) this.problem.set(error.message);
-        },
-      });
+    this.submission.submit(request);
   }
-}
-
-function changedFields(before: AirframeView, after: Required<UpdateAirframe>): UpdateAirframe {
-  const change: UpdateAirframe = {};
-  if (after.registration !== before.registration) change.registration = after.registration;
-  if (after.serial !== before.serial) change.serial = after.serial;
-  if (after.aircraftTypeId !== before.aircraftTypeId) change.aircraftTypeId = after.aircraftTypeId;
-  if (after.active !== before.active) change.active = after.active;
-  return change;
 }

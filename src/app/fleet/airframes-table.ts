@@ -1,15 +1,14 @@
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
-import { FLEET_PAGE_SIZES, FleetTableRow, FleetTableState } from './fleet-table-state';
+import { TableToolbar } from '../core/table/table-toolbar';
+import { LIST_PAGE_SIZES, ListTableRow, ListTableState } from '../core/table/list-table-state';
 
-interface AirframeRow extends FleetTableRow {
+interface AirframeRow extends ListTableRow {
   readonly airframe: AirframeView;
   readonly registration: string;
   readonly serial: string;
@@ -20,9 +19,9 @@ interface AirframeRow extends FleetTableRow {
 /** The operator's airframes: filter, sort, page, and (for administrators) edit. */
 @Component({
   selector: 'sw-airframes-table',
-  imports: [MatTableModule, MatSortModule, MatPaginatorModule, MatFormFieldModule, MatInputModule, MatIconModule, MatButtonModule],
+  imports: [MatTableModule, MatSortModule, MatPaginatorModule, TableToolbar, MatIconModule, MatButtonModule],
   templateUrl: './airframes-table.html',
-  styleUrl: './fleet-table.scss',
+  styleUrls: ['../core/table/list-table.scss', './fleet-table.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class AirframesTable {
@@ -31,7 +30,7 @@ export class AirframesTable {
   readonly canEdit = input(false);
   readonly editAirframe = output<AirframeView>();
 
-  protected readonly pageSizes = FLEET_PAGE_SIZES;
+  protected readonly pageSizes = LIST_PAGE_SIZES;
   protected readonly columns = computed(() => [
     'registration',
     'serial',
@@ -43,7 +42,7 @@ export class AirframesTable {
     const types = new Map(this.aircraftTypes().map((type) => [type.id, type]));
     return this.airframes().map((airframe) => toRow(airframe, types.get(airframe.aircraftTypeId)));
   });
-  protected readonly table = new FleetTableState(this.rows, { active: 'registration', direction: 'asc' });
+  protected readonly table = new ListTableState(this.rows, { active: 'registration', direction: 'asc' });
   protected readonly countSentence = computed(() => {
     const total = this.rows().length;
     const matching = this.table.matching().length;
@@ -51,9 +50,6 @@ export class AirframesTable {
     return matching === total ? `${total} ${noun}` : `${matching} of ${total} ${noun} match`;
   });
 
-  protected filterAirframes(event: Event): void {
-    this.table.filter((event.target as HTMLInputElement).value);
-  }
 }
 
 function toRow(airframe: AirframeView, type: AircraftTypeView | undefined): AirframeRow {

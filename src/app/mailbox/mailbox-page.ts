@@ -1,4 +1,5 @@
-import { DOCUMENT, formatDate } from '@angular/common';
+import { DOCUMENT } from '@angular/common';
+import { utcDateTime } from '../core/format/display-format';
 import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -66,7 +67,7 @@ export class MailboxPage {
       id: message.id,
       subject: message.subject || '(no subject)',
       to: message.to.join(', '),
-      receivedLabel: Number.isFinite(received) ? `${formatDate(received, 'd MMM y, HH:mm:ss', 'en-US', 'UTC')} UTC` : message.receivedAt,
+      receivedLabel: Number.isFinite(received) ? utcDateTime(message.receivedAt, { seconds: true }) : message.receivedAt,
       parts: splitMailText(message.text, message.links, this.origin),
     };
   }

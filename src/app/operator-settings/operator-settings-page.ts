@@ -1,4 +1,4 @@
-import { formatDate } from '@angular/common';
+import { utcDay } from '../core/format/display-format';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
@@ -169,7 +169,7 @@ export class OperatorSettingsPage {
       .subscribe({
         next: ({ settings, key }) => {
           this.form.setValue({ currencyLimitDays: settings.settings.currencyLimitDays });
-          this.key.set({ id: key.signingKey.id, publicKey: key.signingKey.publicKey, created: formatDate(key.signingKey.createdAt, 'yyyy-MM-dd', 'en-GB', 'UTC') });
+          this.key.set({ id: key.signingKey.id, publicKey: key.signingKey.publicKey, created: utcDay(key.signingKey.createdAt) });
         },
         error: (error: ApiRequestError) => this.problem.set(error.message),
       });

@@ -1,5 +1,5 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
-import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
@@ -7,11 +7,11 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { finalize, map } from 'rxjs';
+import { map } from 'rxjs';
 import { OperatorPerson, UpdatePersonRequest, invitePersonRequestSchema } from '../../../shared/api/auth';
 import { ROLES, ROLE_LABELS, ROLE_SUMMARIES, Role } from '../../../shared/auth/roles';
-import { ApiRequestError } from '../core/api/api-request-error';
-import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
+import { dialogSubmit } from '../core/forms/dialog-submit';
+import { controlMessage } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { OperatorPeople } from './operator-people';
 
@@ -28,7 +28,6 @@ const fields = invitePersonRequestSchema.shape;
 export class ChangePersonDialog {
   private readonly people = inject(OperatorPeople);
   private readonly dialogRef = inject<MatDialogRef<ChangePersonDialog, OperatorPerson>>(MatDialogRef);
-  private readonly destroyRef = inject(DestroyRef);
   protected readonly person = inject<OperatorPerson>(MAT_DIALOG_DATA);
 
   protected readonly roles = ROLES.map((role) => ({ role, label: ROLE_LABELS[role] }));
@@ -39,8 +38,9 @@ export class ChangePersonDialog {
   protected readonly roleSummary = toSignal(this.form.controls.role.valueChanges.pipe(map((role) => ROLE_SUMMARIES[role])), {
     initialValue: ROLE_SUMMARIES[this.person.role],
   });
-  protected readonly saving = signal(false);
-  protected readonly problem = signal<string | null>(null);
+  private readonly submission = dialogSubmit(this.form, this.dialogRef);
+  protected readonly saving = this.submission.busy;
+  protected readonly problem = this.submission.problem;
   protected readonly message = (path: string) => controlMessage(this.form, path);
 
   protected saveChange(): void {
@@ -52,22 +52,9 @@ export class ChangePersonDialog {
     if (role !== this.person.role) change.role = role;
     if (displayName.trim() !== this.person.displayName) change.displayName = displayName.trim();
     if (Object.keys(change).length === 0) {
-      this.dialogRef.close();
+      this.submission.closeUnchanged();
       return;
     }
-    this.saving.set(true);
-    this.problem.set(null);
-    this.people
-      .change(this.person.id, change)
-      .pipe(
-        finalize(() => this.saving.set(false)),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe({
-        next: (saved) => this.dialogRef.close(saved),
-        error: (error: ApiRequestError) => {
-          if (showServerFieldErrors(this.form, error)) this.problem.set(error.message);
-        },
-      });
+    this.submission.submit(this.people.change(this.person.id, change));
   }
 }

@@ -1,5 +1,5 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
-import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { AbstractControl, NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialogModule, MatDialogRef } from '@angular/material/dialog';
@@ -7,12 +7,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { finalize, map } from 'rxjs';
+import { map } from 'rxjs';
 import { invitePersonRequestSchema } from '../../../shared/api/auth';
 import { InvitationSent } from '../../../shared/api/people';
 import { ROLES, ROLE_LABELS, ROLE_SUMMARIES, Role } from '../../../shared/auth/roles';
-import { ApiRequestError } from '../core/api/api-request-error';
-import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
+import { dialogSubmit } from '../core/forms/dialog-submit';
+import { controlMessage } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { OperatorPeople } from './operator-people';
 
@@ -29,7 +29,6 @@ const fields = invitePersonRequestSchema.shape;
 export class InvitePersonDialog {
   private readonly people = inject(OperatorPeople);
   private readonly dialogRef = inject<MatDialogRef<InvitePersonDialog, InvitationSent>>(MatDialogRef);
-  private readonly destroyRef = inject(DestroyRef);
 
   protected readonly roles = ROLES.map((role) => ({ role, label: ROLE_LABELS[role] }));
   protected readonly form = inject(NonNullableFormBuilder).group({
@@ -41,8 +40,9 @@ export class InvitePersonDialog {
     this.form.controls.role.valueChanges.pipe(map((role) => (role ? ROLE_SUMMARIES[role] : null))),
     { initialValue: null },
   );
-  protected readonly sending = signal(false);
-  protected readonly problem = signal<string | null>(null);
+  private readonly submission = dialogSubmit(this.form, this.dialogRef);
+  protected readonly sending = this.submission.busy;
+  protected readonly problem = this.submission.problem;
   protected readonly message = (path: string) => controlMessage(this.form, path);
 
   protected sendInvitation(): void {
@@ -50,19 +50,6 @@ export class InvitePersonDialog {
     this.form.markAllAsTouched();
     const parsed = invitePersonRequestSchema.safeParse(this.form.getRawValue());
     if (this.form.invalid || !parsed.success) return;
-    this.sending.set(true);
-    this.problem.set(null);
-    this.people
-      .invite(parsed.data)
-      .pipe(
-        finalize(() => this.sending.set(false)),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe({
-        next: (sent) => this.dialogRef.close(sent),
-        error: (error: ApiRequestError) => {
-          if (showServerFieldErrors(this.form, error)) this.problem.set(error.message);
-        },
-      });
+    this.submission.submit(this.people.invite(parsed.data));
   }
 }

@@ -2,9 +2,7 @@ import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signa
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
@@ -14,13 +12,14 @@ import { Observable } from 'rxjs';
 import { OperatorPerson } from '../../../shared/api/auth';
 import { InvitationSent } from '../../../shared/api/people';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { requestState } from '../core/api/request-state';
+import { ListTableState } from '../core/table/list-table-state';
+import { TableToolbar } from '../core/table/table-toolbar';
 import { AuthService } from '../core/auth/auth-service';
 import { ChangePersonDialog } from './change-person-dialog';
 import { InvitePersonDialog } from './invite-person-dialog';
 import { OperatorPeople } from './operator-people';
 import { PersonRow, toPersonRow } from './person-row';
-
-type SortableColumn = 'displayName' | 'roleLabel' | 'accountLabel' | 'lastSignIn';
 
 /**
  * The admin's list of the operator's people: who they are, their role, and their account;
@@ -28,9 +27,9 @@ type SortableColumn = 'displayName' | 'roleLabel' | 'accountLabel' | 'lastSignIn
  */
 @Component({
   selector: 'sw-people-page',
-  imports: [MatTableModule, MatSortModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
+  imports: [MatTableModule, MatSortModule, TableToolbar, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
   templateUrl: './people-page.html',
-  styleUrl: './people-page.scss',
+  styleUrls: ['../core/table/list-table.scss', './people-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PeoplePage {
@@ -41,18 +40,21 @@ export class PeoplePage {
   private readonly auth = inject(AuthService);
 
   protected readonly columns: readonly string[] = ['displayName', 'roleLabel', 'accountLabel', 'lastSignIn', 'actions'];
-  protected readonly loading = signal(true);
-  protected readonly problem = signal<string | null>(null);
+  private readonly request = requestState();
+  protected readonly loading = this.request.busy;
+  protected readonly problem = this.request.problem;
   /** Why the last action on a person was refused; stays until dismissed or the next action. */
   protected readonly refusal = signal<string | null>(null);
-  protected readonly filterText = signal('');
-  protected readonly sort = signal<Sort>({ active: 'displayName', direction: 'asc' });
   protected readonly signedInId = computed(() => this.auth.user()?.id ?? null);
   private readonly everyone = signal<readonly OperatorPerson[]>([]);
   private readonly allRows = computed(() => this.everyone().map(toPersonRow));
 
+  private readonly table = new ListTableState(this.allRows, { active: 'displayName', direction: 'asc' });
+  protected readonly filterText = this.table.filterText;
+  protected readonly sort = this.table.sort;
+
   protected readonly total = computed(() => this.allRows().length);
-  protected readonly rows = computed(() => sortRows(filterRows(this.allRows(), this.filterText()), this.sort()));
+  protected readonly rows = this.table.matching;
   protected readonly countSentence = computed(() => {
     const shown = this.rows().length;
     const total = this.total();
@@ -65,21 +67,7 @@ export class PeoplePage {
   }
 
   protected loadPeople(): void {
-    this.loading.set(true);
-    this.problem.set(null);
-    this.people
-      .list()
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: (people) => {
-          this.everyone.set(people);
-          this.loading.set(false);
-        },
-        error: (error: ApiRequestError) => {
-          this.problem.set(error.message);
-          this.loading.set(false);
-        },
-      });
+    this.request.run(this.people.list(), (people) => this.everyone.set(people));
   }
 
   protected invitePerson(): void {
@@ -128,12 +116,12 @@ export class PeoplePage {
     this.refusal.set(null);
   }
 
-  protected filterPeople(event: Event): void {
-    this.filterText.set((event.target as HTMLInputElement).value);
+  protected filterPeople(text: string): void {
+    this.table.filter(text);
   }
 
   protected sortPeople(sort: Sort): void {
-    this.sort.set(sort);
+    this.table.sortBy(sort);
   }
 
   private act<T>(request: Observable<T>, succeeded: (answer: T) => string | null): void {
@@ -169,31 +157,4 @@ export class PeoplePage {
       list.some((person) => person.id === saved.id) ? list.map((person) => (person.id === saved.id ? saved : person)) : [...list, saved],
     );
   }
-}
-
-function filterRows(rows: readonly PersonRow[], text: string): readonly PersonRow[] {
-  const needle = text.trim().toLowerCase();
-  if (!needle) {
-    return rows;
-  }
-  return rows.filter((row) =>
-    [row.displayName, row.email, row.roleLabel, row.accountLabel].some((value) => value.toLowerCase().includes(needle)),
-  );
-}
-
-function sortRows(rows: readonly PersonRow[], sort: Sort): readonly PersonRow[] {
-  if (!sort.direction) {
-    return rows;
-  }
-  const sign = sort.direction === 'asc' ? 1 : -1;
-  const column = sort.active as SortableColumn;
-  return [...rows].sort((a, b) => sign * compareBy(column, a, b));
-}
-
-function compareBy(column: SortableColumn, a: PersonRow, b: PersonRow): number {
-  if (column === 'lastSignIn') {
-    // Never signed in counts as the oldest.
-    return (a.lastSignInMs ?? -Infinity) - (b.lastSignInMs ?? -Infinity) || 0;
-  }
-  return a[column].localeCompare(b[column], 'en', { sensitivity: 'base' });
 }

@@ -1,10 +1,10 @@
-import { formatDate } from '@angular/common';
+import { utcDateTime } from '../core/format/display-format';
 import { OperatorPerson } from '../../../shared/api/auth';
 import { ROLE_LABELS } from '../../../shared/auth/roles';
+import type { ListTableRow } from '../core/table/list-table-state';
 
 /** A person as the people table shows, sorts and filters them. */
-export interface PersonRow {
-  readonly id: number;
+export interface PersonRow extends ListTableRow {
   readonly displayName: string;
   readonly email: string;
   readonly roleLabel: string;
@@ -30,7 +30,11 @@ export function toPersonRow(person: OperatorPerson): PersonRow {
     accountLabel: accountLabel(person),
     lastSignInMs: known ? lastSignInMs : null,
     lastSignInLabel:
-      person.lastSignInAt === null ? 'Never' : known ? `${formatDate(lastSignInMs, 'd MMM y, HH:mm', 'en-US', 'UTC')} UTC` : 'Not recorded',
+      person.lastSignInAt === null ? 'Never' : known ? utcDateTime(person.lastSignInAt) : 'Not recorded',
+    // Lines apart, so a filter never matches across two fields.
+    searchText: [person.displayName, person.email, ROLE_LABELS[person.role], accountLabel(person)].join('\n').toLowerCase(),
+    // Never signed in counts as the oldest.
+    sortKeys: { displayName: person.displayName, roleLabel: ROLE_LABELS[person.role], accountLabel: accountLabel(person), lastSignIn: known ? lastSignInMs : Number.MIN_SAFE_INTEGER },
   };
 }
 

@@ -1,17 +1,17 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { recordIdParam } from '../speed-books/speed-books-page';
-import { ReviewList } from './review-list';
+import { RevisionList } from '../speed-books/revision-list';
 import { RevisionReview } from './revision-review';
 
 /** The review route: revisions waiting for an approver, or the review of one (`?revision=`). */
 @Component({
   selector: 'sw-review-page',
-  imports: [ReviewList, RevisionReview],
+  imports: [RevisionList, RevisionReview],
   template: `
     @if (revisionId(); as revisionId) {
       <sw-revision-review [revisionId]="revisionId" />
     } @else {
-      <sw-review-list />
+      <sw-revision-list kind="review" />
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

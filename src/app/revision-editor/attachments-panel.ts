@@ -8,6 +8,7 @@ import type { AttachmentView } from '../../../shared/api/attachments';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { RevisionsApi } from '../speed-books/revisions-api';
 import { UtcDatePipe } from '../speed-books/utc-date-pipe';
+import { fileSize } from '../core/format/display-format';
 
 /** The flight-manual pages a draft's figures came from, so the approver can compare. */
 @Component({
@@ -88,7 +89,7 @@ export class AttachmentsPanel {
   }
 
   protected sizeLabel(bytes: number): string {
-    return bytes >= 1_000_000 ? `${(bytes / 1_000_000).toFixed(1)} MB` : `${Math.max(1, Math.round(bytes / 1000))} kB`;
+    return fileSize(bytes);
   }
 
   private loadAttachments(revisionId: number): void {

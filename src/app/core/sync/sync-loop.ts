@@ -4,7 +4,7 @@
  * later trigger that succeeds) cancels the pending retry and resets the count.
  */
 import { EMPTY, Observable, Subject, asyncScheduler, catchError, concat, defer, exhaustMap, from, ignoreElements, map, merge, of, switchMap, tap, timer, type ObservableInput, type SchedulerLike } from 'rxjs';
-import { nextRetryDelayMs } from './device-sync';
+import { nextRetryDelayMs } from './data-currency';
 
 export type SyncLoopEvent<T> =
   | { readonly kind: 'started' }

@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ConnectionStatus } from '../connection/connection-status';
-import { utcMinutes } from './device-sync';
+import { utcMinutes } from '../format/display-format';
 import { SyncService } from './sync-service';
 
 /**

@@ -2,25 +2,27 @@ import { computed, signal } from '@angular/core';
 import { PageEvent } from '@angular/material/paginator';
 import { Sort } from '@angular/material/sort';
 
-/** What a fleet table needs of a row: words to filter on and values to sort by. */
-export interface FleetTableRow {
+/** What a list table needs of a row: words to filter on and values to sort by. */
+export interface ListTableRow {
   readonly id: number;
   /** Everything the filter box matches against, already lower-case. */
   readonly searchText: string;
   readonly sortKeys: Readonly<Record<string, string | number>>;
 }
 
-export const FLEET_PAGE_SIZES = [10, 25, 50] as const;
+export const LIST_PAGE_SIZES = [10, 25, 50] as const;
 
 /**
- * Filter, sort and page of one fleet table as signals: the rows shown follow from the rows
- * given, the filter text, the sort header and the paginator.
+ * Filter, sort and page of one list table (fleet, people) as signals: the rows shown follow
+ * from the rows given, the filter text, the sort header and the paginator. `matching` is every
+ * row the filter keeps, sorted; `shown` the current page of it. Numbers sort as numbers, words
+ * without regard to case and with digit runs as numbers ("ZZ-A2" before "ZZ-A10").
  */
-export class FleetTableState<R extends FleetTableRow> {
+export class ListTableState<R extends ListTableRow> {
   readonly filterText = signal('');
   readonly sort = signal<Sort>({ active: '', direction: '' });
   readonly pageIndex = signal(0);
-  readonly pageSize = signal<number>(FLEET_PAGE_SIZES[0]);
+  readonly pageSize = signal<number>(LIST_PAGE_SIZES[0]);
 
   readonly matching = computed(() => sortRows(filterRows(this.rows(), this.filterText()), this.sort()));
   readonly shown = computed(() => {
@@ -55,12 +57,12 @@ export class FleetTableState<R extends FleetTableRow> {
   }
 }
 
-function filterRows<R extends FleetTableRow>(rows: readonly R[], text: string): readonly R[] {
+function filterRows<R extends ListTableRow>(rows: readonly R[], text: string): readonly R[] {
   const needle = text.trim().toLowerCase();
   return needle ? rows.filter((row) => row.searchText.includes(needle)) : rows;
 }
 
-function sortRows<R extends FleetTableRow>(rows: readonly R[], sort: Sort): readonly R[] {
+function sortRows<R extends ListTableRow>(rows: readonly R[], sort: Sort): readonly R[] {
   if (!sort.direction || !sort.active) {
     return rows;
   }

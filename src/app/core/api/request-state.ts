@@ -1,0 +1,50 @@
+import { DestroyRef, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { Observable, finalize } from 'rxjs';
+import { ApiRequestError } from './api-request-error';
+
+/** What a request's failure shows: the sentence, or null for none (the handler showed it elsewhere). */
+export type FailureHandler = (error: ApiRequestError) => string | null;
+
+/**
+ * The one loading-state helper of the client: a busy flag and a problem sentence around the
+ * requests of a page, store or dialog, each ended with its owner (`takeUntilDestroyed`). It
+ * replaces the hand-written `subscribe` + busy-flag pairs: `run` clears the problem, sets busy,
+ * and on failure shows the server's sentence (`ApiRequestError.message`) unless `failed` says
+ * otherwise. Create it in an injection context with `requestState()`.
+ */
+export class RequestState {
+  private readonly busySignal = signal(false);
+  private readonly problemSignal = signal<string | null>(null);
+  /** True while a request runs. */
+  readonly busy = this.busySignal.asReadonly();
+  /** The sentence of the last failure; null after a success or a new request. */
+  readonly problem = this.problemSignal.asReadonly();
+
+  constructor(private readonly destroyRef: DestroyRef) {}
+
+  /** Runs `request`; `succeeded` takes its value; `failed` picks the sentence to show. */
+  run<T>(request: Observable<T>, succeeded: (value: T) => void, failed: FailureHandler = (error) => error.message): void {
+    this.busySignal.set(true);
+    this.problemSignal.set(null);
+    request
+      .pipe(
+        finalize(() => this.busySignal.set(false)),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe({
+        next: succeeded,
+        error: (error: ApiRequestError) => this.problemSignal.set(failed(error)),
+      });
+  }
+
+  /** Shows a sentence of the caller's own (or none). */
+  showProblem(sentence: string | null): void {
+    this.problemSignal.set(sentence);
+  }
+}
+
+/** A `RequestState` ended with the component, store or dialog that creates it. */
+export function requestState(): RequestState {
+  return new RequestState(inject(DestroyRef));
+}
