@@ -12,7 +12,8 @@
  */
 import * as z from 'zod';
 import type { AircraftCategory, SpeedBasis, SpeedPhase } from '../speed-book/revision-content';
-import { configurationKeySchema } from '../speed-book/revision-content';
+// From the field shapes directly: the check page reads card inputs without the content rules and their atmosphere code.
+import { configurationKeySchema } from '../speed-book/content-shape';
 
 /**
  * Schema version of the card JSON; part of the digest, so a change of meaning changes it.
