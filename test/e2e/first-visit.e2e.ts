@@ -3,7 +3,7 @@
  * printed card's check page pass axe-core's WCAG 2.1 A and AA rules with no violation; every
  * icon of the app's main screens is drawn as its glyph from the subset icon font (a ligature
  * the font lacks would show its name's letters, many times wider than one icon); index.html
- * preloads the first screen's fonts; and the service worker's manifest prefetches every
+ * preloads the first screen's fonts and the first page's modules; and the service worker's manifest prefetches every
  * script and every WOFF2 font of the build. Sizes and scores are the benchmark's business
  * (test/bench/first-visit.browser.bench.ts).
  */
@@ -66,7 +66,19 @@ describe('a first visit on a phone', () => {
     checkUrl = (await issueDemoCard(url, baseUrl())).url;
   });
 
-  it('sign-in: no WCAG 2.1 AA violation, icons drawn, the first screen’s fonts preloaded', async () => {
+  /**
+   * The page's modules named in index.html's `Link: rel=modulepreload` header: each one answers,
+   * and the page, once drawn, has loaded every one of them (nothing preloaded in vain).
+   */
+  async function expectPageModulesPreloaded(page: Page, links: string): Promise<void> {
+    const modules = [...links.matchAll(/<([^>]+)>; rel=modulepreload/g)].map((match) => match[1]!);
+    expect(modules.length).toBeGreaterThan(0);
+    for (const path of modules) expect(path).toMatch(/^\/chunk-[\w-]+\.js$/);
+    const loaded = await page.evaluate<string[]>(`performance.getEntriesByType('resource').map((entry) => new URL(entry.name).pathname)`);
+    expect(modules.filter((path) => !loaded.includes(path))).toEqual([]);
+  }
+
+  it('sign-in: no WCAG 2.1 AA violation, icons drawn, the first screen’s fonts and modules preloaded', async () => {
     const page = await phonePage();
     const response = await page.goto('/sign-in');
     await page.getByRole('button', { name: 'Sign in' }).waitFor();
@@ -82,17 +94,19 @@ describe('a first visit on a phone', () => {
       expect.stringMatching(/^\/media\/material-symbols-subset-\w+\.woff2$/),
     ]);
     for (const path of preloaded) expect((await page.request.get(path)).status()).toBe(200);
+    await expectPageModulesPreloaded(page, links);
     await page.context().close();
   });
 
-  it('check page of an issued card: no WCAG 2.1 AA violation, icons drawn, the card re-derived', async () => {
+  it('check page of an issued card: no WCAG 2.1 AA violation, icons drawn, the card re-derived, its modules preloaded', async () => {
     const page = await phonePage();
-    await page.goto(checkUrl);
+    const response = await page.goto(checkUrl);
     await page.getByTestId('check-status-title').waitFor({ timeout: 20_000 });
     // The card view is drawn once scrolled into view (deferred: it is below the fold on a phone).
     await page.getByTestId('check-card-placeholder').scrollIntoViewIfNeeded();
     await page.getByTestId('speed-card').waitFor({ timeout: 20_000 });
     expect(await page.getByTestId('check-figures-result').getAttribute('data-outcome')).toBe('matches');
+    await expectPageModulesPreloaded(page, (await response!.headerValue('link')) ?? '');
     expect(await axeViolations(page)).toEqual([]);
     expect(await iconsShownAsText(page)).toEqual([]);
     await page.context().close();
