@@ -257,7 +257,7 @@ function serveWebApp(app: Express, distDir: string): void {
     res.setHeader('Cache-Control', 'no-cache');
     fontLinks ??= fontPreloadLinks(distDir) ?? '';
     pageModules ??= firstScreenModules(distDir);
-    const links = [...(fontLinks ? [fontLinks] : []), ...modulePreloadLinks(modulesForPath(pageModules, req.path))];
+    const links = [...(fontLinks ? [fontLinks] : []), ...modulePreloadLinks(modulesForPath(pageModules, req.path, typeof req.query['c'] === 'string'))];
     if (links.length > 0) res.setHeader('Link', links.join(', '));
     res.sendFile(index);
   });

@@ -1,6 +1,7 @@
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { FIGURES_DIFFER } from '../../shared/card-check/figures-check';
 import { firstScreenModules, modulePreloadLinks, modulesForPath } from './first-screen-preload';
 
 /** A small build as Angular's chunk optimizer writes one: an entry, shared and page chunks. */
@@ -14,7 +15,7 @@ describe('first-screen module preload', () => {
   let dist: string;
   afterEach(() => rmSync(dist, { recursive: true, force: true }));
 
-  it('names each first page’s chunk and its static imports, less what the entry script loads', () => {
+  it('names each first page’s chunk and its static imports, less what the entry script loads, and the card re-derivation for a QR code', () => {
     dist = fakeBuild({
       'index.html': '<html><body><sw-root></sw-root><script src="main-AAAA1111.js" type="module"></script></body></html>',
       'main-AAAA1111.js': 'import{a}from"./chunk-Shared01.js";const p=()=>import(`./chunk-SignIn01.js`);',
@@ -22,14 +23,19 @@ describe('first-screen module preload', () => {
       'chunk-SignIn01.js': 'import{a}from"./chunk-Shared01.js";import{f}from"./chunk-Forms001.js";static ɵcmp=x({selectors:[[`sw-sign-in-page`]]});',
       'chunk-Forms001.js': 'import"./chunk-Zod00001.js";export const f=2;',
       'chunk-Zod00001.js': 'export const z=3;',
-      'chunk-Check001.js': 'import{z}from"./chunk-Zod00001.js";static ɵcmp=x({selectors:[[`sw-check-page`]]});',
+      'chunk-Check001.js': 'import{z}from"./chunk-Zod00001.js";static ɵcmp=x({selectors:[[`sw-check-page`]]});const f=()=>import(`./chunk-Figure01.js`);',
+      'chunk-Figure01.js': `import{z}from"./chunk-Zod00001.js";import"./chunk-Aero0001.js";const d=\`${FIGURES_DIFFER}\`;`,
+      'chunk-Aero0001.js': 'export const isa=15;',
       'chunk-Other001.js': 'import{z}from"./chunk-Zod00001.js";static ɵcmp=x({selectors:[[`sw-home-page`]]});',
     });
     const modules = firstScreenModules(dist);
     expect(modules.signIn).toEqual(['/chunk-SignIn01.js', '/chunk-Forms001.js', '/chunk-Zod00001.js']);
     expect(modules.check).toEqual(['/chunk-Check001.js', '/chunk-Zod00001.js']);
     expect(modulesForPath(modules, '/sign-in')).toEqual(modules.signIn);
+    expect(modules.checkFigures).toEqual(['/chunk-Figure01.js', '/chunk-Aero0001.js']);
+    // A typed code carries no figures: the re-derivation is not preloaded for it.
     expect(modulesForPath(modules, '/check/ABC-123-XYZ')).toEqual(modules.check);
+    expect(modulesForPath(modules, '/check/ABC-123-XYZ', true)).toEqual([...modules.check, ...modules.checkFigures]);
     expect(modulesForPath(modules, '/home')).toEqual([]);
     expect(modulePreloadLinks(modules.check)).toEqual(['</chunk-Check001.js>; rel=modulepreload', '</chunk-Zod00001.js>; rel=modulepreload']);
   });
@@ -41,7 +47,7 @@ describe('first-screen module preload', () => {
       'chunk-Cycle001.js': 'import"./chunk-Cycle002.js";',
       'chunk-Cycle002.js': 'import"./chunk-Cycle001.js";',
     });
-    expect(firstScreenModules(dist)).toEqual({ signIn: [], check: [] });
-    expect(firstScreenModules(join(dist, 'missing'))).toEqual({ signIn: [], check: [] });
+    expect(firstScreenModules(dist)).toEqual({ signIn: [], check: [], checkFigures: [] });
+    expect(firstScreenModules(join(dist, 'missing'))).toEqual({ signIn: [], check: [], checkFigures: [] });
   });
 });

@@ -1,5 +1,6 @@
 import { existsSync, readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
+import { FIGURES_DIFFER } from '../../shared/card-check/figures-check';
 
 /**
  * The code of the two pages a phone most often opens first, the sign-in page and a printed
@@ -20,6 +21,12 @@ export interface FirstScreenModules {
   readonly signIn: readonly string[];
   /** Module paths for `/check/<code>`. */
   readonly check: readonly string[];
+  /**
+   * Module paths of the card re-derivation the check page imports when the address carries a
+   * card's figures (`?c=`, what a QR code opens): the chunk holding `figures-check` (found by its
+   * sentence `FIGURES_DIFFER`, which minifying keeps) and its static imports, less the above.
+   */
+  readonly checkFigures: readonly string[];
 }
 
 /** A chunk's static imports: `import"./x.js"`, `import{a}from"./x.js"`, `export{a}from"./x.js"`. */
@@ -43,29 +50,32 @@ function staticClosure(distDir: string, start: readonly string[]): Set<string> {
 /** The modules of each first page in the build in `distDir` (empty lists when not found). */
 export function firstScreenModules(distDir: string): FirstScreenModules {
   const indexFile = join(distDir, 'index.html');
-  if (!existsSync(indexFile)) return { signIn: [], check: [] };
+  if (!existsSync(indexFile)) return { signIn: [], check: [], checkFigures: [] };
   const entries = [...readFileSync(indexFile, 'utf8').matchAll(/<script[^>]*\ssrc="([\w.-]+\.js)"/g)].map((match) => match[1]!);
   const initial = staticClosure(distDir, entries);
   const chunks = readdirSync(distDir).filter((name) => /^chunk-[\w-]+\.js$/.test(name) && !initial.has(name));
-  const pageModules = (selector: string): string[] => {
-    const declaration = `selectors:[[\`${selector}\`]]`;
-    const declarationQuoted = `selectors:[["${selector}"]]`;
-    const page = chunks.find((name) => {
-      const code = readFileSync(join(distDir, name), 'utf8');
-      return code.includes(declaration) || code.includes(declarationQuoted);
-    });
-    if (!page) return [];
-    const closure = [...staticClosure(distDir, [page])].filter((name) => !initial.has(name));
-    // The page's own chunk first: its download starts the render path.
-    return [page, ...closure.filter((name) => name !== page).sort()].slice(0, MAX_MODULES_PER_PAGE).map((name) => `/${name}`);
+  const modulesOf = (holds: (code: string) => boolean, known: ReadonlySet<string>): string[] => {
+    const first = chunks.find((name) => !known.has(name) && holds(readFileSync(join(distDir, name), 'utf8')));
+    if (!first) return [];
+    const closure = [...staticClosure(distDir, [first])].filter((name) => !known.has(name));
+    // The chunk itself first: its download starts the render path.
+    return [first, ...closure.filter((name) => name !== first).sort()].slice(0, MAX_MODULES_PER_PAGE);
   };
-  return { signIn: pageModules('sw-sign-in-page'), check: pageModules('sw-check-page') };
+  const declares = (selector: string) => (code: string) => code.includes(`selectors:[[\`${selector}\`]]`) || code.includes(`selectors:[["${selector}"]]`);
+  const signIn = modulesOf(declares('sw-sign-in-page'), initial);
+  const check = modulesOf(declares('sw-check-page'), initial);
+  const checkFigures = check.length > 0 ? modulesOf((code) => code.includes(FIGURES_DIFFER), new Set([...initial, ...check])) : [];
+  const paths = (names: string[]) => names.map((name) => `/${name}`);
+  return { signIn: paths(signIn), check: paths(check), checkFigures: paths(checkFigures) };
 }
 
-/** The modules to preload with index.html for a request path (none for other pages). */
-export function modulesForPath(modules: FirstScreenModules, path: string): readonly string[] {
+/**
+ * The modules to preload with index.html for a request path (none for other pages);
+ * `withFigures` when the check address carries a card's figures (`?c=`).
+ */
+export function modulesForPath(modules: FirstScreenModules, path: string, withFigures = false): readonly string[] {
   if (path === '/sign-in') return modules.signIn;
-  if (path.startsWith('/check/')) return modules.check;
+  if (path.startsWith('/check/')) return withFigures ? [...modules.check, ...modules.checkFigures] : modules.check;
   return [];
 }
 
