@@ -37,6 +37,7 @@ import { cardIssuesRoutes, cardsRoutes } from './cards/cards.routes';
 import { syncRoutes } from './sync/sync.routes';
 import { verifyRoutes } from './verify/verify.routes';
 import { fontPreloadLinks } from './web-app/font-preload';
+import { firstScreenModules, modulePreloadLinks, modulesForPath, type FirstScreenModules } from './web-app/first-screen-preload';
 
 export const SESSION_COOKIE = 'speedwright.sid';
 const SESSION_HOURS = 12;
@@ -247,14 +248,17 @@ function serveWebApp(app: Express, distDir: string): void {
       },
     }),
   );
-  app.get('/{*path}', (_req, res, next) => {
+  let pageModules: FirstScreenModules | undefined;
+  app.get('/{*path}', (req, res, next) => {
     if (!existsSync(index)) {
       next(new HttpError(503, 'app_not_built', 'The web app has not been built yet: run `npm run build`.'));
       return;
     }
     res.setHeader('Cache-Control', 'no-cache');
     fontLinks ??= fontPreloadLinks(distDir) ?? '';
-    if (fontLinks) res.setHeader('Link', fontLinks);
+    pageModules ??= firstScreenModules(distDir);
+    const links = [...(fontLinks ? [fontLinks] : []), ...modulePreloadLinks(modulesForPath(pageModules, req.path, typeof req.query['c'] === 'string'))];
+    if (links.length > 0) res.setHeader('Link', links.join(', '));
     res.sendFile(index);
   });
 }

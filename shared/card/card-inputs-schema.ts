@@ -3,7 +3,8 @@
  * and on the server alike; every sentence names the field to correct. Units are in every name.
  */
 import * as z from 'zod';
-import { configurationKeySchema } from '../speed-book/revision-content';
+// From the field shapes directly: the check page reads card inputs without the content rules and their atmosphere code.
+import { configurationKeySchema } from '../speed-book/content-shape';
 
 const num = (what: string) =>
   z.number({ error: (issue) => (issue.input === undefined ? `Give ${what}.` : `${capitalise(what)} must be a number.`) });

@@ -82,6 +82,8 @@ describe('App shell', () => {
   it('shows the operator, the person, their role and the navigation once signed in', async () => {
     user.set(approver);
     await fixture.whenStable();
+    // The account actions and the navigation are deferred blocks: they render once loaded.
+    await until(() => shell.querySelector('[data-testid="signed-in-person"]')?.textContent?.includes('Mira Castell') === true);
     expect(shell.querySelector('[data-testid="operator-name"]')?.textContent?.trim()).toBe('Kestrel Fen Aviation (demo)');
     expect(shell.querySelector('[data-testid="signed-in-person"]')?.textContent).toContain('Mira Castell');
     expect(shell.querySelector('[data-testid="signed-in-person"]')?.textContent).toContain('Approver');
@@ -91,6 +93,7 @@ describe('App shell', () => {
   it('offers "Change password" in the account menu of the signed-in person', async () => {
     user.set(approver);
     await fixture.whenStable();
+    await until(() => shell.querySelector('[data-testid="signed-in-person"]')?.textContent?.includes('Mira Castell') === true);
     (shell.querySelector('[data-testid="signed-in-person"]') as HTMLButtonElement).click();
     await fixture.whenStable();
     const item = document.querySelector('[data-testid="change-password-link"]');

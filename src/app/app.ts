@@ -1,10 +1,9 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
+import { DOCUMENT, NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, Injector, computed, effect, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatMenuModule } from '@angular/material/menu';
-import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { NavigationEnd, Router, RouterLink, RouterOutlet } from '@angular/router';
 import { filter, firstValueFrom, map } from 'rxjs';
@@ -15,9 +14,10 @@ import type { SyncService } from './core/sync/sync-service';
 import { ThemePreference } from './core/theme/theme-preference';
 import { Notices } from './core/notices/notices';
 import { AppUpdates } from './core/updates/app-updates';
+import { AccountActions } from './shell/account-actions';
 import { ConnectionIndicator } from './shell/connection-indicator';
 import type { DiscardWaitingData } from './shell/discard-waiting-dialog';
-import { NavigationList } from './shell/navigation-list';
+import { SignedInFrame } from './shell/signed-in-frame';
 import { ThemeToggle } from './shell/theme-toggle';
 import { SAFETY_CAUTION } from '../../shared/card/card-presentation';
 
@@ -26,18 +26,22 @@ export const WIDE_SCREEN_QUERY = '(min-width: 960px)';
 
 export { SAFETY_CAUTION };
 
-/** The shell: toolbar, navigation for the signed-in person, the page, and the safety caution. */
+/**
+ * The shell: toolbar, navigation for the signed-in person, the page, and the safety caution.
+ * What only a signed-in person sees (the account menu, sign-out, the side navigation) is in
+ * `@defer (when user())` blocks, so a first visit downloads none of the menu and sidenav code.
+ */
 @Component({
   selector: 'sw-root',
   imports: [
+    NgTemplateOutlet,
     RouterOutlet,
     RouterLink,
     MatToolbarModule,
-    MatSidenavModule,
     MatButtonModule,
     MatIconModule,
-    MatMenuModule,
-    NavigationList,
+    AccountActions,
+    SignedInFrame,
     ConnectionIndicator,
     ThemeToggle,
   ],
@@ -52,6 +56,7 @@ export class App {
   private readonly destroyRef = inject(DestroyRef);
   private readonly appUpdates = inject(AppUpdates);
   private readonly injector = inject(Injector);
+  private readonly document = inject(DOCUMENT);
 
   protected readonly safetyCaution = SAFETY_CAUTION;
   protected readonly user = this.auth.user;
@@ -91,8 +96,8 @@ export class App {
     this.menuOpen.set(false);
   }
 
-  protected skipToContent(main: HTMLElement): void {
-    main.focus();
+  protected skipToContent(): void {
+    this.document.getElementById('main-content')?.focus();
   }
 
   /**

@@ -3,7 +3,7 @@
  * printed card's check page pass axe-core's WCAG 2.1 A and AA rules with no violation; every
  * icon of the app's main screens is drawn as its glyph from the subset icon font (a ligature
  * the font lacks would show its name's letters, many times wider than one icon); index.html
- * preloads the first screen's fonts; and the service worker's manifest prefetches every
+ * preloads the first screen's fonts and the first page's modules; and the service worker's manifest prefetches every
  * script and every WOFF2 font of the build. Sizes and scores are the benchmark's business
  * (test/bench/first-visit.browser.bench.ts).
  */
@@ -66,7 +66,33 @@ describe('a first visit on a phone', () => {
     checkUrl = (await issueDemoCard(url, baseUrl())).url;
   });
 
-  it('sign-in: no WCAG 2.1 AA violation, icons drawn, the first screen’s fonts preloaded', async () => {
+  /**
+   * The page's modules named in index.html's `Link: rel=modulepreload` header: each one is a
+   * chunk, and the same page opened without that header (the header removed on the way) still
+   * loads every one of them, so nothing is preloaded in vain.
+   */
+  async function expectPageModulesPreloaded(path: string, links: string, ready: (page: Page) => Promise<void>): Promise<void> {
+    const modules = [...links.matchAll(/<([^>]+)>; rel=modulepreload/g)].map((match) => match[1]!);
+    expect(modules.length).toBeGreaterThan(0);
+    for (const module of modules) expect(module).toMatch(/^\/chunk-[\w-]+\.js$/);
+    const page = await phonePage();
+    await page.route(
+      (url) => url.pathname === new URL(path, baseUrl()).pathname,
+      async (route) => {
+        const response = await route.fetch();
+        const headers = { ...response.headers() };
+        delete headers['link'];
+        await route.fulfill({ response, headers });
+      },
+    );
+    await page.goto(path);
+    await ready(page);
+    const loaded = await page.evaluate<string[]>(`performance.getEntriesByType('resource').map((entry) => new URL(entry.name).pathname)`);
+    expect(modules.filter((module) => !loaded.includes(module))).toEqual([]);
+    await page.context().close();
+  }
+
+  it('sign-in: no WCAG 2.1 AA violation, icons drawn, the first screen’s fonts and modules preloaded', async () => {
     const page = await phonePage();
     const response = await page.goto('/sign-in');
     await page.getByRole('button', { name: 'Sign in' }).waitFor();
@@ -83,11 +109,12 @@ describe('a first visit on a phone', () => {
     ]);
     for (const path of preloaded) expect((await page.request.get(path)).status()).toBe(200);
     await page.context().close();
+    await expectPageModulesPreloaded('/sign-in', links, (again) => again.getByRole('button', { name: 'Sign in' }).waitFor());
   });
 
-  it('check page of an issued card: no WCAG 2.1 AA violation, icons drawn, the card re-derived', async () => {
+  it('check page of an issued card: no WCAG 2.1 AA violation, icons drawn, the card re-derived, its modules preloaded', async () => {
     const page = await phonePage();
-    await page.goto(checkUrl);
+    const response = await page.goto(checkUrl);
     await page.getByTestId('check-status-title').waitFor({ timeout: 20_000 });
     // The card view is drawn once scrolled into view (deferred: it is below the fold on a phone).
     await page.getByTestId('check-card-placeholder').scrollIntoViewIfNeeded();
@@ -95,7 +122,11 @@ describe('a first visit on a phone', () => {
     expect(await page.getByTestId('check-figures-result').getAttribute('data-outcome')).toBe('matches');
     expect(await axeViolations(page)).toEqual([]);
     expect(await iconsShownAsText(page)).toEqual([]);
+    const links = (await response!.headerValue('link')) ?? '';
     await page.context().close();
+    await expectPageModulesPreloaded(checkUrl, links, async (again) => {
+      await again.getByTestId('check-figures-result').waitFor({ timeout: 20_000 });
+    });
   });
 
   it('draws every icon of the main screens as a glyph, signed in as admin and as engineer', async () => {

@@ -5,7 +5,7 @@
  */
 import type { SessionUser } from '../../../shared/api/auth';
 import { parseCheckUrl, type CheckPayload, type ParsedCheckUrl } from '../../../shared/card-check/check-url';
-import { checkFigures, type FiguresCheck } from '../../../shared/card-check/figures-check';
+import type { FiguresCheck } from '../../../shared/card-check/figures-check';
 import type { VerifyResponse, VerifySource } from '../../../shared/card-check/verify-api';
 import { ApiRequestError } from '../core/api/api-request-error';
 import type { OfflineCheck, OfflineCheckReader } from './offline-check-data';
@@ -43,6 +43,13 @@ export type CardCheckResult =
 export const unreachable = (error: ApiRequestError) => error.status === 0 || error.status === 502 || error.status === 503 || error.status === 504;
 
 export const UNREACHABLE = 'This device cannot reach the operator’s Speedwright site now, so it cannot ask whether this card is still good.';
+
+/**
+ * The card re-derivation (card builder, atmosphere, speed-book rules, digest) loads only when a
+ * code's figures are to be checked, after the verdict's request: the check page's first download
+ * stays small on a phone.
+ */
+const loadCheckFigures = () => import('../../../shared/card-check/figures-check').then((m) => m.checkFigures);
 
 const TYPED = 'A typed code carries no figures: scan the QR code on the card to check its figures too.';
 
@@ -82,7 +89,7 @@ async function onlineFigures(deps: CardCheckDeps, code: ParsedCheckUrl, verify: 
   if (none) return none;
   if (verify.status === 'unknown') return { kind: 'none', sentence: 'With no card behind the code, the figures in it cannot be checked.' };
   try {
-    const source = await deps.source(code.code);
+    const [source, checkFigures] = await Promise.all([deps.source(code.code), loadCheckFigures()]);
     const payload = code.payload as CheckPayload;
     if (payload.earlierCardRules && payload.digest === source.digest) return { kind: 'none', sentence: EARLIER_RULES_ISSUED };
     return { kind: 'checked', check: checkFigures(payload, { revision: source.revision, context: source.context, issuedDigest: source.digest }) };
@@ -100,5 +107,6 @@ async function offlineCheck(deps: CardCheckDeps, code: ParsedCheckUrl, reason: s
   if (!data) return { ...base, data: null, figures: { kind: 'none', sentence: 'This device holds no synced copy of the revision this card was built from, so its figures cannot be checked here.' } };
   if (!data.source) return { ...base, data, figures: { kind: 'none', sentence: 'This device holds the revision but not the airframe of this card, so its figures cannot be re-derived here.' } };
   if (code.payload.earlierCardRules) return { ...base, data, figures: { kind: 'none', sentence: EARLIER_RULES_OFFLINE } };
+  const checkFigures = await loadCheckFigures();
   return { ...base, data, figures: { kind: 'checked', check: checkFigures(code.payload, { ...data.source, issuedDigest: null }) } };
 }

@@ -1,0 +1,99 @@
+import { ChangeDetectionStrategy, Component, input, output } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
+import { RouterLink } from '@angular/router';
+import type { SessionUser } from '../../../shared/api/auth';
+
+/**
+ * The toolbar's part for a signed-in person: their name and role with the account menu, and
+ * the sign-out button. The shell loads it once someone is signed in, so the menu and its
+ * overlay code stay out of a first visit's download (sign-in page, a stranger's card check).
+ */
+@Component({
+  selector: 'sw-account-actions',
+  imports: [RouterLink, MatButtonModule, MatIconModule, MatMenuModule],
+  template: `
+    <button mat-button type="button" class="person" data-testid="signed-in-person" [matMenuTriggerFor]="accountMenu">
+      <mat-icon>account_circle</mat-icon>
+      <span class="person-text">
+        <span class="person-name">{{ user().displayName }}</span>
+        <span class="person-role">{{ roleLabel() }}</span>
+      </span>
+    </button>
+    <mat-menu #accountMenu="matMenu" xPosition="before">
+      <a mat-menu-item routerLink="/account/password" data-testid="change-password-link">
+        <mat-icon>password</mat-icon>
+        <span>Change password</span>
+      </a>
+    </mat-menu>
+    <button mat-button type="button" class="sign-out" [disabled]="signingOut()" (click)="signOut.emit()">
+      <mat-icon>logout</mat-icon>
+      <span class="sign-out-label">Sign out</span>
+    </button>
+  `,
+  styles: `
+    :host {
+      display: contents;
+    }
+
+    .person {
+      min-width: 0;
+      height: auto;
+      min-height: 48px;
+      text-align: end;
+
+      .person-text {
+        display: inline-flex;
+        flex-direction: column;
+        align-items: flex-end;
+        line-height: 1.2;
+      }
+
+      .person-name {
+        font: var(--mat-sys-label-large);
+      }
+
+      .person-role {
+        font: var(--mat-sys-label-medium);
+        color: var(--mat-sys-on-surface-variant);
+      }
+    }
+
+    // Portrait tablets: the sign-out button keeps its icon and its accessible name, loses the words.
+    @media (max-width: 840px) {
+      .sign-out-label {
+        position: absolute;
+        width: 1px;
+        height: 1px;
+        overflow: hidden;
+        clip: rect(0 0 0 0);
+        white-space: nowrap;
+      }
+
+      .sign-out .mat-icon {
+        margin: 0;
+      }
+    }
+
+    // Phones: the account menu keeps its name for screen readers (WCAG 2.1 SC 4.1.2).
+    @media (max-width: 600px) {
+      .person .person-text {
+        position: absolute;
+        width: 1px;
+        height: 1px;
+        overflow: hidden;
+        clip-path: inset(50%);
+        white-space: nowrap;
+      }
+    }
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class AccountActions {
+  readonly user = input.required<SessionUser>();
+  readonly roleLabel = input.required<string>();
+  readonly signingOut = input(false);
+  /** The shell signs out (it sends waiting cards first and may ask before discarding them). */
+  readonly signOut = output<void>();
+}
