@@ -101,6 +101,17 @@ describe('App shell', () => {
     expect(item?.getAttribute('href')).toBe('/account/password');
   });
 
+  it('names the person, their role and their operator at the top of the account menu (a phone toolbar has no room for the operator)', async () => {
+    user.set(approver);
+    await fixture.whenStable();
+    await until(() => shell.querySelector('[data-testid="signed-in-person"]')?.textContent?.includes('Mira Castell') === true);
+    (shell.querySelector('[data-testid="signed-in-person"]') as HTMLButtonElement).click();
+    await fixture.whenStable();
+    const who = document.querySelector('[data-testid="account-menu-who"]')?.textContent?.replace(/\s+/g, ' ');
+    expect(who).toContain('Mira Castell');
+    expect(who).toContain('Approver · Kestrel Fen Aviation (demo)');
+  });
+
   it('says when the app opened offline past the 12 hours of the sign-in', async () => {
     user.set(approver);
     await fixture.whenStable();

@@ -22,6 +22,11 @@ import type { SessionUser } from '../../../shared/api/auth';
       </span>
     </button>
     <mat-menu #accountMenu="matMenu" xPosition="before">
+      <!-- Who and for which operator: on a phone the toolbar has no room for the operator's name. -->
+      <div class="signed-in-as" data-testid="account-menu-who">
+        <span class="who-name">{{ user().displayName }}</span>
+        <span class="who-detail">{{ roleLabel() }} · {{ user().operatorName }}</span>
+      </div>
       <a mat-menu-item routerLink="/account/password" data-testid="change-password-link">
         <mat-icon>password</mat-icon>
         <span>Change password</span>
@@ -35,6 +40,23 @@ import type { SessionUser } from '../../../shared/api/auth';
   styles: `
     :host {
       display: contents;
+    }
+
+    .signed-in-as {
+      display: flex;
+      flex-direction: column;
+      gap: 2px;
+      padding: 8px 16px 12px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+
+      .who-name {
+        font: var(--mat-sys-title-small);
+      }
+
+      .who-detail {
+        font: var(--mat-sys-body-small);
+        color: var(--mat-sys-on-surface-variant);
+      }
     }
 
     .person {
