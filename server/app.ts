@@ -27,6 +27,7 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { uploadsRoutes } from './uploads/uploads.routes';
 import { usersRoutes } from './users/users.routes';
 import { auditRoutes } from './audit/audit.routes';
+import { isHashedAsset } from './web-app/hashed-asset';
 import { aircraftTypesRoutes, airframesRoutes } from './fleet/fleet.routes';
 import { airframeCardPdfRoutes } from './cards/card-pdf.routes';
 import { openApiRoutes } from './openapi/openapi.routes';
@@ -238,8 +239,7 @@ function serveWebApp(app: Express, distDir: string): void {
     express.static(distDir, {
       index: false,
       setHeaders: (res, path) => {
-        const name = path.slice(path.lastIndexOf('/') + 1);
-        if (/\.[0-9a-z]{8,}\.(js|css)$/i.test(name) || path.includes('/media/')) {
+        if (isHashedAsset(path)) {
           res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
         } else {
           // index.html, ngsw.json, ngsw-worker.js, the manifest: always ask again.
