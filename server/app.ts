@@ -20,7 +20,7 @@ import { jsonBoundsBreach, REQUEST_BODY_BOUNDS } from '../shared/api/json-bounds
 import { absoluteSessionLifetime } from './auth/session-lifetime';
 import type { ServerConfig } from './config';
 import { healthRoutes } from './health/health.routes';
-import { HttpError } from './http-error';
+import { HttpError } from './errors/http-error';
 import { mailboxRoutes } from './mail/mailbox.routes';
 import { createOutbox, setOutbox } from './mail/outbox';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
@@ -201,7 +201,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   app.use('/api/airframes', airframesRoutes());
   app.use('/api/airframes', airframeCardPdfRoutes({ publicUrl: config.PUBLIC_URL }));
   app.use('/api/speed-books', speedBooksRoutes());
-  app.use('/api/revisions', revisionsRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET, attachmentsDir: config.ATTACHMENTS_DIR }));
+  app.use('/api/revisions', revisionsRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET, attachmentsDir: config.ATTACHMENTS_DIR, logger }));
   app.use('/api/operator', operatorRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
   app.use('/api/sync', syncRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
   app.use('/api/audit', auditRoutes());
@@ -220,7 +220,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   app.use('/api/auth', accountLinksRoutes({ limiter: accountLinkLimiter, sequelize, secret: config.SESSION_SECRET }));
   if (config.MAILBOX_DIR) app.use('/api/dev/mailbox', mailboxRoutes(resolve(config.MAILBOX_DIR)));
   app.use('/api/uploads', uploadsRoutes());
-  app.use('/api', attachmentsRoutes({ attachmentsDir: config.ATTACHMENTS_DIR }));
+  app.use('/api', attachmentsRoutes({ attachmentsDir: config.ATTACHMENTS_DIR, logger }));
   app.use('/api', apiNotFound);
 
   serveWebApp(app, resolve(config.APP_DIST));

@@ -1,5 +1,5 @@
 import { Router, type Response } from 'express';
-import { actorOf } from '../audit/actor';
+import { actorOf } from '../middleware/request-actor';
 import { requireCapability } from '../middleware/authorize';
 import { recordId } from '../speed-books/record-id';
 import { issueCardCode } from './card-issues.service';

@@ -7,7 +7,7 @@ import type { Transaction } from 'sequelize';
 import { can, type Role } from '../../shared/auth/roles';
 import type { CardContext, CardRevision } from '../../shared/card/card';
 import { contentSha256 } from '../../shared/speed-book/canonical';
-import { HttpError, notFound } from '../http-error';
+import { DomainError, notFound } from '../errors/domain-error';
 import { AircraftType, Airframe, Operator, Revision, SpeedBook } from '../models';
 import { EVER_PUBLISHED_STATUSES, OPEN_STATUSES, statusWords } from '../revisions/revision-views';
 
@@ -37,7 +37,7 @@ export async function loadCardSource(
   const open = row !== null && OPEN_STATUSES.includes(row.status);
   if (!row || (open && (purpose === 'issue' || !can(viewer.role, 'edit-speed-books')))) throw notFound('That revision');
   if (purpose === 'preview' && !open && row.status !== 'published') {
-    throw new HttpError(409, 'revision_not_current', `Revision ${row.number} is ${statusWords(row.status)}; cards are prepared from the published revision.`);
+    throw new DomainError('conflict', 'revision_not_current', `Revision ${row.number} is ${statusWords(row.status)}; cards are prepared from the published revision.`);
   }
   if (purpose === 'issue' && !EVER_PUBLISHED_STATUSES.includes(row.status)) throw notFound('That revision');
 
@@ -74,6 +74,6 @@ export async function loadCardSource(
   };
 }
 
-function refusedAirframe(message: string): HttpError {
-  return new HttpError(422, 'card_refused', message, { 'inputs.airframeId': message });
+function refusedAirframe(message: string): DomainError {
+  return new DomainError('refused', 'card_refused', message, { 'inputs.airframeId': message });
 }

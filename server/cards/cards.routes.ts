@@ -1,8 +1,9 @@
 import { Router, type RequestHandler } from 'express';
 import { can } from '../../shared/auth/roles';
 import { cardIssueBatchSchema, cardIssueQuerySchema, cardPreviewRequestSchema } from '../../shared/card/card-api';
-import { actorOf } from '../audit/actor';
-import { HttpError, notFound } from '../http-error';
+import { actorOf } from '../middleware/request-actor';
+import { notFound } from '../errors/domain-error';
+import { HttpError } from '../errors/http-error';
 import { requireCapability } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
 import { getCardIssue, listCardIssues, recordCardIssues } from './card-issues.service';

@@ -5,7 +5,7 @@ import {
   updateAircraftTypeSchema,
   updateAirframeSchema,
 } from '../../shared/api/fleet';
-import { actorOf } from '../audit/actor';
+import { actorOf } from '../middleware/request-actor';
 import { operatorScope, requireCapability } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
 import { recordId } from '../speed-books/record-id';

@@ -1,7 +1,7 @@
 import '../auth/session-user';
 import type { RequestHandler, Response } from 'express';
 import { can, type Capability } from '../../shared/auth/roles';
-import { HttpError } from '../http-error';
+import { HttpError } from '../errors/http-error';
 
 /** The 401 of a request nobody is signed in for; it says so when the 12 hours of a sign-in ran out. */
 function signedOut(res: Response): HttpError {

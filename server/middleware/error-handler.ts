@@ -1,5 +1,27 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import { HttpError } from '../http-error';
+import { DomainError, type DomainErrorKind } from '../errors/domain-error';
+import { HttpError } from '../errors/http-error';
+
+/** The status code each kind of domain error answers with (RFC 9110 §15). */
+const STATUS_OF_KIND: Readonly<Record<DomainErrorKind, number>> = {
+  invalid: 400,
+  unauthenticated: 401,
+  forbidden: 403,
+  'not-found': 404,
+  conflict: 409,
+  gone: 410,
+  'too-large': 413,
+  'unsupported-type': 415,
+  refused: 422,
+  locked: 423,
+  'too-many': 429,
+  unavailable: 503,
+};
+
+/** The HTTP status a domain or HTTP-layer error answers with. */
+export function httpStatusOf(error: DomainError | HttpError): number {
+  return error instanceof DomainError ? STATUS_OF_KIND[error.kind] : error.status;
+}
 
 /** Unknown routes under /api answer JSON, never the app's HTML. */
 export const apiNotFound: RequestHandler = (req, _res, next) => {
@@ -14,6 +36,7 @@ interface BodyParserError extends Error {
 
 function toHttpError(error: unknown): HttpError | undefined {
   if (error instanceof HttpError) return error;
+  if (error instanceof DomainError) return new HttpError(httpStatusOf(error), error.code, error.message, error.fields, error.details);
   const err = error as BodyParserError;
   switch (err?.type) {
     case 'entity.parse.failed':

@@ -1,5 +1,5 @@
 import * as z from 'zod';
-import { HttpError } from '../http-error';
+import { HttpError } from '../errors/http-error';
 
 /** Field path → sentence, as the error body's `fields` carries it. */
 export function fieldErrors(error: z.ZodError): Record<string, string> {

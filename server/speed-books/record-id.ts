@@ -1,4 +1,4 @@
-import { notFound } from '../http-error';
+import { notFound } from '../errors/domain-error';
 
 /** A route's numeric record id; anything else answers 404, like an id that does not exist. */
 export function recordId(value: string | string[] | undefined, what: string): number {

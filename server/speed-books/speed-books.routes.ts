@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { createRevisionSchema, createSpeedBookSchema } from '../../shared/api/revisions';
-import { actorOf } from '../audit/actor';
+import { actorOf } from '../middleware/request-actor';
 import { requireCapability } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
 import { createRevision } from '../revisions/revisions.service';

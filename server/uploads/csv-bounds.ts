@@ -4,7 +4,7 @@
  * grid refused before it is built when its axes would make more points than a table may hold.
  * The file itself is at most 256 kB and 5,000 rows (uploads.routes.ts, speed-table-csv.ts).
  */
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 
 /** Values one axis of a tabulated speed may have; flight manuals tabulate a few dozen at most (from memory). */
 export const MAX_AXIS_VALUES = 100;
@@ -17,7 +17,7 @@ export const MAX_CSV_FIELD_CHARS = 100;
 
 const AXIS_WORDS: Record<string, string> = { weight_kg: 'weights', pressure_altitude_ft: 'pressure altitudes', oat_c: 'OATs' };
 
-const tooBig = (message: string) => new HttpError(422, 'csv_too_large', message, { file: message });
+const tooBig = (message: string) => new DomainError('refused', 'csv_too_large', message, { file: message });
 
 /** 422 when the header has more columns than any layout could use. */
 export function assertHeaderWithinBounds(columns: readonly string[]): void {

@@ -9,7 +9,7 @@
  */
 import { STATED_SPEED_UNITS, STATED_WEIGHT_UNITS } from '../../shared/speed-book/content-shape';
 import { UNIT_SYMBOLS, type StatedSpeedUnit, type StatedWeightUnit } from '../../shared/speed-book/stated-units';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 
 /** The columns that hold a figure with a unit, by what they mean. */
 export type UnitRole = 'ias' | 'cas' | 'weight' | 'value';
@@ -50,7 +50,7 @@ export function readCsvUnits(columns: readonly string[], headerLine: number): Cs
       const message =
         `Line ${headerLine}, column "${column}": this file already gives ${quantity === 'weight' ? 'weights' : 'speeds'} in ` +
         `${UNIT_SYMBOLS[stated!]} (column "${already}"). Give every ${quantity} of one file in one unit, as the flight manual prints it.`;
-      throw new HttpError(422, 'unusable_csv', message, { file: message });
+      throw new DomainError('refused', 'unusable_csv', message, { file: message });
     }
     units.columns[found.role] = column;
     if (quantity === 'weight') units.detected.weight = found.unit as StatedWeightUnit;

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
 import multer from 'multer';
-import { HttpError } from '../http-error';
+import { HttpError } from '../errors/http-error';
 
 export interface SingleFileOptions {
   /** Largest file accepted, in bytes. */

@@ -48,7 +48,7 @@
 import { configurationKeySchema, speedCodeSchema } from '../../shared/speed-book/content-shape';
 import { CANONICAL_UNITS, UNIT_SYMBOLS, fromCanonical, toCanonical, type StatedUnits } from '../../shared/speed-book/stated-units';
 import Papa from 'papaparse';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 import { canonicalColumn, readCsvUnits, unitColumn, type CsvUnits } from './csv-units';
 import { assertFieldsWithinBounds, assertGridWithinBounds, assertHeaderWithinBounds } from './csv-bounds';
 
@@ -478,6 +478,6 @@ function sortErrors(errors: CsvRowError[]): CsvRowError[] {
   return [...errors].sort((a, b) => a.line - b.line);
 }
 
-function unusable(message: string): HttpError {
-  return new HttpError(422, 'unusable_csv', message, { file: message });
+function unusable(message: string): DomainError {
+  return new DomainError('refused', 'unusable_csv', message, { file: message });
 }

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { HttpError } from '../http-error';
+import { HttpError } from '../errors/http-error';
 import { requireCapability } from '../middleware/authorize';
 import { singleFileUpload } from './single-file';
 import { parseSpeedTableCsv } from './speed-table-csv';

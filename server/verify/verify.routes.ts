@@ -4,7 +4,7 @@ import type { Logger } from 'pino';
 import { rateLimit } from 'express-rate-limit';
 import type { Sequelize } from 'sequelize';
 import { validateCardCode } from '../../shared/card-check/card-code';
-import { HttpError } from '../http-error';
+import { HttpError } from '../errors/http-error';
 import { cardSourceOf, verifyCardCode } from './verify.service';
 
 export interface VerifyRoutesOptions {

@@ -8,7 +8,7 @@ import type { Connection } from 'mariadb';
 import type { Sequelize } from 'sequelize';
 import type { VerifyResponse, VerifySource } from '../../shared/card-check/verify-api';
 import type { RevisionStatus } from '../../shared/api/revisions';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 
 /**
  * The first row of `sql` as a prepared statement on a pooled read connection (a replica when
@@ -27,7 +27,7 @@ async function firstRow<T>(sequelize: Sequelize, sql: string, values: unknown[])
     const rows = (await connection.execute(sql, values)) as T[];
     return rows[0];
   } catch (error) {
-    if ((error as { fatal?: boolean }).fatal) throw new HttpError(503, 'database_unavailable', 'The database is not reachable right now. Try again shortly.');
+    if ((error as { fatal?: boolean }).fatal) throw new DomainError('unavailable', 'database_unavailable', 'The database is not reachable right now. Try again shortly.');
     throw error;
   } finally {
     await manager.releaseConnection(connection);
