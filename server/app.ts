@@ -18,7 +18,7 @@ import { configurePassport } from './auth/passport';
 import { MariaDbRateLimitStore } from './auth/rate-limit-store';
 import { jsonBoundsBreach, REQUEST_BODY_BOUNDS } from '../shared/api/json-bounds';
 import { absoluteSessionLifetime } from './auth/session-lifetime';
-import type { ServerConfig } from './config';
+import { databaseReadUrls, type ServerConfig } from './config';
 import { healthRoutes } from './health/health.routes';
 import { HttpError } from './errors/http-error';
 import { mailboxRoutes } from './mail/mailbox.routes';
@@ -35,6 +35,7 @@ import { revisionsRoutes } from './revisions/revisions.routes';
 import { speedBooksRoutes } from './speed-books/speed-books.routes';
 import { cardIssuesRoutes, cardsRoutes } from './cards/cards.routes';
 import { syncRoutes } from './sync/sync.routes';
+import { createReadPool } from './verify/read-pool';
 import { verifyRoutes } from './verify/verify.routes';
 import { fontPreloadLinks } from './web-app/font-preload';
 
@@ -49,8 +50,8 @@ export interface AppDeps {
 
 export interface SpeedwrightApp {
   app: Express;
-  /** Stops the session store's timers; the caller closes Sequelize. */
-  close(): void;
+  /** Stops the session store's timers and closes the card check's read pool; the caller closes Sequelize. */
+  close(): Promise<void>;
 }
 
 const REQUEST_ID = /^[A-Za-z0-9._-]{1,64}$/;
@@ -68,6 +69,7 @@ const boundedBody: RequestHandler = (req, _res, next) => {
 /** Builds the Express app: security headers, logs, sessions, CSRF, the API, then the web app. */
 export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightApp {
   const app = express();
+  const cardCheckReads = createReadPool(config.DATABASE_URL, databaseReadUrls(config));
   setOutbox(createOutbox(config, logger));
   app.disable('x-powered-by');
   app.set('trust proxy', parseTrustProxy(config.TRUST_PROXY));
@@ -100,7 +102,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   // The public card check, before the request logger and the sessions: no session lookup, and a
   // compact log line of its own (pino-http serialises every header of every request, a quarter
   // of the cost of an answer on a route that must answer 1,500 times a second).
-  app.use('/api/verify', verifyRoutes({ sequelize, logger, unknownCodesPer15Min: config.VERIFY_UNKNOWN_CODES_PER_15_MIN }));
+  app.use('/api/verify', verifyRoutes({ reads: cardCheckReads, logger, unknownCodesPer15Min: config.VERIFY_UNKNOWN_CODES_PER_15_MIN }));
 
   // Every other /api answer carries personal or operator data: no browser, proxy or service
   // worker keeps a copy (ASVS 8.2.1). Routes may only make it stricter. The public card check
@@ -226,7 +228,13 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   serveWebApp(app, resolve(config.APP_DIST));
   app.use(errorHandler);
 
-  return { app, close: () => store.stopExpiringSessions() };
+  return {
+    app,
+    close: async () => {
+      store.stopExpiringSessions();
+      await cardCheckReads.close();
+    },
+  };
 }
 
 /** The production build of the Angular app with its service worker; every other path gets index.html. */

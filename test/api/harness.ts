@@ -46,7 +46,7 @@ export function startHarness(overrides: Partial<Record<keyof ServerConfig, strin
     app,
     sequelize,
     async close() {
-      close();
+      await close();
       await sequelize.close();
     },
   };

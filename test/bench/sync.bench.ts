@@ -189,7 +189,7 @@ async function main(): Promise<void> {
   console.log(`sync with nothing changed: median ${unchangedMs.toFixed(2)} ms (target < ${UNCHANGED_TARGET_MS} ms)`);
 
   server.close();
-  close();
+  await close();
   await sequelize.close();
   const missed = fullMs >= FULL_TARGET_MS || bytes >= FULL_TARGET_BYTES || unchangedMs >= UNCHANGED_TARGET_MS || first.headers['content-encoding'] !== 'gzip';
   if (first.headers['content-encoding'] !== 'gzip') console.log('The full sync was not sent gzip-compressed.');
