@@ -12,7 +12,7 @@ import {
   demoPistonTrainerContentRevised,
   demoTwinTurbopropContent,
 } from '../shared/speed-book/demo-content';
-import { NO_ORIGIN, type Actor } from '../server/audit/actor';
+import type { Actor } from '../server/audit/actor';
 import { hashPassword } from '../server/auth/passwords';
 import { AircraftType, Airframe, Operator, Revision, SpeedBook, User } from '../server/models';
 import { approveRevision, createRevision, submitRevision } from '../server/revisions/revisions.service';
@@ -177,7 +177,7 @@ async function seedFleet(sequelize: Sequelize, seedOperator: SeedOperator, signi
   const byRole = async (role: Role): Promise<Actor | undefined> => {
     const email = seedOperator.people.find((person) => person.role === role)?.email;
     const user = email ? await User.findOne({ where: { email, operatorId: operator.id } }) : null;
-    return user ? { operatorId: operator.id, userId: user.id, role, origin: NO_ORIGIN, sendsMail: false } : undefined;
+    return user ? { operatorId: operator.id, userId: user.id, role, sendsMail: false } : undefined;
   };
   const engineer = await byRole('engineer');
   const approver = await byRole('approver');

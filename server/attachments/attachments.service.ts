@@ -13,8 +13,7 @@ import { recordAudit } from '../audit/audit.service';
 import { DomainError, notFound } from '../errors/domain-error';
 import { Attachment, Revision, User } from '../models';
 import { recordContribution } from '../revisions/revision-contributors';
-import { OPEN_STATUSES } from '../revisions/revision-views';
-import { seesOpenRevisions, type Viewer } from '../revisions/revisions.service';
+import { OPEN_STATUSES, visibleRevision, type Viewer } from '../revisions/revision-access';
 import { detectAttachmentType } from './file-type';
 import { withoutForbiddenCharacters } from '../../shared/text/plain-text';
 import { transact } from '../transactions';
@@ -153,13 +152,6 @@ export class AttachmentStore {
       url: `/api/attachments/${attachment.id}`,
     };
   }
-}
-
-/** The same rule as the revision itself: drafts and reviews only for those who write and approve. */
-async function visibleRevision(viewer: Viewer, revisionId: number): Promise<Revision> {
-  const revision = await Revision.findOne({ where: { id: revisionId, operatorId: viewer.operatorId } });
-  if (!revision || (OPEN_STATUSES.includes(revision.status) && !seesOpenRevisions(viewer.role))) throw notFound(REVISION);
-  return revision;
 }
 
 function audit(actor: Actor, action: string, attachment: Attachment, revision: Revision, transaction: Transaction) {

@@ -6,19 +6,16 @@ export interface RequestOrigin {
   userAgent: string | null;
 }
 
-/** A change nobody asked for over the network (the launcher's demo seed, a migration). */
-export const NO_ORIGIN: RequestOrigin = Object.freeze({ ip: null, userAgent: null });
-
 /** Who is acting, for whom, from where: what services need to scope, check and audit a change. */
 export interface Actor {
   operatorId: number;
   userId: number;
   role: Role;
-  /** The address and user agent the audit trail records. */
-  origin: RequestOrigin;
+  /** The address and user agent the audit trail records (none for the demo seed). */
+  origin?: RequestOrigin;
   /**
    * Whether the change announces itself by mail once it commits: true for changes people make
-   * through the API; the demo seed runs the same services and sends nothing.
+   * through the API; the demo seed runs the same services and sends nothing (absent: false).
    */
-  sendsMail: boolean;
+  sendsMail?: boolean;
 }

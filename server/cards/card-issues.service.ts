@@ -150,10 +150,21 @@ export async function recordCardIssue(actor: Actor, entry: CardIssueEntry): Prom
 /** The domain error of a refused or conflicting entry, by the status the batch answer gives it. */
 const KIND_OF_STATUS = { 404: 'not-found', 409: 'conflict', 422: 'refused' } as const;
 
+/** An entry the log did not record, as `issueCardCode` throws it: the batch answer's result, status included. */
+export class CardIssueRefusedError extends DomainError {
+  constructor(
+    /** The entry's status in a batch answer (`CardIssueResult.status`). */
+    readonly status: keyof typeof KIND_OF_STATUS,
+    error: { code: string; message: string; fields?: Record<string, string> },
+  ) {
+    super(KIND_OF_STATUS[status], error.code, error.message, error.fields);
+  }
+}
+
 export async function issueCardCode(actor: Actor, entry: CardIssueEntry): Promise<string> {
   const result = await recordCardIssue(actor, { ...entry, id: entry.id.toLowerCase() });
   if (result.outcome === 'recorded') return result.code;
-  throw new DomainError(KIND_OF_STATUS[result.status], result.error.code, result.error.message, result.error.fields);
+  throw new CardIssueRefusedError(result.status, result.error);
 }
 
 /** The refusal of an entry whose card cannot be re-derived to the reported digest; undefined when it can. */

@@ -22,7 +22,7 @@ import type { Actor } from '../audit/actor';
 import { DomainError, notFound } from '../errors/domain-error';
 import { fieldErrors } from '../middleware/validate';
 import { Airframe, CardIssue, Revision, SpeedBook } from '../models';
-import { EVER_PUBLISHED_STATUSES } from '../revisions/revision-views';
+import { EVER_PUBLISHED_STATUSES } from '../revisions/revision-access';
 import { loadCardSource } from './card-source';
 import { renderCardPdf } from './card-pdf-renderer';
 

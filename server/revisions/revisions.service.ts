@@ -6,7 +6,6 @@
  */
 import type { Transaction } from 'sequelize';
 import type { RevisionView } from '../../shared/api/revisions';
-import { can, type Role } from '../../shared/auth/roles';
 import { canonicalJson, contentSha256 } from '../../shared/speed-book/canonical';
 import { diffContent, type ContentChange } from '../../shared/speed-book/diff';
 import { revisionContentProblems, revisionContentSchema, type RevisionContent } from '../../shared/speed-book/revision-content';
@@ -20,17 +19,10 @@ import { notifyRevisionPublished, notifyRevisionSubmitted, notifyRevisionWithdra
 import type { AttachmentStore } from '../attachments/attachments.service';
 import { AircraftType, Attachment, Revision, SpeedBook } from '../models';
 import { contributorsInWords, recordContribution, refuseContributor, revisionContributors } from './revision-contributors';
-import { EVER_PUBLISHED_STATUSES, OPEN_STATUSES, peopleNames, revisionDetail, statusWords } from './revision-views';
+import { EVER_PUBLISHED_STATUSES, OPEN_STATUSES, visibleRevision, type Viewer } from './revision-access';
+import { peopleNames, revisionDetail, statusWords } from './revision-views';
 import { activeSigningKey, signStatement } from './signing';
 import { transact } from '../transactions';
-
-export interface Viewer {
-  operatorId: number;
-  role: Role;
-}
-
-/** Drafts and revisions in review are for the people who write and approve them. */
-export const seesOpenRevisions = (role: Role) => can(role, 'edit-speed-books');
 
 
 /** The revision as stored (timestamps in whole seconds), the same as any later GET shows it. */
@@ -76,13 +68,6 @@ async function lockBookAndRevision(operatorId: number, id: number, transaction: 
   if (!located) throw notFound('That revision');
   const book = await lockBook(operatorId, located.speedBookId, transaction);
   return { book, revision: await lockRevision(operatorId, id, transaction) };
-}
-
-/** A revision the viewer may see; drafts and reviews of others' work answer 404 to pilots and inspectors. */
-async function visibleRevision(viewer: Viewer, id: number): Promise<Revision> {
-  const revision = await Revision.findOne({ where: { id, operatorId: viewer.operatorId } });
-  if (!revision || (OPEN_STATUSES.includes(revision.status) && !seesOpenRevisions(viewer.role))) throw notFound('That revision');
-  return revision;
 }
 
 export async function getRevision(viewer: Viewer, id: number): Promise<RevisionView> {

@@ -4,8 +4,8 @@ import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { DomainError, notFound } from '../errors/domain-error';
 import { AircraftType, Revision, SpeedBook } from '../models';
-import { EVER_PUBLISHED_STATUSES, peopleNames, revisionSummary } from '../revisions/revision-views';
-import { seesOpenRevisions, type Viewer } from '../revisions/revisions.service';
+import { visibleStatusFilter, type Viewer } from '../revisions/revision-access';
+import { peopleNames, revisionSummary } from '../revisions/revision-views';
 import { transact } from '../transactions';
 
 function summary(book: SpeedBook, current: Revision | undefined, names: Map<number, string>): SpeedBookSummary {
@@ -26,7 +26,7 @@ export async function getSpeedBook(viewer: Viewer, id: number) {
   const book = await SpeedBook.findOne({ where: { id, operatorId: viewer.operatorId } });
   if (!book) throw notFound('That speed book');
   const revisions = await Revision.findAll({
-    where: { speedBookId: book.id, operatorId: viewer.operatorId, ...(seesOpenRevisions(viewer.role) ? {} : { status: EVER_PUBLISHED_STATUSES }) },
+    where: { speedBookId: book.id, operatorId: viewer.operatorId, ...visibleStatusFilter(viewer.role) },
     order: [['number', 'DESC']],
   });
   const names = await peopleNames(viewer.operatorId, revisions);
