@@ -21,7 +21,6 @@ import { absoluteSessionLifetime } from './auth/session-lifetime';
 import { databaseReadUrls, type ServerConfig } from './config';
 import { healthRoutes } from './health/health.routes';
 import { HttpError } from './errors/http-error';
-import { mailboxRoutes } from './mail/mailbox.routes';
 import { createOutbox, setOutbox } from './mail/outbox';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { uploadsRoutes } from './uploads/uploads.routes';
@@ -220,7 +219,9 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
       next(new HttpError(429, 'too_many_attempts', 'Too many requests from this device. Wait 15 minutes and try again.')),
   });
   app.use('/api/auth', accountLinksRoutes({ limiter: accountLinkLimiter, sequelize, secret: config.SESSION_SECRET }));
-  if (config.MAILBOX_DIR) app.use('/api/dev/mailbox', mailboxRoutes(resolve(config.MAILBOX_DIR)));
+  // The fake mailbox's page: only when a fake mail server runs (the launcher or the API tests
+  // set MAILBOX_DIR). A development piece, loaded here on demand and never imported statically.
+  if (config.MAILBOX_DIR) app.use('/api/dev/mailbox', devMailboxRoutes(resolve(config.MAILBOX_DIR)));
   app.use('/api/uploads', uploadsRoutes());
   app.use('/api', attachmentsRoutes({ attachmentsDir: config.ATTACHMENTS_DIR, logger }));
   app.use('/api', apiNotFound);
@@ -234,6 +235,16 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
       store.stopExpiringSessions();
       await cardCheckReads.close();
     },
+  };
+}
+
+/** `server/dev/mailbox.routes.ts`, imported when the app is built with a mailbox and answering once it has loaded. */
+function devMailboxRoutes(dir: string): RequestHandler {
+  const loading = import('./dev/mailbox.routes').then(({ mailboxRoutes }) => mailboxRoutes(dir));
+  // A failed load answers each request through the error middleware (below), not as an unhandled rejection.
+  loading.catch(() => undefined);
+  return (req, res, next) => {
+    loading.then((router) => router(req, res, next), next);
   };
 }
 

@@ -6,7 +6,7 @@ import cluster from 'node:cluster';
 import { pino } from 'pino';
 import { createApp } from './app';
 import { databaseReadUrls, loadConfig } from './config';
-import { createSequelize } from './database';
+import { createSequelize } from '../db/connection';
 import { initModels } from './models';
 import { superviseWorkers } from './supervisor';
 

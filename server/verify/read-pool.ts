@@ -1,6 +1,6 @@
 import { createPool, createPoolCluster, type Pool, type PoolCluster, type PoolConfig } from 'mariadb';
 import { DomainError } from '../errors/domain-error';
-import { parseDatabaseUrl } from '../database';
+import { parseDatabaseUrl } from '../../db/connection';
 
 /** Prepared-statement reads on a small pool of their own, for the public card check. */
 export interface ReadPool {
