@@ -1,6 +1,20 @@
+import { randomInt } from 'node:crypto';
 import { DataTypes, QueryTypes } from 'sequelize';
-import { generateCardCode } from '../../shared/card-check/card-code';
 import type { Migration } from '../migrator';
+
+/**
+ * The card code as this migration wrote it, frozen here so that a later change to the live code
+ * (shared/card-check/card-code.ts) never changes what the migration does: 8 characters drawn
+ * uniformly from the 23-character alphabet, and the ISO/IEC 7064 pure-system check character
+ * with modulus 23 and radix 5.
+ */
+const ALPHABET = '23456789ACEFHJKMNPRTWXY';
+function newCode(): string {
+  const values = Array.from({ length: 8 }, () => randomInt(ALPHABET.length));
+  let p = 0;
+  for (const value of values) p = ((p + value) * 5) % 23;
+  return [...values, (23 + 1 - p) % 23].map((value) => ALPHABET[value]).join('');
+}
 
 /**
  * The card code of every card log entry (shared/card-check/card-code.ts): 9 characters, unique,
@@ -16,8 +30,8 @@ export const up: Migration = async ({ context: queryInterface }) => {
   const rows = await sequelize.query<{ id: string }>('SELECT id FROM card_issues WHERE code IS NULL', { type: QueryTypes.SELECT });
   const taken = new Set<string>();
   for (const { id } of rows) {
-    let code = generateCardCode();
-    while (taken.has(code)) code = generateCardCode();
+    let code = newCode();
+    while (taken.has(code)) code = newCode();
     taken.add(code);
     await sql('UPDATE card_issues SET code = ? WHERE id = ?', [code, id]);
   }
