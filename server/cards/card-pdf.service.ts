@@ -20,7 +20,7 @@ import { cardChanges, previousCardOf } from '../../shared/card-pdf/revision-mark
 import { contentSha256 } from '../../shared/speed-book/canonical';
 import type { Actor } from '../audit/actor';
 import { DomainError, notFound } from '../errors/domain-error';
-import { fieldErrors } from '../middleware/validate';
+import { fieldErrors } from '../errors/field-errors';
 import { Airframe, CardIssue, Revision, SpeedBook } from '../models';
 import { EVER_PUBLISHED_STATUSES } from '../revisions/revision-access';
 import { loadCardSource } from './card-source';

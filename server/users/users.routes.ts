@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { originOf } from '../middleware/request-actor';
+import { actorOf } from '../middleware/request-actor';
 import { invitePersonRequestSchema, updatePersonRequestSchema } from '../../shared/api/auth';
 import { operatorScope, requireCapability } from '../middleware/authorize';
 import { idParam } from '../middleware/id-param';
@@ -17,18 +17,18 @@ export function usersRoutes(): Router {
 
   router.post('/', async (req, res) => {
     const input = parseOrThrow(invitePersonRequestSchema, req.body, 'invitation');
-    res.status(201).json(await invitePerson(operatorScope(req), req.user!.id, input, originOf(req)));
+    res.status(201).json(await invitePerson(actorOf(req), input));
   });
 
   router.patch('/:id', async (req, res) => {
     const userId = idParam(req.params['id'], 'That person');
     const input = parseOrThrow(updatePersonRequestSchema, req.body, 'change');
-    res.json({ user: await updatePerson(operatorScope(req), req.user!.id, userId, input, originOf(req)) });
+    res.json({ user: await updatePerson(actorOf(req), userId, input) });
   });
 
   router.post('/:id/invitation', async (req, res) => {
     const userId = idParam(req.params['id'], 'That person');
-    res.status(201).json(await resendInvitation(operatorScope(req), req.user!.id, userId, originOf(req)));
+    res.status(201).json(await resendInvitation(actorOf(req), userId));
   });
 
   return router;

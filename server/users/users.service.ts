@@ -1,6 +1,6 @@
 import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import type { InvitePersonRequest, OperatorPerson, UpdatePersonRequest } from '../../shared/api/auth';
-import type { RequestOrigin } from '../audit/actor';
+import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { issueInvitation, sendInvitation } from '../auth/invitations.service';
 import { clearFailures } from '../auth/sign-in-throttle';
@@ -36,7 +36,8 @@ export interface InviteResult {
 }
 
 /** Adds a person without a password and mails them an invitation to choose one. */
-export async function invitePerson(operatorId: number, actorId: number, input: InvitePersonRequest, origin: RequestOrigin): Promise<InviteResult> {
+export async function invitePerson(actor: Actor, input: InvitePersonRequest): Promise<InviteResult> {
+  const { operatorId, userId: actorId, origin } = actor;
   let created: { user: User; invitation: Awaited<ReturnType<typeof issueInvitation>> };
   try {
     created = await transact(async (transaction) => {
@@ -64,7 +65,8 @@ export async function invitePerson(operatorId: number, actorId: number, input: I
 }
 
 /** A new invitation link for someone who has not chosen a password yet; earlier links stop working. */
-export async function resendInvitation(operatorId: number, actorId: number, userId: number, origin: RequestOrigin): Promise<InviteResult> {
+export async function resendInvitation(actor: Actor, userId: number): Promise<InviteResult> {
+  const { operatorId, userId: actorId, origin } = actor;
   const { user, invitation } = await transact(async (transaction) => {
     const user = await User.findOne({ where: { id: userId, operatorId }, lock: transaction.LOCK.UPDATE, transaction });
     if (!user) throw notFound(PERSON);
@@ -84,7 +86,8 @@ export async function resendInvitation(operatorId: number, actorId: number, user
  * lets an administrator lock themself out. The change applies to open sessions at once,
  * because every request reloads the person.
  */
-export async function updatePerson(operatorId: number, actorId: number, userId: number, input: UpdatePersonRequest, origin: RequestOrigin): Promise<OperatorPerson> {
+export async function updatePerson(actor: Actor, userId: number, input: UpdatePersonRequest): Promise<OperatorPerson> {
+  const { operatorId, userId: actorId, origin } = actor;
   return transact(async (transaction) => {
     // The operator row serialises changes to its people, so two admins demoting each other
     // at once cannot both succeed and leave nobody in charge.
