@@ -1,6 +1,6 @@
 import { randomInt } from 'node:crypto';
 import { DataTypes, QueryTypes } from 'sequelize';
-import type { Migration } from '../migrator';
+import type { Migration } from '../migration';
 
 /**
  * The card code as this migration wrote it, frozen here so that a later change to the live code
