@@ -20,7 +20,7 @@ import { jsonBoundsBreach, REQUEST_BODY_BOUNDS } from '../shared/api/json-bounds
 import { absoluteSessionLifetime } from './auth/session-lifetime';
 import { databaseReadUrls, type ServerConfig } from './config';
 import { healthRoutes } from './health/health.routes';
-import { HttpError } from './errors/http-error';
+import { DomainError } from './errors/domain-error';
 import { createOutbox, setOutbox } from './mail/outbox';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { uploadsRoutes } from './uploads/uploads.routes';
@@ -61,7 +61,7 @@ const REQUEST_ID = /^[A-Za-z0-9._-]{1,64}$/;
  */
 const boundedBody: RequestHandler = (req, _res, next) => {
   const breach = req.body === undefined ? null : jsonBoundsBreach(req.body, REQUEST_BODY_BOUNDS);
-  if (breach) next(new HttpError(400, 'invalid_request', `The request body is not accepted. ${breach.message}`, { [breach.path.join('.') || '(body)']: breach.message }));
+  if (breach) next(new DomainError('invalid', 'invalid_request', `The request body is not accepted. ${breach.message}`, { [breach.path.join('.') || '(body)']: breach.message }));
   else next();
 };
 
@@ -183,7 +183,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
     legacyHeaders: false,
     store: new MariaDbRateLimitStore(sequelize, 'login:'),
     handler: (_req, _res, next) =>
-      next(new HttpError(429, 'too_many_attempts', 'Too many sign-in attempts from this device. Wait 15 minutes and try again.')),
+      next(new DomainError('too-many', 'too_many_attempts', 'Too many sign-in attempts from this device. Wait 15 minutes and try again.')),
   });
 
   app.use(
@@ -216,7 +216,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
     legacyHeaders: false,
     store: new MariaDbRateLimitStore(sequelize, 'account-link:'),
     handler: (_req, _res, next) =>
-      next(new HttpError(429, 'too_many_attempts', 'Too many requests from this device. Wait 15 minutes and try again.')),
+      next(new DomainError('too-many', 'too_many_attempts', 'Too many requests from this device. Wait 15 minutes and try again.')),
   });
   app.use('/api/auth', accountLinksRoutes({ limiter: accountLinkLimiter, sequelize, secret: config.SESSION_SECRET }));
   // The fake mailbox's page: only when a fake mail server runs (the launcher or the API tests
@@ -268,7 +268,7 @@ function serveWebApp(app: Express, distDir: string): void {
   );
   app.get('/{*path}', (_req, res, next) => {
     if (!existsSync(index)) {
-      next(new HttpError(503, 'app_not_built', 'The web app has not been built yet: run `npm run build`.'));
+      next(new DomainError('unavailable', 'app_not_built', 'The web app has not been built yet: run `npm run build`.'));
       return;
     }
     res.setHeader('Cache-Control', 'no-cache');

@@ -3,7 +3,6 @@ import type { PassportStatic } from 'passport';
 import { loginRequestSchema } from '../../shared/api/auth';
 import { changePasswordRequestSchema } from '../../shared/api/new-password';
 import { DomainError } from '../errors/domain-error';
-import { HttpError } from '../errors/http-error';
 import { requireSignIn } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
 import { changeOwnPassword } from './change-password.service';
@@ -33,7 +32,7 @@ export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionC
     req.body = parseOrThrow(loginRequestSchema, req.body, 'sign-in');
     passport.authenticate('local', (error: unknown, user: Express.User | false, info?: unknown) => {
       if (error) return next(error);
-      if (!user) return next(info instanceof DomainError ? info : new HttpError(401, 'invalid_credentials', 'The e-mail or password is not right.'));
+      if (!user) return next(info instanceof DomainError ? info : new DomainError('unauthenticated', 'invalid_credentials', 'The e-mail or password is not right.'));
       req.logIn(user, (loginError) => {
         if (loginError) return next(loginError);
         const sessionExpiresAt = markSignedIn(req);

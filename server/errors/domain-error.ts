@@ -1,7 +1,7 @@
 /**
- * What a service says when it will not do what it was asked: plain values, no HTTP. The one
- * error middleware (`middleware/error-handler.ts`) turns the kind into a status code; the code,
- * message, fields and details become the API's JSON error answer unchanged.
+ * What the server says when it will not do what it was asked, in plain values: services and the
+ * HTTP layer alike throw it. The one error middleware (`middleware/error-handler.ts`) turns the kind
+ * into a status code; the code, message, fields and details become the JSON error answer unchanged.
  */
 export type DomainErrorKind =
   /** The input is not right (fields say which). */

@@ -3,7 +3,7 @@ import { Router, type ErrorRequestHandler, type RequestHandler, type Response } 
 import type { Logger } from 'pino';
 import { rateLimit } from 'express-rate-limit';
 import { validateCardCode } from '../../shared/card-check/card-code';
-import { HttpError } from '../errors/http-error';
+import { DomainError } from '../errors/domain-error';
 import type { ReadPool } from './read-pool';
 import { cardSourceOf, verifyCardCode } from './verify.service';
 
@@ -17,7 +17,7 @@ export interface VerifyRoutesOptions {
 }
 
 const TOO_MANY_UNKNOWN = () =>
-  new HttpError(429, 'too_many_unknown_codes', 'Too many codes from this device matched no card. Wait 15 minutes and try again.');
+  new DomainError('too-many', 'too_many_unknown_codes', 'Too many codes from this device matched no card. Wait 15 minutes and try again.');
 
 /** Set by the limiter's handler: this address is over its limit of codes that matched no card. */
 const overGuessLimit = (res: Response) => res.locals['guessLimitReached'] === true;
@@ -31,7 +31,7 @@ function codeOf(raw: string, res: Response): string {
   if (checked.ok) return checked.code;
   if (overGuessLimit(res)) throw TOO_MANY_UNKNOWN();
   const code = checked.problem === 'check' ? 'code_check_failed' : 'invalid_code';
-  throw new HttpError(400, code, checked.message, { code: checked.message });
+  throw new DomainError('invalid', code, checked.message, { code: checked.message });
 }
 
 /**
@@ -91,14 +91,14 @@ export function verifyRoutes({ reads, logger, unknownCodesPer15Min }: VerifyRout
   router.get('/:code/source', async (req, res) => {
     const source = await cardSourceOf(reads, codeOf(String(req.params['code']), res));
     if (!source && overGuessLimit(res)) throw TOO_MANY_UNKNOWN();
-    if (!source) throw new HttpError(404, 'unknown_code', 'No card was issued with this code here.');
+    if (!source) throw new DomainError('not-found', 'unknown_code', 'No card was issued with this code here.');
     res.locals['cardFound'] = true;
     res.removeHeader('Retry-After');
     res.json(source);
   });
   // pino-http's req.log is not there yet: anything unexpected is logged here, then answered as usual.
   const logUnexpected: ErrorRequestHandler = (error, req, _res, next) => {
-    if (!(error instanceof HttpError)) logger.error({ err: error, reqId: req.id }, 'card check failed');
+    if (!(error instanceof DomainError)) logger.error({ err: error, reqId: req.id }, 'card check failed');
     next(error);
   };
   router.use(logUnexpected);
