@@ -6,7 +6,7 @@
  *    accessibility rules for templates.
  * 2. Import boundaries, on production files only (tests may cross them):
  *    client (`src/`) ↛ `server/`, `db/`; `server/`, `db/` ↛ `src/`; `shared/` ↛ `src/`, `server/`, `db/`;
- *    `db/migrations/` ↛ anything but `../migrator` (its type) and `./frozen/…` (frozen copies);
+ *    `db/migrations/` ↛ anything but `../migration` (the `Migration` type) and `./frozen/…` (frozen copies);
  *    production ↛ `test/` and any `testing/` folder.
  *    ESLint's `no-restricted-imports` reads the import text of `import … from` and `export … from`;
  *    `no-restricted-syntax` applies the same patterns to `import()` (lazy routes) and `require()`.
@@ -95,7 +95,7 @@ export default tseslint.config(
     ignores: TESTS,
     rules: {
       ...boundary({
-        regex: '^\\.\\./(?!migrator$)',
+        regex: '^\\.\\./(?!migration$)',
         message: 'A migration never imports live code (it must do the same whenever it runs): copy what it needs into `db/migrations/frozen/` and never change the copy.',
       }),
     },

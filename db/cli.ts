@@ -1,12 +1,11 @@
 /**
- * `npm run db:start | db:stop | db:migrate | db:rollback | db:seed` — the private development
- * database. With DATABASE_URL set, migrate and seed act on that server instead.
+ * `npm run db:start | db:stop | db:migrate | db:rollback` — the private development database.
+ * With DATABASE_URL set, migrate and rollback act on that server instead. (`npm run db:seed`,
+ * the invented demo data, is `server/dev/seed.ts`: it seeds through the server's services.)
  */
-import { createSequelize } from '../server/database';
-import { initModels } from '../server/models';
+import { createSequelize } from './connection';
 import { openLocalDatabase, stopLocalInstance } from './local';
 import { createMigrator } from './migrator';
-import { DEFAULT_DEMO_PASSWORD, seedDemo } from './seed';
 
 async function databaseUrl(): Promise<string> {
   return process.env['DATABASE_URL'] ?? (await openLocalDatabase('dev', 'speedwright')).url;
@@ -14,7 +13,6 @@ async function databaseUrl(): Promise<string> {
 
 async function withDatabase(work: (sequelize: ReturnType<typeof createSequelize>) => Promise<void>): Promise<void> {
   const sequelize = createSequelize(await databaseUrl());
-  initModels(sequelize);
   try {
     await work(sequelize);
   } finally {
@@ -32,11 +30,6 @@ const commands: Record<string, () => Promise<void>> = {
   },
   migrate: () => withDatabase(async (sequelize) => void (await createMigrator(sequelize, console).up())),
   rollback: () => withDatabase(async (sequelize) => void (await createMigrator(sequelize, console).down())),
-  seed: () =>
-    withDatabase(async (sequelize) => {
-      await seedDemo(sequelize, process.env['DEMO_PASSWORD'] ?? DEFAULT_DEMO_PASSWORD);
-      console.log('Demo data seeded (invented demo data — not for flight).');
-    }),
 };
 
 const command = commands[process.argv[2] ?? ''];

@@ -2,9 +2,9 @@ import { QueryTypes, UniqueConstraintError } from 'sequelize';
 import { isCardCode } from '../shared/card-check/card-code';
 import { openLocalDatabase } from './local';
 import { createMigrator } from './migrator';
-import { createSequelize } from '../server/database';
+import { createSequelize } from './connection';
 import { initModels } from '../server/models';
-import { seedDemo } from './seed';
+import { seedDemo } from '../server/dev/demo-seed';
 
 // Every migration must undo itself: up, all the way down, and up again, on a database of its
 // own on the private test instance.

@@ -1,5 +1,6 @@
 import type { QueryInterface, Sequelize } from 'sequelize';
-import { SequelizeStorage, Umzug, type MigrationFn } from 'umzug';
+import { SequelizeStorage, Umzug } from 'umzug';
+import type { Migration } from './migration';
 import * as operatorsAndUsers from './migrations/20261201-0001-operators-and-users';
 import * as sessionsAndRateLimits from './migrations/20261201-0002-sessions-and-rate-limits';
 import * as auditEvents from './migrations/20261201-0101-audit-events';
@@ -12,7 +13,6 @@ import * as cardIssueCodes from './migrations/20261202-0701-card-issue-codes';
 import * as revisionContributors from './migrations/20261205-0801-revision-contributors';
 import * as userAddressPerOperator from './migrations/20261205-0802-user-address-per-operator';
 
-export type Migration = MigrationFn<QueryInterface>;
 
 /**
  * Migrations in order. Listed by hand rather than globbed so that the same list works under

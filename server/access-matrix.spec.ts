@@ -24,7 +24,7 @@ import { createAircraftType, createAirframe } from './fleet/fleet.service';
 import { Attachment, CardIssue } from './models';
 import { createRevision } from './revisions/revisions.service';
 import { createSpeedBook } from './speed-books/speed-books.service';
-import { newTeam } from './speed-books/test-helpers';
+import { newTeam } from '../test/api/test-helpers';
 
 jest.setTimeout(120_000);
 

@@ -18,10 +18,9 @@ import { configurePassport } from './auth/passport';
 import { MariaDbRateLimitStore } from './auth/rate-limit-store';
 import { jsonBoundsBreach, REQUEST_BODY_BOUNDS } from '../shared/api/json-bounds';
 import { absoluteSessionLifetime } from './auth/session-lifetime';
-import type { ServerConfig } from './config';
+import { databaseReadUrls, type ServerConfig } from './config';
 import { healthRoutes } from './health/health.routes';
-import { HttpError } from './http-error';
-import { mailboxRoutes } from './mail/mailbox.routes';
+import { DomainError } from './errors/domain-error';
 import { createOutbox, setOutbox } from './mail/outbox';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { uploadsRoutes } from './uploads/uploads.routes';
@@ -36,6 +35,7 @@ import { revisionsRoutes } from './revisions/revisions.routes';
 import { speedBooksRoutes } from './speed-books/speed-books.routes';
 import { cardIssuesRoutes, cardsRoutes } from './cards/cards.routes';
 import { syncRoutes } from './sync/sync.routes';
+import { createReadPool } from './verify/read-pool';
 import { verifyRoutes } from './verify/verify.routes';
 import { fontPreloadLinks } from './web-app/font-preload';
 import { firstScreenModules, modulePreloadLinks, modulesForPath, type FirstScreenModules } from './web-app/first-screen-preload';
@@ -51,8 +51,8 @@ export interface AppDeps {
 
 export interface SpeedwrightApp {
   app: Express;
-  /** Stops the session store's timers; the caller closes Sequelize. */
-  close(): void;
+  /** Stops the session store's timers and closes the card check's read pool; the caller closes Sequelize. */
+  close(): Promise<void>;
 }
 
 const REQUEST_ID = /^[A-Za-z0-9._-]{1,64}$/;
@@ -63,13 +63,14 @@ const REQUEST_ID = /^[A-Za-z0-9._-]{1,64}$/;
  */
 const boundedBody: RequestHandler = (req, _res, next) => {
   const breach = req.body === undefined ? null : jsonBoundsBreach(req.body, REQUEST_BODY_BOUNDS);
-  if (breach) next(new HttpError(400, 'invalid_request', `The request body is not accepted. ${breach.message}`, { [breach.path.join('.') || '(body)']: breach.message }));
+  if (breach) next(new DomainError('invalid', 'invalid_request', `The request body is not accepted. ${breach.message}`, { [breach.path.join('.') || '(body)']: breach.message }));
   else next();
 };
 
 /** Builds the Express app: security headers, logs, sessions, CSRF, the API, then the web app. */
 export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightApp {
   const app = express();
+  const cardCheckReads = createReadPool(config.DATABASE_URL, databaseReadUrls(config));
   setOutbox(createOutbox(config, logger));
   app.disable('x-powered-by');
   app.set('trust proxy', parseTrustProxy(config.TRUST_PROXY));
@@ -102,7 +103,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   // The public card check, before the request logger and the sessions: no session lookup, and a
   // compact log line of its own (pino-http serialises every header of every request, a quarter
   // of the cost of an answer on a route that must answer 1,500 times a second).
-  app.use('/api/verify', verifyRoutes({ sequelize, logger, unknownCodesPer15Min: config.VERIFY_UNKNOWN_CODES_PER_15_MIN }));
+  app.use('/api/verify', verifyRoutes({ reads: cardCheckReads, logger, unknownCodesPer15Min: config.VERIFY_UNKNOWN_CODES_PER_15_MIN }));
 
   // Every other /api answer carries personal or operator data: no browser, proxy or service
   // worker keeps a copy (ASVS 8.2.1). Routes may only make it stricter. The public card check
@@ -184,7 +185,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
     legacyHeaders: false,
     store: new MariaDbRateLimitStore(sequelize, 'login:'),
     handler: (_req, _res, next) =>
-      next(new HttpError(429, 'too_many_attempts', 'Too many sign-in attempts from this device. Wait 15 minutes and try again.')),
+      next(new DomainError('too-many', 'too_many_attempts', 'Too many sign-in attempts from this device. Wait 15 minutes and try again.')),
   });
 
   app.use(
@@ -203,7 +204,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   app.use('/api/airframes', airframesRoutes());
   app.use('/api/airframes', airframeCardPdfRoutes({ publicUrl: config.PUBLIC_URL }));
   app.use('/api/speed-books', speedBooksRoutes());
-  app.use('/api/revisions', revisionsRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET, attachmentsDir: config.ATTACHMENTS_DIR }));
+  app.use('/api/revisions', revisionsRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET, attachmentsDir: config.ATTACHMENTS_DIR, logger }));
   app.use('/api/operator', operatorRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
   app.use('/api/sync', syncRoutes({ signingKeySecret: config.SIGNING_KEY_SECRET }));
   app.use('/api/audit', auditRoutes());
@@ -217,18 +218,36 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
     legacyHeaders: false,
     store: new MariaDbRateLimitStore(sequelize, 'account-link:'),
     handler: (_req, _res, next) =>
-      next(new HttpError(429, 'too_many_attempts', 'Too many requests from this device. Wait 15 minutes and try again.')),
+      next(new DomainError('too-many', 'too_many_attempts', 'Too many requests from this device. Wait 15 minutes and try again.')),
   });
   app.use('/api/auth', accountLinksRoutes({ limiter: accountLinkLimiter, sequelize, secret: config.SESSION_SECRET }));
-  if (config.MAILBOX_DIR) app.use('/api/dev/mailbox', mailboxRoutes(resolve(config.MAILBOX_DIR)));
+  // The fake mailbox's page: only when a fake mail server runs (the launcher or the API tests
+  // set MAILBOX_DIR). A development piece, loaded here on demand and never imported statically.
+  if (config.MAILBOX_DIR) app.use('/api/dev/mailbox', devMailboxRoutes(resolve(config.MAILBOX_DIR)));
   app.use('/api/uploads', uploadsRoutes());
-  app.use('/api', attachmentsRoutes({ attachmentsDir: config.ATTACHMENTS_DIR }));
+  app.use('/api', attachmentsRoutes({ attachmentsDir: config.ATTACHMENTS_DIR, logger }));
   app.use('/api', apiNotFound);
 
   serveWebApp(app, resolve(config.APP_DIST));
   app.use(errorHandler);
 
-  return { app, close: () => store.stopExpiringSessions() };
+  return {
+    app,
+    close: async () => {
+      store.stopExpiringSessions();
+      await cardCheckReads.close();
+    },
+  };
+}
+
+/** `server/dev/mailbox.routes.ts`, imported when the app is built with a mailbox and answering once it has loaded. */
+function devMailboxRoutes(dir: string): RequestHandler {
+  const loading = import('./dev/mailbox.routes').then(({ mailboxRoutes }) => mailboxRoutes(dir));
+  // A failed load answers each request through the error middleware (below), not as an unhandled rejection.
+  loading.catch(() => undefined);
+  return (req, res, next) => {
+    loading.then((router) => router(req, res, next), next);
+  };
 }
 
 /** The production build of the Angular app with its service worker; every other path gets index.html. */
@@ -251,7 +270,7 @@ function serveWebApp(app: Express, distDir: string): void {
   let pageModules: FirstScreenModules | undefined;
   app.get('/{*path}', (req, res, next) => {
     if (!existsSync(index)) {
-      next(new HttpError(503, 'app_not_built', 'The web app has not been built yet: run `npm run build`.'));
+      next(new DomainError('unavailable', 'app_not_built', 'The web app has not been built yet: run `npm run build`.'));
       return;
     }
     res.setHeader('Cache-Control', 'no-cache');

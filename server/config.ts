@@ -54,3 +54,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
   }
   return parsed.data;
 }
+
+/** DATABASE_READ_URLS as a list (empty when unset). */
+export function databaseReadUrls(config: Pick<ServerConfig, 'DATABASE_READ_URLS'>): string[] {
+  return config.DATABASE_READ_URLS?.split(',').map((url) => url.trim()).filter(Boolean) ?? [];
+}

@@ -9,10 +9,10 @@ import { join } from 'node:path';
 import { openLocalDatabase, localSecrets, stopLocalInstance } from '../db/local';
 import { projectRoot } from '../db/instance';
 import { createMigrator } from '../db/migrator';
-import { DEFAULT_DEMO_PASSWORD, seedDemo } from '../db/seed';
-import { createSequelize } from './database';
+import { DEFAULT_DEMO_PASSWORD, seedDemo } from './dev/demo-seed';
+import { createSequelize } from '../db/connection';
 import { initModels } from './models';
-import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
+import { startFakeSmtp, type FakeSmtp } from './dev/fake-smtp';
 import { webConcurrency } from './main';
 import { superviseWorkers } from './supervisor';
 

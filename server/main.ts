@@ -5,16 +5,15 @@
 import cluster from 'node:cluster';
 import { pino } from 'pino';
 import { createApp } from './app';
-import { loadConfig } from './config';
-import { createSequelize } from './database';
+import { databaseReadUrls, loadConfig } from './config';
+import { createSequelize } from '../db/connection';
 import { initModels } from './models';
 import { superviseWorkers } from './supervisor';
 
 export async function serve(env: NodeJS.ProcessEnv = process.env) {
   const config = loadConfig(env);
   const logger = pino({ level: config.LOG_LEVEL });
-  const readUrls = config.DATABASE_READ_URLS?.split(',').map((url) => url.trim()).filter(Boolean) ?? [];
-  const sequelize = createSequelize(config.DATABASE_URL, readUrls);
+  const sequelize = createSequelize(config.DATABASE_URL, databaseReadUrls(config));
   initModels(sequelize);
   const { app, close } = createApp({ config, sequelize, logger });
   const server = await new Promise<import('node:http').Server>((resolve, reject) => {
@@ -29,7 +28,7 @@ export async function serve(env: NodeJS.ProcessEnv = process.env) {
       const closed = new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
       await closed;
-      close();
+      await close();
       await sequelize.close();
     },
   };

@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../migrator';
+import type { Migration } from '../migration';
 
 const ROLES = ['pilot', 'engineer', 'approver', 'admin', 'inspector'];
 

@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../migrator';
+import type { Migration } from '../migration';
 
 /**
  * Sessions live in MariaDB (connect-session-sequelize's columns) so any server instance can

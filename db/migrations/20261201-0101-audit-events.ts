@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../migrator';
+import type { Migration } from '../migration';
 
 /**
  * The audit trail: who did what to which record, when and from where. Append-only — the

@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../migrator';
+import type { Migration } from '../migration';
 
 const CATEGORIES = ['piston-single', 'piston-twin', 'turboprop', 'jet'];
 const STATUSES = ['draft', 'in_review', 'published', 'superseded', 'withdrawn'];

@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../migrator';
+import type { Migration } from '../migration';
 
 /**
  * Invitations and password-reset links. Only the SHA-256 of each token is kept, so a copy of

@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../migrator';
+import type { Migration } from '../migration';
 
 /**
  * The source pages of a revision (flight-manual extracts as PDF or image). The file itself

@@ -1,5 +1,5 @@
 import { DataTypes } from 'sequelize';
-import type { Migration } from '../migrator';
+import type { Migration } from '../migration';
 
 /**
  * The card log: one row per speed card a pilot issued, as the device reported it (the id is the

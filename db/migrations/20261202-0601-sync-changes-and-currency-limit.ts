@@ -1,5 +1,5 @@
 import { DataTypes, QueryTypes } from 'sequelize';
-import type { Migration } from '../migrator';
+import type { Migration } from '../migration';
 
 /** The tables whose rows a device syncs; each row carries the change number of its last write. */
 const SYNCED = ['aircraft_types', 'airframes', 'revisions'];

@@ -1,6 +1,6 @@
 import { DataTypes, QueryTypes } from 'sequelize';
 import { generateCardCode0701 as generateCardCode } from './frozen/card-code-0701';
-import type { Migration } from '../migrator';
+import type { Migration } from '../migration';
 
 /**
  * The card code of every card log entry (shared/card-check/card-code.ts; this migration uses

@@ -1,5 +1,5 @@
 import { DataTypes, QueryTypes } from 'sequelize';
-import type { Migration } from '../migrator';
+import type { Migration } from '../migration';
 
 /**
  * Everyone who contributed to a revision, one row per person and kind of contribution

@@ -1,5 +1,5 @@
 import { QueryTypes } from 'sequelize';
-import type { Migration } from '../migrator';
+import type { Migration } from '../migration';
 
 /**
  * An address is unique within an operator instead of across all of them, so that inviting an

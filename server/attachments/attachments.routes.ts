@@ -1,5 +1,6 @@
 import { Router } from 'express';
-import { actorOf } from '../audit/actor';
+import type { Logger } from 'pino';
+import { actorOf } from '../middleware/request-actor';
 import { requireCapability } from '../middleware/authorize';
 import { idParam } from '../middleware/id-param';
 import { singleFileUpload } from '../uploads/single-file';
@@ -9,8 +10,8 @@ import { ATTACHMENT_MAX_BYTES, AttachmentStore } from './attachments.service';
  * Source pages of revisions, mounted at `/api`:
  * `GET|POST /revisions/:id/attachments`, `GET|DELETE /attachments/:id`.
  */
-export function attachmentsRoutes({ attachmentsDir }: { attachmentsDir: string }): Router {
-  const store = new AttachmentStore(attachmentsDir);
+export function attachmentsRoutes({ attachmentsDir, logger }: { attachmentsDir: string; logger?: Logger }): Router {
+  const store = new AttachmentStore(attachmentsDir, logger);
   const router = Router();
 
   router.get('/revisions/:id/attachments', requireCapability('read-published'), async (req, res) => {

@@ -10,13 +10,13 @@ import type { Transaction } from 'sequelize';
 import type { AttachmentView } from '../../shared/api/attachments';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
-import { HttpError, notFound } from '../http-error';
+import { DomainError, notFound } from '../errors/domain-error';
 import { Attachment, Revision, User } from '../models';
 import { recordContribution } from '../revisions/revision-contributors';
-import { OPEN_STATUSES } from '../revisions/revision-views';
-import { seesOpenRevisions, type Viewer } from '../revisions/revisions.service';
+import { OPEN_STATUSES, visibleRevision, type Viewer } from '../revisions/revision-access';
 import { detectAttachmentType } from './file-type';
 import { withoutForbiddenCharacters } from '../../shared/text/plain-text';
+import { transact } from '../transactions';
 
 export const ATTACHMENT_MAX_BYTES = 10 * 1024 * 1024;
 export const ATTACHMENTS_PER_REVISION = 20;
@@ -30,7 +30,11 @@ const REVISION = 'That revision';
 const ATTACHMENT = 'That attachment';
 
 export class AttachmentStore {
-  constructor(private readonly rootDir: string) {}
+  /** `log` hears of a file a removal left behind (harmless, but worth a line). */
+  constructor(
+    private readonly rootDir: string,
+    private readonly log?: { warn(details: object, message: string): void },
+  ) {}
 
   pathOf(attachment: Pick<Attachment, 'operatorId' | 'storageName'>): string {
     return join(resolve(this.rootDir), String(attachment.operatorId), attachment.storageName);
@@ -39,7 +43,7 @@ export class AttachmentStore {
   async add(actor: Actor, revisionId: number, file: UploadedFile): Promise<AttachmentView> {
     const contentType = detectAttachmentType(file.buffer);
     if (!contentType) {
-      throw new HttpError(415, 'unsupported_file_type', 'Attach a PDF, PNG or JPEG file. This file is none of those, whatever its name says.', {
+      throw new DomainError('unsupported-type', 'unsupported_file_type', 'Attach a PDF, PNG or JPEG file. This file is none of those, whatever its name says.', {
         file: 'Not a PDF, PNG or JPEG file.',
       });
     }
@@ -51,10 +55,10 @@ export class AttachmentStore {
     await mkdir(join(resolve(this.rootDir), String(actor.operatorId)), { recursive: true });
     await writeFile(path, file.buffer, { flag: 'wx', mode: 0o640 });
     try {
-      const attachment = await Revision.sequelize!.transaction(async (transaction) => {
+      const attachment = await transact(async (transaction) => {
         const revision = await this.openRevision(actor.operatorId, revisionId, transaction);
         if ((await Attachment.count({ where: { revisionId }, transaction })) >= ATTACHMENTS_PER_REVISION) {
-          throw new HttpError(409, 'too_many_attachments', `A revision holds at most ${ATTACHMENTS_PER_REVISION} source pages. Remove one first.`);
+          throw new DomainError('conflict', 'too_many_attachments', `A revision holds at most ${ATTACHMENTS_PER_REVISION} source pages. Remove one first.`);
         }
         const created = await Attachment.create(
           {
@@ -99,26 +103,26 @@ export class AttachmentStore {
   }
 
   async remove(actor: Actor, id: number): Promise<void> {
-    const attachment = await Revision.sequelize!.transaction(async (transaction) => {
+    const attachment = await transact(async (transaction) => {
       const found = await Attachment.findOne({ where: { id, operatorId: actor.operatorId }, transaction, lock: transaction.LOCK.UPDATE });
       if (!found) throw notFound(ATTACHMENT);
       const revision = await Revision.findOne({ where: { id: found.revisionId, operatorId: actor.operatorId }, transaction, lock: transaction.LOCK.UPDATE });
       if (!revision) throw notFound(ATTACHMENT);
       if (revision.status !== 'draft') {
-        throw new HttpError(409, 'wrong_status', `Source pages can be removed only while the revision is a draft; revision ${revision.number} is ${words(revision.status)}.`);
+        throw new DomainError('conflict', 'wrong_status', `Source pages can be removed only while the revision is a draft; revision ${revision.number} is ${words(revision.status)}.`);
       }
       await found.destroy({ transaction });
       await recordContribution(actor, revision.id, 'attachments', transaction);
       await audit(actor, 'attachment.removed', found, revision, transaction);
       return found;
     });
-    await this.removeFiles(actor, [attachment]);
+    await this.removeFiles([attachment]);
   }
 
   /** The files of attachments whose rows are gone; a file left behind by a failed removal is harmless and logged. */
-  async removeFiles(actor: Actor, attachments: Pick<Attachment, 'operatorId' | 'storageName'>[]): Promise<void> {
+  async removeFiles(attachments: Pick<Attachment, 'operatorId' | 'storageName'>[]): Promise<void> {
     for (const attachment of attachments) {
-      await rm(this.pathOf(attachment), { force: true }).catch((error: unknown) => actor.req?.log?.warn({ err: error }, 'attachment file not removed'));
+      await rm(this.pathOf(attachment), { force: true }).catch((error: unknown) => this.log?.warn({ err: error }, 'attachment file not removed'));
     }
   }
 
@@ -129,7 +133,7 @@ export class AttachmentStore {
     });
     if (!revision) throw notFound(REVISION);
     if (!OPEN_STATUSES.includes(revision.status)) {
-      throw new HttpError(409, 'wrong_status', `Source pages can be added only while the revision is a draft or in review; revision ${revision.number} is ${words(revision.status)}.`);
+      throw new DomainError('conflict', 'wrong_status', `Source pages can be added only while the revision is a draft or in review; revision ${revision.number} is ${words(revision.status)}.`);
     }
     return revision;
   }
@@ -150,13 +154,6 @@ export class AttachmentStore {
   }
 }
 
-/** The same rule as the revision itself: drafts and reviews only for those who write and approve. */
-async function visibleRevision(viewer: Viewer, revisionId: number): Promise<Revision> {
-  const revision = await Revision.findOne({ where: { id: revisionId, operatorId: viewer.operatorId } });
-  if (!revision || (OPEN_STATUSES.includes(revision.status) && !seesOpenRevisions(viewer.role))) throw notFound(REVISION);
-  return revision;
-}
-
 function audit(actor: Actor, action: string, attachment: Attachment, revision: Revision, transaction: Transaction) {
   return recordAudit(
     {
@@ -166,7 +163,7 @@ function audit(actor: Actor, action: string, attachment: Attachment, revision: R
       entityType: 'attachment',
       entityId: attachment.id,
       details: { revisionId: revision.id, revisionNumber: revision.number, originalName: attachment.originalName, sha256: attachment.sha256, sizeBytes: attachment.sizeBytes },
-      req: actor.req,
+      origin: actor.origin,
     },
     transaction,
   );

@@ -1,18 +1,21 @@
-import type { Request } from 'express';
 import type { Role } from '../../shared/auth/roles';
-import { operatorScope } from '../middleware/authorize';
+
+/** Where a change came from, for the audit trail: the client's address and user agent (both null when no request asked for it). */
+export interface RequestOrigin {
+  ip: string | null;
+  userAgent: string | null;
+}
 
 /** Who is acting, for whom, from where: what services need to scope, check and audit a change. */
 export interface Actor {
   operatorId: number;
   userId: number;
   role: Role;
-  req?: Request;
-}
-
-/** The signed-in person of `req` as an actor (401 when nobody is signed in). */
-export function actorOf(req: Request): Actor {
-  const operatorId = operatorScope(req);
-  const user = req.user as Express.User;
-  return { operatorId, userId: user.id, role: user.role, req };
+  /** The address and user agent the audit trail records (none for the demo seed). */
+  origin?: RequestOrigin;
+  /**
+   * Whether the change announces itself by mail once it commits: true for changes people make
+   * through the API; the demo seed runs the same services and sends nothing (absent: false).
+   */
+  sendsMail?: boolean;
 }

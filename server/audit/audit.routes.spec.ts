@@ -2,7 +2,7 @@ import { auditPageSchema } from '../../shared/api/audit';
 import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { User } from '../models';
-import { newSpeedBook, publish, signInEveryone, type SessionsByRole } from '../speed-books/test-helpers';
+import { newSpeedBook, publish, signInEveryone, type SessionsByRole } from '../../test/api/test-helpers';
 
 // Every step hashes or checks passwords or signs; on a busy two-core machine 5 s is short.
 jest.setTimeout(30_000);

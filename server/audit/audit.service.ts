@@ -1,6 +1,6 @@
-import type { Request } from 'express';
 import type { Transaction } from 'sequelize';
 import { AuditEvent } from '../models';
+import type { RequestOrigin } from './actor';
 
 export interface AuditInput {
   operatorId: number;
@@ -13,8 +13,8 @@ export interface AuditInput {
   entityId: number | string | null;
   /** Anything that explains the change (before/after, a reason); stored as JSON. */
   details?: Record<string, unknown>;
-  /** The request the change came from, for the address and the user agent. */
-  req?: Request;
+  /** The address and user agent the change came from (none for the demo seed). */
+  origin?: RequestOrigin;
 }
 
 /**
@@ -22,7 +22,7 @@ export interface AuditInput {
  * its audit line are written together or not at all.
  */
 export async function recordAudit(input: AuditInput, transaction?: Transaction): Promise<AuditEvent> {
-  const userAgent = input.req?.get('user-agent');
+  const userAgent = input.origin?.userAgent;
   return AuditEvent.create(
     {
       operatorId: input.operatorId,
@@ -31,7 +31,7 @@ export async function recordAudit(input: AuditInput, transaction?: Transaction):
       entityType: input.entityType,
       entityId: input.entityId === null ? null : String(input.entityId),
       details: input.details === undefined ? null : JSON.stringify(input.details),
-      ip: input.req?.ip ?? null,
+      ip: input.origin?.ip ?? null,
       userAgent: userAgent ? userAgent.slice(0, 500) : null,
       createdAt: new Date(),
     },

@@ -2,10 +2,11 @@ import { Router, type RequestHandler } from 'express';
 import type { PassportStatic } from 'passport';
 import { loginRequestSchema } from '../../shared/api/auth';
 import { changePasswordRequestSchema } from '../../shared/api/new-password';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 import { requireSignIn } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
 import { changeOwnPassword } from './change-password.service';
+import { originOf } from '../middleware/request-actor';
 import { markSignedIn, sessionEndsAt } from './session-lifetime';
 import { DEVICE_COOKIE, deviceCookieOptions, deviceCookieValue } from './device-cookie';
 
@@ -31,7 +32,7 @@ export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionC
     req.body = parseOrThrow(loginRequestSchema, req.body, 'sign-in');
     passport.authenticate('local', (error: unknown, user: Express.User | false, info?: unknown) => {
       if (error) return next(error);
-      if (!user) return next(info instanceof HttpError ? info : new HttpError(401, 'invalid_credentials', 'The e-mail or password is not right.'));
+      if (!user) return next(info instanceof DomainError ? info : new DomainError('unauthenticated', 'invalid_credentials', 'The e-mail or password is not right.'));
       req.logIn(user, (loginError) => {
         if (loginError) return next(loginError);
         const sessionExpiresAt = markSignedIn(req);
@@ -53,7 +54,7 @@ export function authRoutes({ passport, generateCsrfToken, loginLimiter, sessionC
 
   router.post('/password', requireSignIn, async (req, res) => {
     const input = parseOrThrow(changePasswordRequestSchema, req.body, 'password change');
-    await changeOwnPassword(req.user!.id, input, req);
+    await changeOwnPassword(req.user!.id, input, { origin: originOf(req), keepSessionId: req.sessionID });
     res.status(204).end();
   });
 

@@ -2,16 +2,17 @@
  * Invitations: an administrator adds a person without a password; the mail carries a link
  * that lets them choose one. Single use, seven days, only the hash stored.
  */
-import type { Request } from 'express';
 import { Op, type Transaction } from 'sequelize';
 import type { AcceptInvitationRequest } from '../../shared/api/new-password';
+import type { RequestOrigin } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 import { invitationMail } from '../mail/messages';
 import { outbox } from '../mail/outbox';
 import { Invitation, Operator, User } from '../models';
 import { assertLinkUsable, hashLinkToken, newLinkToken, type LinkWording } from './link-tokens';
 import { assertPasswordNotPersonal, hashPassword } from './passwords';
+import { transact } from '../transactions';
 
 export const INVITATION_DAYS = 7;
 
@@ -67,7 +68,7 @@ export async function sendInvitation(user: User, invitedById: number, invitation
 }
 
 /** Sets the invited person's password and spends the link. Answers the e-mail to sign in with. */
-export async function acceptInvitation(input: AcceptInvitationRequest, req: Request): Promise<{ email: string }> {
+export async function acceptInvitation(input: AcceptInvitationRequest, origin: RequestOrigin): Promise<{ email: string }> {
   const tokenHash = hashLinkToken(input.token);
   // Check before hashing the password, so made-up tokens cost no argon2 work.
   const pending = await Invitation.findOne({ where: { tokenHash } });
@@ -75,16 +76,16 @@ export async function acceptInvitation(input: AcceptInvitationRequest, req: Requ
   await refuseIfPersonal(pending.userId, input.password);
   const passwordHash = await hashPassword(input.password);
 
-  return User.sequelize!.transaction(async (transaction) => {
+  return transact(async (transaction) => {
     const invitation = await Invitation.findOne({ where: { tokenHash }, lock: transaction.LOCK.UPDATE, transaction });
     assertLinkUsable(invitation, WORDS);
     const user = await User.findByPk(invitation.userId, { lock: transaction.LOCK.UPDATE, transaction });
-    if (!user || user.operatorId !== invitation.operatorId) throw new HttpError(410, 'link_used', WORDS.used);
-    if (user.passwordHash) throw new HttpError(410, 'link_used', WORDS.used);
+    if (!user || user.operatorId !== invitation.operatorId) throw new DomainError('gone', 'link_used', WORDS.used);
+    if (user.passwordHash) throw new DomainError('gone', 'link_used', WORDS.used);
     // One person per address signs in: locking every row of the address serialises two accepts.
     const sameAddress = await User.findAll({ where: { email: user.email }, lock: transaction.LOCK.UPDATE, transaction });
     if (sameAddress.some((other) => other.id !== user.id && other.passwordHash !== null)) {
-      throw new HttpError(409, 'address_in_use', ADDRESS_IN_USE);
+      throw new DomainError('conflict', 'address_in_use', ADDRESS_IN_USE);
     }
 
     const now = new Date();
@@ -105,7 +106,7 @@ export async function acceptInvitation(input: AcceptInvitationRequest, req: Requ
         entityType: 'user',
         entityId: user.id,
         details: { invitationId: invitation.id, ...(input.displayName ? { displayName: input.displayName } : {}) },
-        req,
+        origin,
       },
       transaction,
     );

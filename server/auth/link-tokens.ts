@@ -1,5 +1,5 @@
 import { createHash, randomBytes } from 'node:crypto';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 
 /**
  * Tokens of invitation and password-reset links: 32 random bytes, sent once in the mail and
@@ -31,8 +31,8 @@ export interface LinkWording {
 
 /** Throws unless the link exists, is unused, not replaced and not past its time. */
 export function assertLinkUsable<T extends LinkState>(link: T | null, words: LinkWording, now = new Date()): asserts link is T {
-  if (!link) throw new HttpError(400, 'invalid_link', words.unknown, { token: words.unknown });
-  if (link.usedAt) throw new HttpError(410, 'link_used', words.used);
-  if (link.revokedAt) throw new HttpError(410, 'link_replaced', words.replaced);
-  if (link.expiresAt.getTime() <= now.getTime()) throw new HttpError(410, 'link_expired', words.expired);
+  if (!link) throw new DomainError('invalid', 'invalid_link', words.unknown, { token: words.unknown });
+  if (link.usedAt) throw new DomainError('gone', 'link_used', words.used);
+  if (link.revokedAt) throw new DomainError('gone', 'link_replaced', words.replaced);
+  if (link.expiresAt.getTime() <= now.getTime()) throw new DomainError('gone', 'link_expired', words.expired);
 }

@@ -1,21 +1,22 @@
 import passport, { type PassportStatic } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 import { Operator, User } from '../models';
 import { toSessionUser } from './session-user';
+import { isKnownDevice } from './device-cookie';
 import { checkSignIn, type SignInDeps } from './sign-in.service';
 
 /**
  * passport with one local strategy (e-mail + password). The session holds only the user id;
  * each request reloads the person, so a role change or a lock takes effect at once.
  */
-export function configurePassport(deps: SignInDeps): PassportStatic {
+export function configurePassport(deps: Omit<SignInDeps, 'knownDevice'>): PassportStatic {
   const instance = new passport.Passport() as unknown as PassportStatic;
   instance.use(
     new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true, passReqToCallback: true }, (req, email, password, done) => {
-      checkSignIn(req, email, password, deps).then(
+      checkSignIn(email, password, { ...deps, knownDevice: (userId) => isKnownDevice(req, userId, deps.secret) }).then(
         (user) => done(null, toSessionUser(user)),
-        (error: unknown) => (error instanceof HttpError ? done(null, false, error) : done(error)),
+        (error: unknown) => (error instanceof DomainError ? done(null, false, error) : done(error)),
       );
     }),
   );

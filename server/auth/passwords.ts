@@ -1,7 +1,7 @@
 import * as argon2 from 'argon2';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { newPasswordProblem } from '../../shared/auth/password-strength';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 
 /**
  * argon2id with the library's defaults (m = 64 MiB, t = 3, p = 4), which meet OWASP's
@@ -33,7 +33,7 @@ export function decoyPasswordHash(): Promise<string> {
  */
 export function assertPasswordNotPersonal(password: string, user: { email: string; displayName: string }, operatorName: string, field: string): void {
   const problem = newPasswordProblem(password, [user.email, user.displayName, operatorName, 'speedwright']);
-  if (problem) throw new HttpError(400, 'weak_password', problem, { [field]: problem });
+  if (problem) throw new DomainError('invalid', 'weak_password', problem, { [field]: problem });
 }
 
 /** Signs `userId` out everywhere except the session `keepSessionId` (when given). */

@@ -6,7 +6,7 @@
 import { QueryTypes } from 'sequelize';
 import { csrfAgent, mailTo, signIn, startHarness, TEST_PASSWORD, type Harness } from '../../test/api/harness';
 import { User } from '../models';
-import { newTeam } from '../speed-books/test-helpers';
+import { newTeam } from '../../test/api/test-helpers';
 import * as passwords from './passwords';
 import { clearFailures } from './sign-in-throttle';
 

@@ -12,14 +12,12 @@
  * A person who signed in on this device before skips the back-off (`device-cookie.ts`); a
  * successful sign-in, the mailed unlock link and an administrator's unlock end it.
  */
-import type { Request } from 'express';
 import type { Sequelize } from 'sequelize';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 import { signInWaitMail } from '../mail/messages';
 import { outbox } from '../mail/outbox';
 import type { User } from '../models';
 import { signingInAccount } from './invitations.service';
-import { isKnownDevice } from './device-cookie';
 import { decoyPasswordHash, verifyPassword } from './passwords';
 import { clearFailures, recordFailure, throttleState, waitAfterMs, type ThrottlePolicy } from './sign-in-throttle';
 import { unlockToken } from './unlock-link';
@@ -32,22 +30,24 @@ export interface LockPolicy {
 export interface SignInDeps {
   policy: LockPolicy;
   sequelize: Sequelize;
-  /** SESSION_SECRET: signs the device cookie and the unlock link. */
+  /** SESSION_SECRET: signs the unlock link. */
   secret: string;
+  /** Whether this person signed in on the asking device before (`device-cookie.ts`). */
+  knownDevice: (userId: number) => boolean;
 }
 
 const WRONG_SENTENCE = 'The e-mail or password is not right.';
-const wrong = () => new HttpError(401, 'invalid_credentials', WRONG_SENTENCE);
+const wrong = () => new DomainError('unauthenticated', 'invalid_credentials', WRONG_SENTENCE);
 
 export function throttlePolicy(policy: LockPolicy): ThrottlePolicy {
   return { freeFailures: policy.lockAfterFailedSignIns, maxWaitMinutes: policy.lockMinutes };
 }
 
-export async function checkSignIn(req: Request, email: string, password: string, deps: SignInDeps): Promise<User> {
+export async function checkSignIn(email: string, password: string, deps: SignInDeps): Promise<User> {
   const policy = throttlePolicy(deps.policy);
   // The person who signs in with this address; a pending invitation (no password) is like no account.
   const user = await signingInAccount(email);
-  const knownDevice = user !== null && isKnownDevice(req, user.id, deps.secret);
+  const knownDevice = user !== null && deps.knownDevice(user.id);
   if (!knownDevice) {
     const { waitUntil } = await throttleState(deps.sequelize, email, policy);
     if (waitUntil) throw waitError(waitUntil);
@@ -63,7 +63,7 @@ export async function checkSignIn(req: Request, email: string, password: string,
     throw wrong();
   }
   if (user.lockedByAdmin) {
-    throw new HttpError(423, 'account_locked', 'This account is locked by your administrator. Ask them to unlock it.');
+    throw new DomainError('locked', 'account_locked', 'This account is locked by your administrator. Ask them to unlock it.');
   }
   await clearFailures(deps.sequelize, email);
   await user.update({ failedSignIns: 0, lockedUntil: null, lastSignInAt: new Date() });
@@ -78,10 +78,10 @@ async function startWait(user: User, failures: number, deps: SignInDeps): Promis
   void outbox().send(signInWaitMail({ to: user.email, displayName: user.displayName, link: outbox().link('/unlock', { token }), expiresAt, failures }));
 }
 
-function waitError(until: Date): HttpError {
+function waitError(until: Date): DomainError {
   const minutes = Math.max(1, Math.ceil((until.getTime() - Date.now()) / 60_000));
-  return new HttpError(
-    423,
+  return new DomainError(
+    'locked',
     'account_locked',
     `Too many wrong passwords for this address. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}, or sign in on a device ` +
       'you have used before. If the address has an account, a link that lifts the wait has been e-mailed to it.',

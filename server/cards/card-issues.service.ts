@@ -8,7 +8,7 @@
  * answers exactly as the first did and stores nothing; the same id with a different entry is a
  * conflict. Concurrent first reports race on the primary key; the losers read the winner's row.
  */
-import { Op, UniqueConstraintError, type Transaction, type WhereOptions } from 'sequelize';
+import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
 import { can } from '../../shared/auth/roles';
 import { generateCardCode } from '../../shared/card-check/card-code';
 import { buildCard } from '../../shared/card/build-card';
@@ -17,11 +17,11 @@ import type { CardIssueEntry, CardIssueQuery, CardIssueResult, CardIssueView } f
 import { canonicalJson, sha256Hex } from '../../shared/speed-book/canonical';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
-import { HttpError, notFound } from '../http-error';
+import { DomainError, notFound } from '../errors/domain-error';
 import { Airframe, CardIssue, Revision, User } from '../models';
 import { loadCardSource } from './card-source';
+import { transact } from '../transactions';
 
-const transact = <T>(work: (transaction: Transaction) => Promise<T>) => CardIssue.sequelize!.transaction(work);
 
 /** Records each entry of a batch in order; one result per entry, in the same order. */
 export async function recordCardIssues(actor: Actor, entries: CardIssueEntry[]): Promise<CardIssueResult[]> {
@@ -118,7 +118,7 @@ export async function recordCardIssue(actor: Actor, entry: CardIssueEntry): Prom
             entityType: 'card-issue',
             entityId: entry.id,
             details: { code, airframeId: entry.airframeId, revisionId: entry.revisionId, digest: entry.digest, issuedAt: created.issuedAt.toISOString() },
-            req: actor.req,
+            origin: actor.origin,
           },
           transaction,
         );
@@ -144,13 +144,27 @@ export async function recordCardIssue(actor: Actor, entry: CardIssueEntry): Prom
 /**
  * Records a card the server itself issues (the engineers' batch PDF) or a device reported, and
  * gives its card code; the same code for every call with the same entry. Anything but
- * `recorded` throws the entry's error as an HttpError (409 for another entry under this id,
+ * `recorded` throws the entry's error as a DomainError (409 for another entry under this id,
  * 404 or 422 when the card cannot be re-derived to the digest).
  */
+/** The domain error of a refused or conflicting entry, by the status the batch answer gives it. */
+const KIND_OF_STATUS = { 404: 'not-found', 409: 'conflict', 422: 'refused' } as const;
+
+/** An entry the log did not record, as `issueCardCode` throws it: the batch answer's result, status included. */
+export class CardIssueRefusedError extends DomainError {
+  constructor(
+    /** The entry's status in a batch answer (`CardIssueResult.status`). */
+    readonly status: keyof typeof KIND_OF_STATUS,
+    error: { code: string; message: string; fields?: Record<string, string> },
+  ) {
+    super(KIND_OF_STATUS[status], error.code, error.message, error.fields);
+  }
+}
+
 export async function issueCardCode(actor: Actor, entry: CardIssueEntry): Promise<string> {
   const result = await recordCardIssue(actor, { ...entry, id: entry.id.toLowerCase() });
   if (result.outcome === 'recorded') return result.code;
-  throw new HttpError(result.status, result.error.code, result.error.message, result.error.fields);
+  throw new CardIssueRefusedError(result.status, result.error);
 }
 
 /** The refusal of an entry whose card cannot be re-derived to the reported digest; undefined when it can. */
@@ -162,8 +176,8 @@ async function rederive(actor: Actor, entry: CardIssueEntry): Promise<{ result: 
   try {
     source = await loadCardSource(actor, entry.revisionId, entry.airframeId, 'issue');
   } catch (error) {
-    if (!(error instanceof HttpError)) throw error;
-    const status = error.status === 404 ? 404 : 422;
+    if (!(error instanceof DomainError)) throw error;
+    const status = error.kind === 'not-found' ? 404 : 422;
     return refused(status, { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) });
   }
   let digest: string;

@@ -15,7 +15,7 @@ import { cardIssuePageSchema } from '../../shared/card/card-api';
 import { csrfAgent, startHarness, TEST_PUBLIC_URL, type Harness } from '../../test/api/harness';
 import { CardIssue } from '../models';
 import { readPdf } from '../../test/api/read-pdf';
-import { newSpeedBook, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
+import { newSpeedBook, signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';
 
 jest.setTimeout(90_000);
 

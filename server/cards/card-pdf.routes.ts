@@ -1,7 +1,7 @@
 import { Router, type Response } from 'express';
-import { actorOf } from '../audit/actor';
+import { actorOf } from '../middleware/request-actor';
 import { requireCapability } from '../middleware/authorize';
-import { recordId } from '../speed-books/record-id';
+import { idParam } from '../middleware/id-param';
 import { issueCardCode } from './card-issues.service';
 import { printAirframeCard, reprintAirframeCard, type IssueCode, type PrintedCard } from './card-pdf.service';
 
@@ -28,7 +28,7 @@ function sendPdf(res: Response, status: number, printed: PrintedCard): void {
 export function airframeCardPdfRoutes(options: CardPdfRouteOptions): Router {
   const router = Router();
   router.post('/:id/card.pdf', requireCapability('print-card-batches'), async (req, res) => {
-    const airframeId = recordId(req.params['id'], 'That airframe');
+    const airframeId = idParam(req.params['id'], 'That airframe');
     const printed = await printAirframeCard(actorOf(req), airframeId, req.query as Record<string, unknown>, {
       publicUrl: options.publicUrl,
       issueCode: options.issueCode ?? issueCardCode,
@@ -37,7 +37,7 @@ export function airframeCardPdfRoutes(options: CardPdfRouteOptions): Router {
     sendPdf(res, 201, printed);
   });
   router.get('/:id/card.pdf', requireCapability('print-card-batches'), async (req, res) => {
-    const airframeId = recordId(req.params['id'], 'That airframe');
+    const airframeId = idParam(req.params['id'], 'That airframe');
     sendPdf(res, 200, await reprintAirframeCard(actorOf(req), airframeId, req.query as Record<string, unknown>, { publicUrl: options.publicUrl }));
   });
   return router;

@@ -19,10 +19,10 @@ import { CARD_PAPER_SIZES, isCardPaperSize, type CardPaperSize } from '../../sha
 import { cardChanges, previousCardOf } from '../../shared/card-pdf/revision-marks';
 import { contentSha256 } from '../../shared/speed-book/canonical';
 import type { Actor } from '../audit/actor';
-import { HttpError, notFound } from '../http-error';
-import { fieldErrors } from '../middleware/validate';
+import { DomainError, notFound } from '../errors/domain-error';
+import { fieldErrors } from '../errors/field-errors';
 import { Airframe, CardIssue, Revision, SpeedBook } from '../models';
-import { EVER_PUBLISHED_STATUSES } from '../revisions/revision-views';
+import { EVER_PUBLISHED_STATUSES } from '../revisions/revision-access';
 import { loadCardSource } from './card-source';
 import { renderCardPdf } from './card-pdf-renderer';
 
@@ -84,9 +84,9 @@ async function currentRevisionOf(operatorId: number, airframeId: number): Promis
   const airframe = await Airframe.findOne({ where: { id: airframeId, operatorId } });
   if (!airframe) throw notFound('That airframe');
   const book = await SpeedBook.findOne({ where: { aircraftTypeId: airframe.aircraftTypeId, operatorId } });
-  if (!book) throw new HttpError(409, 'no_speed_book', `There is no speed book for ${airframe.registration}'s type yet, so no card can be printed.`);
+  if (!book) throw new DomainError('conflict', 'no_speed_book', `There is no speed book for ${airframe.registration}'s type yet, so no card can be printed.`);
   const revision = await Revision.findOne({ where: { speedBookId: book.id, operatorId, status: 'published' } });
-  if (!revision) throw new HttpError(409, 'no_published_revision', `${book.title} has no published revision, so no card can be printed for ${airframe.registration}.`);
+  if (!revision) throw new DomainError('conflict', 'no_published_revision', `${book.title} has no published revision, so no card can be printed for ${airframe.registration}.`);
   return { airframe, revision };
 }
 
@@ -122,7 +122,7 @@ export async function printAirframeCard(actor: Actor, airframeId: number, query:
   const { inputs: raw, paper, fields } = inputsFromQuery(query, airframeId);
   const parsed = cardInputsSchema.safeParse(raw);
   const problems = { ...(parsed.success ? {} : fieldErrors(parsed.error)), ...fields };
-  if (!parsed.success || Object.keys(problems).length) throw new HttpError(400, 'invalid_request', 'Some card inputs in the query are not right.', problems);
+  if (!parsed.success || Object.keys(problems).length) throw new DomainError('invalid', 'invalid_request', 'Some card inputs in the query are not right.', problems);
   const inputs: CardInputs = parsed.data;
   const { revision } = await currentRevisionOf(actor.operatorId, airframeId);
   const source = await loadCardSource(actor, revision.id, airframeId, 'preview');
@@ -132,7 +132,7 @@ export async function printAirframeCard(actor: Actor, airframeId: number, query:
   } catch (error) {
     if (!(error instanceof CardRefusedError)) throw error;
     const field = error.field === 'revision' ? 'revision' : error.field;
-    throw new HttpError(422, 'card_refused', error.message, { [field]: error.message });
+    throw new DomainError('refused', 'card_refused', error.message, { [field]: error.message });
   }
   const previous = previousCardOf(await previousRevisionOf(revision), inputs, source.context);
   const now = (options.now ?? (() => new Date()))();
@@ -170,7 +170,7 @@ function reprintQuery(query: Record<string, unknown>): { code: string; paper: Ca
     }
   }
   if (code === undefined && !fields['code']) fields['code'] = 'Give the code of the issued card to print (code=K7M-4RT-X9X); issue a new card with POST.';
-  if (Object.keys(fields).length) throw new HttpError(400, 'invalid_request', 'Some parameters of the query are not right.', fields);
+  if (Object.keys(fields).length) throw new DomainError('invalid', 'invalid_request', 'Some parameters of the query are not right.', fields);
   return { code: code!, paper };
 }
 
@@ -182,13 +182,13 @@ function reprintQuery(query: Record<string, unknown>): { code: string; paper: Ca
 export async function reprintAirframeCard(actor: Actor, airframeId: number, query: Record<string, unknown>, options: Pick<BatchPrintOptions, 'publicUrl'>): Promise<PrintedCard> {
   const { code, paper } = reprintQuery(query);
   const entry = await CardIssue.findOne({ where: { code, airframeId, operatorId: actor.operatorId } });
-  if (!entry) throw new HttpError(404, 'not_found', `This airframe has no card with the code ${formatCardCode(code)} in the card log.`);
+  if (!entry) throw new DomainError('not-found', 'not_found', `This airframe has no card with the code ${formatCardCode(code)} in the card log.`);
   const revision = await Revision.findOne({ where: { id: entry.revisionId, operatorId: actor.operatorId }, rejectOnEmpty: true });
   const inputs = JSON.parse(entry.inputs) as CardInputs;
   const source = await loadCardSource(actor, revision.id, airframeId, 'issue');
   const card = buildCard(source.revision, inputs, source.context);
   if (card.digest !== entry.digest) {
-    throw new HttpError(409, 'card_not_reproducible', `The card ${formatCardCode(code)} cannot be printed again: its figures no longer come out as issued.`);
+    throw new DomainError('conflict', 'card_not_reproducible', `The card ${formatCardCode(code)} cannot be printed again: its figures no longer come out as issued.`);
   }
   const previous = previousCardOf(await previousRevisionOf(revision), inputs, source.context);
   const issuedAt = entry.issuedAt.toISOString();

@@ -4,12 +4,12 @@
  * preview and by the card log, which re-derives every reported card.
  */
 import type { Transaction } from 'sequelize';
-import { can, type Role } from '../../shared/auth/roles';
 import type { CardContext, CardRevision } from '../../shared/card/card';
 import { contentSha256 } from '../../shared/speed-book/canonical';
-import { HttpError, notFound } from '../http-error';
+import { DomainError, notFound } from '../errors/domain-error';
 import { AircraftType, Airframe, Operator, Revision, SpeedBook } from '../models';
-import { EVER_PUBLISHED_STATUSES, OPEN_STATUSES, statusWords } from '../revisions/revision-views';
+import { EVER_PUBLISHED_STATUSES, maySeeRevision, OPEN_STATUSES, type Viewer } from '../revisions/revision-access';
+import { statusWords } from '../revisions/revision-views';
 
 export interface CardSource {
   revision: CardRevision;
@@ -27,7 +27,7 @@ export type CardPurpose = 'preview' | 'issue';
  * airframe is not of the revision's type or not in service.
  */
 export async function loadCardSource(
-  viewer: { operatorId: number; role: Role },
+  viewer: Viewer,
   revisionId: number,
   airframeId: unknown,
   purpose: CardPurpose,
@@ -35,9 +35,9 @@ export async function loadCardSource(
 ): Promise<CardSource> {
   const row = await Revision.findOne({ where: { id: revisionId, operatorId: viewer.operatorId }, transaction });
   const open = row !== null && OPEN_STATUSES.includes(row.status);
-  if (!row || (open && (purpose === 'issue' || !can(viewer.role, 'edit-speed-books')))) throw notFound('That revision');
+  if (!row || (open && purpose === 'issue') || !maySeeRevision(viewer.role, row.status)) throw notFound('That revision');
   if (purpose === 'preview' && !open && row.status !== 'published') {
-    throw new HttpError(409, 'revision_not_current', `Revision ${row.number} is ${statusWords(row.status)}; cards are prepared from the published revision.`);
+    throw new DomainError('conflict', 'revision_not_current', `Revision ${row.number} is ${statusWords(row.status)}; cards are prepared from the published revision.`);
   }
   if (purpose === 'issue' && !EVER_PUBLISHED_STATUSES.includes(row.status)) throw notFound('That revision');
 
@@ -74,6 +74,6 @@ export async function loadCardSource(
   };
 }
 
-function refusedAirframe(message: string): HttpError {
-  return new HttpError(422, 'card_refused', message, { 'inputs.airframeId': message });
+function refusedAirframe(message: string): DomainError {
+  return new DomainError('refused', 'card_refused', message, { 'inputs.airframeId': message });
 }

@@ -17,7 +17,7 @@ import * as cardCode from '../../shared/card-check/card-code';
 import type { Actor } from '../audit/actor';
 import { AuditEvent, CardIssue } from '../models';
 import { issueCardCode } from './card-issues.service';
-import { newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
+import { newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';
 
 jest.setTimeout(60_000);
 

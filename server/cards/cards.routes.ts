@@ -1,8 +1,8 @@
 import { Router, type RequestHandler } from 'express';
 import { can } from '../../shared/auth/roles';
 import { cardIssueBatchSchema, cardIssueQuerySchema, cardPreviewRequestSchema } from '../../shared/card/card-api';
-import { actorOf } from '../audit/actor';
-import { HttpError, notFound } from '../http-error';
+import { actorOf } from '../middleware/request-actor';
+import { DomainError, notFound } from '../errors/domain-error';
 import { requireCapability } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
 import { getCardIssue, listCardIssues, recordCardIssues } from './card-issues.service';
@@ -20,9 +20,9 @@ export function cardsRoutes(): Router {
 
 /** Readers of the card log: the whole log with `read-card-log`, their own cards with `prepare-cards`. */
 const requireLogReader: RequestHandler = (req, _res, next) => {
-  if (!req.user) return next(new HttpError(401, 'not_signed_in', 'Sign in to continue.'));
+  if (!req.user) return next(new DomainError('unauthenticated', 'not_signed_in', 'Sign in to continue.'));
   if (!can(req.user.role, 'read-card-log') && !can(req.user.role, 'prepare-cards')) {
-    return next(new HttpError(403, 'forbidden', 'Your role may not do this.'));
+    return next(new DomainError('forbidden', 'forbidden', 'Your role may not do this.'));
   }
   next();
 };

@@ -7,13 +7,13 @@ import type { Role } from '../../shared/auth/roles';
 import { buildCard } from '../../shared/card/build-card';
 import { CardRefusedError, type CardInputs, type SpeedCard } from '../../shared/card/card';
 import type { CardPreviewRequest } from '../../shared/card/card-api';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 import { loadCardSource, type CardSource } from './card-source';
 
 /** The 422 of a refused card: the sentence, and the input at fault as a path of the request body. */
-export function refusalError(error: CardRefusedError): HttpError {
+export function refusalError(error: CardRefusedError): DomainError {
   const field = error.field === 'revision' ? 'revisionId' : `inputs.${error.field}`;
-  return new HttpError(422, 'card_refused', error.message, { [field]: error.message });
+  return new DomainError('refused', 'card_refused', error.message, { [field]: error.message });
 }
 
 /** `buildCard` on a loaded source; a refusal becomes the 422 `card_refused`. */

@@ -2,7 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { aircraftTypeListSchema, airframeListSchema } from '../../shared/api/fleet';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { AircraftType, Airframe, AuditEvent } from '../models';
-import { signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
+import { signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';
 
 // Every step hashes or checks passwords or signs; on a busy two-core machine 5 s is short.
 jest.setTimeout(30_000);

@@ -5,10 +5,10 @@ import {
   updateAircraftTypeSchema,
   updateAirframeSchema,
 } from '../../shared/api/fleet';
-import { actorOf } from '../audit/actor';
+import { actorOf } from '../middleware/request-actor';
 import { operatorScope, requireCapability } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
-import { recordId } from '../speed-books/record-id';
+import { idParam } from '../middleware/id-param';
 import * as fleet from './fleet.service';
 
 /** `/api/aircraft-types`: every role reads; administrators write. */
@@ -18,14 +18,14 @@ export function aircraftTypesRoutes(): Router {
     res.json({ aircraftTypes: await fleet.listAircraftTypes(operatorScope(req)) });
   });
   router.get('/:id', requireCapability('read-published'), async (req, res) => {
-    res.json({ aircraftType: await fleet.getAircraftType(operatorScope(req), recordId(req.params['id'], 'That aircraft type')) });
+    res.json({ aircraftType: await fleet.getAircraftType(operatorScope(req), idParam(req.params['id'], 'That aircraft type')) });
   });
   router.post('/', requireCapability('manage-fleet'), async (req, res) => {
     const input = parseOrThrow(createAircraftTypeSchema, req.body, 'aircraft type');
     res.status(201).json({ aircraftType: await fleet.createAircraftType(actorOf(req), input) });
   });
   router.patch('/:id', requireCapability('manage-fleet'), async (req, res) => {
-    const id = recordId(req.params['id'], 'That aircraft type');
+    const id = idParam(req.params['id'], 'That aircraft type');
     const input = parseOrThrow(updateAircraftTypeSchema, req.body, 'aircraft type');
     res.json({ aircraftType: await fleet.updateAircraftType(actorOf(req), id, input) });
   });
@@ -39,14 +39,14 @@ export function airframesRoutes(): Router {
     res.json({ airframes: await fleet.listAirframes(operatorScope(req)) });
   });
   router.get('/:id', requireCapability('read-published'), async (req, res) => {
-    res.json({ airframe: await fleet.getAirframe(operatorScope(req), recordId(req.params['id'], 'That airframe')) });
+    res.json({ airframe: await fleet.getAirframe(operatorScope(req), idParam(req.params['id'], 'That airframe')) });
   });
   router.post('/', requireCapability('manage-fleet'), async (req, res) => {
     const input = parseOrThrow(createAirframeSchema, req.body, 'airframe');
     res.status(201).json({ airframe: await fleet.createAirframe(actorOf(req), input) });
   });
   router.patch('/:id', requireCapability('manage-fleet'), async (req, res) => {
-    const id = recordId(req.params['id'], 'That airframe');
+    const id = idParam(req.params['id'], 'That airframe');
     const input = parseOrThrow(updateAirframeSchema, req.body, 'airframe');
     res.json({ airframe: await fleet.updateAirframe(actorOf(req), id, input) });
   });

@@ -2,8 +2,9 @@ import { UniqueConstraintError } from 'sequelize';
 import type { AircraftTypeView, AirframeView, CreateAircraftType, CreateAirframe, UpdateAircraftType, UpdateAirframe } from '../../shared/api/fleet';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
-import { HttpError, notFound } from '../http-error';
+import { DomainError, notFound } from '../errors/domain-error';
 import { AircraftType, Airframe } from '../models';
+import { transact } from '../transactions';
 
 export function aircraftTypeView(type: AircraftType): AircraftTypeView {
   return {
@@ -38,7 +39,7 @@ function changes(before: Record<string, unknown>, after: Record<string, unknown>
 }
 
 function duplicate(error: unknown, field: string, message: string): never {
-  if (error instanceof UniqueConstraintError) throw new HttpError(409, 'duplicate', message, { [field]: message });
+  if (error instanceof UniqueConstraintError) throw new DomainError('conflict', 'duplicate', message, { [field]: message });
   throw error;
 }
 
@@ -58,12 +59,11 @@ export async function getAircraftType(operatorId: number, id: number): Promise<A
 }
 
 export async function createAircraftType(actor: Actor, input: CreateAircraftType): Promise<AircraftTypeView> {
-  const sequelize = AircraftType.sequelize!;
   try {
-    return await sequelize.transaction(async (transaction) => {
+    return await transact(async (transaction) => {
       const type = await AircraftType.create({ ...input, operatorId: actor.operatorId }, { transaction });
       await recordAudit(
-        { operatorId: actor.operatorId, actorId: actor.userId, action: 'aircraft-type.created', entityType: 'aircraft-type', entityId: type.id, details: { ...input }, req: actor.req },
+        { operatorId: actor.operatorId, actorId: actor.userId, action: 'aircraft-type.created', entityType: 'aircraft-type', entityId: type.id, details: { ...input }, origin: actor.origin },
         transaction,
       );
       return aircraftTypeView(type);
@@ -74,15 +74,14 @@ export async function createAircraftType(actor: Actor, input: CreateAircraftType
 }
 
 export async function updateAircraftType(actor: Actor, id: number, input: UpdateAircraftType): Promise<AircraftTypeView> {
-  const sequelize = AircraftType.sequelize!;
   try {
-    return await sequelize.transaction(async (transaction) => {
+    return await transact(async (transaction) => {
       const type = await AircraftType.findOne({ where: { id, operatorId: actor.operatorId }, transaction, lock: transaction.LOCK.UPDATE });
       if (!type) throw notFound('That aircraft type');
       const before = aircraftTypeView(type);
       await type.update(input, { transaction });
       await recordAudit(
-        { operatorId: actor.operatorId, actorId: actor.userId, action: 'aircraft-type.updated', entityType: 'aircraft-type', entityId: id, details: changes(before, input), req: actor.req },
+        { operatorId: actor.operatorId, actorId: actor.userId, action: 'aircraft-type.updated', entityType: 'aircraft-type', entityId: id, details: changes(before, input), origin: actor.origin },
         transaction,
       );
       return aircraftTypeView(type);
@@ -107,18 +106,17 @@ export async function getAirframe(operatorId: number, id: number): Promise<Airfr
 async function requireOwnType(operatorId: number, aircraftTypeId: number | undefined): Promise<void> {
   if (aircraftTypeId === undefined) return;
   if (!(await AircraftType.findOne({ where: { id: aircraftTypeId, operatorId } }))) {
-    throw new HttpError(422, 'unknown_reference', 'That aircraft type does not exist.', { aircraftTypeId: 'Choose one of your aircraft types.' });
+    throw new DomainError('refused', 'unknown_reference', 'That aircraft type does not exist.', { aircraftTypeId: 'Choose one of your aircraft types.' });
   }
 }
 
 export async function createAirframe(actor: Actor, input: CreateAirframe): Promise<AirframeView> {
   await requireOwnType(actor.operatorId, input.aircraftTypeId);
-  const sequelize = Airframe.sequelize!;
   try {
-    return await sequelize.transaction(async (transaction) => {
+    return await transact(async (transaction) => {
       const airframe = await Airframe.create({ ...input, operatorId: actor.operatorId }, { transaction });
       await recordAudit(
-        { operatorId: actor.operatorId, actorId: actor.userId, action: 'airframe.created', entityType: 'airframe', entityId: airframe.id, details: { ...input }, req: actor.req },
+        { operatorId: actor.operatorId, actorId: actor.userId, action: 'airframe.created', entityType: 'airframe', entityId: airframe.id, details: { ...input }, origin: actor.origin },
         transaction,
       );
       return airframeView(airframe);
@@ -129,16 +127,15 @@ export async function createAirframe(actor: Actor, input: CreateAirframe): Promi
 }
 
 export async function updateAirframe(actor: Actor, id: number, input: UpdateAirframe): Promise<AirframeView> {
-  const sequelize = Airframe.sequelize!;
   try {
-    return await sequelize.transaction(async (transaction) => {
+    return await transact(async (transaction) => {
       const airframe = await Airframe.findOne({ where: { id, operatorId: actor.operatorId }, transaction, lock: transaction.LOCK.UPDATE });
       if (!airframe) throw notFound('That airframe');
       await requireOwnType(actor.operatorId, input.aircraftTypeId);
       const before = airframeView(airframe);
       await airframe.update(input, { transaction });
       await recordAudit(
-        { operatorId: actor.operatorId, actorId: actor.userId, action: 'airframe.updated', entityType: 'airframe', entityId: id, details: changes(before, input), req: actor.req },
+        { operatorId: actor.operatorId, actorId: actor.userId, action: 'airframe.updated', entityType: 'airframe', entityId: id, details: changes(before, input), origin: actor.origin },
         transaction,
       );
       return airframeView(airframe);

@@ -9,9 +9,9 @@
  * cannot be sent is logged and the workflow goes on. Pass `transaction` to send only once it
  * commits (nothing is sent if it rolls back); the promise then resolves at once.
  */
-import { Op, QueryTypes, type Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import type { Role } from '../../shared/auth/roles';
-import { User } from '../models';
+import { SpeedBook, User } from '../models';
 import { revisionPublishedMail, revisionSubmittedMail, revisionWithdrawnMail, type RevisionMailFacts } from './messages';
 import { outbox, type OutgoingMail } from './outbox';
 
@@ -109,11 +109,8 @@ async function factsOf(revision: RevisionNotice, operatorId: number): Promise<Om
 }
 
 async function speedBookTitle(speedBookId: number, operatorId: number): Promise<string> {
-  const rows = await User.sequelize!.query<{ title: string }>('SELECT title FROM speed_books WHERE id = ? AND operator_id = ?', {
-    replacements: [speedBookId, operatorId],
-    type: QueryTypes.SELECT,
-  });
-  return rows[0]?.title ?? `speed book ${speedBookId}`;
+  const book = await SpeedBook.findOne({ where: { id: speedBookId, operatorId }, attributes: ['title'] });
+  return book?.title ?? `speed book ${speedBookId}`;
 }
 
 async function nameOf(userId: number | null | undefined): Promise<string | undefined> {

@@ -1,13 +1,13 @@
 import '../auth/session-user';
 import type { RequestHandler, Response } from 'express';
 import { can, type Capability } from '../../shared/auth/roles';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 
 /** The 401 of a request nobody is signed in for; it says so when the 12 hours of a sign-in ran out. */
-function signedOut(res: Response): HttpError {
+function signedOut(res: Response): DomainError {
   return res.locals['sessionEnded']
-    ? new HttpError(401, 'session_expired', 'Your sign-in is 12 hours old, so it has ended. Sign in again to continue.')
-    : new HttpError(401, 'not_signed_in', 'Sign in to continue.');
+    ? new DomainError('unauthenticated', 'session_expired', 'Your sign-in is 12 hours old, so it has ended. Sign in again to continue.')
+    : new DomainError('unauthenticated', 'not_signed_in', 'Sign in to continue.');
 }
 
 /** 401 unless someone is signed in. */
@@ -27,7 +27,7 @@ export function requireCapability(capability: Capability): RequestHandler {
       return;
     }
     if (!can(req.user.role, capability)) {
-      next(new HttpError(403, 'forbidden', 'Your role may not do this.'));
+      next(new DomainError('forbidden', 'forbidden', 'Your role may not do this.'));
       return;
     }
     next();
@@ -39,6 +39,6 @@ export function requireCapability(capability: Capability): RequestHandler {
  * argument so no query can forget it.
  */
 export function operatorScope(req: Express.Request): number {
-  if (!req.user) throw new HttpError(401, 'not_signed_in', 'Sign in to continue.');
+  if (!req.user) throw new DomainError('unauthenticated', 'not_signed_in', 'Sign in to continue.');
   return req.user.operatorId;
 }

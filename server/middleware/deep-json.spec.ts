@@ -6,7 +6,7 @@
  */
 import { randomUUID } from 'node:crypto';
 import { startHarness, type Harness } from '../../test/api/harness';
-import { newSpeedBook, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
+import { newSpeedBook, signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';
 
 jest.setTimeout(60_000);
 

@@ -1,9 +1,30 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import { HttpError } from '../http-error';
+import { DomainError, type DomainErrorKind } from '../errors/domain-error';
+
+/** The status code each kind of domain error answers with (RFC 9110 §15). */
+const STATUS_OF_KIND: Readonly<Record<DomainErrorKind, number>> = {
+  invalid: 400,
+  unauthenticated: 401,
+  forbidden: 403,
+  'not-found': 404,
+  conflict: 409,
+  gone: 410,
+  'too-large': 413,
+  'unsupported-type': 415,
+  refused: 422,
+  locked: 423,
+  'too-many': 429,
+  unavailable: 503,
+};
+
+/** The HTTP status a domain error answers with. */
+export function httpStatusOf(error: DomainError): number {
+  return STATUS_OF_KIND[error.kind];
+}
 
 /** Unknown routes under /api answer JSON, never the app's HTML. */
 export const apiNotFound: RequestHandler = (req, _res, next) => {
-  next(new HttpError(404, 'no_such_route', `There is no ${req.method} ${req.originalUrl.split('?')[0]} in this API.`));
+  next(new DomainError('not-found', 'no_such_route', `There is no ${req.method} ${req.originalUrl.split('?')[0]} in this API.`));
 };
 
 interface BodyParserError extends Error {
@@ -12,23 +33,24 @@ interface BodyParserError extends Error {
   code?: string;
 }
 
-function toHttpError(error: unknown): HttpError | undefined {
-  if (error instanceof HttpError) return error;
+/** The error as a domain error: itself, or what a body parser, the CSRF check or the database said. */
+function toDomainError(error: unknown): DomainError | undefined {
+  if (error instanceof DomainError) return error;
   const err = error as BodyParserError;
   switch (err?.type) {
     case 'entity.parse.failed':
-      return new HttpError(400, 'invalid_json', 'The request body is not valid JSON.');
+      return new DomainError('invalid', 'invalid_json', 'The request body is not valid JSON.');
     case 'entity.too.large':
-      return new HttpError(413, 'payload_too_large', 'The request body is larger than this API accepts.');
+      return new DomainError('too-large', 'payload_too_large', 'The request body is larger than this API accepts.');
     case 'encoding.unsupported':
     case 'charset.unsupported':
-      return new HttpError(415, 'unsupported_encoding', 'The request body uses an encoding this API does not accept.');
+      return new DomainError('unsupported-type', 'unsupported_encoding', 'The request body uses an encoding this API does not accept.');
   }
   if (err?.code === 'EBADCSRFTOKEN') {
-    return new HttpError(403, 'csrf_invalid', 'This request is missing its security token. Reload the page and try again.');
+    return new DomainError('forbidden', 'csrf_invalid', 'This request is missing its security token. Reload the page and try again.');
   }
   if (err?.name === 'SequelizeConnectionError' || err?.name === 'SequelizeConnectionRefusedError' || err?.name === 'SequelizeConnectionAcquireTimeoutError') {
-    return new HttpError(503, 'database_unavailable', 'The database is not reachable right now. Try again shortly.');
+    return new DomainError('unavailable', 'database_unavailable', 'The database is not reachable right now. Try again shortly.');
   }
   return undefined;
 }
@@ -39,11 +61,11 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, next) => {
     next(error);
     return;
   }
-  const known = toHttpError(error);
+  const known = toDomainError(error);
   const requestId = String(req.id ?? '');
+  const status = known ? httpStatusOf(known) : 500;
   if (!known) req.log?.error({ err: error }, 'unhandled error');
-  else if (known.status >= 500) req.log?.warn({ err: error }, known.code);
-  const status = known?.status ?? 500;
+  else if (status >= 500) req.log?.warn({ err: error }, known.code);
   res.status(status).json({
     error: {
       code: known?.code ?? 'internal_error',

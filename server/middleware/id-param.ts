@@ -1,4 +1,4 @@
-import { notFound } from '../http-error';
+import { notFound } from '../errors/domain-error';
 
 /** A route's numeric id; anything else answers 404 like an id that does not exist. */
 export function idParam(value: string | string[] | undefined, what: string): number {

@@ -6,7 +6,7 @@
  */
 import request from 'supertest';
 import { startHarness, type Harness } from '../../test/api/harness';
-import { newSpeedBook, publish, signInEveryone, type SessionsByRole } from '../speed-books/test-helpers';
+import { newSpeedBook, publish, signInEveryone, type SessionsByRole } from '../../test/api/test-helpers';
 
 jest.setTimeout(60_000);
 

@@ -12,6 +12,7 @@ import { RevisionContributor } from './revision-contributor';
 import { SigningKey } from './signing-key';
 import { SpeedBook } from './speed-book';
 import { User } from './user';
+import { useDatabase } from '../transactions';
 
 export { Attachment, AuditEvent, Invitation, Operator, PasswordResetToken, User };
 
@@ -23,6 +24,7 @@ export { RevisionContributor };
 
 /** Registers every model and, in one place, every association. */
 export function initModels(sequelize: Sequelize): void {
+  useDatabase(sequelize);
   Operator.initModel(sequelize);
   User.initModel(sequelize);
   AuditEvent.initModel(sequelize);

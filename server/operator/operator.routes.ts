@@ -1,11 +1,10 @@
 import { Router } from 'express';
-import { actorOf } from '../audit/actor';
+import { actorOf } from '../middleware/request-actor';
 import { requireCapability } from '../middleware/authorize';
 import { operatorSettingsSchema } from '../../shared/api/sync';
-import { recordAudit } from '../audit/audit.service';
 import { parseOrThrow } from '../middleware/validate';
-import { Operator } from '../models';
 import { publicSigningKey } from '../revisions/signing';
+import { operatorSettings, updateOperatorSettings } from './operator.service';
 
 /**
  * `/api/operator/signing-key`: the public key devices verify published revisions with;
@@ -22,23 +21,11 @@ export function operatorRoutes({ signingKeySecret }: { signingKeySecret: string 
     });
   });
   router.get('/settings', requireCapability('manage-people'), async (req, res) => {
-    const operator = await Operator.findByPk(actorOf(req).operatorId, { rejectOnEmpty: true });
-    res.json({ settings: { currencyLimitDays: operator.currencyLimitDays } });
+    res.json({ settings: await operatorSettings(actorOf(req).operatorId) });
   });
   router.patch('/settings', requireCapability('manage-people'), async (req, res) => {
-    const actor = actorOf(req);
     const input = parseOrThrow(operatorSettingsSchema, req.body, 'settings');
-    const settings = await Operator.sequelize!.transaction(async (transaction) => {
-      const operator = await Operator.findByPk(actor.operatorId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
-      const before = operator.currencyLimitDays;
-      await operator.update({ currencyLimitDays: input.currencyLimitDays }, { transaction });
-      await recordAudit(
-        { operatorId: actor.operatorId, actorId: actor.userId, action: 'operator.settings-updated', entityType: 'operator', entityId: actor.operatorId, details: { currencyLimitDays: { before, after: input.currencyLimitDays } }, req },
-        transaction,
-      );
-      return { currencyLimitDays: operator.currencyLimitDays };
-    });
-    res.json({ settings });
+    res.json({ settings: await updateOperatorSettings(actorOf(req), input) });
   });
   return router;
 }

@@ -8,7 +8,7 @@ import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
 import type { RevisionContent } from '../../shared/speed-book/revision-content';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { AuditEvent, Revision } from '../models';
-import { newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
+import { newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';
 
 jest.setTimeout(60_000);
 

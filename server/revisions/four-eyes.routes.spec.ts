@@ -8,7 +8,7 @@ import { revisionResponseSchema } from '../../shared/api/revisions';
 import { demoPistonTrainerContent, demoPistonTrainerContentRevised } from '../../shared/speed-book/demo-content';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { AuditEvent } from '../models';
-import { newSpeedBook, newTeam, type Session } from '../speed-books/test-helpers';
+import { newSpeedBook, newTeam, type Session } from '../../test/api/test-helpers';
 
 jest.setTimeout(60_000);
 

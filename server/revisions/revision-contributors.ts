@@ -7,7 +7,7 @@ import type { Transaction } from 'sequelize';
 import type { RevisionContributorView } from '../../shared/api/revisions';
 import { CONTRIBUTION_KINDS, contributionWords, fourEyesRefusal, type ContributionKind } from '../../shared/speed-book/four-eyes';
 import type { Actor } from '../audit/actor';
-import { forbidden } from '../http-error';
+import { forbidden } from '../errors/domain-error';
 import { RevisionContributor, User } from '../models';
 
 /** Notes that `actor` contributed to the revision in this way (once per person and kind). */

@@ -1,6 +1,7 @@
 import type { RevisionContributorView, RevisionStatus, RevisionSummary, RevisionView } from '../../shared/api/revisions';
 import { revisionContentProblems } from '../../shared/speed-book/revision-content';
 import { Revision, User } from '../models';
+import { OPEN_STATUSES } from './revision-access';
 
 /** Display names of the people a list of revisions mentions, by id. */
 export async function peopleNames(operatorId: number, revisions: Revision[]): Promise<Map<number, string>> {
@@ -37,8 +38,6 @@ export function revisionSummary(revision: Revision, names: Map<number, string>):
   };
 }
 
-export const OPEN_STATUSES: RevisionStatus[] = ['draft', 'in_review'];
-export const EVER_PUBLISHED_STATUSES: RevisionStatus[] = ['published', 'superseded', 'withdrawn'];
 
 export function revisionDetail(revision: Revision, names: Map<number, string>, contributors: RevisionContributorView[]): RevisionView {
   const content = JSON.parse(revision.content) as Record<string, unknown>;

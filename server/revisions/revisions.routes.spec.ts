@@ -9,7 +9,7 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { apiTestAttachmentsDir } from '../../test/api/constants';
 import { Attachment, AuditEvent, Revision } from '../models';
-import { newSpeedBook, newTeam, publish, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
+import { newSpeedBook, newTeam, publish, signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';
 import { verifyStatement } from './signing';
 
 // Every step hashes or checks passwords or signs; on a busy two-core machine 5 s is short.

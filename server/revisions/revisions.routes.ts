@@ -1,17 +1,18 @@
 import { Router } from 'express';
+import type { Logger } from 'pino';
 import { contentCoverageRequestSchema, diffQuerySchema, reasonSchema, updateRevisionSchema } from '../../shared/api/revisions';
 import { AttachmentStore } from '../attachments/attachments.service';
-import { actorOf } from '../audit/actor';
+import { actorOf } from '../middleware/request-actor';
 import { requireCapability } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
-import { recordId } from '../speed-books/record-id';
+import { idParam } from '../middleware/id-param';
 import * as revisions from './revisions.service';
 
 /** `/api/revisions/:id` and its workflow steps. */
-export function revisionsRoutes({ signingKeySecret, attachmentsDir }: { signingKeySecret: string; attachmentsDir: string }): Router {
+export function revisionsRoutes({ signingKeySecret, attachmentsDir, logger }: { signingKeySecret: string; attachmentsDir: string; logger?: Logger }): Router {
   const router = Router();
-  const attachments = new AttachmentStore(attachmentsDir);
-  const id = (value: string | string[] | undefined) => recordId(value, 'That revision');
+  const attachments = new AttachmentStore(attachmentsDir, logger);
+  const id = (value: string | string[] | undefined) => idParam(value, 'That revision');
 
   // The envelope sweep of unsaved editor content (before '/:id', which it is not).
   router.post('/coverage', requireCapability('edit-speed-books'), (req, res) => {

@@ -6,7 +6,6 @@
  */
 import type { Transaction } from 'sequelize';
 import type { RevisionView } from '../../shared/api/revisions';
-import { can, type Role } from '../../shared/auth/roles';
 import { canonicalJson, contentSha256 } from '../../shared/speed-book/canonical';
 import { diffContent, type ContentChange } from '../../shared/speed-book/diff';
 import { revisionContentProblems, revisionContentSchema, type RevisionContent } from '../../shared/speed-book/revision-content';
@@ -15,23 +14,16 @@ import type { CoverageReport } from '../../shared/card/coverage-report';
 import { signedRevisionStatement } from '../../shared/speed-book/signature';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
-import { forbidden, HttpError, notFound } from '../http-error';
+import { forbidden, DomainError, notFound } from '../errors/domain-error';
 import { notifyRevisionPublished, notifyRevisionSubmitted, notifyRevisionWithdrawn } from '../mail/notifications';
 import type { AttachmentStore } from '../attachments/attachments.service';
 import { AircraftType, Attachment, Revision, SpeedBook } from '../models';
 import { contributorsInWords, recordContribution, refuseContributor, revisionContributors } from './revision-contributors';
-import { EVER_PUBLISHED_STATUSES, OPEN_STATUSES, peopleNames, revisionDetail, statusWords } from './revision-views';
+import { EVER_PUBLISHED_STATUSES, OPEN_STATUSES, visibleRevision, type Viewer } from './revision-access';
+import { peopleNames, revisionDetail, statusWords } from './revision-views';
 import { activeSigningKey, signStatement } from './signing';
+import { transact } from '../transactions';
 
-export interface Viewer {
-  operatorId: number;
-  role: Role;
-}
-
-/** Drafts and revisions in review are for the people who write and approve them. */
-export const seesOpenRevisions = (role: Role) => can(role, 'edit-speed-books');
-
-const transact = <T>(work: (transaction: Transaction) => Promise<T>) => Revision.sequelize!.transaction(work);
 
 /** The revision as stored (timestamps in whole seconds), the same as any later GET shows it. */
 async function detail(operatorId: number, revision: Revision): Promise<RevisionView> {
@@ -41,21 +33,21 @@ async function detail(operatorId: number, revision: Revision): Promise<RevisionV
 
 function audit(actor: Actor, action: string, revision: Revision, details: Record<string, unknown>, transaction: Transaction) {
   return recordAudit(
-    { operatorId: actor.operatorId, actorId: actor.userId, action, entityType: 'revision', entityId: revision.id, details: { speedBookId: revision.speedBookId, number: revision.number, ...details }, req: actor.req },
+    { operatorId: actor.operatorId, actorId: actor.userId, action, entityType: 'revision', entityId: revision.id, details: { speedBookId: revision.speedBookId, number: revision.number, ...details }, origin: actor.origin },
     transaction,
   );
 }
 
 /**
- * Mail goes out once the change commits, and only for changes made through the API (an actor
- * with a request): the demo seed runs these services before any app, and sends nothing.
+ * Mail goes out once the change commits, and only when the actor's changes announce themselves
+ * (`Actor.sendsMail`): the demo seed runs these services before any app, and sends nothing.
  */
 function mailing(actor: Actor, transaction: Transaction) {
-  return actor.req ? { transaction, actorId: actor.userId } : undefined;
+  return actor.sendsMail ? { transaction, actorId: actor.userId } : undefined;
 }
 
-function wrongStatus(revision: Revision, needed: string): HttpError {
-  return new HttpError(409, 'wrong_status', `Revision ${revision.number} is ${statusWords(revision.status)}; ${needed}.`);
+function wrongStatus(revision: Revision, needed: string): DomainError {
+  return new DomainError('conflict', 'wrong_status', `Revision ${revision.number} is ${statusWords(revision.status)}; ${needed}.`);
 }
 
 async function lockBook(operatorId: number, speedBookId: number, transaction: Transaction): Promise<SpeedBook> {
@@ -78,13 +70,6 @@ async function lockBookAndRevision(operatorId: number, id: number, transaction: 
   return { book, revision: await lockRevision(operatorId, id, transaction) };
 }
 
-/** A revision the viewer may see; drafts and reviews of others' work answer 404 to pilots and inspectors. */
-async function visibleRevision(viewer: Viewer, id: number): Promise<Revision> {
-  const revision = await Revision.findOne({ where: { id, operatorId: viewer.operatorId } });
-  if (!revision || (OPEN_STATUSES.includes(revision.status) && !seesOpenRevisions(viewer.role))) throw notFound('That revision');
-  return revision;
-}
-
 export async function getRevision(viewer: Viewer, id: number): Promise<RevisionView> {
   return detail(viewer.operatorId, await visibleRevision(viewer, id));
 }
@@ -100,14 +85,14 @@ export async function createRevision(actor: Actor, speedBookId: number, input: N
     const book = await lockBook(actor.operatorId, speedBookId, transaction);
     const open = await Revision.findOne({ where: { speedBookId: book.id, status: OPEN_STATUSES }, transaction });
     if (open) {
-      throw new HttpError(409, 'open_revision_exists', `Revision ${open.number} of this speed book is still ${statusWords(open.status)}; finish or return it first.`);
+      throw new DomainError('conflict', 'open_revision_exists', `Revision ${open.number} of this speed book is still ${statusWords(open.status)}; finish or return it first.`);
     }
     let content = input.content;
     let copiedFrom: number | undefined;
     if (content === undefined) {
       const latest = await Revision.findOne({ where: { speedBookId: book.id, status: EVER_PUBLISHED_STATUSES }, order: [['number', 'DESC']], transaction });
       if (!latest) {
-        throw new HttpError(422, 'no_content', 'This speed book has no published revision to copy; give the content.', {
+        throw new DomainError('refused', 'no_content', 'This speed book has no published revision to copy; give the content.', {
           content: 'Give the content: there is no published revision to start from.',
         });
       }
@@ -189,7 +174,7 @@ export async function discardDraft(actor: Actor, id: number, store: AttachmentSt
     await audit(actor, 'revision.discarded', revision, { changeSummary: revision.changeSummary, sourcePages: attachments.length }, transaction);
     return attachments;
   });
-  await store.removeFiles(actor, pages);
+  await store.removeFiles(pages);
 }
 
 /** The content's problems, and whether it describes the speed book's own type, as 422 fields. */
@@ -215,7 +200,7 @@ function parsedContent(content: unknown, message: string): RevisionContent {
   if (parsed.success) return parsed.data;
   const fields: Record<string, string> = {};
   for (const [path, sentence] of Object.entries(revisionContentProblems(content))) fields[`content.${path}`] = sentence;
-  throw new HttpError(422, 'content_invalid', message, fields);
+  throw new DomainError('refused', 'content_invalid', message, fields);
 }
 
 /** The coverage report of a revision anyone who may read it may see. */
@@ -237,7 +222,7 @@ export function contentCoverage(content: unknown): CoverageReport {
 function requireCoverage(content: unknown, step: 'submitted' | 'published'): void {
   const parsed = revisionContentSchema.parse(content);
   if (!parsed.envelope) {
-    throw new HttpError(422, 'content_invalid', `The revision cannot be ${step} until it declares its envelope.`, {
+    throw new DomainError('refused', 'content_invalid', `The revision cannot be ${step} until it declares its envelope.`, {
       'content.envelope': 'Declare the takeoff and landing pressure-altitude and temperature ranges this book covers.',
     });
   }
@@ -248,8 +233,8 @@ function requireCoverage(content: unknown, step: 'submitted' | 'published'): voi
     report.counts.refused ? `${report.counts.refused} of ${report.counts.points} points inside the envelope give no card` : '',
     unexcepted.length ? `${unexcepted.map((rule) => rule.title).join(', ')} ${unexcepted.length === 1 ? 'is' : 'are'} broken without a recorded exception` : '',
   ].filter(Boolean);
-  throw new HttpError(
-    422,
+  throw new DomainError(
+    'refused',
     'coverage_failed',
     `The revision cannot be ${step}: ${parts.join('; ')}. Narrow the envelope, correct the tables, or record the flight manual's reason for an exception.`,
     undefined,
@@ -263,7 +248,7 @@ export async function submitRevision(actor: Actor, id: number): Promise<Revision
     const { book, revision } = await lockBookAndRevision(actor.operatorId, id, transaction);
     if (revision.status !== 'draft') throw wrongStatus(revision, 'only a draft can be submitted');
     const fields = await contentProblems(revision, book, transaction);
-    if (Object.keys(fields).length) throw new HttpError(422, 'content_invalid', 'The revision cannot be submitted until these fields are right.', fields);
+    if (Object.keys(fields).length) throw new DomainError('refused', 'content_invalid', 'The revision cannot be submitted until these fields are right.', fields);
     requireCoverage(JSON.parse(revision.content), 'submitted');
     await revision.update({ status: 'in_review', submittedAt: new Date() }, { transaction });
     await recordContribution(actor, revision.id, 'submitted', transaction);
@@ -288,7 +273,7 @@ export async function approveRevision(actor: Actor, id: number, signingKeySecret
     await refuseContributor(actor, revision, transaction);
     if (revision.status !== 'in_review') throw wrongStatus(revision, 'only a revision in review can be approved');
     const fields = await contentProblems(revision, book, transaction);
-    if (Object.keys(fields).length) throw new HttpError(422, 'content_invalid', 'The revision’s content is not valid; return it to its author.', fields);
+    if (Object.keys(fields).length) throw new DomainError('refused', 'content_invalid', 'The revision’s content is not valid; return it to its author.', fields);
     requireCoverage(JSON.parse(revision.content), 'published');
 
     const key = await activeSigningKey(actor.operatorId, signingKeySecret, transaction, actor);
@@ -355,7 +340,7 @@ export async function withdrawRevision(actor: Actor, id: number, reason: string)
 export async function diffRevisions(viewer: Viewer, id: number, againstId: number): Promise<{ revisionId: number; againstId: number; changes: ContentChange[] }> {
   const revision = await visibleRevision(viewer, id);
   const against = await visibleRevision(viewer, againstId).catch((error: unknown) => {
-    if (error instanceof HttpError && error.status === 404) throw new HttpError(404, 'not_found', 'The revision to compare with does not exist.');
+    if (error instanceof DomainError && error.kind === 'not-found') throw new DomainError('not-found', 'not_found', 'The revision to compare with does not exist.');
     throw error;
   });
   return { revisionId: revision.id, againstId: against.id, changes: diffContent(JSON.parse(against.content), JSON.parse(revision.content)) };

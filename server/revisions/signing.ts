@@ -9,6 +9,7 @@ import type { Transaction } from 'sequelize';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { Operator, SigningKey } from '../models';
+import { transact } from '../transactions';
 
 const FORMAT = 'v1';
 const HKDF_INFO = 'speedwright signing key v1';
@@ -63,7 +64,7 @@ export async function activeSigningKey(operatorId: number, secret: string, trans
   // As stored (whole seconds), so the first answer matches every later one.
   await key.reload({ transaction });
   await recordAudit(
-    { operatorId, actorId: actor?.userId ?? null, action: 'signing-key.created', entityType: 'signing-key', entityId: key.id, details: { algorithm: 'Ed25519', publicKey: key.publicKey }, req: actor?.req },
+    { operatorId, actorId: actor?.userId ?? null, action: 'signing-key.created', entityType: 'signing-key', entityId: key.id, details: { algorithm: 'Ed25519', publicKey: key.publicKey }, origin: actor?.origin },
     transaction,
   );
   return key;
@@ -76,7 +77,7 @@ export async function activeSigningKey(operatorId: number, secret: string, trans
  */
 export async function publicSigningKey(operatorId: number, secret: string, actor?: Actor): Promise<SigningKey> {
   const existing = await SigningKey.findOne({ where: { operatorId, active: true }, order: [['id', 'DESC']] });
-  return existing ?? SigningKey.sequelize!.transaction((transaction) => activeSigningKey(operatorId, secret, transaction, actor));
+  return existing ?? transact((transaction) => activeSigningKey(operatorId, secret, transaction, actor));
 }
 
 /** Ed25519 signature (64 bytes, standard base64) of the UTF-8 bytes of `statement`. */

@@ -13,7 +13,7 @@ import { createAircraftType, createAirframe } from '../fleet/fleet.service';
 import { Operator, User } from '../models';
 import { approveRevision, createRevision, submitRevision } from '../revisions/revisions.service';
 import { createSpeedBook } from './speed-books.service';
-import { signInEveryone, type Session, type SessionsByRole } from './test-helpers';
+import { signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';
 
 // Every step hashes or checks passwords or signs; on a busy two-core machine 5 s is short.
 jest.setTimeout(30_000);

@@ -2,10 +2,11 @@ import { UniqueConstraintError } from 'sequelize';
 import type { SpeedBookSummary } from '../../shared/api/revisions';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
-import { HttpError, notFound } from '../http-error';
+import { DomainError, notFound } from '../errors/domain-error';
 import { AircraftType, Revision, SpeedBook } from '../models';
-import { EVER_PUBLISHED_STATUSES, peopleNames, revisionSummary } from '../revisions/revision-views';
-import { seesOpenRevisions, type Viewer } from '../revisions/revisions.service';
+import { visibleStatusFilter, type Viewer } from '../revisions/revision-access';
+import { peopleNames, revisionSummary } from '../revisions/revision-views';
+import { transact } from '../transactions';
 
 function summary(book: SpeedBook, current: Revision | undefined, names: Map<number, string>): SpeedBookSummary {
   return { id: book.id, title: book.title, aircraftTypeId: book.aircraftTypeId, currentRevision: current ? revisionSummary(current, names) : null };
@@ -25,7 +26,7 @@ export async function getSpeedBook(viewer: Viewer, id: number) {
   const book = await SpeedBook.findOne({ where: { id, operatorId: viewer.operatorId } });
   if (!book) throw notFound('That speed book');
   const revisions = await Revision.findAll({
-    where: { speedBookId: book.id, operatorId: viewer.operatorId, ...(seesOpenRevisions(viewer.role) ? {} : { status: EVER_PUBLISHED_STATUSES }) },
+    where: { speedBookId: book.id, operatorId: viewer.operatorId, ...visibleStatusFilter(viewer.role) },
     order: [['number', 'DESC']],
   });
   const names = await peopleNames(viewer.operatorId, revisions);
@@ -40,12 +41,12 @@ export async function getSpeedBook(viewer: Viewer, id: number) {
 /** A new, empty speed book for one of the operator's types (one per type). */
 export async function createSpeedBook(actor: Actor, input: { aircraftTypeId: number; title: string }) {
   const type = await AircraftType.findOne({ where: { id: input.aircraftTypeId, operatorId: actor.operatorId } });
-  if (!type) throw new HttpError(422, 'unknown_reference', 'That aircraft type does not exist.', { aircraftTypeId: 'Choose one of your aircraft types.' });
+  if (!type) throw new DomainError('refused', 'unknown_reference', 'That aircraft type does not exist.', { aircraftTypeId: 'Choose one of your aircraft types.' });
   try {
-    const book = await SpeedBook.sequelize!.transaction(async (transaction) => {
+    const book = await transact(async (transaction) => {
       const book = await SpeedBook.create({ operatorId: actor.operatorId, aircraftTypeId: type.id, title: input.title }, { transaction });
       await recordAudit(
-        { operatorId: actor.operatorId, actorId: actor.userId, action: 'speed-book.created', entityType: 'speed-book', entityId: book.id, details: { ...input }, req: actor.req },
+        { operatorId: actor.operatorId, actorId: actor.userId, action: 'speed-book.created', entityType: 'speed-book', entityId: book.id, details: { ...input }, origin: actor.origin },
         transaction,
       );
       return book;
@@ -53,7 +54,7 @@ export async function createSpeedBook(actor: Actor, input: { aircraftTypeId: num
     return getSpeedBook(actor, book.id);
   } catch (error) {
     if (error instanceof UniqueConstraintError) {
-      throw new HttpError(409, 'duplicate', `${type.designator} already has a speed book.`, { aircraftTypeId: 'This type already has its speed book.' });
+      throw new DomainError('conflict', 'duplicate', `${type.designator} already has a speed book.`, { aircraftTypeId: 'This type already has its speed book.' });
     }
     throw error;
   }

@@ -8,7 +8,7 @@ import { SpeedwrightDeviceDatabase, type CardLogRecord } from '../../src/app/cor
 import { SyncFailure, flushOutbox, revisionNotices, runSync, waitingEntries, type SyncTransport } from '../../src/app/core/sync/device-sync';
 import { agentTransport } from '../../test/api/device-sync-transport';
 import { startHarness, type Harness } from '../../test/api/harness';
-import { newSpeedBook, newTeam, publish, type Session } from '../speed-books/test-helpers';
+import { newSpeedBook, newTeam, publish, type Session } from '../../test/api/test-helpers';
 
 /**
  * The device's sync core (src/app/core/sync/device-sync.ts) on fake-indexeddb against the real

@@ -1,4 +1,4 @@
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 
 /**
  * The sync cursor: `base64url("v1." + change number)`, opaque to devices.
@@ -26,7 +26,7 @@ export function encodeCursor(changeSeq: number): string {
 /** The change number of `cursor` (0 without one); 400 with a field message when it is not ours. */
 export function decodeCursor(cursor: string | undefined): number {
   if (cursor === undefined || cursor === '') return 0;
-  const bad = () => new HttpError(400, 'invalid_request', 'Some fields of the request are not right.', { cursor: 'The cursor is not one this server gave out; sync again without one.' });
+  const bad = () => new DomainError('invalid', 'invalid_request', 'Some fields of the request are not right.', { cursor: 'The cursor is not one this server gave out; sync again without one.' });
   if (!/^[A-Za-z0-9_-]+$/.test(cursor)) throw bad();
   const text = Buffer.from(cursor, 'base64url').toString('utf8');
   const match = /^v1\.(0|[1-9]\d{0,15})$/.exec(text);

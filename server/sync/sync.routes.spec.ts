@@ -4,7 +4,7 @@ import { signedRevisionStatement } from '../../shared/speed-book/signature';
 import { demoPistonTrainerContentRevised } from '../../shared/speed-book/demo-content';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { AuditEvent, Revision } from '../models';
-import { newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
+import { newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';
 
 // Publishing signs and sign-ins hash passwords; on a busy machine 5 s is short.
 jest.setTimeout(30_000);

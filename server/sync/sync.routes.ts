@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { syncQuerySchema } from '../../shared/api/sync';
-import { actorOf } from '../audit/actor';
+import { actorOf } from '../middleware/request-actor';
 import { requireCapability } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
 import { syncSince } from './sync.service';

@@ -5,6 +5,7 @@ import { aircraftTypeView, airframeView } from '../fleet/fleet.service';
 import { AircraftType, Airframe, Operator, Revision, SpeedBook } from '../models';
 import { publicSigningKey } from '../revisions/signing';
 import { decodeCursor, encodeCursor } from './sync-cursor';
+import { database } from '../transactions';
 
 /** Only what a device may hold: never drafts or revisions in review. */
 const SYNCED_STATUSES = ['published', 'superseded', 'withdrawn'] as const;
@@ -21,7 +22,7 @@ async function changedRows(table: 'aircraft_types' | 'airframes' | 'revisions', 
     table === 'revisions'
       ? `AND status IN (${SYNCED_STATUSES.map(() => '?').join(', ')}) AND signature IS NOT NULL AND content_sha256 IS NOT NULL AND signing_key_id IS NOT NULL AND published_at IS NOT NULL`
       : '';
-  return Revision.sequelize!.query<Changed>(`SELECT id, change_seq FROM ${table} WHERE operator_id = ? AND change_seq > ? ${statusFilter} ORDER BY change_seq`, {
+  return database().query<Changed>(`SELECT id, change_seq FROM ${table} WHERE operator_id = ? AND change_seq > ? ${statusFilter} ORDER BY change_seq`, {
     replacements: [operatorId, since, ...(table === 'revisions' ? SYNCED_STATUSES : [])],
     type: QueryTypes.SELECT,
   });

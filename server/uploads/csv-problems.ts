@@ -1,9 +1,9 @@
 /**
  * The problems of an uploaded speed-table CSV: a row's problem (`CsvRowError`, reported with
  * the preview) and the error that refuses the file as a whole. `csvFileError` is the one place
- * the parser makes that error; the HTTP layer maps it to a 422.
+ * the parser makes that error (a `DomainError` of kind refused; the error middleware answers 422).
  */
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 
 export interface CsvRowError {
   /** 1-based line of the file; 1 is the header. */
@@ -18,7 +18,7 @@ export type CsvFileProblem = 'unusable_csv' | 'csv_too_large';
 
 /** The error that refuses the whole file with `message` (shown beside the file field). */
 export function csvFileError(code: CsvFileProblem, message: string): Error {
-  return new HttpError(422, code, message, { file: message });
+  return new DomainError('refused', code, message, { file: message });
 }
 
 /** A file that is not a usable speed table. */

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
 import multer from 'multer';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 
 export interface SingleFileOptions {
   /** Largest file accepted, in bytes. */
@@ -25,9 +25,9 @@ export function singleFileUpload({ maxBytes, maxLabel, acceptType, typeMessage }
     defParamCharset: 'utf8',
     limits: { fileSize: maxBytes, files: 1, fields: 10, parts: 12, fieldSize: 10_000 },
     fileFilter: (_req, file, callback) => {
-      if (file.fieldname !== 'file') return callback(new HttpError(400, 'invalid_upload', 'Send the file in the form field "file".', { file: 'Send the file in this field.' }));
+      if (file.fieldname !== 'file') return callback(new DomainError('invalid', 'invalid_upload', 'Send the file in the form field "file".', { file: 'Send the file in this field.' }));
       if (acceptType && !acceptType(file.mimetype.toLowerCase(), file.originalname)) {
-        return callback(new HttpError(415, 'unsupported_file_type', typeMessage ?? 'This type of file is not accepted here.', { file: typeMessage ?? 'Wrong type of file.' }));
+        return callback(new DomainError('unsupported-type', 'unsupported_file_type', typeMessage ?? 'This type of file is not accepted here.', { file: typeMessage ?? 'Wrong type of file.' }));
       }
       callback(null, true);
     },
@@ -35,30 +35,30 @@ export function singleFileUpload({ maxBytes, maxLabel, acceptType, typeMessage }
 
   return (req, res, next) => {
     if (!req.is('multipart/form-data')) {
-      next(new HttpError(415, 'multipart_required', 'Send the file as multipart/form-data in the field "file".', { file: 'Choose a file to upload.' }));
+      next(new DomainError('unsupported-type', 'multipart_required', 'Send the file as multipart/form-data in the field "file".', { file: 'Choose a file to upload.' }));
       return;
     }
     upload(req, res, (error: unknown) => {
       if (!error) {
         if (!req.file) {
-          next(new HttpError(400, 'file_missing', 'Choose a file to upload.', { file: 'Choose a file to upload.' }));
+          next(new DomainError('invalid', 'file_missing', 'Choose a file to upload.', { file: 'Choose a file to upload.' }));
           return;
         }
         next();
         return;
       }
-      if (error instanceof HttpError) return next(error);
+      if (error instanceof DomainError) return next(error);
       if (error instanceof multer.MulterError) {
         if (error.code === 'LIMIT_FILE_SIZE') {
-          return next(new HttpError(413, 'file_too_large', `The file is larger than ${maxLabel}, the most this upload accepts.`, { file: `At most ${maxLabel}.` }));
+          return next(new DomainError('too-large', 'file_too_large', `The file is larger than ${maxLabel}, the most this upload accepts.`, { file: `At most ${maxLabel}.` }));
         }
         if (error.code === 'LIMIT_UNEXPECTED_FILE' || error.code === 'LIMIT_FILE_COUNT') {
-          return next(new HttpError(400, 'invalid_upload', 'Send exactly one file, in the form field "file".', { file: 'Send exactly one file here.' }));
+          return next(new DomainError('invalid', 'invalid_upload', 'Send exactly one file, in the form field "file".', { file: 'Send exactly one file here.' }));
         }
-        return next(new HttpError(400, 'invalid_upload', 'The upload form is not as expected. Send one file in the field "file".'));
+        return next(new DomainError('invalid', 'invalid_upload', 'The upload form is not as expected. Send one file in the field "file".'));
       }
       // Malformed multipart bodies come from busboy as plain errors.
-      next(new HttpError(400, 'invalid_upload', 'The upload could not be read. Try again, or choose the file once more.'));
+      next(new DomainError('invalid', 'invalid_upload', 'The upload could not be read. Try again, or choose the file once more.'));
     });
   };
 }

@@ -1,4 +1,5 @@
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
+import { httpStatusOf } from '../middleware/error-handler';
 import { parseSpeedTableCsv, type PositionErrorUpload, type TabulatedSpeedUpload } from './speed-table-csv';
 
 // Exact factors: 1 lb = 0.453 592 37 kg and 1 mile = 1 609.344 m (international yard and pound
@@ -8,13 +9,13 @@ const KT_PER_MPH = 1609.344 / 1852;
 const KT_PER_KMH = 1 / 1.852;
 const KG_PER_LB = 0.45359237;
 
-const refusal = (text: string): HttpError => {
+const refusal = (text: string): DomainError => {
   try {
     parseSpeedTableCsv(text);
   } catch (error) {
-    expect(error).toBeInstanceOf(HttpError);
-    expect((error as HttpError).status).toBe(422);
-    return error as HttpError;
+    expect(error).toBeInstanceOf(DomainError);
+    expect(httpStatusOf(error as DomainError)).toBe(422);
+    return error as DomainError;
   }
   throw new Error('expected the file to be refused');
 };

@@ -1,4 +1,5 @@
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
+import { httpStatusOf } from '../middleware/error-handler';
 import { MAX_CSV_ROWS, parseSpeedTableCsv, type PositionErrorUpload, type TabulatedSpeedUpload } from './speed-table-csv';
 
 const positionError = (text: string) => {
@@ -11,13 +12,13 @@ const tabulated = (text: string) => {
   expect(result.layout).toBe('tabulated-speed');
   return result as TabulatedSpeedUpload;
 };
-const unusable = (text: string): HttpError => {
+const unusable = (text: string): DomainError => {
   try {
     parseSpeedTableCsv(text);
   } catch (error) {
-    expect(error).toBeInstanceOf(HttpError);
-    expect((error as HttpError).status).toBe(422);
-    return error as HttpError;
+    expect(error).toBeInstanceOf(DomainError);
+    expect(httpStatusOf(error as DomainError)).toBe(422);
+    return error as DomainError;
   }
   throw new Error('expected the file to be refused');
 };

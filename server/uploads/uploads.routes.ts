@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
 import { requireCapability } from '../middleware/authorize';
 import { singleFileUpload } from './single-file';
 import { parseSpeedTableCsv } from './speed-table-csv';
@@ -37,7 +37,7 @@ function decodeUtf8(buffer: Buffer): string {
   try {
     return new TextDecoder('utf-8', { fatal: true }).decode(buffer);
   } catch {
-    throw new HttpError(422, 'unusable_csv', 'The file is not UTF-8 text. Save the table as "CSV UTF-8" and upload it again.', {
+    throw new DomainError('refused', 'unusable_csv', 'The file is not UTF-8 text. Save the table as "CSV UTF-8" and upload it again.', {
       file: 'Not UTF-8 text.',
     });
   }

@@ -4,7 +4,7 @@ import { mailboxResponseSchema } from '../../shared/api/mailbox';
 import { csrfAgent, demoEmail, mailTo, mailsTo, signIn, startHarness, TEST_PASSWORD, TEST_PUBLIC_URL, type Harness } from '../../test/api/harness';
 import { AuditEvent, Invitation, PasswordResetToken, User } from '../models';
 import { sessionOf } from '../../test/api/role-sessions';
-import { newTeam } from '../speed-books/test-helpers';
+import { newTeam } from '../../test/api/test-helpers';
 
 // argon2id takes a noticeable moment per password, and these tests set many.
 jest.setTimeout(30_000);

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { actorOf } from '../middleware/request-actor';
 import { invitePersonRequestSchema, updatePersonRequestSchema } from '../../shared/api/auth';
 import { operatorScope, requireCapability } from '../middleware/authorize';
 import { idParam } from '../middleware/id-param';
@@ -16,18 +17,18 @@ export function usersRoutes(): Router {
 
   router.post('/', async (req, res) => {
     const input = parseOrThrow(invitePersonRequestSchema, req.body, 'invitation');
-    res.status(201).json(await invitePerson(operatorScope(req), req.user!.id, input, req));
+    res.status(201).json(await invitePerson(actorOf(req), input));
   });
 
   router.patch('/:id', async (req, res) => {
     const userId = idParam(req.params['id'], 'That person');
     const input = parseOrThrow(updatePersonRequestSchema, req.body, 'change');
-    res.json({ user: await updatePerson(operatorScope(req), req.user!.id, userId, input, req) });
+    res.json({ user: await updatePerson(actorOf(req), userId, input) });
   });
 
   router.post('/:id/invitation', async (req, res) => {
     const userId = idParam(req.params['id'], 'That person');
-    res.status(201).json(await resendInvitation(operatorScope(req), req.user!.id, userId, req));
+    res.status(201).json(await resendInvitation(actorOf(req), userId));
   });
 
   return router;

@@ -1,11 +1,12 @@
-import type { Request } from 'express';
 import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import type { InvitePersonRequest, OperatorPerson, UpdatePersonRequest } from '../../shared/api/auth';
+import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { issueInvitation, sendInvitation } from '../auth/invitations.service';
 import { clearFailures } from '../auth/sign-in-throttle';
-import { HttpError, notFound } from '../http-error';
+import { DomainError, notFound } from '../errors/domain-error';
 import { Operator, User } from '../models';
+import { database, transact } from '../transactions';
 
 const PERSON = 'That person';
 
@@ -35,10 +36,11 @@ export interface InviteResult {
 }
 
 /** Adds a person without a password and mails them an invitation to choose one. */
-export async function invitePerson(operatorId: number, actorId: number, input: InvitePersonRequest, req: Request): Promise<InviteResult> {
+export async function invitePerson(actor: Actor, input: InvitePersonRequest): Promise<InviteResult> {
+  const { operatorId, userId: actorId, origin } = actor;
   let created: { user: User; invitation: Awaited<ReturnType<typeof issueInvitation>> };
   try {
-    created = await User.sequelize!.transaction(async (transaction) => {
+    created = await transact(async (transaction) => {
       // Only this operator's own people are checked: whether the address signs in elsewhere is not
       // this administrator's business, and the invitation mail tells its owner what to do.
       if (await User.findOne({ where: { operatorId, email: input.email }, transaction })) throw emailTaken();
@@ -48,7 +50,7 @@ export async function invitePerson(operatorId: number, actorId: number, input: I
       );
       const invitation = await issueInvitation(user, actorId, transaction);
       await recordAudit(
-        { operatorId, actorId, action: 'user.invited', entityType: 'user', entityId: user.id, details: { email: user.email, role: user.role }, req },
+        { operatorId, actorId, action: 'user.invited', entityType: 'user', entityId: user.id, details: { email: user.email, role: user.role }, origin },
         transaction,
       );
       return { user, invitation };
@@ -63,15 +65,16 @@ export async function invitePerson(operatorId: number, actorId: number, input: I
 }
 
 /** A new invitation link for someone who has not chosen a password yet; earlier links stop working. */
-export async function resendInvitation(operatorId: number, actorId: number, userId: number, req: Request): Promise<InviteResult> {
-  const { user, invitation } = await User.sequelize!.transaction(async (transaction) => {
+export async function resendInvitation(actor: Actor, userId: number): Promise<InviteResult> {
+  const { operatorId, userId: actorId, origin } = actor;
+  const { user, invitation } = await transact(async (transaction) => {
     const user = await User.findOne({ where: { id: userId, operatorId }, lock: transaction.LOCK.UPDATE, transaction });
     if (!user) throw notFound(PERSON);
     if (user.passwordHash !== null) {
-      throw new HttpError(409, 'invitation_accepted', `${user.displayName} has already accepted the invitation. If they forgot the password, they can ask for a reset on the sign-in page.`);
+      throw new DomainError('conflict', 'invitation_accepted', `${user.displayName} has already accepted the invitation. If they forgot the password, they can ask for a reset on the sign-in page.`);
     }
     const invitation = await issueInvitation(user, actorId, transaction);
-    await recordAudit({ operatorId, actorId, action: 'user.invitation-resent', entityType: 'user', entityId: user.id, req }, transaction);
+    await recordAudit({ operatorId, actorId, action: 'user.invitation-resent', entityType: 'user', entityId: user.id, origin }, transaction);
     return { user, invitation };
   });
   const mailSent = await sendInvitation(user, actorId, invitation);
@@ -83,8 +86,9 @@ export async function resendInvitation(operatorId: number, actorId: number, user
  * lets an administrator lock themself out. The change applies to open sessions at once,
  * because every request reloads the person.
  */
-export async function updatePerson(operatorId: number, actorId: number, userId: number, input: UpdatePersonRequest, req: Request): Promise<OperatorPerson> {
-  return User.sequelize!.transaction(async (transaction) => {
+export async function updatePerson(actor: Actor, userId: number, input: UpdatePersonRequest): Promise<OperatorPerson> {
+  const { operatorId, userId: actorId, origin } = actor;
+  return transact(async (transaction) => {
     // The operator row serialises changes to its people, so two admins demoting each other
     // at once cannot both succeed and leave nobody in charge.
     await Operator.findByPk(operatorId, { lock: transaction.LOCK.UPDATE, transaction });
@@ -92,15 +96,15 @@ export async function updatePerson(operatorId: number, actorId: number, userId: 
     if (!user) throw notFound(PERSON);
 
     if (input.locked === true && user.id === actorId) {
-      throw new HttpError(409, 'cannot_lock_self', 'You cannot lock your own account. Ask another administrator if it must be locked.', {
+      throw new DomainError('conflict', 'cannot_lock_self', 'You cannot lock your own account. Ask another administrator if it must be locked.', {
         locked: 'You cannot lock your own account.',
       });
     }
     const staysActiveAdmin = (input.role ?? user.role) === 'admin' && !(input.locked ?? user.lockedByAdmin);
     const isActiveAdmin = user.role === 'admin' && !user.lockedByAdmin;
     if (isActiveAdmin && !staysActiveAdmin && (await otherActiveAdmins(operatorId, user.id, transaction)) === 0) {
-      throw new HttpError(
-        409,
+      throw new DomainError(
+        'conflict',
         'last_admin',
         `${user.displayName} is the operator's only administrator who can sign in. Make someone else an administrator first.`,
       );
@@ -119,7 +123,7 @@ export async function updatePerson(operatorId: number, actorId: number, userId: 
       // Unlocking also lifts the wait after failed sign-ins.
       user.lockedUntil = null;
       user.failedSignIns = 0;
-      await clearFailures(User.sequelize!, user.email);
+      await clearFailures(database(), user.email);
     }
     if (input.displayName !== undefined && input.displayName !== user.displayName) {
       audits.push({ action: 'user.renamed', details: { from: user.displayName, to: input.displayName } });
@@ -127,7 +131,7 @@ export async function updatePerson(operatorId: number, actorId: number, userId: 
     }
     await user.save({ transaction });
     for (const audit of audits) {
-      await recordAudit({ operatorId, actorId, entityType: 'user', entityId: user.id, req, ...audit }, transaction);
+      await recordAudit({ operatorId, actorId, entityType: 'user', entityId: user.id, origin, ...audit }, transaction);
     }
     return toOperatorPerson(user);
   });
@@ -140,8 +144,8 @@ function otherActiveAdmins(operatorId: number, exceptUserId: number, transaction
   });
 }
 
-function emailTaken(): HttpError {
-  return new HttpError(409, 'email_taken', 'This e-mail address already belongs to one of your people.', {
+function emailTaken(): DomainError {
+  return new DomainError('conflict', 'email_taken', 'This e-mail address already belongs to one of your people.', {
     email: 'This e-mail address already belongs to one of your people.',
   });
 }

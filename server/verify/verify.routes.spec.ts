@@ -13,7 +13,7 @@ import type { CardInputs } from '../../shared/card/card';
 import { cardIssueBatchResponseSchema, cardPreviewResponseSchema } from '../../shared/card/card-api';
 import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
 import { startHarness, type Harness } from '../../test/api/harness';
-import { newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../speed-books/test-helpers';
+import { newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';
 
 jest.setTimeout(60_000);
 

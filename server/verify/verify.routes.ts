@@ -2,13 +2,14 @@ import { randomUUID } from 'node:crypto';
 import { Router, type ErrorRequestHandler, type RequestHandler, type Response } from 'express';
 import type { Logger } from 'pino';
 import { rateLimit } from 'express-rate-limit';
-import type { Sequelize } from 'sequelize';
 import { validateCardCode } from '../../shared/card-check/card-code';
-import { HttpError } from '../http-error';
+import { DomainError } from '../errors/domain-error';
+import type { ReadPool } from './read-pool';
 import { cardSourceOf, verifyCardCode } from './verify.service';
 
 export interface VerifyRoutesOptions {
-  sequelize: Sequelize;
+  /** The card check's own prepared-statement reads (`read-pool.ts`). */
+  reads: ReadPool;
   /** The app's logger: this router sits before pino-http and logs one short line per answer. */
   logger: Logger;
   /** Unknown or malformed codes one address may ask about in 15 minutes (answers for real codes do not count). */
@@ -16,7 +17,7 @@ export interface VerifyRoutesOptions {
 }
 
 const TOO_MANY_UNKNOWN = () =>
-  new HttpError(429, 'too_many_unknown_codes', 'Too many codes from this device matched no card. Wait 15 minutes and try again.');
+  new DomainError('too-many', 'too_many_unknown_codes', 'Too many codes from this device matched no card. Wait 15 minutes and try again.');
 
 /** Set by the limiter's handler: this address is over its limit of codes that matched no card. */
 const overGuessLimit = (res: Response) => res.locals['guessLimitReached'] === true;
@@ -30,7 +31,7 @@ function codeOf(raw: string, res: Response): string {
   if (checked.ok) return checked.code;
   if (overGuessLimit(res)) throw TOO_MANY_UNKNOWN();
   const code = checked.problem === 'check' ? 'code_check_failed' : 'invalid_code';
-  throw new HttpError(400, code, checked.message, { code: checked.message });
+  throw new DomainError('invalid', code, checked.message, { code: checked.message });
 }
 
 /**
@@ -44,7 +45,7 @@ function codeOf(raw: string, res: Response): string {
  * who typed a few wrong codes must still be able to check the card in their hand), and only a
  * code that matches no card answers 429. With several instances the limit applies per instance.
  */
-export function verifyRoutes({ sequelize, logger, unknownCodesPer15Min }: VerifyRoutesOptions): Router {
+export function verifyRoutes({ reads, logger, unknownCodesPer15Min }: VerifyRoutesOptions): Router {
   const router = Router();
   const guessLimiter = rateLimit({
     windowMs: 15 * 60_000,
@@ -79,7 +80,7 @@ export function verifyRoutes({ sequelize, logger, unknownCodesPer15Min }: Verify
   router.use(compactLog, noStore, guessLimiter);
 
   router.get('/:code', async (req, res) => {
-    const answer = await verifyCardCode(sequelize, codeOf(String(req.params['code']), res));
+    const answer = await verifyCardCode(reads, codeOf(String(req.params['code']), res));
     res.locals['cardFound'] = answer.status !== 'unknown';
     if (!res.locals['cardFound'] && overGuessLimit(res)) throw TOO_MANY_UNKNOWN();
     if (res.locals['cardFound']) res.removeHeader('Retry-After');
@@ -88,16 +89,16 @@ export function verifyRoutes({ sequelize, logger, unknownCodesPer15Min }: Verify
     res.end(JSON.stringify(answer));
   });
   router.get('/:code/source', async (req, res) => {
-    const source = await cardSourceOf(sequelize, codeOf(String(req.params['code']), res));
+    const source = await cardSourceOf(reads, codeOf(String(req.params['code']), res));
     if (!source && overGuessLimit(res)) throw TOO_MANY_UNKNOWN();
-    if (!source) throw new HttpError(404, 'unknown_code', 'No card was issued with this code here.');
+    if (!source) throw new DomainError('not-found', 'unknown_code', 'No card was issued with this code here.');
     res.locals['cardFound'] = true;
     res.removeHeader('Retry-After');
     res.json(source);
   });
   // pino-http's req.log is not there yet: anything unexpected is logged here, then answered as usual.
   const logUnexpected: ErrorRequestHandler = (error, req, _res, next) => {
-    if (!(error instanceof HttpError)) logger.error({ err: error, reqId: req.id }, 'card check failed');
+    if (!(error instanceof DomainError)) logger.error({ err: error, reqId: req.id }, 'card check failed');
     next(error);
   };
   router.use(logUnexpected);

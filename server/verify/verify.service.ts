@@ -4,35 +4,9 @@
  * instances on the path, so it stays fast under load. It gives only what the card itself prints (see
  * shared/card-check/verify-api.ts for what is public and why).
  */
-import type { Connection } from 'mariadb';
-import type { Sequelize } from 'sequelize';
 import type { VerifyResponse, VerifySource } from '../../shared/card-check/verify-api';
 import type { RevisionStatus } from '../../shared/api/revisions';
-import { HttpError } from '../http-error';
-
-/**
- * The first row of `sql` as a prepared statement on a pooled read connection (a replica when
- * DATABASE_READ_URLS are set). The connector's binary protocol with its per-connection
- * statement cache costs about half the CPU of `sequelize.query` on this route (measured with
- * the verify benchmark's query). A broken connection answers 503, like the error middleware
- * does for Sequelize's connection errors.
- */
-async function firstRow<T>(sequelize: Sequelize, sql: string, values: unknown[]): Promise<T | undefined> {
-  const manager = sequelize.connectionManager as unknown as {
-    getConnection(options: { type: 'read' | 'write' }): Promise<Connection>;
-    releaseConnection(connection: Connection): Promise<void>;
-  };
-  const connection = await manager.getConnection({ type: 'read' });
-  try {
-    const rows = (await connection.execute(sql, values)) as T[];
-    return rows[0];
-  } catch (error) {
-    if ((error as { fatal?: boolean }).fatal) throw new HttpError(503, 'database_unavailable', 'The database is not reachable right now. Try again shortly.');
-    throw error;
-  } finally {
-    await manager.releaseConnection(connection);
-  }
-}
+import type { ReadPool } from './read-pool';
 
 const STATUS: Partial<Record<RevisionStatus, 'current' | 'superseded' | 'withdrawn'>> = {
   published: 'current',
@@ -63,8 +37,8 @@ const VERIFY_SQL = `
   LIMIT 1`;
 
 /** The status of the card with `code` (a valid stored-form code). */
-export async function verifyCardCode(sequelize: Sequelize, code: string): Promise<VerifyResponse> {
-  const row = await firstRow<VerifyRow>(sequelize, VERIFY_SQL, [code]);
+export async function verifyCardCode(reads: ReadPool, code: string): Promise<VerifyResponse> {
+  const row = await reads.firstRow<VerifyRow>( VERIFY_SQL, [code]);
   const status = row && STATUS[row.status];
   // A card is only ever logged from a published revision; anything else is not a card we vouch for.
   if (!row || !status || !row.published_at) return { status: 'unknown' };
@@ -107,8 +81,8 @@ const SOURCE_SQL = `
   LIMIT 1`;
 
 /** What the card with `code` was built from; undefined for an unknown code. */
-export async function cardSourceOf(sequelize: Sequelize, code: string): Promise<VerifySource | undefined> {
-  const row = await firstRow<SourceRow>(sequelize, SOURCE_SQL, [code]);
+export async function cardSourceOf(reads: ReadPool, code: string): Promise<VerifySource | undefined> {
+  const row = await reads.firstRow<SourceRow>( SOURCE_SQL, [code]);
   if (!row || !STATUS[row.status] || !row.published_at || !row.content_sha256) return undefined;
   return {
     digest: row.digest,

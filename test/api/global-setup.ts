@@ -5,9 +5,9 @@
 import { rmSync, writeFileSync } from 'node:fs';
 import { openLocalDatabase } from '../../db/local';
 import { createMigrator } from '../../db/migrator';
-import { seedDemo } from '../../db/seed';
-import { createSequelize } from '../../server/database';
-import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
+import { seedDemo } from '../../server/dev/demo-seed';
+import { createSequelize } from '../../db/connection';
+import { startFakeSmtp, type FakeSmtp } from '../../server/dev/fake-smtp';
 import { initModels } from '../../server/models';
 import { TEST_SIGNING_KEY_SECRET } from './constants';
 import { API_TEST_DATABASE, apiTestAttachmentsDir, apiTestEnvFile, apiTestMailboxDir, TEST_PASSWORD } from './constants';

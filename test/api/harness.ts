@@ -7,8 +7,8 @@ import type TestAgent from 'supertest/lib/agent';
 import type { Role } from '../../shared/auth/roles';
 import { createApp } from '../../server/app';
 import { loadConfig, type ServerConfig } from '../../server/config';
-import { createSequelize } from '../../server/database';
-import { readMailbox, waitForMail, type MailboxEntry } from '../../server/mail/mailbox';
+import { createSequelize } from '../../db/connection';
+import { readMailbox, waitForMail, type MailboxEntry } from '../../server/dev/mailbox';
 import { initModels } from '../../server/models';
 import { TEST_SIGNING_KEY_SECRET } from './constants';
 import { apiTestAttachmentsDir, apiTestMailboxDir, TEST_PASSWORD } from './constants';
@@ -46,7 +46,7 @@ export function startHarness(overrides: Partial<Record<keyof ServerConfig, strin
     app,
     sequelize,
     async close() {
-      close();
+      await close();
       await sequelize.close();
     },
   };

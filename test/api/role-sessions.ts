@@ -1,5 +1,5 @@
 import type { Role } from '../../shared/auth/roles';
-import { newPerson } from '../../server/speed-books/test-helpers';
+import { newPerson } from './test-helpers';
 import { demoEmail, signIn, type Harness } from './harness';
 
 /**

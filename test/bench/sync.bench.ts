@@ -28,10 +28,10 @@ import { gunzipSync } from 'node:zlib';
 import { pino } from 'pino';
 import { openLocalDatabase } from '../../db/local';
 import { createMigrator } from '../../db/migrator';
-import { seedOperators, type SeedOperator, type SeedType } from '../../db/seed';
+import { seedOperators, type SeedOperator, type SeedType } from '../../server/dev/demo-seed';
 import { createApp } from '../../server/app';
 import { loadConfig } from '../../server/config';
-import { createSequelize } from '../../server/database';
+import { createSequelize } from '../../db/connection';
 import { initModels } from '../../server/models';
 import { demoLightTwinJetContent, demoPistonTrainerContent, demoPistonTrainerContentRevised, demoTwinTurbopropContent } from '../../shared/speed-book/demo-content';
 import type { RevisionContent } from '../../shared/speed-book/revision-content';
@@ -189,7 +189,7 @@ async function main(): Promise<void> {
   console.log(`sync with nothing changed: median ${unchangedMs.toFixed(2)} ms (target < ${UNCHANGED_TARGET_MS} ms)`);
 
   server.close();
-  close();
+  await close();
   await sequelize.close();
   const missed = fullMs >= FULL_TARGET_MS || bytes >= FULL_TARGET_BYTES || unchangedMs >= UNCHANGED_TARGET_MS || first.headers['content-encoding'] !== 'gzip';
   if (first.headers['content-encoding'] !== 'gzip') console.log('The full sync was not sent gzip-compressed.');

@@ -13,9 +13,9 @@ import { join } from 'node:path';
 import { projectRoot } from '../../db/instance';
 import { localSecrets, openLocalDatabase } from '../../db/local';
 import { createMigrator } from '../../db/migrator';
-import { seedDemo } from '../../db/seed';
-import { createSequelize } from '../../server/database';
-import { startFakeSmtp } from '../../server/mail/fake-smtp';
+import { seedDemo } from '../../server/dev/demo-seed';
+import { createSequelize } from '../../db/connection';
+import { startFakeSmtp } from '../../server/dev/fake-smtp';
 import { initModels } from '../../server/models';
 
 export interface AppServerOptions {

@@ -6,7 +6,7 @@
 import { randomUUID } from 'node:crypto';
 import { recordCardIssue } from '../../server/cards/card-issues.service';
 import { loadCardSource } from '../../server/cards/card-source';
-import { createSequelize } from '../../server/database';
+import { createSequelize } from '../../db/connection';
 import { AircraftType, Airframe, initModels, Revision, SpeedBook, User } from '../../server/models';
 import { checkUrl } from '../../shared/card-check/check-url';
 import { buildCard } from '../../shared/card/build-card';

@@ -1,10 +1,10 @@
-import { contentSha256 } from '../shared/speed-book/canonical';
-import { revisionContentProblems } from '../shared/speed-book/revision-content';
-import { signedRevisionStatement } from '../shared/speed-book/signature';
-import { startHarness, TEST_SIGNING_KEY_SECRET, type Harness } from '../test/api/harness';
-import { AircraftType, Airframe, Operator, Revision, SigningKey, SpeedBook } from '../server/models';
-import { verifyStatement } from '../server/revisions/signing';
-import { DEMO_OPERATORS, seedDemoFleet } from './seed';
+import { contentSha256 } from '../../shared/speed-book/canonical';
+import { revisionContentProblems } from '../../shared/speed-book/revision-content';
+import { signedRevisionStatement } from '../../shared/speed-book/signature';
+import { startHarness, TEST_SIGNING_KEY_SECRET, type Harness } from '../../test/api/harness';
+import { AircraftType, Airframe, Operator, Revision, SigningKey, SpeedBook } from '../models';
+import { verifyStatement } from '../revisions/signing';
+import { DEMO_OPERATORS, seedDemoFleet } from './demo-seed';
 
 jest.setTimeout(60_000);
 

@@ -4,19 +4,19 @@
  * that the demo password is set to DEMO_PASSWORD again.
  */
 import type { Sequelize } from 'sequelize';
-import type { Role } from '../shared/auth/roles';
-import type { AircraftCategory, RevisionContent } from '../shared/speed-book/revision-content';
+import type { Role } from '../../shared/auth/roles';
+import type { AircraftCategory, RevisionContent } from '../../shared/speed-book/revision-content';
 import {
   demoLightTwinJetContent,
   demoPistonTrainerContent,
   demoPistonTrainerContentRevised,
   demoTwinTurbopropContent,
-} from '../shared/speed-book/demo-content';
-import type { Actor } from '../server/audit/actor';
-import { hashPassword } from '../server/auth/passwords';
-import { AircraftType, Airframe, Operator, Revision, SpeedBook, User } from '../server/models';
-import { approveRevision, createRevision, submitRevision } from '../server/revisions/revisions.service';
-import { localSecrets } from './local';
+} from '../../shared/speed-book/demo-content';
+import type { Actor } from '../audit/actor';
+import { hashPassword } from '../auth/passwords';
+import { AircraftType, Airframe, Operator, Revision, SpeedBook, User } from '../models';
+import { approveRevision, createRevision, submitRevision } from '../revisions/revisions.service';
+import { localSecrets } from '../../db/local';
 
 export const DEFAULT_DEMO_PASSWORD = 'speedwright-demo';
 
@@ -177,7 +177,7 @@ async function seedFleet(sequelize: Sequelize, seedOperator: SeedOperator, signi
   const byRole = async (role: Role): Promise<Actor | undefined> => {
     const email = seedOperator.people.find((person) => person.role === role)?.email;
     const user = email ? await User.findOne({ where: { email, operatorId: operator.id } }) : null;
-    return user ? { operatorId: operator.id, userId: user.id, role } : undefined;
+    return user ? { operatorId: operator.id, userId: user.id, role, sendsMail: false } : undefined;
   };
   const engineer = await byRole('engineer');
   const approver = await byRole('approver');

@@ -8,10 +8,10 @@ import type TestAgent from 'supertest/lib/agent';
 import type { Role } from '../../shared/auth/roles';
 import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
 import type { RevisionContent } from '../../shared/speed-book/revision-content';
-import { signIn, TEST_PASSWORD, type Harness } from '../../test/api/harness';
-import { sessionOf } from '../../test/api/role-sessions';
-import { hashPassword } from '../auth/passwords';
-import { Operator, User } from '../models';
+import { signIn, TEST_PASSWORD, type Harness } from './harness';
+import { sessionOf } from './role-sessions';
+import { hashPassword } from '../../server/auth/passwords';
+import { Operator, User } from '../../server/models';
 
 export interface Session {
   agent: TestAgent;

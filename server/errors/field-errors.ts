@@ -1,0 +1,15 @@
+import type * as z from 'zod';
+
+/** Field path → sentence, as the error body's `fields` carries it. */
+export function fieldErrors(error: z.ZodError): Record<string, string> {
+  const fields: Record<string, string> = {};
+  for (const issue of error.issues) {
+    const path = issue.path.map(String).join('.') || '(body)';
+    if (issue.code === 'unrecognized_keys') {
+      for (const key of issue.keys) fields[[...issue.path.map(String), key].join('.')] = 'This field is not expected here.';
+      continue;
+    }
+    fields[path] ??= issue.message;
+  }
+  return fields;
+}
