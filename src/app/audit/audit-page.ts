@@ -17,6 +17,7 @@ import { OperatorPeople } from '../people/operator-people';
 import { AuditRow, toAuditRow } from './audit-row';
 import { AuditFilter, AuditTrail } from './audit-trail';
 import { AUDIT_ACTION_LABELS, AUDIT_ENTITY_LABELS, entityTypeOfAction } from './audit-vocabulary';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 export const AUDIT_PAGE_SIZE = 25;
 /** Long enough that choosing three filters in a row asks the server once. */
@@ -30,7 +31,7 @@ interface PersonOption {
 /** Who did what to which record, and when: the operator's audit trail, filtered, a page at a time. */
 @Component({
   selector: 'sw-audit-page',
-  imports: [ReactiveFormsModule, MatTableModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [ProblemRetry, ReactiveFormsModule, MatTableModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule],
   templateUrl: './audit-page.html',
   styleUrl: './audit-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

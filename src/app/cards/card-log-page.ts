@@ -21,6 +21,7 @@ import { cardNumber } from './card-number-pipe';
 import { utcMinutesShort } from '../core/format/display-format';
 import { CardSources } from './card-sources';
 import { DeviceCardLog } from './device-card-log';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 export const CARD_LOG_PAGE_SIZE = 25;
 const FILTER_PAUSE_MS = 300;
@@ -28,7 +29,7 @@ const FILTER_PAUSE_MS = 300;
 /** The operator's card log: every card its people issued and reported, filtered, a page at a time. */
 @Component({
   selector: 'sw-card-log-page',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, DeviceCardLog, RevisionNotices, RouterLink],
+  imports: [ProblemRetry, ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, DeviceCardLog, RevisionNotices, RouterLink],
   templateUrl: './card-log-page.html',
   styleUrl: './card-log-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -16,11 +16,12 @@ import { AircraftTypesTable } from './aircraft-types-table';
 import { AirframeDialog, AirframeDialogData } from './airframe-dialog';
 import { AirframesTable } from './airframes-table';
 import { FleetRecords } from './fleet-records';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 /** The operator's airframes and aircraft types; administrators add and edit them here. */
 @Component({
   selector: 'sw-fleet-page',
-  imports: [MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule, AirframesTable, AircraftTypesTable],
+  imports: [ProblemRetry, MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule, AirframesTable, AircraftTypesTable],
   templateUrl: './fleet-page.html',
   styleUrl: './fleet-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -15,6 +15,7 @@ import type { ApiRequestError } from '../core/api/api-request-error';
 import { AuthService } from '../core/auth/auth-service';
 import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 export const OPERATOR_PATHS = { settings: '/api/operator/settings', signingKey: '/api/operator/signing-key' } as const;
 
@@ -30,20 +31,14 @@ interface KeyShown {
  */
 @Component({
   selector: 'sw-operator-settings-page',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
+  imports: [ProblemRetry, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
   template: `
     <div class="sw-page">
       <h1 class="sw-page-title">Operator settings</h1>
       <p class="lead">Policies of {{ operatorName() }} that every device of the operator follows.</p>
 
       @if (problem(); as problem) {
-        <div class="sw-problem" role="alert">
-          <mat-icon>error</mat-icon>
-          <div>
-            <p data-testid="settings-error">{{ problem }}</p>
-            <button mat-stroked-button type="button" (click)="load()">Try again</button>
-          </div>
-        </div>
+        <sw-problem-retry [problem]="problem" testId="settings-error" (retry)="load()" />
       } @else if (loading()) {
         <mat-progress-bar mode="indeterminate" aria-label="Loading the settings" />
       } @else {

@@ -10,11 +10,12 @@ import { RevisionContentView } from './revision-content-view';
 import { RevisionStatusChip } from './revision-status-chip';
 import { RevisionsApi } from './revisions-api';
 import { UtcDatePipe } from './utc-date-pipe';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 /** One revision, read-only: who wrote and approved it, when, why, and its whole content. */
 @Component({
   selector: 'sw-revision-page',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, RevisionContentView, RevisionStatusChip, UtcDatePipe],
+  imports: [ProblemRetry, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, RevisionContentView, RevisionStatusChip, UtcDatePipe],
   templateUrl: './revision-page.html',
   styleUrl: './speed-books.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -18,12 +18,13 @@ import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionStatusChip } from './revision-status-chip';
 import { RevisionsApi, type SpeedBook } from './revisions-api';
 import { UtcDatePipe } from './utc-date-pipe';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 
 /** One speed book: its current revision, its revision history, and the next step for the person's role. */
 @Component({
   selector: 'sw-speed-book-detail',
-  imports: [
+  imports: [ProblemRetry, 
     ReactiveFormsModule,
     RouterLink,
     MatButtonModule,

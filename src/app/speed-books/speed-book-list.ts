@@ -17,11 +17,12 @@ import { AuthService } from '../core/auth/auth-service';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionsApi } from './revisions-api';
 import { UtcDatePipe } from './utc-date-pipe';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 /** The operator's speed books with their current published revision; engineers add one per type. */
 @Component({
   selector: 'sw-speed-book-list',
-  imports: [
+  imports: [ProblemRetry, 
     ReactiveFormsModule,
     RouterLink,
     MatButtonModule,
