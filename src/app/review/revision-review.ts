@@ -36,7 +36,8 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
  */
 @Component({
   selector: 'sw-revision-review',
-  imports: [ProblemRetry, 
+  imports: [
+    ProblemRetry,
     ReactiveFormsModule,
     RouterLink,
     MatButtonModule,
