@@ -1,19 +1,17 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { AbstractControl, NonNullableFormBuilder, ReactiveFormsModule, ValidationErrors } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ActivatedRoute, RouterLink } from '@angular/router';
-import { finalize } from 'rxjs';
 import { newPasswordSchema } from '../../../shared/api/new-password';
-import { ApiRequestError } from '../core/api/api-request-error';
-import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
+import { requestState } from '../core/api/request-state';
+import { showServerFieldErrors } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';
+import { AccountFrame } from './account-frame';
 import { AccountLinks } from './account-links';
+import { AccountSubmit } from './account-submit';
 import { readLinkToken } from './link-token';
+import { NewPasswordFields, sameAs } from './new-password-fields';
 
 /** Which mail the link came from; the route says it. */
 export type PasswordLinkKind = 'invitation' | 'reset';
@@ -39,14 +37,13 @@ const DEAD_LINK_CODES = new Set(['invalid_link', 'link_used', 'link_replaced', '
 /** Whoever holds the token from the mail chooses a password here, without signing in first. */
 @Component({
   selector: 'sw-choose-password-page',
-  imports: [ReactiveFormsModule, RouterLink, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatIconModule, AccountFrame, NewPasswordFields, AccountSubmit],
   templateUrl: './choose-password-page.html',
   styleUrl: './account-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ChoosePasswordPage {
   private readonly links = inject(AccountLinks);
-  private readonly destroyRef = inject(DestroyRef);
   private readonly route = inject(ActivatedRoute);
 
   /** Bound from the route's data. */
@@ -58,20 +55,13 @@ export class ChoosePasswordPage {
   protected readonly linkProblem = signal('problem' in this.link ? this.link.problem : null);
   protected readonly form = inject(NonNullableFormBuilder).group({
     password: ['', zodValidator(newPasswordSchema)],
-    repeat: ['', sameAsPassword],
+    repeat: ['', sameAs('password', 'password')],
   });
-  protected readonly pending = signal(false);
-  protected readonly problem = signal<string | null>(null);
+  private readonly request = requestState();
+  protected readonly pending = this.request.busy;
+  protected readonly problem = this.request.problem;
   /** The address to sign in with, once the server has taken the password. */
   protected readonly doneFor = signal<string | null>(null);
-  protected readonly passwordVisible = signal(false);
-  protected readonly message = (path: string) => controlMessage(this.form, path);
-
-  constructor() {
-    this.form.controls.password.valueChanges
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe(() => this.form.controls.repeat.updateValueAndValidity({ emitEvent: false }));
-  }
 
   protected savePassword(): void {
     if (this.pending() || !('token' in this.link)) return;
@@ -82,32 +72,17 @@ export class ChoosePasswordPage {
       this.kind() === 'invitation'
         ? this.links.acceptInvitation({ token: this.link.token, password })
         : this.links.confirmPasswordReset({ token: this.link.token, password });
-    this.pending.set(true);
-    this.problem.set(null);
-    request
-      .pipe(
-        finalize(() => this.pending.set(false)),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe({
-        next: ({ email }) => this.doneFor.set(email),
-        error: (error: ApiRequestError) => {
-          if (DEAD_LINK_CODES.has(error.code)) {
-            this.linkProblem.set(error.message);
-          } else if (showServerFieldErrors(this.form, error)) {
-            this.problem.set(error.message);
-          }
-        },
-      });
-  }
-
-  protected togglePasswordVisibility(): void {
-    this.passwordVisible.update((visible) => !visible);
+    this.request.run(
+      request,
+      ({ email }) => this.doneFor.set(email),
+      (error) => {
+        if (DEAD_LINK_CODES.has(error.code)) {
+          this.linkProblem.set(error.message);
+          return null;
+        }
+        return showServerFieldErrors(this.form, error) ? error.message : null;
+      },
+    );
   }
 }
 
-function sameAsPassword(control: AbstractControl<string>): ValidationErrors | null {
-  const password = control.parent?.get('password')?.value as string | undefined;
-  if (!control.value) return { schema: 'Type the password a second time.' };
-  return control.value === password ? null : { schema: 'The two passwords are not the same.' };
-}

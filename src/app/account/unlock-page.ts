@@ -1,12 +1,11 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ActivatedRoute, RouterLink } from '@angular/router';
-import { finalize } from 'rxjs';
 import { unlockRequestSchema } from '../../../shared/api/auth';
-import { ApiRequestError } from '../core/api/api-request-error';
+import { requestState } from '../core/api/request-state';
+import { AccountFrame } from './account-frame';
 import { AccountLinks } from './account-links';
 import { readLinkToken } from './link-token';
 
@@ -17,33 +16,30 @@ import { readLinkToken } from './link-token';
  */
 @Component({
   selector: 'sw-unlock-page',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, AccountFrame],
   templateUrl: './unlock-page.html',
   styleUrl: './account-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class UnlockPage {
   private readonly links = inject(AccountLinks);
-  private readonly destroyRef = inject(DestroyRef);
   private readonly route = inject(ActivatedRoute);
 
   private readonly link = readLinkToken(this.route.snapshot.fragment, this.route.snapshot.queryParamMap.get('token'), unlockRequestSchema.shape.token);
   protected readonly linkProblem = signal('problem' in this.link ? this.link.problem : null);
-  protected readonly pending = signal(false);
+  private readonly request = requestState();
+  protected readonly pending = this.request.busy;
   protected readonly doneFor = signal<string | null>(null);
 
   protected liftWait(): void {
     if (this.pending() || !('token' in this.link)) return;
-    this.pending.set(true);
-    this.links
-      .unlockSignIn(this.link.token)
-      .pipe(
-        finalize(() => this.pending.set(false)),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe({
-        next: ({ email }) => this.doneFor.set(email),
-        error: (error: ApiRequestError) => this.linkProblem.set(error.message),
-      });
+    this.request.run(
+      this.links.unlockSignIn(this.link.token),
+      ({ email }) => this.doneFor.set(email),
+      (error) => {
+        this.linkProblem.set(error.message);
+        return null;
+      },
+    );
   }
 }

@@ -8,15 +8,19 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
-import { Subscription, debounceTime } from 'rxjs';
+import { debounceTime } from 'rxjs';
 import { AuditEventView } from '../../../shared/api/audit';
 import { can } from '../../../shared/auth/roles';
-import { ApiRequestError } from '../core/api/api-request-error';
+import { requestState } from '../core/api/request-state';
 import { AuthService } from '../core/auth/auth-service';
+import { CursorPager } from '../core/table/cursor-pager';
+import { CursorPages } from '../core/table/cursor-pages';
+import { DAY_ORDER_PROBLEM, utcDayRange } from '../core/table/utc-day-range';
 import { OperatorPeople } from '../people/operator-people';
 import { AuditRow, toAuditRow } from './audit-row';
 import { AuditFilter, AuditTrail } from './audit-trail';
 import { AUDIT_ACTION_LABELS, AUDIT_ENTITY_LABELS, entityTypeOfAction } from './audit-vocabulary';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 export const AUDIT_PAGE_SIZE = 25;
 /** Long enough that choosing three filters in a row asks the server once. */
@@ -30,9 +34,9 @@ interface PersonOption {
 /** Who did what to which record, and when: the operator's audit trail, filtered, a page at a time. */
 @Component({
   selector: 'sw-audit-page',
-  imports: [ReactiveFormsModule, MatTableModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [ProblemRetry, ReactiveFormsModule, MatTableModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, CursorPager],
   templateUrl: './audit-page.html',
-  styleUrl: './audit-page.scss',
+  styleUrls: ['../core/table/list-table.scss', './audit-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class AuditPage {
@@ -63,25 +67,19 @@ export class AuditPage {
     return [...byId.values()].sort((a, b) => a.name.localeCompare(b.name, 'en', { sensitivity: 'base' }));
   });
 
-  protected readonly loading = signal(true);
-  protected readonly problem = signal<string | null>(null);
+  private readonly request = requestState();
+  protected readonly loading = this.request.busy;
+  protected readonly problem = this.request.problem;
   protected readonly filterProblem = signal<string | null>(null);
   protected readonly rows = signal<readonly AuditRow[]>([]);
   protected readonly expandedId = signal<number | null>(null);
-  /** Cursors of the pages before this one; the first page has none. */
-  private readonly cursors = signal<readonly (string | null)[]>([]);
-  private readonly currentCursor = signal<string | null>(null);
-  private readonly nextCursor = signal<string | null>(null);
-  protected readonly pageNumber = computed(() => this.cursors().length + 1);
-  protected readonly hasNewer = computed(() => this.cursors().length > 0);
-  protected readonly hasOlder = computed(() => this.nextCursor() !== null);
+  protected readonly pages = new CursorPages((cursor) => this.loadPage(cursor));
   protected readonly filtered = signal(false);
-  private request: Subscription | null = null;
 
   constructor() {
     this.loadPeopleForFilter();
     this.followFilterChanges();
-    this.loadPage(null);
+    this.pages.first();
   }
 
   protected isExpanded = (row: AuditRow) => this.expandedId() === row.id;
@@ -90,26 +88,8 @@ export class AuditPage {
     this.expandedId.update((id) => (id === row.id ? null : row.id));
   }
 
-  protected showOlder(): void {
-    const next = this.nextCursor();
-    if (next === null) return;
-    this.cursors.update((list) => [...list, this.currentCursor()]);
-    this.loadPage(next);
-  }
-
-  protected showNewer(): void {
-    const list = this.cursors();
-    if (list.length === 0) return;
-    this.cursors.set(list.slice(0, -1));
-    this.loadPage(list[list.length - 1]);
-  }
-
   protected clearFilters(): void {
     this.form.reset();
-  }
-
-  protected reload(): void {
-    this.loadPage(this.currentCursor());
   }
 
   private followFilterChanges(): void {
@@ -118,54 +98,28 @@ export class AuditPage {
       const action = this.form.controls.action.value;
       if (action && entityType && entityTypeOfAction(action) !== entityType) this.form.controls.action.setValue('', { emitEvent: false });
     });
-    this.form.valueChanges.pipe(debounceTime(FILTER_PAUSE_MS), takeUntilDestroyed(this.destroyRef)).subscribe(() => {
-      this.cursors.set([]);
-      this.loadPage(null);
-    });
+    this.form.valueChanges.pipe(debounceTime(FILTER_PAUSE_MS), takeUntilDestroyed(this.destroyRef)).subscribe(() => this.pages.first());
   }
 
   private loadPage(cursor: string | null): void {
     const filter = this.filter();
     if (filter === null) return;
     this.filtered.set(Object.values(filter).some(Boolean));
-    this.request?.unsubscribe();
-    this.loading.set(true);
-    this.problem.set(null);
-    this.request = this.trail
-      .page(filter, AUDIT_PAGE_SIZE, cursor)
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: (page) => {
-          this.currentCursor.set(cursor);
-          this.nextCursor.set(page.nextCursor);
-          this.rows.set(page.events.map(toAuditRow));
-          this.rememberActors(page.events);
-          this.expandedId.set(null);
-          this.loading.set(false);
-        },
-        error: (error: ApiRequestError) => {
-          this.problem.set(error.message);
-          this.loading.set(false);
-        },
-      });
+    this.request.runLatest(this.trail.page(filter, AUDIT_PAGE_SIZE, cursor), (page) => {
+      this.pages.arrived(cursor, page.nextCursor);
+      this.rows.set(page.events.map(toAuditRow));
+      this.rememberActors(page.events);
+      this.expandedId.set(null);
+    });
   }
 
   /** The form as the server's query, or null (with a sentence) when the dates contradict. */
   private filter(): AuditFilter | null {
     const { entityType, action, actorId, from, to } = this.form.getRawValue();
-    if (from && to && from > to) {
-      this.filterProblem.set('The “from” date is after the “to” date. Change one of them.');
-      return null;
-    }
-    this.filterProblem.set(null);
-    return {
-      entityType: entityType || undefined,
-      action: action || undefined,
-      actorId: actorId || undefined,
-      // Whole days in UTC, the "to" day included.
-      from: from ? `${from}T00:00:00.000Z` : undefined,
-      to: to ? `${to}T23:59:59.999Z` : undefined,
-    };
+    const days = utcDayRange(from, to);
+    this.filterProblem.set(days === null ? DAY_ORDER_PROBLEM : null);
+    if (days === null) return null;
+    return { entityType: entityType || undefined, action: action || undefined, actorId: actorId || undefined, ...days };
   }
 
   private loadPeopleForFilter(): void {

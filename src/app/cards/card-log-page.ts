@@ -8,19 +8,24 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { debounceTime } from 'rxjs';
+import { debounceTime, from } from 'rxjs';
 import type { AirframeView } from '../../../shared/api/fleet';
 import { can } from '../../../shared/auth/roles';
 import { formatCardCode } from '../../../shared/card-check/card-code';
 import type { CardIssueView } from '../../../shared/card/card-api';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { requestState } from '../core/api/request-state';
 import { AuthService } from '../core/auth/auth-service';
+import { CursorPager } from '../core/table/cursor-pager';
+import { CursorPages } from '../core/table/cursor-pages';
+import { DAY_ORDER_PROBLEM, utcDayRange } from '../core/table/utc-day-range';
 import { RevisionNotices } from '../core/sync/revision-notices';
 import { CardLog, type CardLogFilter } from './card-log';
 import { cardNumber } from './card-number-pipe';
 import { utcMinutesShort } from '../core/format/display-format';
 import { CardSources } from './card-sources';
 import { DeviceCardLog } from './device-card-log';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 export const CARD_LOG_PAGE_SIZE = 25;
 const FILTER_PAUSE_MS = 300;
@@ -28,9 +33,9 @@ const FILTER_PAUSE_MS = 300;
 /** The operator's card log: every card its people issued and reported, filtered, a page at a time. */
 @Component({
   selector: 'sw-card-log-page',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, DeviceCardLog, RevisionNotices, RouterLink],
+  imports: [ProblemRetry, ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, DeviceCardLog, RevisionNotices, RouterLink, CursorPager],
   templateUrl: './card-log-page.html',
-  styleUrl: './card-log-page.scss',
+  styleUrls: ['../core/table/list-table.scss', './card-log-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CardLogPage {
@@ -46,47 +51,23 @@ export class CardLogPage {
   protected readonly form = inject(NonNullableFormBuilder).group({ airframeId: [0], from: [''], to: [''] });
   protected readonly airframes = signal<readonly AirframeView[]>([]);
   protected readonly entries = signal<readonly CardIssueView[]>([]);
-  protected readonly loading = signal(true);
-  protected readonly problem = signal<string | null>(null);
+  private readonly request = requestState();
+  protected readonly loading = this.request.busy;
+  protected readonly problem = this.request.problem;
   protected readonly filterProblem = signal<string | null>(null);
-  private readonly cursors = signal<readonly (string | null)[]>([]);
-  private readonly currentCursor = signal<string | null>(null);
-  protected readonly nextCursor = signal<string | null>(null);
-  protected readonly hasNewer = computed(() => this.cursors().length > 0);
-  private request = 0;
+  protected readonly pages = new CursorPages((cursor) => this.loadPage(cursor));
 
   constructor() {
     this.sources
       .airframes()
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe({ next: (airframes) => this.airframes.set(airframes), error: () => this.airframes.set([]) });
-    this.form.valueChanges.pipe(debounceTime(FILTER_PAUSE_MS), takeUntilDestroyed(this.destroyRef)).subscribe(() => {
-      this.cursors.set([]);
-      void this.loadPage(null);
-    });
-    void this.loadPage(null);
-  }
-
-  protected showEarlier(): void {
-    const next = this.nextCursor();
-    if (next === null) return;
-    this.cursors.update((list) => [...list, this.currentCursor()]);
-    void this.loadPage(next);
-  }
-
-  protected showNewer(): void {
-    const list = this.cursors();
-    if (list.length === 0) return;
-    this.cursors.set(list.slice(0, -1));
-    void this.loadPage(list[list.length - 1]);
+    this.form.valueChanges.pipe(debounceTime(FILTER_PAUSE_MS), takeUntilDestroyed(this.destroyRef)).subscribe(() => this.pages.first());
+    this.pages.first();
   }
 
   protected clearFilters(): void {
     this.form.reset();
-  }
-
-  protected reload(): void {
-    void this.loadPage(this.currentCursor());
   }
 
   /** "2026-12-01 23:45", UTC: short enough for two time columns on a tablet. */
@@ -102,37 +83,24 @@ export class CardLogPage {
     return typeof weight === 'number' ? cardNumber(weight) : '–';
   }
 
-  private async loadPage(cursor: string | null): Promise<void> {
+  private loadPage(cursor: string | null): void {
     const filter = this.filter();
     if (filter === null) return;
-    const request = ++this.request;
-    this.loading.set(true);
-    this.problem.set(null);
-    try {
-      const page = await this.cardLog.operatorPage(filter, CARD_LOG_PAGE_SIZE, cursor);
-      if (request !== this.request) return;
-      this.currentCursor.set(cursor);
-      this.nextCursor.set(page.nextCursor);
-      this.entries.set(page.entries);
-    } catch (error) {
-      if (request === this.request) this.problem.set(ApiRequestError.from(error).message);
-    } finally {
-      if (request === this.request) this.loading.set(false);
-    }
+    this.request.runLatest(
+      from(this.cardLog.operatorPage(filter, CARD_LOG_PAGE_SIZE, cursor)),
+      (page) => {
+        this.pages.arrived(cursor, page.nextCursor);
+        this.entries.set(page.entries);
+      },
+      (error) => ApiRequestError.from(error).message,
+    );
   }
 
   private filter(): CardLogFilter | null {
-    const { airframeId, from, to } = this.form.getRawValue();
-    if (from && to && from > to) {
-      this.filterProblem.set('The “from” date is after the “to” date. Change one of them.');
-      return null;
-    }
-    this.filterProblem.set(null);
-    return {
-      airframeId: airframeId || undefined,
-      // Whole days in UTC, the "to" day included.
-      from: from ? `${from}T00:00:00.000Z` : undefined,
-      to: to ? `${to}T23:59:59.999Z` : undefined,
-    };
+    const { airframeId, from: fromDay, to: toDay } = this.form.getRawValue();
+    const days = utcDayRange(fromDay, toDay);
+    this.filterProblem.set(days === null ? DAY_ORDER_PROBLEM : null);
+    if (days === null) return null;
+    return { airframeId: airframeId || undefined, ...days };
   }
 }

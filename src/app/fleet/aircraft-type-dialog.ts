@@ -1,9 +1,7 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { Observable } from 'rxjs';
@@ -11,6 +9,7 @@ import { AircraftTypeView, UpdateAircraftType, createAircraftTypeSchema } from '
 import type { AircraftCategory } from '../../../shared/speed-book/revision-content';
 import { zodValidator } from '../core/forms/zod-validator';
 import { changedFields } from '../core/forms/changed-fields';
+import { DialogFooter } from '../core/forms/dialog-footer';
 import { dialogSubmit } from '../core/forms/dialog-submit';
 import { controlMessage } from '../core/forms/server-field-errors';
 import { AIRCRAFT_CATEGORY_LABELS } from './aircraft-category-labels';
@@ -26,7 +25,7 @@ const fields = createAircraftTypeSchema.shape;
 /** Adds an aircraft type or edits one; closes with the record the server saved. */
 @Component({
   selector: 'sw-aircraft-type-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [ReactiveFormsModule, DialogFooter, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule],
   templateUrl: './aircraft-type-dialog.html',
   styleUrl: './fleet-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

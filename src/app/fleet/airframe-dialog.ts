@@ -1,16 +1,15 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { Observable } from 'rxjs';
 import { AircraftTypeView, AirframeView, UpdateAirframe, createAirframeSchema } from '../../../shared/api/fleet';
 import { zodValidator } from '../core/forms/zod-validator';
 import { changedFields } from '../core/forms/changed-fields';
+import { DialogFooter } from '../core/forms/dialog-footer';
 import { dialogSubmit } from '../core/forms/dialog-submit';
 import { controlMessage } from '../core/forms/server-field-errors';
 import { FleetRecords } from './fleet-records';
@@ -26,7 +25,7 @@ const fields = createAirframeSchema.shape;
 /** Adds an airframe or edits one; closes with the record the server saved. */
 @Component({
   selector: 'sw-airframe-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatCheckboxModule, MatButtonModule, MatIconModule],
+  imports: [ReactiveFormsModule, DialogFooter, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatCheckboxModule],
   templateUrl: './airframe-dialog.html',
   styleUrl: './fleet-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

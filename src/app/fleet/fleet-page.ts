@@ -9,18 +9,19 @@ import { MatTabsModule } from '@angular/material/tabs';
 import { forkJoin } from 'rxjs';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
 import { can } from '../../../shared/auth/roles';
-import { ApiRequestError } from '../core/api/api-request-error';
+import { requestState } from '../core/api/request-state';
 import { AuthService } from '../core/auth/auth-service';
 import { AircraftTypeDialog, AircraftTypeDialogData } from './aircraft-type-dialog';
 import { AircraftTypesTable } from './aircraft-types-table';
 import { AirframeDialog, AirframeDialogData } from './airframe-dialog';
 import { AirframesTable } from './airframes-table';
 import { FleetRecords } from './fleet-records';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 /** The operator's airframes and aircraft types; administrators add and edit them here. */
 @Component({
   selector: 'sw-fleet-page',
-  imports: [MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule, AirframesTable, AircraftTypesTable],
+  imports: [ProblemRetry, MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule, AirframesTable, AircraftTypesTable],
   templateUrl: './fleet-page.html',
   styleUrl: './fleet-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -36,8 +37,9 @@ export class FleetPage {
     const user = this.user();
     return user !== null && can(user.role, 'manage-fleet');
   });
-  protected readonly loading = signal(true);
-  protected readonly problem = signal<string | null>(null);
+  private readonly request = requestState();
+  protected readonly loading = this.request.busy;
+  protected readonly problem = this.request.problem;
   protected readonly aircraftTypes = signal<readonly AircraftTypeView[]>([]);
   protected readonly airframes = signal<readonly AirframeView[]>([]);
 
@@ -46,21 +48,10 @@ export class FleetPage {
   }
 
   protected loadFleet(): void {
-    this.loading.set(true);
-    this.problem.set(null);
-    forkJoin({ aircraftTypes: this.fleet.aircraftTypes(), airframes: this.fleet.airframes() })
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: ({ aircraftTypes, airframes }) => {
-          this.aircraftTypes.set(aircraftTypes);
-          this.airframes.set(airframes);
-          this.loading.set(false);
-        },
-        error: (error: ApiRequestError) => {
-          this.problem.set(error.message);
-          this.loading.set(false);
-        },
-      });
+    this.request.run(forkJoin({ aircraftTypes: this.fleet.aircraftTypes(), airframes: this.fleet.airframes() }), ({ aircraftTypes, airframes }) => {
+      this.aircraftTypes.set(aircraftTypes);
+      this.airframes.set(airframes);
+    });
   }
 
   protected addAirframe(): void {

@@ -1,20 +1,20 @@
 import { utcDay } from '../core/format/display-format';
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { finalize, forkJoin } from 'rxjs';
+import { forkJoin } from 'rxjs';
 import { signingKeyResponseSchema } from '../../../shared/api/revisions';
 import { CURRENCY_LIMIT_DAYS, operatorSettingsResponseSchema, operatorSettingsSchema } from '../../../shared/api/sync';
 import { ApiClient } from '../core/api/api-client';
-import type { ApiRequestError } from '../core/api/api-request-error';
+import { requestState } from '../core/api/request-state';
 import { AuthService } from '../core/auth/auth-service';
 import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 export const OPERATOR_PATHS = { settings: '/api/operator/settings', signingKey: '/api/operator/signing-key' } as const;
 
@@ -30,20 +30,14 @@ interface KeyShown {
  */
 @Component({
   selector: 'sw-operator-settings-page',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
+  imports: [ProblemRetry, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
   template: `
     <div class="sw-page">
       <h1 class="sw-page-title">Operator settings</h1>
       <p class="lead">Policies of {{ operatorName() }} that every device of the operator follows.</p>
 
       @if (problem(); as problem) {
-        <div class="sw-problem" role="alert">
-          <mat-icon>error</mat-icon>
-          <div>
-            <p data-testid="settings-error">{{ problem }}</p>
-            <button mat-stroked-button type="button" (click)="load()">Try again</button>
-          </div>
-        </div>
+        <sw-problem-retry [problem]="problem" testId="settings-error" (retry)="load()" />
       } @else if (loading()) {
         <mat-progress-bar mode="indeterminate" aria-label="Loading the settings" />
       } @else {
@@ -136,7 +130,6 @@ interface KeyShown {
 })
 export class OperatorSettingsPage {
   private readonly api = inject(ApiClient);
-  private readonly destroyRef = inject(DestroyRef);
   private readonly auth = inject(AuthService);
   protected readonly operatorName = computed(() => this.auth.user()?.operatorName ?? 'your operator');
 
@@ -145,9 +138,11 @@ export class OperatorSettingsPage {
     currencyLimitDays: [30, zodValidator(operatorSettingsSchema.shape.currencyLimitDays)],
   });
   protected readonly message = (path: string) => controlMessage(this.form, path);
-  protected readonly loading = signal(true);
-  protected readonly saving = signal(false);
-  protected readonly problem = signal<string | null>(null);
+  private readonly loadRequest = requestState();
+  private readonly saveRequest = requestState();
+  protected readonly loading = this.loadRequest.busy;
+  protected readonly saving = this.saveRequest.busy;
+  protected readonly problem = this.loadRequest.problem;
   protected readonly status = signal('');
   protected readonly key = signal<KeyShown | null>(null);
 
@@ -156,45 +151,32 @@ export class OperatorSettingsPage {
   }
 
   protected load(): void {
-    this.loading.set(true);
-    this.problem.set(null);
-    forkJoin({
+    const settingsAndKey = forkJoin({
       settings: this.api.get(OPERATOR_PATHS.settings, operatorSettingsResponseSchema),
       key: this.api.get(OPERATOR_PATHS.signingKey, signingKeyResponseSchema),
-    })
-      .pipe(
-        finalize(() => this.loading.set(false)),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe({
-        next: ({ settings, key }) => {
-          this.form.setValue({ currencyLimitDays: settings.settings.currencyLimitDays });
-          this.key.set({ id: key.signingKey.id, publicKey: key.signingKey.publicKey, created: utcDay(key.signingKey.createdAt) });
-        },
-        error: (error: ApiRequestError) => this.problem.set(error.message),
-      });
+    });
+    this.loadRequest.run(settingsAndKey, ({ settings, key }) => {
+      this.form.setValue({ currencyLimitDays: settings.settings.currencyLimitDays });
+      this.key.set({ id: key.signingKey.id, publicKey: key.signingKey.publicKey, created: utcDay(key.signingKey.createdAt) });
+    });
   }
 
   protected save(): void {
     this.form.markAllAsTouched();
     if (this.form.invalid || this.saving()) return;
     const currencyLimitDays = Number(this.form.getRawValue().currencyLimitDays);
-    this.saving.set(true);
     this.status.set('');
-    this.api
-      .patch(OPERATOR_PATHS.settings, { currencyLimitDays }, operatorSettingsResponseSchema)
-      .pipe(
-        finalize(() => this.saving.set(false)),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe({
-        next: ({ settings }) => {
-          const days = settings.currencyLimitDays;
-          this.status.set(`Saved. Devices refuse cards after ${days} ${days === 1 ? 'day' : 'days'} without a sync, from their next sync on.`);
-        },
-        error: (error: ApiRequestError) => {
-          if (showServerFieldErrors(this.form, error)) this.status.set(error.message);
-        },
-      });
+    this.saveRequest.run(
+      this.api.patch(OPERATOR_PATHS.settings, { currencyLimitDays }, operatorSettingsResponseSchema),
+      ({ settings }) => {
+        const days = settings.currencyLimitDays;
+        this.status.set(`Saved. Devices refuse cards after ${days} ${days === 1 ? 'day' : 'days'} without a sync, from their next sync on.`);
+      },
+      // The refusal is said in the status line, beside the button.
+      (error) => {
+        if (showServerFieldErrors(this.form, error)) this.status.set(error.message);
+        return null;
+      },
+    );
   }
 }

@@ -1,15 +1,14 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { map } from 'rxjs';
 import { OperatorPerson, UpdatePersonRequest, invitePersonRequestSchema } from '../../../shared/api/auth';
 import { ROLES, ROLE_LABELS, ROLE_SUMMARIES, Role } from '../../../shared/auth/roles';
+import { DialogFooter } from '../core/forms/dialog-footer';
 import { dialogSubmit } from '../core/forms/dialog-submit';
 import { controlMessage } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';
@@ -20,7 +19,7 @@ const fields = invitePersonRequestSchema.shape;
 /** Changes a person's role or name; closes with the person as the server saved them. */
 @Component({
   selector: 'sw-change-person-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [ReactiveFormsModule, DialogFooter, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule],
   templateUrl: './change-person-dialog.html',
   styleUrl: './people-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

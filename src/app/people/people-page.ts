@@ -20,6 +20,7 @@ import { ChangePersonDialog } from './change-person-dialog';
 import { InvitePersonDialog } from './invite-person-dialog';
 import { OperatorPeople } from './operator-people';
 import { PersonRow, toPersonRow } from './person-row';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 /**
  * The admin's list of the operator's people: who they are, their role, and their account;
@@ -27,7 +28,7 @@ import { PersonRow, toPersonRow } from './person-row';
  */
 @Component({
   selector: 'sw-people-page',
-  imports: [MatTableModule, MatSortModule, TableToolbar, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
+  imports: [ProblemRetry, MatTableModule, MatSortModule, TableToolbar, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
   templateUrl: './people-page.html',
   styleUrls: ['../core/table/list-table.scss', './people-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,

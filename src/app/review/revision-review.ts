@@ -24,6 +24,7 @@ import { RevisionsApi, type RevisionDiff, type SpeedBook } from '../speed-books/
 import { UtcDatePipe } from '../speed-books/utc-date-pipe';
 import { DiffTable } from './diff-table';
 import { SourcePages } from './source-pages';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 /**
  * The approver's review of one revision: the diff against the published revision beside the
@@ -36,6 +37,7 @@ import { SourcePages } from './source-pages';
 @Component({
   selector: 'sw-revision-review',
   imports: [
+    ProblemRetry,
     ReactiveFormsModule,
     RouterLink,
     MatButtonModule,

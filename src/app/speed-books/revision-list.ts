@@ -8,6 +8,7 @@ import { AuthService } from '../core/auth/auth-service';
 import { RevisionStatusChip } from './revision-status-chip';
 import { RevisionsApi, type BookRevision } from './revisions-api';
 import { UtcDatePipe } from './utc-date-pipe';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 /** Which list: revisions waiting for an approver (review), or every open revision (drafts). */
 export type RevisionListKind = 'review' | 'drafts';
@@ -43,19 +44,13 @@ const LISTS = {
  */
 @Component({
   selector: 'sw-revision-list',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, RevisionStatusChip, UtcDatePipe],
+  imports: [ProblemRetry, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, RevisionStatusChip, UtcDatePipe],
   template: `
     <div class="sw-page">
       <h1 class="sw-page-title">{{ list().title }}</h1>
       <p class="lead">{{ list().lead }}</p>
       @if (request.problem(); as problem) {
-        <div class="sw-problem" role="alert">
-          <mat-icon>error</mat-icon>
-          <div>
-            <p [attr.data-testid]="list().errorTestId">{{ problem }}</p>
-            <button mat-stroked-button type="button" (click)="loadRevisions()">Try again</button>
-          </div>
-        </div>
+        <sw-problem-retry [problem]="problem" [testId]="list().errorTestId" (retry)="loadRevisions()" />
       } @else {
         @if (request.busy()) {
           <mat-progress-bar mode="indeterminate" [attr.aria-label]="list().loadingLabel" />

@@ -13,17 +13,19 @@ import { createRevisionSchema, reasonSchema, type RevisionSummary } from '../../
 import { can } from '../../../shared/auth/roles';
 import { REVISION_SCHEMA_VERSION } from '../../../shared/speed-book/revision-content';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { requestState } from '../core/api/request-state';
 import { AuthService } from '../core/auth/auth-service';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionStatusChip } from './revision-status-chip';
 import { RevisionsApi, type SpeedBook } from './revisions-api';
 import { UtcDatePipe } from './utc-date-pipe';
-
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 /** One speed book: its current revision, its revision history, and the next step for the person's role. */
 @Component({
   selector: 'sw-speed-book-detail',
   imports: [
+    ProblemRetry,
     ReactiveFormsModule,
     RouterLink,
     MatButtonModule,
@@ -47,8 +49,9 @@ export class SpeedBookDetail {
   /** NaN when the address does not name a speed book. */
   readonly bookId = input.required<number>();
 
-  protected readonly loading = signal(true);
-  protected readonly problem = signal<string | null>(null);
+  private readonly request = requestState();
+  protected readonly loading = this.request.busy;
+  protected readonly problem = this.request.problem;
   protected readonly book = signal<SpeedBook | null>(null);
   protected readonly type = signal<AircraftTypeView | null>(null);
   protected readonly mayEdit = computed(() => this.userMay('edit-speed-books'));
@@ -61,8 +64,9 @@ export class SpeedBookDetail {
 
   protected readonly withdrawing = signal<RevisionSummary | null>(null);
   protected readonly withdrawReason = new FormControl('', { nonNullable: true, validators: zodValidator(reasonSchema.shape.reason) });
-  protected readonly withdrawBusy = signal(false);
-  protected readonly withdrawProblem = signal<string | null>(null);
+  private readonly withdrawal = requestState();
+  protected readonly withdrawBusy = this.withdrawal.busy;
+  protected readonly withdrawProblem = this.withdrawal.problem;
 
   constructor() {
     effect(() => this.loadSpeedBook(this.bookId()));
@@ -96,7 +100,7 @@ export class SpeedBookDetail {
   protected askWithdrawReason(revision: RevisionSummary): void {
     this.withdrawing.set(revision);
     this.withdrawReason.reset('');
-    this.withdrawProblem.set(null);
+    this.withdrawal.showProblem(null);
   }
 
   protected cancelWithdrawal(): void {
@@ -107,45 +111,25 @@ export class SpeedBookDetail {
     const revision = this.withdrawing();
     this.withdrawReason.markAsTouched();
     if (!revision || this.withdrawReason.invalid) return;
-    this.withdrawBusy.set(true);
-    this.withdrawProblem.set(null);
-    this.api
-      .withdraw(revision.id, this.withdrawReason.value.trim())
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: () => {
-          this.withdrawBusy.set(false);
-          this.withdrawing.set(null);
-          this.reload();
-        },
-        error: (error: ApiRequestError) => {
-          this.withdrawBusy.set(false);
-          this.withdrawProblem.set(error.fields['reason'] ?? error.message);
-        },
-      });
+    this.withdrawal.run(
+      this.api.withdraw(revision.id, this.withdrawReason.value.trim()),
+      () => {
+        this.withdrawing.set(null);
+        this.reload();
+      },
+      (error) => error.fields['reason'] ?? error.message,
+    );
   }
 
   private loadSpeedBook(id: number): void {
-    this.loading.set(true);
-    this.problem.set(null);
     if (!Number.isFinite(id)) {
-      this.problem.set('This address does not name a speed book. Choose one from the list.');
-      this.loading.set(false);
+      this.request.showProblem('This address does not name a speed book. Choose one from the list.');
       return;
     }
-    forkJoin({ book: this.api.speedBook(id), types: this.api.aircraftTypes() })
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: ({ book, types }) => {
-          this.book.set(book);
-          this.type.set(types.find((t) => t.id === book.aircraftTypeId) ?? null);
-          this.loading.set(false);
-        },
-        error: (error: ApiRequestError) => {
-          this.problem.set(error.message);
-          this.loading.set(false);
-        },
-      });
+    this.request.run(forkJoin({ book: this.api.speedBook(id), types: this.api.aircraftTypes() }), ({ book, types }) => {
+      this.book.set(book);
+      this.type.set(types.find((t) => t.id === book.aircraftTypeId) ?? null);
+    });
   }
 
   private emptyContent(): Record<string, unknown> {

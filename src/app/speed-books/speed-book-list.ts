@@ -13,15 +13,18 @@ import type { AircraftTypeView } from '../../../shared/api/fleet';
 import { createSpeedBookSchema, type SpeedBookSummary } from '../../../shared/api/revisions';
 import { can } from '../../../shared/auth/roles';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { requestState } from '../core/api/request-state';
 import { AuthService } from '../core/auth/auth-service';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionsApi } from './revisions-api';
 import { UtcDatePipe } from './utc-date-pipe';
+import { ProblemRetry } from '../core/feedback/problem-retry';
 
 /** The operator's speed books with their current published revision; engineers add one per type. */
 @Component({
   selector: 'sw-speed-book-list',
   imports: [
+    ProblemRetry,
     ReactiveFormsModule,
     RouterLink,
     MatButtonModule,
@@ -42,8 +45,9 @@ export class SpeedBookList {
   private readonly destroyRef = inject(DestroyRef);
   private readonly user = inject(AuthService).user;
 
-  protected readonly loading = signal(true);
-  protected readonly problem = signal<string | null>(null);
+  private readonly request = requestState();
+  protected readonly loading = this.request.busy;
+  protected readonly problem = this.request.problem;
   protected readonly books = signal<readonly SpeedBookSummary[]>([]);
   protected readonly types = signal<readonly AircraftTypeView[]>([]);
   protected readonly mayEdit = computed(() => {
@@ -69,21 +73,10 @@ export class SpeedBookList {
   }
 
   protected loadSpeedBooks(): void {
-    this.loading.set(true);
-    this.problem.set(null);
-    forkJoin({ books: this.api.speedBooks(), types: this.api.aircraftTypes() })
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: ({ books, types }) => {
-          this.books.set(books);
-          this.types.set(types);
-          this.loading.set(false);
-        },
-        error: (error: ApiRequestError) => {
-          this.problem.set(error.message);
-          this.loading.set(false);
-        },
-      });
+    this.request.run(forkJoin({ books: this.api.speedBooks(), types: this.api.aircraftTypes() }), ({ books, types }) => {
+      this.books.set(books);
+      this.types.set(types);
+    });
   }
 
   protected suggestTitle(): void {

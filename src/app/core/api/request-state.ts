@@ -1,6 +1,6 @@
 import { DestroyRef, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { Observable, finalize } from 'rxjs';
+import { Observable, Subscription, finalize } from 'rxjs';
 import { ApiRequestError } from './api-request-error';
 
 /** What a request's failure shows: the sentence, or null for none (the handler showed it elsewhere). */
@@ -21,13 +21,28 @@ export class RequestState {
   /** The sentence of the last failure; null after a success or a new request. */
   readonly problem = this.problemSignal.asReadonly();
 
+  private latest: Subscription | null = null;
+
   constructor(private readonly destroyRef: DestroyRef) {}
 
   /** Runs `request`; `succeeded` takes its value; `failed` picks the sentence to show. */
   run<T>(request: Observable<T>, succeeded: (value: T) => void, failed: FailureHandler = (error) => error.message): void {
+    this.subscribe(request, succeeded, failed);
+  }
+
+  /**
+   * Like `run`, but first drops the answer of the request `runLatest` started before, if it
+   * still runs: only the newest request of a page (a filter typed on) may fill it.
+   */
+  runLatest<T>(request: Observable<T>, succeeded: (value: T) => void, failed: FailureHandler = (error) => error.message): void {
+    this.latest?.unsubscribe();
+    this.latest = this.subscribe(request, succeeded, failed);
+  }
+
+  private subscribe<T>(request: Observable<T>, succeeded: (value: T) => void, failed: FailureHandler): Subscription {
     this.busySignal.set(true);
     this.problemSignal.set(null);
-    request
+    return request
       .pipe(
         finalize(() => this.busySignal.set(false)),
         takeUntilDestroyed(this.destroyRef),
