@@ -8,6 +8,7 @@ import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
 import { AIRCRAFT_CATEGORY_LABELS } from './aircraft-category-labels';
 import { TableToolbar } from '../core/table/table-toolbar';
 import { ListPaginator } from '../core/table/list-paginator';
+import { ListSort } from '../core/table/list-sort';
 import { ListTableRow, ListTableState } from '../core/table/list-table-state';
 
 interface AircraftTypeRow extends ListTableRow {
@@ -19,7 +20,7 @@ interface AircraftTypeRow extends ListTableRow {
 /** The operator's aircraft types: filter, sort, page, and (for administrators) edit. */
 @Component({
   selector: 'sw-aircraft-types-table',
-  imports: [DecimalPipe, MatTableModule, MatSortModule, ListPaginator, TableToolbar, MatIconModule, MatButtonModule],
+  imports: [DecimalPipe, MatTableModule, MatSortModule, ListPaginator, ListSort, TableToolbar, MatIconModule, MatButtonModule],
   templateUrl: './aircraft-types-table.html',
   styleUrls: ['../core/table/list-table.scss', './fleet-table.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,

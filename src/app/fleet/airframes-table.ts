@@ -6,6 +6,7 @@ import { MatTableModule } from '@angular/material/table';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
 import { TableToolbar } from '../core/table/table-toolbar';
 import { ListPaginator } from '../core/table/list-paginator';
+import { ListSort } from '../core/table/list-sort';
 import { ListTableRow, ListTableState } from '../core/table/list-table-state';
 
 interface AirframeRow extends ListTableRow {
@@ -19,7 +20,7 @@ interface AirframeRow extends ListTableRow {
 /** The operator's airframes: filter, sort, page, and (for administrators) edit. */
 @Component({
   selector: 'sw-airframes-table',
-  imports: [MatTableModule, MatSortModule, ListPaginator, TableToolbar, MatIconModule, MatButtonModule],
+  imports: [MatTableModule, MatSortModule, ListPaginator, ListSort, TableToolbar, MatIconModule, MatButtonModule],
   templateUrl: './airframes-table.html',
   styleUrls: ['../core/table/list-table.scss', './fleet-table.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
