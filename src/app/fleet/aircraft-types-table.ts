@@ -2,13 +2,14 @@ import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
 import { AIRCRAFT_CATEGORY_LABELS } from './aircraft-category-labels';
 import { TableToolbar } from '../core/table/table-toolbar';
-import { LIST_PAGE_SIZES, ListTableRow, ListTableState } from '../core/table/list-table-state';
+import { ListPaginator } from '../core/table/list-paginator';
+import { ListSort } from '../core/table/list-sort';
+import { ListTableRow, ListTableState } from '../core/table/list-table-state';
 
 interface AircraftTypeRow extends ListTableRow {
   readonly aircraftType: AircraftTypeView;
@@ -19,7 +20,7 @@ interface AircraftTypeRow extends ListTableRow {
 /** The operator's aircraft types: filter, sort, page, and (for administrators) edit. */
 @Component({
   selector: 'sw-aircraft-types-table',
-  imports: [DecimalPipe, MatTableModule, MatSortModule, MatPaginatorModule, TableToolbar, MatIconModule, MatButtonModule],
+  imports: [DecimalPipe, MatTableModule, MatSortModule, ListPaginator, ListSort, TableToolbar, MatIconModule, MatButtonModule],
   templateUrl: './aircraft-types-table.html',
   styleUrls: ['../core/table/list-table.scss', './fleet-table.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -30,7 +31,6 @@ export class AircraftTypesTable {
   readonly canEdit = input(false);
   readonly editAircraftType = output<AircraftTypeView>();
 
-  protected readonly pageSizes = LIST_PAGE_SIZES;
   protected readonly columns = computed(() => [
     'designator',
     'name',
@@ -46,13 +46,7 @@ export class AircraftTypesTable {
     return this.aircraftTypes().map((type) => toRow(type, counts.get(type.id) ?? 0));
   });
   protected readonly table = new ListTableState(this.rows, { active: 'designator', direction: 'asc' });
-  protected readonly countSentence = computed(() => {
-    const total = this.rows().length;
-    const matching = this.table.matching().length;
-    const noun = total === 1 ? 'aircraft type' : 'aircraft types';
-    return matching === total ? `${total} ${noun}` : `${matching} of ${total} ${noun} match`;
-  });
-
+  protected readonly countSentence = computed(() => this.table.countSentence('aircraft type', 'aircraft types'));
 }
 
 function toRow(type: AircraftTypeView, airframeCount: number): AircraftTypeRow {

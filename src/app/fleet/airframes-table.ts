@@ -1,12 +1,13 @@
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
 import { TableToolbar } from '../core/table/table-toolbar';
-import { LIST_PAGE_SIZES, ListTableRow, ListTableState } from '../core/table/list-table-state';
+import { ListPaginator } from '../core/table/list-paginator';
+import { ListSort } from '../core/table/list-sort';
+import { ListTableRow, ListTableState } from '../core/table/list-table-state';
 
 interface AirframeRow extends ListTableRow {
   readonly airframe: AirframeView;
@@ -19,7 +20,7 @@ interface AirframeRow extends ListTableRow {
 /** The operator's airframes: filter, sort, page, and (for administrators) edit. */
 @Component({
   selector: 'sw-airframes-table',
-  imports: [MatTableModule, MatSortModule, MatPaginatorModule, TableToolbar, MatIconModule, MatButtonModule],
+  imports: [MatTableModule, MatSortModule, ListPaginator, ListSort, TableToolbar, MatIconModule, MatButtonModule],
   templateUrl: './airframes-table.html',
   styleUrls: ['../core/table/list-table.scss', './fleet-table.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -30,7 +31,6 @@ export class AirframesTable {
   readonly canEdit = input(false);
   readonly editAirframe = output<AirframeView>();
 
-  protected readonly pageSizes = LIST_PAGE_SIZES;
   protected readonly columns = computed(() => [
     'registration',
     'serial',
@@ -43,13 +43,7 @@ export class AirframesTable {
     return this.airframes().map((airframe) => toRow(airframe, types.get(airframe.aircraftTypeId)));
   });
   protected readonly table = new ListTableState(this.rows, { active: 'registration', direction: 'asc' });
-  protected readonly countSentence = computed(() => {
-    const total = this.rows().length;
-    const matching = this.table.matching().length;
-    const noun = total === 1 ? 'airframe' : 'airframes';
-    return matching === total ? `${total} ${noun}` : `${matching} of ${total} ${noun} match`;
-  });
-
+  protected readonly countSentence = computed(() => this.table.countSentence('airframe', 'airframes'));
 }
 
 function toRow(airframe: AirframeView, type: AircraftTypeView | undefined): AirframeRow {

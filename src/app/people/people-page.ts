@@ -6,13 +6,14 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { MatSortModule, Sort } from '@angular/material/sort';
+import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Observable } from 'rxjs';
 import { OperatorPerson } from '../../../shared/api/auth';
 import { InvitationSent } from '../../../shared/api/people';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { requestState } from '../core/api/request-state';
+import { ListSort } from '../core/table/list-sort';
 import { ListTableState } from '../core/table/list-table-state';
 import { TableToolbar } from '../core/table/table-toolbar';
 import { AuthService } from '../core/auth/auth-service';
@@ -28,7 +29,7 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
  */
 @Component({
   selector: 'sw-people-page',
-  imports: [ProblemRetry, MatTableModule, MatSortModule, TableToolbar, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
+  imports: [ProblemRetry, MatTableModule, MatSortModule, ListSort, TableToolbar, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
   templateUrl: './people-page.html',
   styleUrls: ['../core/table/list-table.scss', './people-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -50,9 +51,8 @@ export class PeoplePage {
   private readonly everyone = signal<readonly OperatorPerson[]>([]);
   private readonly allRows = computed(() => this.everyone().map(toPersonRow));
 
-  private readonly table = new ListTableState(this.allRows, { active: 'displayName', direction: 'asc' });
+  protected readonly table = new ListTableState(this.allRows, { active: 'displayName', direction: 'asc' });
   protected readonly filterText = this.table.filterText;
-  protected readonly sort = this.table.sort;
 
   protected readonly total = computed(() => this.allRows().length);
   protected readonly rows = this.table.matching;
@@ -119,10 +119,6 @@ export class PeoplePage {
 
   protected filterPeople(text: string): void {
     this.table.filter(text);
-  }
-
-  protected sortPeople(sort: Sort): void {
-    this.table.sortBy(sort);
   }
 
   private act<T>(request: Observable<T>, succeeded: (answer: T) => string | null): void {

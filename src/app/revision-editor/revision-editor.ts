@@ -12,8 +12,7 @@ import { Router, RouterLink } from '@angular/router';
 import { Observable, Subscription, forkJoin, map, of, switchMap } from 'rxjs';
 import { createRevisionSchema, type RevisionView } from '../../../shared/api/revisions';
 import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
-import { revisionContentShape } from '../../../shared/speed-book/content-shape';
-import { AIRCRAFT_CATEGORIES, SPEED_BASES, SPEED_PHASES, revisionContentProblems } from '../../../shared/speed-book/revision-content';
+import { AIRCRAFT_CATEGORIES, SPEED_BASES, SPEED_PHASES } from '../../../shared/speed-book/revision-content';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { CoverageApi, CoverageRefusal } from '../coverage/coverage-api';
 import { zodValidator } from '../core/forms/zod-validator';
@@ -22,46 +21,19 @@ import { RevisionsApi, type SpeedBook } from '../speed-books/revisions-api';
 import { AttachmentsPanel } from './attachments-panel';
 import { DiscardDraftDialog, type DiscardDraftData } from './discard-draft-dialog';
 import { EnvelopeCoverageSection } from './envelope-coverage-section';
-import { SPEED_CLASSES, type SpeedClass } from './envelope-form';
+import { SPEED_CLASSES } from './envelope-form';
+import { contentProblems } from './content-problems';
+import { LIMIT_FIELDS, SPEED_CLASS_WORDS, WEIGHT_FIELDS } from './editor-field-words';
 import { LiveCoverage } from './live-coverage';
 import { CsvUploadPanel } from './csv-upload-panel';
 import { PositionErrorEditor } from './position-error-editor';
 import { problemLocation } from './problem-location';
-import { RevisionForm, type LimitKey } from './revision-form';
+import { RevisionForm } from './revision-form';
 import { StatedUnitInput } from './stated-unit-input';
 import { StatedUnitsContext } from './stated-units-context';
 import { StatedUnitsPanel } from './stated-units-panel';
 import { restateFigures, statedSymbol, statedUnitWords } from '../../../shared/speed-book/stated-units';
 import { TabulatedSpeedGrid } from './tabulated-speed-grid';
-
-const LIMIT_FIELDS: readonly { key: LimitKey; label: string }[] = [
-  { key: 'vnoKt', label: 'VNO' },
-  { key: 'vneKt', label: 'VNE' },
-  { key: 'vmoKt', label: 'VMO' },
-  { key: 'mmo', label: 'MMO' },
-  { key: 'vleKt', label: 'VLE' },
-  { key: 'vloKt', label: 'VLO' },
-  { key: 'vmcKt', label: 'VMC' },
-  { key: 'vyseKt', label: 'VYSE' },
-];
-
-/** Each class with the rounding the card gives it (issue 11: speeds by kind, not by spelling). */
-const SPEED_CLASS_WORDS: Readonly<Record<SpeedClass, string>> = {
-  stall: 'Stall speed (rounded up)',
-  minimum: 'Minimum speed, as VMC, V2, VREF (rounded up)',
-  takeoff: 'Takeoff speed (nearest knot)',
-  climb: 'Climb speed (nearest knot)',
-  approach: 'Approach speed (nearest knot)',
-  limit: 'Limit speed (rounded down)',
-  other: 'Other (nearest knot)',
-};
-
-const WEIGHT_FIELDS = [
-  { key: 'minimumKg', label: 'Minimum weight' },
-  { key: 'maximumTakeoffKg', label: 'Maximum takeoff weight' },
-  { key: 'maximumLandingKg', label: 'Maximum landing weight' },
-  { key: 'referenceKg', label: 'Reference weight' },
-] as const;
 
 /**
  * The revision editor: a draft's whole content as a reactive form, checked as it is typed with
@@ -344,21 +316,5 @@ export class RevisionEditor {
       const sentence = problems[path];
       control.setErrors(sentence ? { schema: sentence } : null, { emitEvent: false });
     }
-  }
-}
-
-/**
- * The schema's problems of `content`. The cross-field rules can throw on a table emptied while
- * editing (they expect the two points the shape asks for); the shape's own sentences then say
- * what is missing.
- */
-function contentProblems(content: Record<string, unknown>): Record<string, string> {
-  try {
-    return revisionContentProblems(content);
-  } catch {
-    const result = revisionContentShape.safeParse(content);
-    const fields: Record<string, string> = {};
-    for (const issue of result.error?.issues ?? []) fields[issue.path.map(String).join('.') || '(content)'] ??= issue.message;
-    return fields;
   }
 }

@@ -42,6 +42,14 @@ export class ListTableState<R extends ListTableRow> {
     this.sort.set(initialSort);
   }
 
+  /** "3 airframes", or "2 of 3 airframes match" while a filter hides some. */
+  countSentence(singular: string, plural: string): string {
+    const total = this.rows().length;
+    const matching = this.matching().length;
+    const noun = total === 1 ? singular : plural;
+    return matching === total ? `${total} ${noun}` : `${matching} of ${total} ${noun} match`;
+  }
+
   filter(text: string): void {
     this.filterText.set(text);
     this.pageIndex.set(0);
