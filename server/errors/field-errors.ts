@@ -1,7 +1,8 @@
 import type * as z from 'zod';
 
 /** Field path → sentence, as the error body's `fields` carries it. */
-export function fieldErrors(error: z.ZodError): Record<string, string> {
+/** Takes the core error type, so errors of zod's small build (`zod/mini`, e.g. `cardInputsSchema`) read the same. */
+export function fieldErrors(error: z.core.$ZodError): Record<string, string> {
   const fields: Record<string, string> = {};
   for (const issue of error.issues) {
     const path = issue.path.map(String).join('.') || '(body)';

@@ -61,7 +61,8 @@ import {
   cardPreviewResponseSchema,
 } from '../../shared/card/card-api';
 import { cardPdfQuerySchema, cardPdfReprintQuerySchema } from '../../shared/card-pdf/card-pdf-api';
-import { verifyCodeParamsSchema, verifyResponseSchema, verifySourceResponseSchema } from '../../shared/card-check/verify-api';
+import { verifyResponseSchema, verifySourceResponseSchema } from '../../shared/card-check/verify-api';
+import { verifyCodeParamsSchema } from '../../shared/card-check/verify-params';
 import { operatorSettingsResponseSchema, operatorSettingsSchema, syncQuerySchema, syncResponseSchema } from '../../shared/api/sync';
 
 type Method = RouteConfig['method'];
@@ -69,11 +70,31 @@ type Method = RouteConfig['method'];
 const idParams = z.object({ id: z.string().regex(/^[1-9]\d*$/).describe('Record id') });
 const entryIdParams = z.object({ id: z.uuid().describe('The card log entry’s id, a UUID the device chose') });
 /**
- * zod-to-openapi reads schemas of the full zod build; those of the small build (`zod/mini`,
- * shared/api/session.ts) go in as zod's own JSON Schema of their input or output.
+ * Whether a schema and every schema inside it are of the full zod build. Walks the kinds of
+ * schema the API's bodies use (objects, arrays, unions, optional/nullable/default wrappers,
+ * pipes); a recursive schema goes in through `jsonSchemaOf` and is not walked.
+ */
+function madeOfFullZod(schema: z.core.$ZodType, depth = 0): boolean {
+  if (!(schema instanceof z.ZodType)) return false;
+  if (depth > 64) return true;
+  const def = schema._zod.def as unknown as Record<string, unknown>;
+  const inner: unknown[] = [];
+  if (def.type === 'object') inner.push(...Object.values(def.shape as Record<string, unknown>));
+  if (def.type === 'union') inner.push(...(def.options as unknown[]));
+  if (def.type === 'intersection') inner.push(def.left, def.right);
+  if (def.type === 'pipe') inner.push(def.in, def.out);
+  if (def.type === 'record') inner.push(def.valueType);
+  for (const key of ['element', 'innerType']) if (def[key]) inner.push(def[key]);
+  return inner.every((child) => madeOfFullZod(child as z.core.$ZodType, depth + 1));
+}
+
+/**
+ * zod-to-openapi reads schemas of the full zod build; those of the small build (`zod/mini`:
+ * shared/api/session.ts, the card inputs, the public card check), or holding one, go in as zod's
+ * own JSON Schema of their input or output.
  */
 const json = (schema: z.core.$ZodType, io: 'input' | 'output' = 'output') => ({
-  content: { 'application/json': { schema: schema instanceof z.ZodType ? schema : (z.toJSONSchema(schema, { unrepresentable: 'any', io }) as Record<string, unknown>) } },
+  content: { 'application/json': { schema: madeOfFullZod(schema) ? schema : (z.toJSONSchema(schema, { unrepresentable: 'any', io }) as Record<string, unknown>) } },
 });
 /** A recursive schema (z.lazy) as zod's own JSON Schema; zod-to-openapi recurses on those without end. */
 const jsonSchemaOf = (schema: z.core.$ZodType) => z.toJSONSchema(schema, { unrepresentable: 'any', io: 'output' }) as Record<string, unknown>;

@@ -13,10 +13,14 @@
  *   (registration, type, speed book title, demo mark, with their record ids, which the card's
  *   digest covers) and the digest of the card that was issued. Nothing about people, other
  *   cards or other revisions.
+ *
+ * Written with zod's small build (`zod/mini`: functions instead of methods) so the public check
+ * page carries no full zod; the server's tests and the OpenAPI document read these same objects.
+ * The path parameter's schema, for the OpenAPI document only, is in `verify-params.ts`.
  */
-import * as z from 'zod';
+import * as z from 'zod/mini';
 
-const id = z.number().int().positive();
+const id = z.number().check(z.int(), z.positive());
 const timestamp = z.string();
 
 export const VERIFY_STATUSES = ['current', 'superseded', 'withdrawn', 'unknown'] as const;
@@ -24,7 +28,7 @@ export type VerifyStatus = (typeof VERIFY_STATUSES)[number];
 
 export const verifyKnownSchema = z.strictObject({
   status: z.enum(['current', 'superseded', 'withdrawn']),
-  revision: z.strictObject({ number: z.number().int().positive(), publishedAt: timestamp }),
+  revision: z.strictObject({ number: z.number().check(z.int(), z.positive()), publishedAt: timestamp }),
   registration: z.string(),
   issuedAt: timestamp,
 });
@@ -38,12 +42,12 @@ export type VerifyKnown = z.infer<typeof verifyKnownSchema>;
 /** `GET /api/verify/:code/source` (404 for an unknown code). */
 export const verifySourceResponseSchema = z.strictObject({
   /** The digest of the card that was issued with this code (as the card log holds it). */
-  digest: z.string().regex(/^[0-9a-f]{64}$/),
+  digest: z.string().check(z.regex(/^[0-9a-f]{64}$/)),
   revision: z.strictObject({
     id,
-    number: z.number().int().positive(),
+    number: z.number().check(z.int(), z.positive()),
     publishedAt: timestamp,
-    contentSha256: z.string().regex(/^[0-9a-f]{64}$/),
+    contentSha256: z.string().check(z.regex(/^[0-9a-f]{64}$/)),
     content: z.unknown(),
   }),
   context: z.strictObject({
@@ -54,11 +58,6 @@ export const verifySourceResponseSchema = z.strictObject({
   }),
 });
 export type VerifySource = z.infer<typeof verifySourceResponseSchema>;
-
-/** The path parameter as the OpenAPI document describes it. */
-export const verifyCodeParamsSchema = z.object({
-  code: z.string().describe('The card code, 9 characters (dashes, spaces and case do not matter)'),
-});
 
 export const VERIFY_PATHS = {
   verify: (code: string) => `/api/verify/${encodeURIComponent(code)}`,

@@ -1,10 +1,14 @@
 /**
  * What a pilot enters for a card (`CardInputs`) and the schema that checks it, on the device
  * and on the server alike; every sentence names the field to correct. Units are in every name.
+ *
+ * Written with zod's small build (`zod/mini`: the same rules and messages, functions instead of
+ * methods) so the public check page, which decodes card inputs from a check URL, carries no full
+ * zod in its first download; the server, the card screen and the check page use these objects.
  */
-import * as z from 'zod';
-// From the field shapes directly: the check page reads card inputs without the content rules and their atmosphere code.
-import { configurationKeySchema } from '../speed-book/content-shape';
+import * as z from 'zod/mini';
+// The key alone (also zod/mini): the check page reads card inputs without the speed book's content schema.
+import { configurationKeySchema } from '../speed-book/configuration-key';
 
 const num = (what: string) =>
   z.number({ error: (issue) => (issue.input === undefined ? `Give ${what}.` : `${capitalise(what)} must be a number.`) });
@@ -14,7 +18,7 @@ function capitalise(text: string): string {
 }
 
 const weight = (what: string) =>
-  num(what).positive(`${capitalise(what)} must be above zero.`).max(999_999, `${capitalise(what)} must be below 1,000,000 kg.`);
+  num(what).check(z.positive(`${capitalise(what)} must be above zero.`), z.maximum(999_999, `${capitalise(what)} must be below 1,000,000 kg.`));
 
 /**
  * Conditions at one aerodrome. Only the type and finiteness are checked here; whether a value
@@ -29,15 +33,15 @@ export const aerodromeConditionsSchema = z.strictObject({
   /** Outside air temperature at the field, °C. */
   oatC: num('the outside air temperature in °C'),
   /** Dew point, °C; without it density altitude is for dry air. */
-  dewPointC: num('the dew point in °C').optional(),
+  dewPointC: z.optional(num('the dew point in °C')),
 });
 export type AerodromeConditions = z.infer<typeof aerodromeConditionsSchema>;
 
 /** The planned cruise: an indicated airspeed (through the cruise configuration's table) or a Mach number. */
 export const cruiseSchema = z.union(
   [
-    z.strictObject({ iasKt: num('the cruise indicated airspeed in kt').positive('The cruise speed must be above zero.').max(999, 'The cruise speed must be below 1,000 kt.') }),
-    z.strictObject({ mach: num('the cruise Mach number').positive('The cruise Mach number must be above zero.').lt(1, 'The cruise Mach number must be below Mach 1.') }),
+    z.strictObject({ iasKt: num('the cruise indicated airspeed in kt').check(z.positive('The cruise speed must be above zero.'), z.maximum(999, 'The cruise speed must be below 1,000 kt.')) }),
+    z.strictObject({ mach: num('the cruise Mach number').check(z.positive('The cruise Mach number must be above zero.'), z.lt(1, 'The cruise Mach number must be below Mach 1.')) }),
   ],
   { error: 'Give the planned cruise as an indicated airspeed in kt or as a Mach number, not both.' },
 );
@@ -48,28 +52,26 @@ export const cruiseSchema = z.union(
  * own configurations and `landingWeightKg` when given.
  */
 export const cardInputsSchema = z.strictObject({
-  airframeId: z
-    .number({ error: 'Choose the airframe.' })
-    .int('Choose the airframe.')
-    .positive('Choose the airframe.'),
+  airframeId: z.number({ error: 'Choose the airframe.' }).check(z.int('Choose the airframe.'), z.positive('Choose the airframe.')),
   /** Takeoff weight, kg. */
   weightKg: weight('the takeoff weight in kg'),
   /**
    * Landing weight, kg; without it the landing and approach speeds use the takeoff weight when
    * that is within the maximum landing weight, else the maximum landing weight (the card says so).
    */
-  landingWeightKg: weight('the landing weight in kg').optional(),
+  landingWeightKg: z.optional(weight('the landing weight in kg')),
   /** The takeoff configuration's key (a configuration of the speed book). */
   configuration: configurationKeySchema,
   departure: aerodromeConditionsSchema,
-  arrival: aerodromeConditionsSchema.optional(),
+  arrival: z.optional(aerodromeConditionsSchema),
   /** The day's ISA deviation for the altitude table, °C. */
   isaDeviationC: num('the ISA deviation in °C'),
   cruise: cruiseSchema,
   /** Spacing of the altitude table's rows, whole feet. */
-  altitudeStepFt: num('the altitude step in feet')
-    .int('The altitude step must be whole feet.')
-    .min(100, 'The altitude step must be at least 100 ft.')
-    .max(10_000, 'The altitude step must be at most 10,000 ft.'),
+  altitudeStepFt: num('the altitude step in feet').check(
+    z.int('The altitude step must be whole feet.'),
+    z.minimum(100, 'The altitude step must be at least 100 ft.'),
+    z.maximum(10_000, 'The altitude step must be at most 10,000 ft.'),
+  ),
 });
 export type CardInputs = z.infer<typeof cardInputsSchema>;

@@ -5,6 +5,7 @@
  */
 import * as z from 'zod';
 import { plainText } from '../text/plain-text';
+import { configurationKeySchema } from './configuration-key';
 
 /** "The ceiling" → "the ceiling" inside a sentence; "VNE" stays as it is. */
 const inSentence = (what: string) => (/^[A-Z][a-z]/.test(what) ? what[0].toLowerCase() + what.slice(1) : what);
@@ -58,11 +59,7 @@ export const weightsSchema = z.strictObject({
   referenceKg: kilograms('The reference weight').optional(),
 });
 
-/** Our own keys for flap/gear configurations: lower-case words joined by hyphens. */
-export const configurationKeySchema = z
-  .string({ error: 'Give the configuration key.' })
-  .regex(/^[a-z][a-z0-9]*(-[a-z0-9]+)*$/, 'A configuration key is lower-case letters and digits joined by hyphens, such as landing-flap.')
-  .max(32, 'A configuration key must be at most 32 characters.');
+export { configurationKeySchema };
 
 export const positionErrorPointSchema = z.strictObject({
   iasKt: knots('The indicated airspeed'),

@@ -64,9 +64,12 @@ export async function runCardCheck(deps: CardCheckDeps, rawCode: string, payload
   const parsed = parseCheckUrl(`/check/${encodeURIComponent(rawCode)}${payloadText !== null ? `?c=${encodeURIComponent(payloadText)}` : ''}`);
   if (!parsed.ok) return { kind: 'invalid', message: parsed.message };
   const code = parsed.value;
+  // What the card was built from is asked for beside the verdict (one round trip, not two, on a
+  // phone's network); it is read only once the verdict names a card, and its failure is a sentence.
+  const source = withoutFigures(code) ? null : settled(deps.source(code.code));
   try {
     const verify = await deps.verify(code.code);
-    return { kind: 'online', code, verify, figures: await onlineFigures(deps, code, verify) };
+    return { kind: 'online', code, verify, figures: await onlineFigures(code, verify, source) };
   } catch (error) {
     const problem = ApiRequestError.from(error);
     if (!unreachable(problem)) return { kind: 'failed', code, message: problem.message };
@@ -84,12 +87,24 @@ const EARLIER_RULES_ISSUED =
 const EARLIER_RULES_OFFLINE =
   'This card was made under an earlier version of Speedwright’s card rules: its figures can only be compared with the card log, online.';
 
-async function onlineFigures(deps: CardCheckDeps, code: ParsedCheckUrl, verify: VerifyResponse): Promise<FiguresNote> {
+type Settled<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly error: unknown };
+
+/** A request started early whose answer may never be read: its failure is kept, never left unhandled. */
+function settled<T>(promise: Promise<T>): Promise<Settled<T>> {
+  return promise.then(
+    (value) => ({ ok: true as const, value }),
+    (error: unknown) => ({ ok: false as const, error }),
+  );
+}
+
+async function onlineFigures(code: ParsedCheckUrl, verify: VerifyResponse, sourceAnswer: Promise<Settled<VerifySource>> | null): Promise<FiguresNote> {
   const none = withoutFigures(code);
-  if (none) return none;
+  if (none || !sourceAnswer) return none ?? { kind: 'none', sentence: TYPED };
   if (verify.status === 'unknown') return { kind: 'none', sentence: 'With no card behind the code, the figures in it cannot be checked.' };
   try {
-    const [source, checkFigures] = await Promise.all([deps.source(code.code), loadCheckFigures()]);
+    const [answer, checkFigures] = await Promise.all([sourceAnswer, loadCheckFigures()]);
+    if (!answer.ok) throw answer.error;
+    const source = answer.value;
     const payload = code.payload as CheckPayload;
     if (payload.earlierCardRules && payload.digest === source.digest) return { kind: 'none', sentence: EARLIER_RULES_ISSUED };
     return { kind: 'checked', check: checkFigures(payload, { revision: source.revision, context: source.context, issuedDigest: source.digest }) };

@@ -139,9 +139,38 @@ describe('CheckPage', () => {
     expect(page.querySelector('[data-testid="speed-card"]')).toBeNull();
   });
 
-  it('names an unknown code and asks nothing more', async () => {
+  it('asks for what the card was built from beside the verdict, not after it', async () => {
+    await open(code, payload);
+    // Both requests are out before either is answered: one round trip on a phone's network.
+    const verify = backend.expectOne(`/api/verify/${code}`);
+    const sourceRequest = backend.expectOne(`/api/verify/${code}/source`);
+    sourceRequest.flush(source);
+    await settle();
+    // No verdict yet, so no figures either: a check of figures is said only beside the card's status.
+    expect(text('check-status-title')).toBeNull();
+    expect(page.querySelector('[data-testid="speed-card"]')).toBeNull();
+    verify.flush(known);
+    await settle();
+    expect(text('check-status-title')).toBe('Revision in force');
+    expect(page.querySelector('[data-testid="check-figures-result"]')?.getAttribute('data-outcome')).toBe('matches');
+  });
+
+  it('gives the verdict when what the card was built from cannot be had, and says the figures were not checked', async () => {
+    await open(code, payload);
+    backend.expectOne(`/api/verify/${code}/source`).flush(null, { status: 503, statusText: 'Service Unavailable' });
+    backend.expectOne(`/api/verify/${code}`).flush(known);
+    await settle();
+    expect(text('check-status-title')).toBe('Revision in force');
+    expect(page.querySelector('[data-testid="check-figures-result"]')?.getAttribute('data-outcome')).toBe('none');
+    expect(text('check-figures-result')).toContain('The figures could not be checked');
+    expect(page.querySelector('[data-testid="speed-card"]')).toBeNull();
+  });
+
+  it('names an unknown code and reads nothing more', async () => {
     await open(code, payload);
     backend.expectOne(`/api/verify/${code}`).flush({ status: 'unknown' });
+    // Asked for beside the verdict; the server has no card behind the code and says so.
+    backend.expectOne(`/api/verify/${code}/source`).flush({ error: 'not_found', message: 'No card was issued with this code.' }, { status: 404, statusText: 'Not Found' });
     await settle();
     expect(text('check-status-title')).toBe('No card with this code here');
     expect(text('check-figures-result')).toContain('cannot be checked');
@@ -163,6 +192,7 @@ describe('CheckPage', () => {
     };
     await open(code, payload);
     backend.expectOne(`/api/verify/${code}`).error(new ProgressEvent('error'), { status: 0 });
+    backend.expectOne(`/api/verify/${code}/source`).error(new ProgressEvent('error'), { status: 0 });
     await settle();
     expect(read).toHaveBeenCalledWith(PILOT.operatorId, revision.id, card.inputs.airframeId);
     expect(text('check-status-title')).toBe('No network: checked against this device’s data');
@@ -182,6 +212,7 @@ describe('CheckPage', () => {
     };
     await open(code, payload);
     backend.expectOne(`/api/verify/${code}`).flush(null, { status: 504, statusText: 'Gateway Timeout' });
+    backend.expectOne(`/api/verify/${code}/source`).flush(null, { status: 504, statusText: 'Gateway Timeout' });
     await settle();
     expect(text('check-offline-knows')).toContain('already replaced by a newer revision');
     expect(text('check-offline-knows')).toContain('It already holds revision 4');
@@ -190,6 +221,7 @@ describe('CheckPage', () => {
   it('offline and signed out: says nothing can be checked here and how to prepare the device', async () => {
     await open(code, payload);
     backend.expectOne(`/api/verify/${code}`).error(new ProgressEvent('error'), { status: 0 });
+    backend.expectOne(`/api/verify/${code}/source`).error(new ProgressEvent('error'), { status: 0 });
     await settle();
     expect(read).not.toHaveBeenCalled();
     expect(text('check-status-title')).toBe('No network: this card cannot be checked here now');
