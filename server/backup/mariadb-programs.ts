@@ -92,20 +92,33 @@ function exitOf(child: ChildProcess): Promise<number> {
   });
 }
 
-/** Keeps the start of the child's error output; the function gives it as text. */
+/**
+ * Keeps the start and the end of the child's error output (the client echoes a failing statement,
+ * however long, before its ERROR line); the function gives them as text.
+ */
 function collectErrors(child: ChildProcess): () => string {
-  const chunks: Buffer[] = [];
-  let kept = 0;
+  const head: Buffer[] = [];
+  let headBytes = 0;
+  let tail = Buffer.alloc(0);
   child.stderr!.on('data', (chunk: Buffer) => {
-    if (kept >= MAX_ERROR_OUTPUT_BYTES) return;
-    chunks.push(chunk.subarray(0, MAX_ERROR_OUTPUT_BYTES - kept));
-    kept += chunk.length;
+    if (headBytes < MAX_ERROR_OUTPUT_BYTES) {
+      head.push(chunk.subarray(0, MAX_ERROR_OUTPUT_BYTES - headBytes));
+      headBytes += chunk.length;
+    }
+    tail = Buffer.concat([tail, chunk]);
+    if (tail.length > MAX_ERROR_OUTPUT_BYTES) tail = tail.subarray(tail.length - MAX_ERROR_OUTPUT_BYTES);
   });
-  return () => Buffer.concat(chunks).toString('utf8');
+  return () => (headBytes > MAX_ERROR_OUTPUT_BYTES ? `${Buffer.concat(head).toString('utf8')}\n${tail.toString('utf8')}` : Buffer.concat(head).toString('utf8'));
 }
 
-/** The first line that says something (warnings about the command line aside), without a trailing stop. */
+/**
+ * The line that says what went wrong: MariaDB's `ERROR nnnn (…) at line n: …` where there is one,
+ * else the first line that is neither a warning about the command line nor the client's echo of
+ * a statement; without a trailing stop.
+ */
 function firstLine(output: string): string {
-  const lines = output.split('\n').map((line) => line.trim()).filter((line) => line && !/^\S+: \[Warning\]/.test(line));
-  return (lines[0] ?? '').replace(/\.$/, '');
+  const lines = output.split('\n').map((line) => line.trim());
+  const error = lines.find((line) => /^ERROR \d+/.test(line));
+  const other = lines.find((line) => line && !/^-+$/.test(line) && !/^\S+: \[Warning\]/.test(line));
+  return (error ?? other ?? '').replace(/\.$/, '');
 }
