@@ -29,15 +29,19 @@ export async function openDatabase(databaseUrl: string): Promise<Sequelize> {
   } catch (error) {
     await sequelize.close().catch(() => undefined);
     const errno = (error as { parent?: { errno?: number }; original?: { errno?: number } }).parent?.errno;
+    const create = `CREATE DATABASE \`${database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`;
     if (errno === ER_BAD_DB) {
+      throw new DomainError('unavailable', 'database_missing', `There is no database ${database} on ${host}:${port}: create it empty (${create}) and give ${username} all rights on it.`);
+    }
+    if (errno === ER_DBACCESS_DENIED) {
       throw new DomainError(
         'unavailable',
-        'database_missing',
-        `There is no database ${database} on ${host}:${port}: create it empty (CREATE DATABASE \`${database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci) and give ${username} all rights on it.`,
+        'database_access_denied',
+        `The account ${username} may not use the database ${database} on ${host}:${port}, or there is no such database: create it empty (${create}) and give ${username} all rights on it.`,
       );
     }
-    if (errno === ER_ACCESS_DENIED || errno === ER_DBACCESS_DENIED) {
-      throw new DomainError('unavailable', 'database_access_denied', `MariaDB on ${host}:${port} refused the account ${username} for the database ${database}: check the user and password in DATABASE_URL.`);
+    if (errno === ER_ACCESS_DENIED) {
+      throw new DomainError('unavailable', 'database_access_denied', `MariaDB on ${host}:${port} refused the account ${username}: check the user and password in DATABASE_URL.`);
     }
     throw new DomainError('unavailable', 'database_unreachable', `MariaDB does not answer on ${host}:${port}: start it, or check the host and port in DATABASE_URL.`);
   }
