@@ -33,7 +33,7 @@ import { DomainError } from '../errors/domain-error';
 import { AircraftType, Airframe, Attachment, CardIssue, initModels, Revision, SigningKey, SpeedBook } from '../models';
 import { verifyStatement } from '../revisions/signing';
 import { createBackup, type BackupResult } from './backup.service';
-import { appliedMigrations, databaseObjects, nextSequenceValue, openDatabase } from './database-contents';
+import { appliedMigrations, databaseObjects, nextSequenceValue, openDatabase, RESTORE_SEQUENCE_GAP } from './database-contents';
 import { restoreBackup, type RestoreResult } from './restore.service';
 
 // Seeding signs revisions and sweeps envelopes, sign-ins hash passwords: minutes on a busy machine.
@@ -82,6 +82,8 @@ interface SourceFacts {
   deviceCursor: string;
   changesSinceCursor: SyncResponse;
   syncSequenceNext: number;
+  /** A cursor from after the backup (the device saw a change the backup does not hold). */
+  cursorAheadOfBackup: string;
 }
 
 let work: string;
@@ -128,7 +130,7 @@ async function addAirframe(admin: Session, aircraftTypeId: number): Promise<numb
 }
 
 /** Fills the source database as people would: the demo seed, then a revision with source pages, cards, a device's sync. */
-async function fillSource(): Promise<Omit<SourceFacts, 'syncSequenceNext'>> {
+async function fillSource(): Promise<Omit<SourceFacts, 'syncSequenceNext' | 'cursorAheadOfBackup'>> {
   const seeding = createSequelize(source.url);
   initModels(seeding);
   await createMigrator(seeding).up();
@@ -183,8 +185,16 @@ beforeAll(async () => {
   backupDir = join(work, 'backup');
   backup = await createBackup({ databaseUrl: source.url, attachmentsDir: sourceAttachments(), outDir: backupDir, appVersion: '0.1.0' });
   const sourceDatabase = await openDatabase(source.url);
-  facts = { ...filled, syncSequenceNext: await nextSequenceValue(sourceDatabase) };
+  const syncSequenceNext = await nextSequenceValue(sourceDatabase);
   await sourceDatabase.close();
+
+  // After the backup the fleet changes once more, and a device syncs it: its cursor is beyond the backup.
+  const lateHarness = startHarness({ DATABASE_URL: source.url, ATTACHMENTS_DIR: sourceAttachments() });
+  const [admin, pilot] = await Promise.all([signIn(lateHarness.app, demoEmail('admin')), signIn(lateHarness.app, demoEmail('pilot'))]);
+  await addAirframe(admin, (await AircraftType.findOne({ where: { designator: 'ZZP1' }, rejectOnEmpty: true })).id);
+  const cursorAheadOfBackup = (await sync(pilot)).cursor;
+  await lateHarness.close();
+  facts = { ...filled, syncSequenceNext, cursorAheadOfBackup };
 
   // The disaster: the database and the attachments are gone.
   await recreateDatabase(source.instance, SOURCE);
@@ -275,12 +285,14 @@ describe('a backup restored into a fresh database', () => {
     }
   });
 
-  it('continues the sync cursor: a device neither misses nor repeats a change', async () => {
+  it('continues the sync cursor: a device neither misses nor repeats a change, even one whose cursor is ahead of the backup', async () => {
+    // The dump carries the sequence's value exactly; the restore then moves it on by the gap.
+    const dumped = /^DO SETVAL\(`sync_change_seq`, (\d+), 0\);$/m.exec(readFileSync(join(backupDir, 'database.sql'), 'utf8'));
+    expect(Number(dumped?.[1])).toBe(facts.syncSequenceNext);
     const restoredDatabase = await openDatabase(target.url);
     try {
-      // The sequence comes back at exactly the value it had, beyond every stamped row.
       const next = await nextSequenceValue(restoredDatabase);
-      expect(next).toBe(facts.syncSequenceNext);
+      expect(next).toBe(facts.syncSequenceNext + RESTORE_SEQUENCE_GAP);
       expect(restored.syncSequenceNext).toBe(next);
       const [stamps] = await restoredDatabase.query<{ high: number }>(
         'SELECT GREATEST((SELECT MAX(change_seq) FROM aircraft_types), (SELECT MAX(change_seq) FROM airframes), (SELECT MAX(change_seq) FROM revisions)) AS high',
@@ -301,6 +313,9 @@ describe('a backup restored into a fresh database', () => {
     const next = await sync(pilot, again.cursor);
     expect({ types: next.aircraftTypes, airframes: next.airframes.map((airframe) => airframe.id), revisions: next.revisions }).toEqual({ types: [], airframes: [added], revisions: [] });
     expect(await sync(pilot, next.cursor)).toMatchObject({ cursor: next.cursor, aircraftTypes: [], airframes: [], revisions: [] });
+    // A device that synced after the backup was made (its change is lost with the old server) still hears of it.
+    const ahead = await sync(pilot, facts.cursorAheadOfBackup);
+    expect({ types: ahead.aircraftTypes, airframes: ahead.airframes.map((airframe) => airframe.id), revisions: ahead.revisions }).toEqual({ types: [], airframes: [added], revisions: [] });
   });
 
   it('signs new publications with the restored key (the server needs the same SIGNING_KEY_SECRET)', async () => {

@@ -111,14 +111,26 @@ export async function dropEverything(sequelize: Sequelize): Promise<void> {
 }
 
 /**
- * Makes sure the sync sequence's next value lies beyond every stamped row, so that a device's
- * next sync neither misses a change made after the restore (a number at or below its cursor) nor
- * gets one twice. The dump already carries the sequence's value (`DO SETVAL`); this guards a
- * database restored from a dump whose snapshot read the sequence before a stamp. SETVAL never
- * moves a sequence back (MariaDB Knowledge Base, SETVAL).
+ * How far a restore moves the sync sequence past what the backup had. Restored rows keep their
+ * numbers, so a device whose cursor is older than the backup gets exactly the changes after its
+ * cursor. But a backup restored after a loss is older than the last sync some devices made: their
+ * cursors lie beyond the backup's numbers, and a change after the restore numbered from the
+ * backup's sequence (a withdrawal, say) would fall at or below such a cursor and never reach
+ * them. Numbering after the restore starts this far on, far more than the changes a server makes
+ * between two backups (a billion: years of writes at ten a second), so every cursor handed out
+ * before the loss is below it. The cursor format carries up to 16 digits (server/sync/sync-cursor.ts).
+ */
+export const RESTORE_SEQUENCE_GAP = 1_000_000_000;
+
+/**
+ * Moves the sync sequence beyond every stamped row and every cursor handed out before the
+ * backup was restored: its next value becomes the larger of the dumped value (`DO SETVAL` in the
+ * dump) and the highest stamp + 1, plus `gap`. A device's next sync then neither misses a change
+ * made after the restore nor gets one twice. SETVAL never moves a sequence back (MariaDB
+ * Knowledge Base, SETVAL).
  * @returns the sequence's next value, or null when the database has no such sequence
  */
-export async function continueSyncSequence(sequelize: Sequelize): Promise<number | null> {
+export async function continueSyncSequence(sequelize: Sequelize, gap = RESTORE_SEQUENCE_GAP): Promise<number | null> {
   const [sequence] = await select<{ n: number }>(
     sequelize,
     "SELECT COUNT(*) AS n FROM information_schema.TABLES WHERE TABLE_SCHEMA = DATABASE() AND TABLE_NAME = ? AND TABLE_TYPE = 'SEQUENCE'",
@@ -130,12 +142,12 @@ export async function continueSyncSequence(sequelize: Sequelize): Promise<number
     "SELECT c.TABLE_NAME AS name FROM information_schema.COLUMNS c JOIN information_schema.TABLES t ON t.TABLE_SCHEMA = c.TABLE_SCHEMA AND t.TABLE_NAME = c.TABLE_NAME AND t.TABLE_TYPE = 'BASE TABLE' WHERE c.TABLE_SCHEMA = DATABASE() AND c.COLUMN_NAME = ? ORDER BY c.TABLE_NAME",
     [SYNC_STAMP_COLUMN],
   );
-  let highest = 0;
+  let lastUsed = (await nextSequenceValue(sequelize)) - 1;
   for (const { name } of stamped) {
     const [row] = await select<{ high: number | null }>(sequelize, `SELECT MAX(${quoted(SYNC_STAMP_COLUMN)}) AS high FROM ${quoted(name)}`);
-    highest = Math.max(highest, Number(row?.high ?? 0));
+    lastUsed = Math.max(lastUsed, Number(row?.high ?? 0));
   }
-  if (highest > 0) await select(sequelize, `SELECT SETVAL(${quoted(SYNC_SEQUENCE)}, ?, 1) AS value`, [highest]);
+  await select(sequelize, `SELECT SETVAL(${quoted(SYNC_SEQUENCE)}, ?, 1) AS value`, [lastUsed + gap]);
   return nextSequenceValue(sequelize);
 }
 
