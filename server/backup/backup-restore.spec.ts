@@ -10,7 +10,7 @@
  */
 import { spawnSync } from 'node:child_process';
 import { createHash, randomUUID, webcrypto } from 'node:crypto';
-import { cpSync, existsSync, mkdirSync, readFileSync, readdirSync, rmSync, unlinkSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, mkdirSync, readFileSync, readdirSync, rmSync, symlinkSync, unlinkSync, writeFileSync } from 'node:fs';
 import { mkdtemp } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -435,6 +435,35 @@ describe('refusals leave the target as it was', () => {
     expect(error?.code).toBe('backup_target_not_empty');
     expect(error?.message).toBe(`${backupDir} already holds files: back up into a new or empty folder, so that no two backups mix.`);
     expect(readdirSync(backupDir).sort()).toEqual(before);
+  });
+
+  it('leaves no partial backup behind when it stops half way (a link in ATTACHMENTS_DIR, after the dump)', async () => {
+    const linked = join(work, `linked-attachments-${randomUUID()}`);
+    mkdirSync(join(linked, '1'), { recursive: true });
+    writeFileSync(join(linked, '1', 'page'), PDF);
+    symlinkSync('/etc/hostname', join(linked, '1', 'elsewhere'));
+    const outDir = join(work, `stopped-${randomUUID()}`);
+    const made = await createBackup({ databaseUrl: target.url, attachmentsDir: linked, outDir, appVersion: '0.1.0' }).then(
+      () => undefined,
+      (thrown: unknown) => thrown as DomainError,
+    );
+    expect(made?.code).toBe('not_a_file');
+    expect(made?.message).toBe(`${join(linked, '1', 'elsewhere')} is a symbolic link; only regular files are backed up and restored.`);
+    expect(existsSync(outDir)).toBe(false);
+    // A folder made for the backup stays, empty.
+    mkdirSync(outDir);
+    await expect(createBackup({ databaseUrl: target.url, attachmentsDir: linked, outDir, appVersion: '0.1.0' })).rejects.toThrow('is a symbolic link');
+    expect(readdirSync(outDir)).toEqual([]);
+  });
+
+  it('says which attachment records have no file in ATTACHMENTS_DIR (a folder set wrongly, a file lost)', async () => {
+    const partialFolder = join(work, `partial-attachments-${randomUUID()}`);
+    cpSync(targetAttachments(), partialFolder, { recursive: true });
+    const lost = await Attachment.findOne({ order: [['id', 'ASC']], rejectOnEmpty: true });
+    unlinkSync(join(partialFolder, String(lost.operatorId), lost.storageName));
+    const made = await createBackup({ databaseUrl: target.url, attachmentsDir: partialFolder, outDir: join(work, `warned-${randomUUID()}`), appVersion: '0.1.0' });
+    expect(made.recordsWithoutFile).toEqual([`${lost.operatorId}/${lost.storageName}`]);
+    expect(made.attachmentFiles).toBe(facts.attachments.length - 1);
   });
 
   it('ends the commands with exit code 1 and one sentence, no stack trace', async () => {
