@@ -481,6 +481,11 @@ describe('refusals leave the target as it was', () => {
     });
     const backupRun = spawnSync(tsx, [join(__dirname, 'backup-cli.ts'), '--out', backupDir], { env, encoding: 'utf8' });
     expect({ status: backupRun.status, stderr: backupRun.stderr }).toEqual({ status: 1, stderr: `${backupDir} already holds files: back up into a new or empty folder, so that no two backups mix.\n` });
+    const check = spawnSync(tsx, [join(__dirname, 'check-cli.ts'), '--from', damaged], { env, encoding: 'utf8' });
+    expect({ status: check.status, stderr: check.stderr }).toEqual({ status: 1, stderr: restoreRun.stderr });
+    const whole = spawnSync(tsx, [join(__dirname, 'check-cli.ts'), '--from', backupDir], { env, encoding: 'utf8' });
+    expect({ status: whole.status, stderr: whole.stderr }).toEqual({ status: 0, stderr: '' });
+    expect(whole.stdout).toMatch(new RegExp(`^The backup in ${backupDir} is whole: 3 files \\(\\d+(\\.\\d)? kB\\) match manifest\\.json, made .+ by Speedwright 0\\.1\\.0; this version can restore it\\.\\n$`));
     const usage = spawnSync(tsx, [join(__dirname, 'backup-cli.ts'), '--into', backupDir], { env, encoding: 'utf8' });
     expect({ status: usage.status, stderr: usage.stderr }).toEqual({ status: 1, stderr: 'Usage: npm run backup -- --out <new folder>\n' });
     await expectEmpty(spare.url, spareAttachments);
