@@ -41,7 +41,7 @@ export interface BackupManifest {
   formatVersion: number;
   /** The Speedwright version (package.json) that wrote the backup. */
   appVersion: string;
-  /** ISO 8601 UTC. */
+  /** When the dump began (its snapshot is of that moment), ISO 8601 UTC. */
   createdAt: string;
   database: { name: string; serverVersion: string };
   /** The migrations applied to the dumped database, oldest first. */

@@ -69,6 +69,7 @@ export async function createBackup(request: BackupRequest): Promise<BackupResult
     const version = await serverVersion(sequelize);
     const { database } = parseDatabaseUrl(request.databaseUrl);
     log(`Dumping the database ${database} (one consistent snapshot)…`);
+    const snapshotAt = request.now?.() ?? new Date();
     const dump = await dumpDatabase(request.databaseUrl, join(outDir, DUMP_FILE));
     if ((await appliedMigrations(sequelize)).join('\n') !== before.join('\n')) {
       throw refused('backup_during_migration', 'Migrations ran while the backup was being made; nothing was kept: run the backup again.');
@@ -82,7 +83,7 @@ export async function createBackup(request: BackupRequest): Promise<BackupResult
       format: BACKUP_FORMAT,
       formatVersion: BACKUP_FORMAT_VERSION,
       appVersion: request.appVersion,
-      createdAt: (request.now?.() ?? new Date()).toISOString(),
+      createdAt: snapshotAt.toISOString(),
       database: { name: database, serverVersion: version },
       migrations: before,
       files: [{ path: DUMP_FILE, ...dump }, ...entries],
