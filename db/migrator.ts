@@ -33,6 +33,11 @@ const MIGRATIONS: { name: string; module: { up: Migration; down: Migration } }[]
   { name: '20261205-0802-user-address-per-operator', module: userAddressPerOperator },
 ];
 
+/** The names of the migrations this build knows, oldest first (a backup's must all be among them). */
+export function migrationNames(): string[] {
+  return MIGRATIONS.map(({ name }) => name);
+}
+
 export function createMigrator(sequelize: Sequelize, logger: Umzug<QueryInterface>['options']['logger'] = undefined): Umzug<QueryInterface> {
   return new Umzug({
     migrations: MIGRATIONS.map(({ name, module }) => ({ name, up: module.up, down: module.down })),
