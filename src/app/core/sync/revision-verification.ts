@@ -2,8 +2,9 @@
  * Checks a revision from `GET /api/sync` before the device stores it: the SHA-256 of its
  * content (shared/speed-book/canonical.ts) must equal the hash it carries, and its Ed25519
  * signature (RFC 8032) over `signedRevisionStatement()` (shared/speed-book/signature.ts) must
- * verify with the operator's public key, through WebCrypto (`crypto.subtle`, Ed25519). No
- * Angular here.
+ * verify with the operator's public key that its `signingKeyId` names — the active key or one
+ * a rotation retired — through WebCrypto (`crypto.subtle`, Ed25519). A revision naming a key
+ * the operator never published is refused. No Angular here.
  */
 import type { SyncRevision } from '../../../../shared/api/sync';
 import { contentSha256 } from '../../../../shared/speed-book/canonical';
@@ -11,10 +12,17 @@ import { signedRevisionStatement } from '../../../../shared/speed-book/signature
 
 export interface VerifyingOperator {
   readonly id: number;
+}
+
+/** One public key of the operator as the server published it. */
+export interface PublishedKey {
+  readonly id: number;
   /** Raw 32-byte Ed25519 public key, standard base64. */
   readonly publicKey: string;
-  readonly signingKeyId: number;
 }
+
+/** The operator's keys by id, imported for WebCrypto (null: the published key is not a raw Ed25519 key). */
+export type OperatorKeys = ReadonlyMap<number, CryptoKey | null>;
 
 export type Verification = { readonly ok: true } | { readonly ok: false; readonly sentence: string };
 
@@ -41,24 +49,33 @@ export async function importOperatorKey(publicKeyBase64: string, subtle: SubtleC
   }
 }
 
+/** Every published key, imported once (a key that does not import stays, as null, so its revisions say why). */
+export async function importOperatorKeys(keys: readonly PublishedKey[], subtle: SubtleCrypto = globalThis.crypto.subtle): Promise<Map<number, CryptoKey | null>> {
+  const imported = new Map<number, CryptoKey | null>();
+  for (const key of keys) imported.set(key.id, await importOperatorKey(key.publicKey, subtle));
+  return imported;
+}
+
 function named(revision: SyncRevision): string {
   return `Revision ${revision.number} of ${revision.speedBookTitle}`;
 }
 
 /**
- * Whether `revision` is exactly what the operator's key signed. `key` is the imported public
- * key of `operator` (null when it could not be imported). The sentence names the revision and
- * what failed, for the person at the device.
+ * Whether `revision` is exactly what the operator's key signed. `keys` are the operator's
+ * published keys by id (`importOperatorKeys`); the revision is checked with the one its
+ * `signingKeyId` names. The sentence names the revision and what failed, for the person at
+ * the device.
  */
 export async function verifyRevision(
   revision: SyncRevision,
   operator: VerifyingOperator,
-  key: CryptoKey | null,
+  keys: OperatorKeys,
   subtle: SubtleCrypto = globalThis.crypto.subtle,
 ): Promise<Verification> {
   const refuse = (why: string): Verification => ({ ok: false, sentence: `${named(revision)} was not stored on this device: ${why} Cards keep using the data already here; tell your operator's administrator.` });
-  if (key === null) return refuse('the operator’s public key the server sent is not a valid Ed25519 key.');
-  if (revision.signingKeyId !== operator.signingKeyId) return refuse('it was signed with a key this device does not have.');
+  if (!keys.has(revision.signingKeyId)) return refuse(`it names signing key No. ${revision.signingKeyId}, which your operator never published.`);
+  const key = keys.get(revision.signingKeyId) ?? null;
+  if (key === null) return refuse(`the operator’s public key No. ${revision.signingKeyId} the server sent is not a valid Ed25519 key.`);
   let hash: string;
   try {
     hash = contentSha256(revision.content);
@@ -82,5 +99,5 @@ export async function verifyRevision(
   } catch {
     valid = false;
   }
-  return valid ? { ok: true } : refuse('its signature does not verify with the operator’s public key, so it may have been changed or not come from your operator.');
+  return valid ? { ok: true } : refuse(`its signature does not verify with the operator’s public key No. ${revision.signingKeyId}, so it may have been changed or not come from your operator.`);
 }
