@@ -64,7 +64,7 @@ async function createSigningKey(operatorId: number, secret: string, transaction:
  * The operator's active key, made (and stored encrypted) when it has none. Locks the operator's
  * row so two first publications at once make one key.
  */
-export async function activeSigningKey(operatorId: number, secret: string, transaction: Transaction, actor?: Actor): Promise<SigningKey> {
+export async function activeSigningKey(operatorId: number, secret: string, transaction: Transaction, actor?: Pick<Actor, 'origin'> & { userId?: number }): Promise<SigningKey> {
   await Operator.findByPk(operatorId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
   const existing = await SigningKey.findOne({ where: { operatorId, active: true }, order: [['id', 'DESC']], transaction });
   if (existing) return existing;
