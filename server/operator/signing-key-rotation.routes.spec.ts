@@ -4,11 +4,12 @@ import { sessionUserSchema } from '../../shared/api/auth';
 import { signingKeyResponseSchema } from '../../shared/api/revisions';
 import { auditPageSchema } from '../../shared/api/audit';
 import { buildCard, type CardInputs } from '../../shared/card';
-import { verifyResponseSchema } from '../../shared/card-check/verify-api';
+import { verifyResponseSchema, verifySourceResponseSchema } from '../../shared/card-check/verify-api';
 import { demoPistonTrainerContentRevised } from '../../shared/speed-book/demo-content';
 import { signedRevisionStatement } from '../../shared/speed-book/signature';
 import { SpeedwrightDeviceDatabase, type CardLogRecord, type RevisionRecord } from '../../src/app/core/storage/device-database';
 import { runSync } from '../../src/app/core/sync/device-sync';
+import { checkSourceSignature } from '../../src/app/check/source-signature';
 import { agentTransport } from '../../test/api/device-sync-transport';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { newSpeedBook, newTeam, publish, type Session } from '../../test/api/test-helpers';
@@ -128,6 +129,15 @@ describe('POST /api/operator/signing-key/rotate', () => {
     const newCheck = verifyResponseSchema.parse((await pilot.agent.get(`/api/verify/${await codeOf(newCard.id)}`).expect(200)).body);
     expect(oldCheck).toMatchObject({ status: 'superseded', revision: { number: 1 } });
     expect(newCheck).toMatchObject({ status: 'current', revision: { number: 2 } });
+    // The check page's source names each revision's own key, and its signature verifies as the page checks it.
+    const oldSource = verifySourceResponseSchema.parse((await pilot.agent.get(`/api/verify/${await codeOf(oldCard.id)}/source`).expect(200)).body);
+    const newSource = verifySourceResponseSchema.parse((await pilot.agent.get(`/api/verify/${await codeOf(newCard.id)}/source`).expect(200)).body);
+    expect(oldSource.signature).toMatchObject({ keyId: oldKey.id, publicKey: oldKey.publicKey, keyRetiredAt: rotated.signingKeys[1]!.retiredAt });
+    expect(newSource.signature).toMatchObject({ keyId: newKey.id, publicKey: newKey.publicKey, keyRetiredAt: null });
+    expect(await checkSourceSignature(oldSource)).toEqual({ kind: 'verified', keyId: oldKey.id, keyRetiredAt: rotated.signingKeys[1]!.retiredAt });
+    expect(await checkSourceSignature(newSource)).toEqual({ kind: 'verified', keyId: newKey.id, keyRetiredAt: null });
+    // The old revision presented with the new key does not verify.
+    expect((await checkSourceSignature({ ...oldSource, signature: { ...oldSource.signature, keyId: newKey.id, publicKey: newKey.publicKey } })).kind).toBe('refused');
 
     // Audited, with the key ids.
     const events = auditPageSchema.parse((await admin.agent.get('/api/audit?action=signing-key.rotated').expect(200)).body).events;

@@ -60,33 +60,35 @@ function named(revision: SyncRevision): string {
   return `Revision ${revision.number} of ${revision.speedBookTitle}`;
 }
 
+/** The fields of a published revision its signature covers, with the signature and the key id it names. */
+export type SignedRevision = Pick<SyncRevision, 'id' | 'speedBookId' | 'number' | 'publishedAt' | 'content' | 'contentSha256' | 'signature' | 'signingKeyId'>;
+
 /**
- * Whether `revision` is exactly what the operator's key signed. `keys` are the operator's
- * published keys by id (`importOperatorKeys`); the revision is checked with the one its
- * `signingKeyId` names. The sentence names the revision and what failed, for the person at
- * the device.
+ * Why `revision` is not exactly what the operator's key signed (a clause ending with a full
+ * stop), or null when it is. `keys` are the operator's published keys by id
+ * (`importOperatorKeys`); the revision is checked with the one its `signingKeyId` names. The
+ * device's sync and the check page share it.
  */
-export async function verifyRevision(
-  revision: SyncRevision,
-  operator: VerifyingOperator,
+export async function revisionSignatureProblem(
+  revision: SignedRevision,
+  operatorId: number,
   keys: OperatorKeys,
   subtle: SubtleCrypto = globalThis.crypto.subtle,
-): Promise<Verification> {
-  const refuse = (why: string): Verification => ({ ok: false, sentence: `${named(revision)} was not stored on this device: ${why} Cards keep using the data already here; tell your operator's administrator.` });
-  if (!keys.has(revision.signingKeyId)) return refuse(`it names signing key No. ${revision.signingKeyId}, which your operator never published.`);
+): Promise<string | null> {
+  if (!keys.has(revision.signingKeyId)) return `it names signing key No. ${revision.signingKeyId}, which your operator never published.`;
   const key = keys.get(revision.signingKeyId) ?? null;
-  if (key === null) return refuse(`the operator’s public key No. ${revision.signingKeyId} the server sent is not a valid Ed25519 key.`);
+  if (key === null) return `the operator’s public key No. ${revision.signingKeyId} the server sent is not a valid Ed25519 key.`;
   let hash: string;
   try {
     hash = contentSha256(revision.content);
   } catch {
-    return refuse('its content cannot be read.');
+    return 'its content cannot be read.';
   }
-  if (hash !== revision.contentSha256) return refuse('its content does not match the hash it was published with, so it may have been changed.');
+  if (hash !== revision.contentSha256) return 'its content does not match the hash it was published with, so it may have been changed.';
   const signature = base64Bytes(revision.signature);
-  if (!signature || signature.length !== 64) return refuse('its signature is not a valid Ed25519 signature.');
+  if (!signature || signature.length !== 64) return 'its signature is not a valid Ed25519 signature.';
   const statement = signedRevisionStatement({
-    operatorId: operator.id,
+    operatorId,
     speedBookId: revision.speedBookId,
     revisionId: revision.id,
     number: revision.number,
@@ -99,5 +101,20 @@ export async function verifyRevision(
   } catch {
     valid = false;
   }
-  return valid ? { ok: true } : refuse(`its signature does not verify with the operator’s public key No. ${revision.signingKeyId}, so it may have been changed or not come from your operator.`);
+  return valid ? null : `its signature does not verify with the operator’s public key No. ${revision.signingKeyId}, so it may have been changed or not come from your operator.`;
+}
+
+/**
+ * Whether a revision from a sync may be stored: `revisionSignatureProblem`, with the sentence
+ * naming the revision and what failed, for the person at the device.
+ */
+export async function verifyRevision(
+  revision: SyncRevision,
+  operator: VerifyingOperator,
+  keys: OperatorKeys,
+  subtle: SubtleCrypto = globalThis.crypto.subtle,
+): Promise<Verification> {
+  const why = await revisionSignatureProblem(revision, operator.id, keys, subtle);
+  if (why === null) return { ok: true };
+  return { ok: false, sentence: `${named(revision)} was not stored on this device: ${why} Cards keep using the data already here; tell your operator's administrator.` };
 }
