@@ -92,11 +92,20 @@ function keysShown(answer: SigningKeyResponse): { active: KeyShown; all: KeyShow
               before it keeps it. Keys a rotation retired still verify the revisions they signed. The private halves never leave the server.
             </p>
             <dl>
-              <dt>Key</dt>
-              <dd>No. {{ key.id }}, Ed25519, made {{ key.created }}</dd>
+              <dt>Active key</dt>
+              <dd>No. {{ key.id }}, Ed25519, made {{ key.created }}: signs new publications</dd>
               <dt>Public key</dt>
               <dd class="sw-mono key" data-testid="public-key">{{ key.publicKey }}</dd>
             </dl>
+            <div class="actions">
+              <button mat-stroked-button type="button" (click)="rotateKey()" [disabled]="rotating()" data-testid="rotate-key">
+                <mat-icon>refresh</mat-icon>{{ rotating() ? 'Rotating…' : 'Rotate the signing key…' }}
+              </button>
+              <p role="status" data-testid="key-status">{{ keyStatus() }}</p>
+            </div>
+            @if (rotateProblem(); as problem) {
+              <p class="sw-problem" role="alert" data-testid="key-error"><mat-icon aria-hidden="true">error</mat-icon>{{ problem }}</p>
+            }
             @if (retiredKeys().length) {
               <h3 id="retired-heading">Retired keys</h3>
               <p>They sign nothing new; devices and the card check keep them to verify what they signed.</p>
@@ -108,15 +117,6 @@ function keysShown(answer: SigningKeyResponse): { active: KeyShown; all: KeyShow
                   </li>
                 }
               </ul>
-            }
-            <div class="actions">
-              <button mat-stroked-button type="button" (click)="rotateKey()" [disabled]="rotating()" data-testid="rotate-key">
-                <mat-icon>refresh</mat-icon>{{ rotating() ? 'Rotating…' : 'Rotate the signing key…' }}
-              </button>
-              <p role="status" data-testid="key-status">{{ keyStatus() }}</p>
-            </div>
-            @if (rotateProblem(); as problem) {
-              <p class="sw-problem" role="alert" data-testid="key-error"><mat-icon aria-hidden="true">error</mat-icon>{{ problem }}</p>
             }
           </section>
         }
