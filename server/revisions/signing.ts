@@ -88,9 +88,12 @@ export async function publicSigningKey(operatorId: number, secret: string, actor
 
 /** The operator's active key and every key it ever had (newest first), made on first need like `publicSigningKey`. */
 export async function publishedSigningKeys(operatorId: number, secret: string, actor?: Actor): Promise<{ active: SigningKey; all: SigningKey[] }> {
-  const active = await publicSigningKey(operatorId, secret, actor);
+  // One plain read in the usual case (a sync runs it on every call); only an operator without a key yet locks.
   const all = await SigningKey.findAll({ where: { operatorId }, order: [['id', 'DESC']] });
-  return { active, all };
+  const active = all.find((key) => key.active);
+  if (active) return { active, all };
+  const made = await transact((transaction) => activeSigningKey(operatorId, secret, transaction, actor));
+  return { active: made, all: await SigningKey.findAll({ where: { operatorId }, order: [['id', 'DESC']] }) };
 }
 
 /**

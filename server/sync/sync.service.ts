@@ -32,11 +32,12 @@ async function changedRows(table: 'aircraft_types' | 'airframes' | 'revisions', 
 export async function syncSince(actor: Actor, cursor: string | undefined, signingKeySecret: string): Promise<SyncResponse> {
   const since = decodeCursor(cursor);
   const { operatorId } = actor;
-  const [types, frames, revs, operator] = await Promise.all([
+  const [types, frames, revs, operator, keysFirstRead] = await Promise.all([
     changedRows('aircraft_types', operatorId, since),
     changedRows('airframes', operatorId, since),
     changedRows('revisions', operatorId, since),
     Operator.findByPk(operatorId, { rejectOnEmpty: true }),
+    publishedSigningKeys(operatorId, signingKeySecret, actor),
   ]);
   const high = Math.max(since, ...[...types, ...frames, ...revs].map((row) => Number(row.change_seq)));
 
@@ -46,8 +47,10 @@ export async function syncSince(actor: Actor, cursor: string | undefined, signin
     frames.length ? Airframe.findAll({ where: { operatorId, id: { [Op.in]: idsOf(frames) } }, order: [['id', 'ASC']] }) : [],
     revs.length ? Revision.findAll({ where: { operatorId, id: { [Op.in]: idsOf(revs) }, status: [...SYNCED_STATUSES], signature: { [Op.ne]: null } }, order: [['id', 'ASC']] }) : [],
   ]);
-  // Read after the revisions: a revision's key is committed before the revision that names it, so every key sent revisions name is here.
-  const keys = await publishedSigningKeys(operatorId, signingKeySecret, actor);
+  // A rotation and a publication may commit between the reads above: a key is committed before any
+  // revision naming it, so reading the keys again then gives every key the sent revisions name.
+  const known = new Set(keysFirstRead.all.map((one) => one.id));
+  const keys = revisions.some((revision) => !known.has(revision.signingKeyId!)) ? await publishedSigningKeys(operatorId, signingKeySecret, actor) : keysFirstRead;
   const key = keys.active;
   const books = revisions.length ? await SpeedBook.findAll({ where: { operatorId, id: { [Op.in]: [...new Set(revisions.map((r) => r.speedBookId))] } } }) : [];
   const bookById = new Map(books.map((book) => [book.id, book]));
