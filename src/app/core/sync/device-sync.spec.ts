@@ -336,6 +336,18 @@ describe('applySync', () => {
     expect(await db.syncState.get(OPERATOR_ID)).toMatchObject({ cursor: 'c1' });
   });
 
+  it('never lets a later answer change the public key of a key id it holds: a revision signed by a substitute is refused', async () => {
+    const genuine = await newSigner(9);
+    await applySync(db, OPERATOR_ID, response(genuine, 'c1', [await genuine.sign(revisionFields(21, 1, 'published', demoPistonTrainerContent()))]));
+    // An answer claiming another public key for key No. 9, with a revision signed by it.
+    const substitute = await newSigner(9);
+    const forged = await substitute.sign(revisionFields(22, 2, 'published', demoPistonTrainerContentRevised()));
+    const outcome = await applySync(db, OPERATOR_ID, response(substitute, 'c2', [forged]));
+    expect(outcome.refused).toEqual([expect.objectContaining({ revisionId: 22, sentence: expect.stringContaining('signature does not verify with the operator’s public key No. 9') })]);
+    expect((await db.signingKeys.get(9))!.publicKey).toBe(genuine.publicKey);
+    expect(await db.revisions.get(22)).toBeUndefined();
+  });
+
   it('refuses an answer about another operator and stores nothing', async () => {
     const signer = await newSigner();
     const other = response(signer, 'c1', []);

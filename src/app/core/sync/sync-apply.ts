@@ -71,15 +71,20 @@ export async function applySync(db: SpeedwrightDeviceDatabase, operatorId: numbe
 /**
  * The operator's public keys once this answer is applied: every key the answer lists (the
  * active one included), and the keys this device learned at earlier syncs that the answer
- * does not name — a device never forgets a key, so what it verified stays explained. A key id
- * the answer gives again takes the answer's public key and retirement.
+ * does not name — a device never forgets a key, so what it verified stays explained. A key
+ * never changes on a device either: for a key id it already holds, only the retirement is
+ * taken from the answer, never another public key, so revisions signed by a substituted key
+ * under an old id are refused.
  */
 async function operatorKeysAfter(db: SpeedwrightDeviceDatabase, operatorId: number, response: SyncResponse): Promise<SigningKeyRecord[]> {
   const byId = new Map<number, SigningKeyRecord>();
   for (const stored of await db.signingKeys.where('operatorId').equals(operatorId).toArray()) byId.set(stored.id, stored);
   const { signingKeyId, publicKey } = response.operator;
-  if (!response.operator.signingKeys.some((key) => key.id === signingKeyId)) byId.set(signingKeyId, { id: signingKeyId, operatorId, publicKey, retiredAt: null });
-  for (const key of response.operator.signingKeys) byId.set(key.id, { ...key, operatorId });
+  const listed = response.operator.signingKeys.some((key) => key.id === signingKeyId) ? response.operator.signingKeys : [...response.operator.signingKeys, { id: signingKeyId, publicKey, retiredAt: null }];
+  for (const key of listed) {
+    const stored = byId.get(key.id);
+    byId.set(key.id, stored ? { ...stored, retiredAt: key.retiredAt } : { ...key, operatorId });
+  }
   return [...byId.values()];
 }
 
