@@ -53,6 +53,7 @@ const ACCESS: Record<string, Rule> = {
   'GET /api/operator/settings': 'manage-people',
   'PATCH /api/operator/settings': 'manage-people',
   'GET /api/operator/signing-key': 'read-published',
+  'POST /api/operator/signing-key/rotate': 'manage-people',
   'GET /api/aircraft-types': 'read-published',
   'GET /api/aircraft-types/:id': 'read-published',
   'POST /api/aircraft-types': 'manage-fleet',

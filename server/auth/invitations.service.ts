@@ -36,8 +36,12 @@ export interface IssuedInvitation {
   expiresAt: Date;
 }
 
-/** Creates an invitation for `user` (revoking earlier unused ones) inside the caller's transaction. */
-export async function issueInvitation(user: User, invitedById: number, transaction: Transaction): Promise<IssuedInvitation> {
+/**
+ * Creates an invitation for `user` (revoking earlier unused ones) inside the caller's
+ * transaction. `invitedById` is null when no person invited them (the first administrator of
+ * an operator set up from the command line).
+ */
+export async function issueInvitation(user: User, invitedById: number | null, transaction: Transaction): Promise<IssuedInvitation> {
   const now = new Date();
   await Invitation.update({ revokedAt: now }, { where: { userId: user.id, usedAt: null, revokedAt: null }, transaction });
   const { token, tokenHash } = newLinkToken();
@@ -49,10 +53,18 @@ export async function issueInvitation(user: User, invitedById: number, transacti
   return { token, expiresAt };
 }
 
-/** Mails the invitation; resolves whether the mail server took it. Call after the commit. */
-export async function sendInvitation(user: User, invitedById: number, invitation: IssuedInvitation): Promise<boolean> {
-  const [operator, invitedBy] = await Promise.all([Operator.findByPk(user.operatorId), User.findByPk(invitedById)]);
-  const link = outbox().link('/invitation', { token: invitation.token });
+/** The link an invitation mail carries (its token after `#`, never in server logs). */
+export function invitationLink(invitation: IssuedInvitation): string {
+  return outbox().link('/invitation', { token: invitation.token });
+}
+
+/**
+ * Mails the invitation; resolves whether the mail server took it. Call after the commit.
+ * `invitedById` null: nobody of the operator invited them; the mail names `Your IT team`.
+ */
+export async function sendInvitation(user: User, invitedById: number | null, invitation: IssuedInvitation): Promise<boolean> {
+  const [operator, invitedBy] = await Promise.all([Operator.findByPk(user.operatorId), invitedById === null ? null : User.findByPk(invitedById)]);
+  const link = invitationLink(invitation);
   const addressInUse = (await signingInAccount(user.email)) !== null;
   return outbox().send(
     invitationMail({
@@ -60,7 +72,7 @@ export async function sendInvitation(user: User, invitedById: number, invitation
       to: user.email,
       displayName: user.displayName,
       operatorName: operator?.name ?? 'your operator',
-      invitedBy: invitedBy?.displayName ?? 'Your administrator',
+      invitedBy: invitedBy?.displayName ?? (invitedById === null ? 'Your IT team' : 'Your administrator'),
       link,
       expiresAt: invitation.expiresAt,
     }),

@@ -3,6 +3,8 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 /**
  * An operator's Ed25519 key pair. The public key is served to devices as the raw 32 bytes in
  * standard base64; the private key is kept only encrypted (server/revisions/signing.ts).
+ * One key per operator is active (new publications); a rotation retires it (`active` false,
+ * `retiredAt` set) and keeps it, so the revisions it signed stay verifiable.
  */
 export class SigningKey extends Model<InferAttributes<SigningKey>, InferCreationAttributes<SigningKey>> {
   declare id: CreationOptional<number>;
@@ -10,6 +12,8 @@ export class SigningKey extends Model<InferAttributes<SigningKey>, InferCreation
   declare publicKey: string;
   declare encryptedPrivateKey: string;
   declare active: CreationOptional<boolean>;
+  /** When a rotation replaced it; null while it is the active key. */
+  declare retiredAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -21,6 +25,7 @@ export class SigningKey extends Model<InferAttributes<SigningKey>, InferCreation
         publicKey: { type: DataTypes.STRING(64), allowNull: false },
         encryptedPrivateKey: { type: DataTypes.TEXT, allowNull: false },
         active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+        retiredAt: { type: DataTypes.DATE, allowNull: true, defaultValue: null },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -236,7 +236,14 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   route('get', '/api/attachments/:id', { summary: 'The file of a source page, inline, with its content type', tags: ['revisions'], who: 'read-published (drafts: edit-speed-books)', params: true, ok: { status: 200, description: 'The file (application/pdf, image/png or image/jpeg)' }, errors: [410] });
   route('delete', '/api/attachments/:id', { summary: 'Remove a source page while the revision is a draft', tags: ['revisions'], who: 'edit-speed-books', params: true, ok: { status: 204, description: 'Removed' }, errors: [409] });
 
-  route('get', '/api/operator/signing-key', { summary: 'The operator’s Ed25519 public key', tags: ['operator'], who: 'read-published', ok: { status: 200, schema: signingKeyResponseSchema } });
+  route('get', '/api/operator/signing-key', {
+    summary: 'The operator’s Ed25519 public keys: `signingKey` the active one (new publications), `signingKeys` every key it ever published with, retired ones with `retiredAt`, newest first',
+    tags: ['operator'], who: 'read-published', ok: { status: 200, schema: signingKeyResponseSchema },
+  });
+  route('post', '/api/operator/signing-key/rotate', {
+    summary: 'Rotate the signing key: a new active key for new publications; the old one retired, kept and still served so what it signed stays verifiable (audited `signing-key.rotated`)',
+    tags: ['operator'], who: 'manage-people', ok: { status: 201, schema: signingKeyResponseSchema },
+  });
   route('get', '/api/operator/settings', { summary: 'The operator’s settings (the currency limit in days)', tags: ['operator'], who: 'manage-people', ok: { status: 200, schema: operatorSettingsResponseSchema } });
   route('patch', '/api/operator/settings', { summary: 'Change the operator’s settings (the currency limit in days)', tags: ['operator'], who: 'manage-people', body: operatorSettingsSchema, ok: { status: 200, schema: operatorSettingsResponseSchema } });
   route('get', '/api/sync', { summary: 'Published data changed since a cursor (everything without one), for offline devices', tags: ['sync'], who: 'read-published', query: syncQuerySchema, ok: { status: 200, schema: syncResponseSchema } });

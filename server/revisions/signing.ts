@@ -48,21 +48,27 @@ export function publicKeyFromRaw(publicKeyBase64: string): KeyObject {
   return createPublicKey({ key: { kty: 'OKP', crv: 'Ed25519', x: Buffer.from(publicKeyBase64, 'base64').toString('base64url') }, format: 'jwk' });
 }
 
-/**
- * The operator's active key, made (and stored encrypted) when it has none. Locks the operator's
- * row so two first publications at once make one key.
- */
-export async function activeSigningKey(operatorId: number, secret: string, transaction: Transaction, actor?: Actor): Promise<SigningKey> {
-  await Operator.findByPk(operatorId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
-  const existing = await SigningKey.findOne({ where: { operatorId, active: true }, order: [['id', 'DESC']], transaction });
-  if (existing) return existing;
+/** A new key pair for the operator, stored active with its private half encrypted, read back as stored. */
+async function createSigningKey(operatorId: number, secret: string, transaction: Transaction): Promise<SigningKey> {
   const { publicKey, privateKey } = generateKeyPairSync('ed25519');
   const key = await SigningKey.create(
-    { operatorId, publicKey: rawPublicKey(publicKey), encryptedPrivateKey: encryptPrivateKey(privateKey, secret), active: true },
+    { operatorId, publicKey: rawPublicKey(publicKey), encryptedPrivateKey: encryptPrivateKey(privateKey, secret), active: true, retiredAt: null },
     { transaction },
   );
   // As stored (whole seconds), so the first answer matches every later one.
   await key.reload({ transaction });
+  return key;
+}
+
+/**
+ * The operator's active key, made (and stored encrypted) when it has none. Locks the operator's
+ * row so two first publications at once make one key.
+ */
+export async function activeSigningKey(operatorId: number, secret: string, transaction: Transaction, actor?: Pick<Actor, 'origin'> & { userId?: number }): Promise<SigningKey> {
+  await Operator.findByPk(operatorId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
+  const existing = await SigningKey.findOne({ where: { operatorId, active: true }, order: [['id', 'DESC']], transaction });
+  if (existing) return existing;
+  const key = await createSigningKey(operatorId, secret, transaction);
   await recordAudit(
     { operatorId, actorId: actor?.userId ?? null, action: 'signing-key.created', entityType: 'signing-key', entityId: key.id, details: { algorithm: 'Ed25519', publicKey: key.publicKey }, origin: actor?.origin },
     transaction,
@@ -78,6 +84,49 @@ export async function activeSigningKey(operatorId: number, secret: string, trans
 export async function publicSigningKey(operatorId: number, secret: string, actor?: Actor): Promise<SigningKey> {
   const existing = await SigningKey.findOne({ where: { operatorId, active: true }, order: [['id', 'DESC']] });
   return existing ?? transact((transaction) => activeSigningKey(operatorId, secret, transaction, actor));
+}
+
+/** The operator's active key and every key it ever had (newest first), made on first need like `publicSigningKey`. */
+export async function publishedSigningKeys(operatorId: number, secret: string, actor?: Actor): Promise<{ active: SigningKey; all: SigningKey[] }> {
+  // One plain read in the usual case (a sync runs it on every call); only an operator without a key yet locks.
+  const all = await SigningKey.findAll({ where: { operatorId }, order: [['id', 'DESC']] });
+  const active = all.find((key) => key.active);
+  if (active) return { active, all };
+  const made = await transact((transaction) => activeSigningKey(operatorId, secret, transaction, actor));
+  return { active: made, all: await SigningKey.findAll({ where: { operatorId }, order: [['id', 'DESC']] }) };
+}
+
+/**
+ * Signing-key rotation: a new Ed25519 key becomes the operator's active key, and the key it
+ * replaces is retired — kept, with its public half still served, so every revision it signed
+ * stays verifiable; only new publications use the new key. The operator row is locked, so a
+ * rotation and a publication (or two rotations) never interleave: a publication signs with
+ * either the old key before the rotation or the new one after it. Audited as
+ * `signing-key.rotated`, in the same transaction.
+ */
+export async function rotateSigningKey(actor: Actor, secret: string): Promise<{ active: SigningKey; retired: SigningKey[] }> {
+  return transact(async (transaction) => {
+    const { operatorId } = actor;
+    await Operator.findByPk(operatorId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
+    const retiring = await SigningKey.findAll({ where: { operatorId, active: true }, order: [['id', 'ASC']], transaction });
+    // Whole seconds, as the DATETIME column keeps it.
+    const retiredAt = new Date(Math.floor(Date.now() / 1000) * 1000);
+    for (const key of retiring) await key.update({ active: false, retiredAt }, { transaction });
+    const active = await createSigningKey(operatorId, secret, transaction);
+    await recordAudit(
+      {
+        operatorId,
+        actorId: actor.userId,
+        action: 'signing-key.rotated',
+        entityType: 'signing-key',
+        entityId: active.id,
+        details: { algorithm: 'Ed25519', publicKey: active.publicKey, retiredKeyIds: retiring.map((key) => key.id) },
+        origin: actor.origin,
+      },
+      transaction,
+    );
+    return { active, retired: retiring };
+  });
 }
 
 /** Ed25519 signature (64 bytes, standard base64) of the UTF-8 bytes of `statement`. */

@@ -3,7 +3,7 @@ import type { SyncResponse, SyncRevision } from '../../shared/api/sync';
 import type { Actor } from '../audit/actor';
 import { aircraftTypeView, airframeView } from '../fleet/fleet.service';
 import { AircraftType, Airframe, Operator, Revision, SpeedBook } from '../models';
-import { publicSigningKey } from '../revisions/signing';
+import { publishedSigningKeys } from '../revisions/signing';
 import { decodeCursor, encodeCursor } from './sync-cursor';
 import { database } from '../transactions';
 
@@ -32,12 +32,12 @@ async function changedRows(table: 'aircraft_types' | 'airframes' | 'revisions', 
 export async function syncSince(actor: Actor, cursor: string | undefined, signingKeySecret: string): Promise<SyncResponse> {
   const since = decodeCursor(cursor);
   const { operatorId } = actor;
-  const [types, frames, revs, operator, key] = await Promise.all([
+  const [types, frames, revs, operator, keysFirstRead] = await Promise.all([
     changedRows('aircraft_types', operatorId, since),
     changedRows('airframes', operatorId, since),
     changedRows('revisions', operatorId, since),
     Operator.findByPk(operatorId, { rejectOnEmpty: true }),
-    publicSigningKey(operatorId, signingKeySecret, actor),
+    publishedSigningKeys(operatorId, signingKeySecret, actor),
   ]);
   const high = Math.max(since, ...[...types, ...frames, ...revs].map((row) => Number(row.change_seq)));
 
@@ -47,12 +47,26 @@ export async function syncSince(actor: Actor, cursor: string | undefined, signin
     frames.length ? Airframe.findAll({ where: { operatorId, id: { [Op.in]: idsOf(frames) } }, order: [['id', 'ASC']] }) : [],
     revs.length ? Revision.findAll({ where: { operatorId, id: { [Op.in]: idsOf(revs) }, status: [...SYNCED_STATUSES], signature: { [Op.ne]: null } }, order: [['id', 'ASC']] }) : [],
   ]);
+  // A rotation and a publication may commit between the reads above: a key is committed before any
+  // revision naming it, so reading the keys again then gives every key the sent revisions name.
+  const known = new Set(keysFirstRead.all.map((one) => one.id));
+  const keys = revisions.some((revision) => !known.has(revision.signingKeyId!)) ? await publishedSigningKeys(operatorId, signingKeySecret, actor) : keysFirstRead;
+  const key = keys.active;
   const books = revisions.length ? await SpeedBook.findAll({ where: { operatorId, id: { [Op.in]: [...new Set(revisions.map((r) => r.speedBookId))] } } }) : [];
   const bookById = new Map(books.map((book) => [book.id, book]));
 
   return {
     cursor: encodeCursor(high),
-    operator: { id: operator.id, name: operator.name, isDemo: operator.isDemo, publicKey: key.publicKey, signingKeyId: key.id, currencyLimitDays: operator.currencyLimitDays },
+    operator: {
+      id: operator.id,
+      name: operator.name,
+      isDemo: operator.isDemo,
+      publicKey: key.publicKey,
+      signingKeyId: key.id,
+      // Every key, every time (a handful of rows): a device that missed a rotation still learns the key its revisions name.
+      signingKeys: keys.all.map((one) => ({ id: one.id, publicKey: one.publicKey, createdAt: one.createdAt.toISOString(), retiredAt: one.retiredAt?.toISOString() ?? null })),
+      currencyLimitDays: operator.currencyLimitDays,
+    },
     aircraftTypes: aircraftTypes.map(aircraftTypeView),
     airframes: airframes.map(airframeView),
     revisions: revisions.map((revision) => syncRevisionView(revision, bookById.get(revision.speedBookId)!)),

@@ -127,7 +127,8 @@ describe('GET /api/verify/:code/source', () => {
     const card = await issue(revisionId, cardInputs);
     const res = await request(harness.app).get(`/api/verify/${card.code}/source`).expect(200);
     const source = verifySourceResponseSchema.parse(res.body);
-    expect(Object.keys(res.body).sort()).toEqual(['context', 'digest', 'revision']);
+    expect(Object.keys(res.body).sort()).toEqual(['context', 'digest', 'revision', 'signature']);
+    expect(Object.keys(res.body.signature).sort()).toEqual(['algorithm', 'keyId', 'keyRetiredAt', 'operatorId', 'publicKey', 'value']);
     expect(Object.keys(res.body.revision).sort()).toEqual(['content', 'contentSha256', 'id', 'number', 'publishedAt']);
     expect(Object.keys(res.body.context).sort()).toEqual(['aircraftType', 'airframe', 'demo', 'speedBook']);
     expect(res.headers['set-cookie']).toBeUndefined();

@@ -65,25 +65,32 @@ interface SourceRow {
   speed_book_id: number;
   title: string;
   is_demo: number | boolean;
+  operator_id: number;
+  signature: string | null;
+  signing_key_id: number | null;
+  public_key: string | null;
+  key_retired_at: Date | null;
 }
 
 const SOURCE_SQL = `
   SELECT ci.digest, r.id AS revision_id, r.number, r.published_at, r.content_sha256, r.content, r.status,
          a.id AS airframe_id, a.registration, t.designator, t.name AS type_name,
-         b.id AS speed_book_id, b.title, o.is_demo
+         b.id AS speed_book_id, b.title, o.is_demo,
+         ci.operator_id, r.signature, r.signing_key_id, k.public_key, k.retired_at AS key_retired_at
   FROM card_issues ci
   JOIN revisions r ON r.id = ci.revision_id AND r.operator_id = ci.operator_id
   JOIN airframes a ON a.id = ci.airframe_id AND a.operator_id = ci.operator_id
   JOIN speed_books b ON b.id = r.speed_book_id AND b.operator_id = ci.operator_id
   JOIN aircraft_types t ON t.id = b.aircraft_type_id AND t.operator_id = ci.operator_id
   JOIN operators o ON o.id = ci.operator_id
+  LEFT JOIN signing_keys k ON k.id = r.signing_key_id AND k.operator_id = ci.operator_id
   WHERE ci.code = ?
   LIMIT 1`;
 
-/** What the card with `code` was built from; undefined for an unknown code. */
+/** What the card with `code` was built from; undefined for an unknown code (or a revision without its signature, which no card rests on). */
 export async function cardSourceOf(reads: ReadPool, code: string): Promise<VerifySource | undefined> {
   const row = await reads.firstRow<SourceRow>( SOURCE_SQL, [code]);
-  if (!row || !STATUS[row.status] || !row.published_at || !row.content_sha256) return undefined;
+  if (!row || !STATUS[row.status] || !row.published_at || !row.content_sha256 || !row.signature || row.signing_key_id === null || !row.public_key) return undefined;
   return {
     digest: row.digest,
     revision: {
@@ -98,6 +105,14 @@ export async function cardSourceOf(reads: ReadPool, code: string): Promise<Verif
       aircraftType: { designator: row.designator, name: row.type_name },
       speedBook: { id: row.speed_book_id, title: row.title },
       demo: Boolean(row.is_demo),
+    },
+    signature: {
+      algorithm: 'Ed25519',
+      operatorId: row.operator_id,
+      keyId: row.signing_key_id,
+      publicKey: row.public_key,
+      keyRetiredAt: row.key_retired_at ? new Date(row.key_retired_at).toISOString() : null,
+      value: row.signature,
     },
   };
 }

@@ -35,3 +35,9 @@ export const auditPageSchema = z.object({
   /** Pass as `cursor` for the next (older) page; null on the last page. */
   nextCursor: z.string().nullable(),
 });
+
+/**
+ * The user agent the audit trail records for changes made with the server's command line
+ * (`npm run operator:create`): no person was signed in, and no address asked.
+ */
+export const COMMAND_LINE_USER_AGENT = 'speedwright-cli';

@@ -133,5 +133,13 @@ export const signingKeySchema = z.object({
   publicKey: z.string(),
   publicKeyEncoding: z.literal('raw-base64'),
   createdAt: timestamp,
+  /** When a rotation retired it (it still verifies what it signed); null for the active key. */
+  retiredAt: timestamp.nullable(),
 });
-export const signingKeyResponseSchema = z.object({ signingKey: signingKeySchema });
+export type SigningKeyView = z.infer<typeof signingKeySchema>;
+/**
+ * `GET /api/operator/signing-key` and the answer of a rotation: the active key (new
+ * publications) and every key the operator ever published with, newest first.
+ */
+export const signingKeyResponseSchema = z.object({ signingKey: signingKeySchema, signingKeys: z.array(signingKeySchema) });
+export type SigningKeyResponse = z.infer<typeof signingKeyResponseSchema>;

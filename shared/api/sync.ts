@@ -28,13 +28,30 @@ export const syncRevisionSchema = z.object({
 });
 export type SyncRevision = z.infer<typeof syncRevisionSchema>;
 
+/** One of the operator's public keys: the active one or one a rotation retired. */
+export const syncSigningKeySchema = z.object({
+  id,
+  /** Raw 32-byte Ed25519 public key, standard base64. */
+  publicKey: z.string(),
+  createdAt: z.string(),
+  /** When a rotation retired it; null for the active key. */
+  retiredAt: z.string().nullable(),
+});
+export type SyncSigningKey = z.infer<typeof syncSigningKeySchema>;
+
 export const syncOperatorSchema = z.object({
   id,
   name: z.string(),
   isDemo: z.boolean(),
-  /** Raw 32-byte Ed25519 public key, standard base64, as `GET /api/operator/signing-key` serves it. */
+  /** The active key: raw 32-byte Ed25519 public key, standard base64, as `GET /api/operator/signing-key` serves it. */
   publicKey: z.string(),
   signingKeyId: id,
+  /**
+   * Every key the operator ever published with (the active one and those rotations retired),
+   * sent whole at every sync: a device verifies each revision with the key its `signingKeyId`
+   * names, and refuses one whose key is not in this list.
+   */
+  signingKeys: z.array(syncSigningKeySchema),
   currencyLimitDays: z.number().int(),
 });
 

@@ -11,8 +11,9 @@
  *   re-derive the figures of a check URL with `buildCard`: the content of that one revision
  *   (the flight-manual speed data the card was computed from), the header the card prints
  *   (registration, type, speed book title, demo mark, with their record ids, which the card's
- *   digest covers) and the digest of the card that was issued. Nothing about people, other
- *   cards or other revisions.
+ *   digest covers), the digest of the card that was issued, and the revision's signature with
+ *   the public key that made it (active or retired), so the page can verify it. Nothing about
+ *   people, other cards or other revisions.
  *
  * Written with zod's small build (`zod/mini`: functions instead of methods) so the public check
  * page carries no full zod; the server's tests and the OpenAPI document read these same objects.
@@ -55,6 +56,22 @@ export const verifySourceResponseSchema = z.strictObject({
     aircraftType: z.strictObject({ designator: z.string(), name: z.string() }),
     speedBook: z.strictObject({ id, title: z.string() }),
     demo: z.boolean(),
+  }),
+  /**
+   * The revision's Ed25519 signature and the public key its `keyId` names — the operator's
+   * active key or one a rotation retired (`keyRetiredAt`) — so the check page verifies the
+   * revision as a device does (shared/speed-book/signature.ts: the statement needs the
+   * operator's id besides the revision's fields).
+   */
+  signature: z.strictObject({
+    algorithm: z.literal('Ed25519'),
+    operatorId: id,
+    keyId: id,
+    /** Raw 32-byte Ed25519 public key, standard base64. */
+    publicKey: z.string(),
+    keyRetiredAt: z.nullable(timestamp),
+    /** 64 bytes, standard base64. */
+    value: z.string(),
   }),
 });
 export type VerifySource = z.infer<typeof verifySourceResponseSchema>;

@@ -93,7 +93,7 @@ export const APP_NAVIGATION: readonly NavigationEntry[] = [
     label: 'Operator settings',
     icon: 'tune',
     capability: 'manage-people',
-    purpose: 'Set how long a device may go without a sync before it refuses speed cards, and see the key revisions are signed with.',
+    purpose: 'Set how long a device may go without a sync before it refuses speed cards, and see or rotate the key revisions are signed with.',
     title: 'Operator settings · Speedwright',
     loadComponent: () => import('./operator-settings/operator-settings-page').then((m) => m.OperatorSettingsPage),
   },

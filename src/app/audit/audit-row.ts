@@ -1,5 +1,5 @@
 import { utcDateTime } from '../core/format/display-format';
-import { AuditEventView } from '../../../shared/api/audit';
+import { AuditEventView, COMMAND_LINE_USER_AGENT } from '../../../shared/api/audit';
 import { actionLabel, entityLabel } from './audit-vocabulary';
 
 /** One line of a record's details: a field and what happened to it. */
@@ -26,13 +26,18 @@ export function toAuditRow(event: AuditEventView): AuditRow {
   return {
     id: event.id,
     whenLabel: Number.isFinite(when) ? utcDateTime(event.createdAt, { seconds: true }) : event.createdAt,
-    personLabel: event.actorName ?? (event.actorId === null ? 'Nobody signed in' : `Person #${event.actorId}`),
+    personLabel: event.actorName ?? (event.actorId === null ? nobodyLabel(event) : `Person #${event.actorId}`),
     actionLabel: actionLabel(event.action),
     recordLabel: event.entityId === null ? entityLabel(event.entityType) : `${entityLabel(event.entityType)} #${event.entityId}`,
     details: Object.entries(event.details ?? {}).map(([name, value]) => ({ name: inWords(name), value: describe(value) })),
     ip: event.ip,
     userAgent: event.userAgent,
   };
+}
+
+/** Who acted when nobody was signed in: the server's command line says so; anything else had no one. */
+function nobodyLabel(event: AuditEventView): string {
+  return event.userAgent?.startsWith(COMMAND_LINE_USER_AGENT) ? 'Command line on the server' : 'Nobody signed in';
 }
 
 /** A change recorded as `{ before, after }` reads "before → after"; anything else as compact JSON. */

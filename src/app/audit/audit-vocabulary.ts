@@ -45,6 +45,8 @@ export const AUDIT_ACTION_LABELS: Readonly<Record<string, string>> = {
   'attachment.removed': 'Removed a source page',
   'card.issued': 'Issued a speed card',
   'signing-key.created': 'Made the operator’s signing key',
+  'signing-key.rotated': 'Rotated the operator’s signing key (the old key retired, still verifying what it signed)',
+  'operator.created': 'Set up the operator',
   'operator.settings-updated': 'Changed the operator’s settings',
 };
 

@@ -9,6 +9,7 @@ import type { FiguresCheck } from '../../../shared/card-check/figures-check';
 import type { VerifyResponse, VerifySource } from '../../../shared/card-check/verify-api';
 import { ApiRequestError } from '../core/api/api-request-error';
 import type { OfflineCheck, OfflineCheckReader } from './offline-check-data';
+import type { SignatureNote } from './source-signature';
 
 export interface CardCheckDeps {
   verify(code: string): Promise<VerifyResponse>;
@@ -27,7 +28,14 @@ export type FiguresNote =
 
 export type CardCheckResult =
   | { readonly kind: 'invalid'; readonly message: string }
-  | { readonly kind: 'online'; readonly code: ParsedCheckUrl; readonly verify: VerifyResponse; readonly figures: FiguresNote }
+  | {
+      readonly kind: 'online';
+      readonly code: ParsedCheckUrl;
+      readonly verify: VerifyResponse;
+      readonly figures: FiguresNote;
+      /** The revision's signature, checked as a device checks it; null when no source was read (a typed code, no card). */
+      readonly signature: SignatureNote | null;
+    }
   | {
       readonly kind: 'offline';
       readonly code: ParsedCheckUrl;
@@ -69,7 +77,8 @@ export async function runCardCheck(deps: CardCheckDeps, rawCode: string, payload
   const source = withoutFigures(code) ? null : settled(deps.source(code.code));
   try {
     const verify = await deps.verify(code.code);
-    return { kind: 'online', code, verify, figures: await onlineFigures(code, verify, source) };
+    const [figures, signature] = await Promise.all([onlineFigures(code, verify, source), onlineSignature(verify, source)]);
+    return { kind: 'online', code, verify, figures, signature };
   } catch (error) {
     const problem = ApiRequestError.from(error);
     if (!unreachable(problem)) return { kind: 'failed', code, message: problem.message };
@@ -111,6 +120,15 @@ async function onlineFigures(code: ParsedCheckUrl, verify: VerifyResponse, sourc
   } catch (error) {
     return { kind: 'none', sentence: `The figures could not be checked: ${ApiRequestError.from(error).message}` };
   }
+}
+
+/** The signature of the card's revision, once its source is in; null without one (its failure is said by the figures). */
+async function onlineSignature(verify: VerifyResponse, sourceAnswer: Promise<Settled<VerifySource>> | null): Promise<SignatureNote | null> {
+  if (!sourceAnswer || verify.status === 'unknown') return null;
+  const answer = await sourceAnswer;
+  if (!answer.ok) return null;
+  const { checkSourceSignature } = await import('./source-signature');
+  return checkSourceSignature(answer.value);
 }
 
 async function offlineCheck(deps: CardCheckDeps, code: ParsedCheckUrl, reason: string): Promise<CardCheckResult> {

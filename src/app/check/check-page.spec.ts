@@ -6,7 +6,9 @@ import { of } from 'rxjs';
 import type { SessionUser } from '../../../shared/api/auth';
 import { encodeCheckPayload } from '../../../shared/card-check/check-url';
 import { generateCardCode } from '../../../shared/card-check/card-code';
+import type { VerifySource } from '../../../shared/card-check/verify-api';
 import { buildCard } from '../../../shared/card/build-card';
+import { signedRevisionStatement } from '../../../shared/speed-book/signature';
 import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../../../shared/card/testing/test-fixtures';
 import { AuthService } from '../core/auth/auth-service';
 import { CheckPage } from './check-page';
@@ -17,7 +19,36 @@ const revision = revisionOf(handPistonContent());
 const card = buildCard(revision, handPistonInputs(), HAND_CONTEXT);
 const payload = encodeCheckPayload({ revisionId: revision.id, inputs: card.inputs, digest: card.digest });
 const code = generateCardCode();
-const source = { digest: card.digest, revision: { ...revision, publishedAt: revision.publishedAt! }, context: HAND_CONTEXT };
+const OPERATOR_ID = 1;
+const SIGNING_KEY_ID = 4;
+const base64 = (bytes: ArrayBuffer) => btoa(String.fromCharCode(...new Uint8Array(bytes)));
+/** The card's source as the server serves it, the revision signed with a fresh Ed25519 key (WebCrypto), as on publication. */
+let source: VerifySource;
+beforeAll(async () => {
+  const subtle = globalThis.crypto.subtle;
+  const pair = (await subtle.generateKey({ name: 'Ed25519' }, true, ['sign', 'verify'])) as CryptoKeyPair;
+  const statement = signedRevisionStatement({
+    operatorId: OPERATOR_ID,
+    speedBookId: HAND_CONTEXT.speedBook.id,
+    revisionId: revision.id,
+    number: revision.number,
+    contentSha256: revision.contentSha256!,
+    publishedAt: revision.publishedAt!,
+  });
+  source = {
+    digest: card.digest,
+    revision: { ...revision, publishedAt: revision.publishedAt!, contentSha256: revision.contentSha256! },
+    context: HAND_CONTEXT,
+    signature: {
+      algorithm: 'Ed25519',
+      operatorId: OPERATOR_ID,
+      keyId: SIGNING_KEY_ID,
+      publicKey: base64(await subtle.exportKey('raw', pair.publicKey)),
+      keyRetiredAt: null,
+      value: base64(await subtle.sign({ name: 'Ed25519' }, pair.privateKey, new TextEncoder().encode(statement))),
+    },
+  };
+});
 const known = { status: 'current', revision: { number: 3, publishedAt: '2026-11-30T08:00:00.000Z' }, registration: 'ZZ-TST', issuedAt: '2026-12-01T09:30:00.000Z' };
 
 const PILOT: SessionUser = {
@@ -96,6 +127,29 @@ describe('CheckPage', () => {
     expect(page.querySelector('[data-testid="speed-card"]')?.getAttribute('data-digest')).toBe(card.digest);
     expect(text('check-caution')).toContain("The approved flight manual and the operator's procedures govern.");
     expect(text('card-demo-mark')).toContain('invented demo data — not for flight');
+    expect(text('check-signature')).toBe('Verified with the operator’s key No. 4');
+  });
+
+  it('verifies a revision signed with a key a rotation retired, and refuses one whose signature does not verify', async () => {
+    await open(code, payload);
+    backend.expectOne(`/api/verify/${code}`).flush({ ...known, status: 'superseded' });
+    await settle();
+    backend.expectOne(`/api/verify/${code}/source`).flush({ ...source, signature: { ...source.signature, keyRetiredAt: '2026-12-05T21:00:00.000Z' } });
+    await settle();
+    expect(page.querySelector('[data-testid="check-signature"]')?.getAttribute('data-outcome')).toBe('verified');
+    expect(text('check-signature')).toBe('Verified with the operator’s key No. 4, retired 5 Dec 2026, 21:00 UTC (it still verifies what it signed)');
+
+    const other = generateCardCode();
+    await open(other, payload);
+    backend.expectOne(`/api/verify/${other}`).flush(known);
+    await settle();
+    // The revision number changed after signing: the signature no longer covers it.
+    backend.expectOne(`/api/verify/${other}/source`).flush({ ...source, revision: { ...source.revision, number: source.revision.number + 1 } });
+    await settle();
+    const refusal = page.querySelector('[data-testid="check-signature"]');
+    expect(refusal?.getAttribute('data-outcome')).toBe('refused');
+    expect(refusal?.getAttribute('role')).toBe('alert');
+    expect(text('check-signature')).toContain('The revision this card was built from does not verify: its signature does not verify with the operator’s public key No. 4');
   });
 
   it.each([

@@ -115,6 +115,7 @@ export class CheckPage {
     return result?.kind === 'failed' ? result.message : '';
   });
   protected readonly date = utcDate;
+  protected readonly signature = computed(() => this.online()?.signature ?? null);
   protected readonly figures = computed<FiguresNote | null>(() => {
     const result = this.result();
     return result && (result.kind === 'online' || result.kind === 'offline') ? result.figures : null;

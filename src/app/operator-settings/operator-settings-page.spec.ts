@@ -2,11 +2,15 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { AuthService } from '../core/auth/auth-service';
 import { sessionUser } from '../speed-books/testing/revision-fixtures';
 import { OPERATOR_PATHS, OperatorSettingsPage } from './operator-settings-page';
 
 jest.setTimeout(30_000);
+
+const KEY_4 = { id: 4, algorithm: 'Ed25519', publicKey: 'MCowBQYDK2VwAyEAq83bQbeXDkp1BvP0XQfnEyG0VnVQ', publicKeyEncoding: 'raw-base64', createdAt: '2026-11-30T08:00:00.000Z', retiredAt: null } as const;
+const KEY_7 = { ...KEY_4, id: 7, publicKey: 'p1Qk3mWZ0sS8b0Qy7w7dXq9H2c2m4nV1rT6yU8iO0aE=', createdAt: '2026-12-05T21:00:00.000Z' } as const;
 
 describe('OperatorSettingsPage', () => {
   let fixture: ComponentFixture<OperatorSettingsPage>;
@@ -16,16 +20,19 @@ describe('OperatorSettingsPage', () => {
   beforeEach(async () => {
     TestBed.configureTestingModule({
       imports: [OperatorSettingsPage],
-      providers: [provideHttpClient(), provideHttpClientTesting(), { provide: AuthService, useValue: { user: signal(sessionUser('admin')) } }],
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: AuthService, useValue: { user: signal(sessionUser('admin')) } },
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+      ],
     });
     backend = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(OperatorSettingsPage);
     page = fixture.nativeElement;
     await fixture.whenStable();
     backend.expectOne(OPERATOR_PATHS.settings).flush({ settings: { currencyLimitDays: 30 } });
-    backend
-      .expectOne(OPERATOR_PATHS.signingKey)
-      .flush({ signingKey: { id: 4, algorithm: 'Ed25519', publicKey: 'MCowBQYDK2VwAyEAq83bQbeXDkp1BvP0XQfnEyG0VnVQ', publicKeyEncoding: 'raw-base64', createdAt: '2026-11-30T08:00:00.000Z' } });
+    backend.expectOne(OPERATOR_PATHS.signingKey).flush({ signingKey: KEY_4, signingKeys: [KEY_4] });
     await fixture.whenStable();
   });
 
@@ -56,6 +63,49 @@ describe('OperatorSettingsPage', () => {
     request.flush({ settings: { currencyLimitDays: 14 } });
     await fixture.whenStable();
     expect(page.querySelector('[data-testid="settings-status"]')?.textContent).toContain('Devices refuse cards after 14 days without a sync');
+  });
+
+  it('rotates the signing key only once the administrator confirms, then shows the new key and the retired one', async () => {
+    const rotate = () => page.querySelector<HTMLButtonElement>('[data-testid="rotate-key"]')!;
+    const dialogButton = (text: string) => Array.from(document.querySelectorAll<HTMLButtonElement>('mat-dialog-container button')).find((b) => b.textContent?.includes(text))!;
+    const settle = async () => {
+      await new Promise((done) => setTimeout(done, 50));
+      await fixture.whenStable();
+    };
+    expect(page.querySelector('[data-testid="retired-keys"]')).toBeNull();
+
+    rotate().click();
+    await fixture.whenStable();
+    const consequences = document.querySelector('[data-testid="rotate-key-consequences"]')?.textContent ?? '';
+    expect(consequences).toContain('every revision published from now on is signed with the new key');
+    expect(consequences).toContain('key No. 4 is retired, not deleted');
+    dialogButton('Keep the current key').click();
+    await settle();
+    backend.expectNone(OPERATOR_PATHS.rotateSigningKey);
+
+    rotate().click();
+    await fixture.whenStable();
+    dialogButton('Rotate the key').click();
+    await settle();
+    const request = backend.expectOne(OPERATOR_PATHS.rotateSigningKey);
+    expect(request.request.method).toBe('POST');
+    request.flush({ signingKey: KEY_7, signingKeys: [KEY_7, { ...KEY_4, retiredAt: '2026-12-05T21:00:00.000Z' }] }, { status: 201, statusText: 'Created' });
+    await fixture.whenStable();
+    expect(page.querySelector('[data-testid="public-key"]')?.textContent).toContain(KEY_7.publicKey);
+    expect(page.querySelector('[data-testid="retired-keys"]')?.textContent).toContain('No. 4, made 2026-11-30, retired 2026-12-05');
+    expect(page.querySelector('[data-testid="key-status"]')?.textContent).toContain('Key No. 7 now signs new publications; key No. 4 is retired and still verifies what it signed.');
+  });
+
+  it('says why a rotation was refused', async () => {
+    page.querySelector<HTMLButtonElement>('[data-testid="rotate-key"]')!.click();
+    await fixture.whenStable();
+    Array.from(document.querySelectorAll<HTMLButtonElement>('mat-dialog-container button')).find((b) => b.textContent?.includes('Rotate the key'))!.click();
+    await new Promise((done) => setTimeout(done, 50));
+    await fixture.whenStable();
+    backend.expectOne(OPERATOR_PATHS.rotateSigningKey).flush({ error: { code: 'forbidden', message: 'Your role may not do this.' } }, { status: 403, statusText: 'Forbidden' });
+    await fixture.whenStable();
+    expect(page.querySelector('[data-testid="key-error"]')?.textContent).toContain('Your role may not do this.');
+    expect(page.querySelector('[data-testid="public-key"]')?.textContent).toContain(KEY_4.publicKey);
   });
 
   it('says what is wrong with a limit out of range and sends nothing', async () => {

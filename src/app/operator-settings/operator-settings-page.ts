@@ -1,13 +1,15 @@
 import { utcDay } from '../core/format/display-format';
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { forkJoin } from 'rxjs';
-import { signingKeyResponseSchema } from '../../../shared/api/revisions';
+import { filter, forkJoin } from 'rxjs';
+import { signingKeyResponseSchema, type SigningKeyResponse } from '../../../shared/api/revisions';
 import { CURRENCY_LIMIT_DAYS, operatorSettingsResponseSchema, operatorSettingsSchema } from '../../../shared/api/sync';
 import { ApiClient } from '../core/api/api-client';
 import { requestState } from '../core/api/request-state';
@@ -15,18 +17,36 @@ import { AuthService } from '../core/auth/auth-service';
 import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { ProblemRetry } from '../core/feedback/problem-retry';
+import { RotateKeyDialog, type RotateKeyData } from './rotate-key-dialog';
 
-export const OPERATOR_PATHS = { settings: '/api/operator/settings', signingKey: '/api/operator/signing-key' } as const;
+export const OPERATOR_PATHS = {
+  settings: '/api/operator/settings',
+  signingKey: '/api/operator/signing-key',
+  rotateSigningKey: '/api/operator/signing-key/rotate',
+} as const;
 
 interface KeyShown {
   readonly id: number;
   readonly publicKey: string;
   readonly created: string;
+  /** The day a rotation retired it; null for the active key. */
+  readonly retired: string | null;
+}
+
+function keysShown(answer: SigningKeyResponse): { active: KeyShown; all: KeyShown[] } {
+  const shown = (key: SigningKeyResponse['signingKey']): KeyShown => ({
+    id: key.id,
+    publicKey: key.publicKey,
+    created: utcDay(key.createdAt),
+    retired: key.retiredAt === null ? null : utcDay(key.retiredAt),
+  });
+  return { active: shown(answer.signingKey), all: answer.signingKeys.map(shown) };
 }
 
 /**
  * The operator's own policies, for its administrators: how old a device's synced data may be
- * before it refuses cards, and the public half of the key revisions are signed with.
+ * before it refuses cards, and the keys revisions are signed with — the active one, those a
+ * rotation retired (still verifying what they signed), and the rotation itself.
  */
 @Component({
   selector: 'sw-operator-settings-page',
@@ -68,15 +88,36 @@ interface KeyShown {
           <section class="panel" aria-labelledby="key-heading">
             <h2 id="key-heading"><mat-icon aria-hidden="true">key</mat-icon>Signing key</h2>
             <p>
-              Every published revision is signed with the operator's key; a device checks each revision against this public key before it
-              keeps it. The private half never leaves the server.
+              Every published revision is signed with the operator's active key; a device checks each revision against the key it names
+              before it keeps it. Keys a rotation retired still verify the revisions they signed. The private halves never leave the server.
             </p>
             <dl>
-              <dt>Key</dt>
-              <dd>No. {{ key.id }}, Ed25519, made {{ key.created }}</dd>
+              <dt>Active key</dt>
+              <dd>No. {{ key.id }}, Ed25519, made {{ key.created }}: signs new publications</dd>
               <dt>Public key</dt>
               <dd class="sw-mono key" data-testid="public-key">{{ key.publicKey }}</dd>
             </dl>
+            <div class="actions">
+              <button mat-stroked-button type="button" (click)="rotateKey()" [disabled]="rotating()" data-testid="rotate-key">
+                <mat-icon>refresh</mat-icon>{{ rotating() ? 'Rotating…' : 'Rotate the signing key…' }}
+              </button>
+              <p role="status" data-testid="key-status">{{ keyStatus() }}</p>
+            </div>
+            @if (rotateProblem(); as problem) {
+              <p class="sw-problem" role="alert" data-testid="key-error"><mat-icon aria-hidden="true">error</mat-icon>{{ problem }}</p>
+            }
+            @if (retiredKeys().length) {
+              <h3 id="retired-heading">Retired keys</h3>
+              <p>They sign nothing new; devices and the card check keep them to verify what they signed.</p>
+              <ul class="retired-keys" aria-labelledby="retired-heading" data-testid="retired-keys">
+                @for (old of retiredKeys(); track old.id) {
+                  <li>
+                    <span class="retired-name"><mat-icon aria-hidden="true">history</mat-icon>No. {{ old.id }}, made {{ old.created }}, retired {{ old.retired }}</span>
+                    <span class="sw-mono key">{{ old.publicKey }}</span>
+                  </li>
+                }
+              </ul>
+            }
           </section>
         }
       }
@@ -125,12 +166,40 @@ interface KeyShown {
     .key {
       overflow-wrap: anywhere;
     }
+    h3 {
+      margin: 16px 0 4px;
+      font: var(--mat-sys-title-medium);
+    }
+    .retired-keys {
+      margin: 0;
+      padding: 0;
+      list-style: none;
+    }
+    .retired-keys li {
+      display: flex;
+      flex-direction: column;
+      gap: 2px;
+      padding: 6px 0;
+      border-top: 1px solid var(--mat-sys-outline-variant);
+    }
+    .retired-name {
+      display: flex;
+      gap: 6px;
+      align-items: center;
+    }
+    .sw-problem {
+      display: flex;
+      gap: 8px;
+      align-items: center;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class OperatorSettingsPage {
   private readonly api = inject(ApiClient);
   private readonly auth = inject(AuthService);
+  private readonly dialog = inject(MatDialog);
+  private readonly destroyRef = inject(DestroyRef);
   protected readonly operatorName = computed(() => this.auth.user()?.operatorName ?? 'your operator');
 
   protected readonly limits = CURRENCY_LIMIT_DAYS;
@@ -145,6 +214,12 @@ export class OperatorSettingsPage {
   protected readonly problem = this.loadRequest.problem;
   protected readonly status = signal('');
   protected readonly key = signal<KeyShown | null>(null);
+  private readonly allKeys = signal<readonly KeyShown[]>([]);
+  protected readonly retiredKeys = computed(() => this.allKeys().filter((one) => one.retired !== null));
+  private readonly rotateRequest = requestState();
+  protected readonly rotating = this.rotateRequest.busy;
+  protected readonly rotateProblem = this.rotateRequest.problem;
+  protected readonly keyStatus = signal('');
 
   constructor() {
     this.load();
@@ -157,8 +232,37 @@ export class OperatorSettingsPage {
     });
     this.loadRequest.run(settingsAndKey, ({ settings, key }) => {
       this.form.setValue({ currencyLimitDays: settings.settings.currencyLimitDays });
-      this.key.set({ id: key.signingKey.id, publicKey: key.signingKey.publicKey, created: utcDay(key.signingKey.createdAt) });
+      this.showKeys(key);
     });
+  }
+
+  /** Asks first (what changes, what does not), then rotates; the page shows the new key and the retired one. */
+  protected rotateKey(): void {
+    const active = this.key();
+    if (!active || this.rotating()) return;
+    const data: RotateKeyData = { activeKeyId: active.id, operatorName: this.operatorName() };
+    this.dialog
+      .open<RotateKeyDialog, RotateKeyData, boolean>(RotateKeyDialog, { data, autoFocus: 'dialog', maxWidth: '600px' })
+      .afterClosed()
+      .pipe(
+        filter((confirmed) => confirmed === true),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe(() => {
+        this.keyStatus.set('');
+        this.rotateRequest.run(this.api.post(OPERATOR_PATHS.rotateSigningKey, {}, signingKeyResponseSchema), (answer) => {
+          this.showKeys(answer);
+          this.keyStatus.set(
+            `Key No. ${answer.signingKey.id} now signs new publications; key No. ${active.id} is retired and still verifies what it signed. Devices learn the new key at their next sync.`,
+          );
+        });
+      });
+  }
+
+  private showKeys(answer: SigningKeyResponse): void {
+    const { active, all } = keysShown(answer);
+    this.key.set(active);
+    this.allKeys.set(all);
   }
 
   protected save(): void {

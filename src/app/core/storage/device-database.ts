@@ -53,6 +53,22 @@ export interface OperatorRecord {
   readonly currencyLimitDays: number;
 }
 
+/**
+ * One of an operator's public signing keys as the device learned it at a sync: the active one
+ * and those a rotation retired. A revision is verified with the key its `signingKeyId` names.
+ */
+export interface SigningKeyRecord {
+  /** The server's key id (what a revision's `signingKeyId` names). */
+  readonly id: number;
+  readonly operatorId: number;
+  /** Raw 32-byte Ed25519 public key, standard base64. */
+  readonly publicKey: string;
+  /** ISO 8601 UTC; absent for a key carried over from a store older than version 3. */
+  readonly createdAt?: string;
+  /** When a rotation retired it (ISO 8601 UTC); null while it is the active key. */
+  readonly retiredAt: string | null;
+}
+
 export type AircraftTypeRecord = AircraftTypeView & { readonly operatorId: number };
 export type AirframeRecord = AirframeView & { readonly operatorId: number };
 
@@ -104,7 +120,7 @@ export interface PreferenceRecord {
 }
 
 /** Bumped with every change of the tables below; Dexie upgrades a device's store in place. */
-export const DEVICE_SCHEMA_VERSION = 2;
+export const DEVICE_SCHEMA_VERSION = 3;
 
 export class SpeedwrightDeviceDatabase extends Dexie {
   /** Cards issued here, keyed by entry id; the outbox is the entries with `sentAt` null. */
@@ -113,6 +129,7 @@ export class SpeedwrightDeviceDatabase extends Dexie {
   readonly aircraftTypes!: EntityTable<AircraftTypeRecord, 'id'>;
   readonly airframes!: EntityTable<AirframeRecord, 'id'>;
   readonly revisions!: EntityTable<RevisionRecord, 'id'>;
+  readonly signingKeys!: EntityTable<SigningKeyRecord, 'id'>;
   readonly syncState!: EntityTable<SyncStateRecord, 'operatorId'>;
   readonly sessions!: EntityTable<CachedSessionRecord, 'userId'>;
   readonly preferences!: EntityTable<PreferenceRecord, 'key'>;
@@ -123,7 +140,7 @@ export class SpeedwrightDeviceDatabase extends Dexie {
       cardLog: 'id, issuedAt',
     });
     // Version 2 adds the synced data; the card log keeps every entry, indexed by issuer too.
-    this.version(DEVICE_SCHEMA_VERSION).stores({
+    this.version(2).stores({
       cardLog: 'id, issuedAt, issuedById, operatorId',
       operators: 'id',
       aircraftTypes: 'id, operatorId',
@@ -133,5 +150,14 @@ export class SpeedwrightDeviceDatabase extends Dexie {
       sessions: 'userId, operatorId',
       preferences: 'key',
     });
+    // Version 3 keeps every public key of the operator (signing-key rotation); the one key a
+    // version 2 store knew, the operator's, becomes its first row, so nothing is re-fetched.
+    this.version(DEVICE_SCHEMA_VERSION)
+      .stores({ signingKeys: 'id, operatorId' })
+      .upgrade(async (tx) => {
+        const operators = await tx.table<OperatorRecord, number>('operators').toArray();
+        const carried: SigningKeyRecord[] = operators.map((operator) => ({ id: operator.signingKeyId, operatorId: operator.id, publicKey: operator.publicKey, retiredAt: null }));
+        if (carried.length) await tx.table<SigningKeyRecord, number>('signingKeys').bulkPut(carried);
+      });
   }
 }

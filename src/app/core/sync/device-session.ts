@@ -49,11 +49,12 @@ export function offlineSessionEnded(record: Pick<CachedSessionRecord, 'sessionEx
  * version 2 of the store issued by one of `issuerIds` or by a person cached for that operator).
  */
 export async function removeOperatorData(db: SpeedwrightDeviceDatabase, operatorId: number, issuerIds: readonly number[] = []): Promise<void> {
-  await db.transaction('rw', [db.operators, db.aircraftTypes, db.airframes, db.revisions, db.syncState, db.sessions, db.cardLog], async () => {
+  await db.transaction('rw', [db.operators, db.aircraftTypes, db.airframes, db.revisions, db.signingKeys, db.syncState, db.sessions, db.cardLog], async () => {
     const people = new Set([...issuerIds, ...(await db.sessions.where('operatorId').equals(operatorId).primaryKeys())]);
     await db.aircraftTypes.where('operatorId').equals(operatorId).delete();
     await db.airframes.where('operatorId').equals(operatorId).delete();
     await db.revisions.where('operatorId').equals(operatorId).delete();
+    await db.signingKeys.where('operatorId').equals(operatorId).delete();
     await db.operators.delete(operatorId);
     await db.syncState.delete(operatorId);
     await db.sessions.where('operatorId').equals(operatorId).delete();

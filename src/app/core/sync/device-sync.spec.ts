@@ -25,7 +25,7 @@ import {
   waitingEntries,
   type SyncTransport,
 } from './device-sync';
-import { importOperatorKey, verifyRevision } from './revision-verification';
+import { importOperatorKey, importOperatorKeys, verifyRevision } from './revision-verification';
 import { syncLoop, type SyncLoopEvent } from './sync-loop';
 
 /**
@@ -43,6 +43,7 @@ function base64(bytes: ArrayBuffer | Uint8Array): string {
 
 interface Signer {
   publicKey: string;
+  keyId: number;
   sign(revision: Omit<SyncRevision, 'signature' | 'contentSha256' | 'signingKeyId'>): Promise<SyncRevision>;
 }
 
@@ -51,6 +52,7 @@ async function newSigner(signingKeyId = 9): Promise<Signer> {
   const publicKey = base64(await subtle.exportKey('raw', pair.publicKey));
   return {
     publicKey,
+    keyId: signingKeyId,
     async sign(revision) {
       const hash = contentSha256(revision.content);
       const statement = signedRevisionStatement({ operatorId: OPERATOR_ID, speedBookId: revision.speedBookId, revisionId: revision.id, number: revision.number, contentSha256: hash, publishedAt: revision.publishedAt });
@@ -73,10 +75,15 @@ const revisionFields = (id: number, number: number, status: SyncRevision['status
   content: content as Record<string, unknown>,
 });
 
-function response(signer: Signer, cursor: string, revisions: SyncRevision[], extra: Partial<SyncResponse> = {}): SyncResponse {
+/** The server's answer with `signer` as the active key and `retired` as keys a rotation retired. */
+function response(signer: Signer, cursor: string, revisions: SyncRevision[], extra: Partial<SyncResponse> = {}, retired: Signer[] = []): SyncResponse {
+  const signingKeys = [
+    { id: signer.keyId, publicKey: signer.publicKey, createdAt: stamp, retiredAt: null },
+    ...retired.map((old) => ({ id: old.keyId, publicKey: old.publicKey, createdAt: stamp, retiredAt: '2026-11-20T10:00:00.000Z' })),
+  ];
   return {
     cursor,
-    operator: { id: OPERATOR_ID, name: 'Kestrel Fen Aviation (demo)', isDemo: true, publicKey: signer.publicKey, signingKeyId: 9, currencyLimitDays: 30 },
+    operator: { id: OPERATOR_ID, name: 'Kestrel Fen Aviation (demo)', isDemo: true, publicKey: signer.publicKey, signingKeyId: signer.keyId, signingKeys, currencyLimitDays: 30 },
     aircraftTypes: [{ id: 1, designator: 'ZZP1', name: 'Sedgeling 4', category: 'piston-single', engines: 1, ceilingFt: 14000, createdAt: stamp, updatedAt: stamp }],
     airframes: [{ id: 7, registration: 'ZZ-KFA', serial: 'SG4-0012', aircraftTypeId: 1, active: true, createdAt: stamp, updatedAt: stamp }],
     revisions,
@@ -172,7 +179,7 @@ describe('device store', () => {
 
     const upgraded = new SpeedwrightDeviceDatabase(name);
     expect(await upgraded.cardLog.toArray()).toEqual([legacy]);
-    expect(upgraded.verno).toBe(2);
+    expect(upgraded.verno).toBe(3);
     // The new indexes and tables work on the upgraded store.
     expect(await upgraded.cardLog.where('issuedById').equals(PILOT.id).count()).toBe(1);
     await upgraded.syncState.put({ operatorId: 1, cursor: 'c', lastSyncedAt: null, lastAttemptAt: null, lastProblem: null, refused: [] });
@@ -182,41 +189,99 @@ describe('device store', () => {
   });
 });
 
+describe('device store version 3 (signing keys)', () => {
+  it('upgrades a version-2 store in place: synced data and card log kept, the operator’s one key carried into the key table', async () => {
+    const name = `speedwright-upgrade-v2-${Math.random()}`;
+    const signer = await newSigner(9);
+    const revision = { ...(await signer.sign(revisionFields(21, 1, 'published', demoPistonTrainerContent()))), operatorId: OPERATOR_ID, verifiedAt: stamp };
+    const old = new Dexie(name);
+    old.version(1).stores({ cardLog: 'id, issuedAt' });
+    old.version(2).stores({
+      cardLog: 'id, issuedAt, issuedById, operatorId',
+      operators: 'id',
+      aircraftTypes: 'id, operatorId',
+      airframes: 'id, operatorId',
+      revisions: 'id, operatorId, speedBookId, aircraftTypeId',
+      syncState: 'operatorId',
+      sessions: 'userId, operatorId',
+      preferences: 'key',
+    });
+    await old.table('operators').put({ id: OPERATOR_ID, name: 'Kestrel Fen Aviation (demo)', isDemo: true, publicKey: signer.publicKey, signingKeyId: 9, currencyLimitDays: 30 });
+    await old.table('revisions').put(revision);
+    await old.table('cardLog').put(entry(uuid(1)));
+    await old.table('syncState').put({ operatorId: OPERATOR_ID, cursor: 'c7', lastSyncedAt: stamp, lastAttemptAt: stamp, lastProblem: null, refused: [] });
+    old.close();
+
+    const upgraded = new SpeedwrightDeviceDatabase(name);
+    expect(upgraded.verno).toBe(3);
+    expect(await upgraded.revisions.get(21)).toEqual(revision);
+    expect(await upgraded.cardLog.get(uuid(1))).toEqual(entry(uuid(1)));
+    expect(await upgraded.syncState.get(OPERATOR_ID)).toMatchObject({ cursor: 'c7' });
+    expect(await upgraded.signingKeys.toArray()).toEqual([{ id: 9, operatorId: OPERATOR_ID, publicKey: signer.publicKey, retiredAt: null }]);
+
+    // The next sync after a rotation names only the new key list; the carried key still verifies revision 1.
+    const active = await newSigner(12);
+    const answer = response(active, 'c8', [await signer.sign(revisionFields(21, 1, 'superseded', demoPistonTrainerContent()))]);
+    expect(await applySync(upgraded, OPERATOR_ID, answer)).toMatchObject({ revisionsStored: 1, refused: [] });
+    upgraded.close();
+    await upgraded.delete();
+  });
+});
+
 describe('revision verification (Ed25519 over signedRevisionStatement, WebCrypto)', () => {
-  const operator = (signer: Signer) => ({ id: OPERATOR_ID, publicKey: signer.publicKey, signingKeyId: 9 });
+  const operator = { id: OPERATOR_ID };
+  const keysOf = (...signers: Signer[]) => importOperatorKeys(signers.map((signer) => ({ id: signer.keyId, publicKey: signer.publicKey })));
 
   it('accepts a revision signed by the operator’s key', async () => {
     const signer = await newSigner();
     const revision = await signer.sign(revisionFields(21, 1, 'published', demoPistonTrainerContent()));
-    expect(await verifyRevision(revision, operator(signer), await importOperatorKey(signer.publicKey))).toEqual({ ok: true });
+    expect(await verifyRevision(revision, operator, await keysOf(signer))).toEqual({ ok: true });
   });
 
   it('refuses tampered content, a changed signed field, and a signature by another key, each with a sentence', async () => {
     const signer = await newSigner();
-    const key = await importOperatorKey(signer.publicKey);
+    const keys = await keysOf(signer);
     const good = await signer.sign(revisionFields(21, 1, 'published', demoPistonTrainerContent()));
 
     // Content changed after signing, hash left as published.
     const tampered = { ...good, content: { ...good.content, notes: 'changed' } };
-    const contentCheck = await verifyRevision(tampered, operator(signer), key);
+    const contentCheck = await verifyRevision(tampered, operator, keys);
     expect(contentCheck).toEqual({ ok: false, sentence: expect.stringContaining('does not match the hash') });
     expect(contentCheck.ok === false && contentCheck.sentence).toMatch(/^Revision 1 of Sedgeling 4 speed book was not stored on this device/);
 
     // Content and hash changed together: the signature no longer covers them.
     const rehashed = { ...tampered, contentSha256: contentSha256(tampered.content) };
-    expect(await verifyRevision(rehashed, operator(signer), key)).toEqual({ ok: false, sentence: expect.stringContaining('signature does not verify') });
+    expect(await verifyRevision(rehashed, operator, keys)).toEqual({ ok: false, sentence: expect.stringContaining('signature does not verify') });
 
     // A signed field changed (the revision number).
-    expect((await verifyRevision({ ...good, number: 2 }, operator(signer), key)).ok).toBe(false);
+    expect((await verifyRevision({ ...good, number: 2 }, operator, keys)).ok).toBe(false);
 
-    // Signed by a different key than the operator's.
+    // Signed by a different key than the operator's, under the operator's key id.
     const stranger = await newSigner();
     const foreign = await stranger.sign(revisionFields(21, 1, 'published', demoPistonTrainerContent()));
-    expect(await verifyRevision(foreign, operator(signer), key)).toEqual({ ok: false, sentence: expect.stringContaining('signature does not verify') });
+    expect(await verifyRevision(foreign, operator, keys)).toEqual({ ok: false, sentence: expect.stringContaining('signature does not verify') });
 
     // A key that is not Ed25519 raw bytes.
     expect(await importOperatorKey(btoa('short'))).toBeNull();
-    expect(await verifyRevision(good, operator(signer), null)).toEqual({ ok: false, sentence: expect.stringContaining('not a valid Ed25519 key') });
+    const broken = await importOperatorKeys([{ id: 9, publicKey: btoa('short') }]);
+    expect(await verifyRevision(good, operator, broken)).toEqual({ ok: false, sentence: expect.stringContaining('not a valid Ed25519 key') });
+  });
+
+  it('verifies each revision with the key its signingKeyId names, retired or active, and refuses a key id the operator never published', async () => {
+    const retired = await newSigner(9);
+    const active = await newSigner(12);
+    const keys = await keysOf(active, retired);
+    const before = await retired.sign(revisionFields(21, 1, 'superseded', demoPistonTrainerContent()));
+    const after = await active.sign(revisionFields(22, 2, 'published', demoPistonTrainerContentRevised()));
+    expect(await verifyRevision(before, operator, keys)).toEqual({ ok: true });
+    expect(await verifyRevision(after, operator, keys)).toEqual({ ok: true });
+
+    // The old revision claimed for the new key (or the reverse) does not verify.
+    expect(await verifyRevision({ ...before, signingKeyId: 12 }, operator, keys)).toEqual({ ok: false, sentence: expect.stringContaining('public key No. 12') });
+
+    // Signed by a key the operator never published: refused before any signature work.
+    const unknown = await (await newSigner(77)).sign(revisionFields(23, 3, 'published', demoPistonTrainerContent()));
+    expect(await verifyRevision(unknown, operator, keys)).toEqual({ ok: false, sentence: expect.stringContaining('signing key No. 77, which your operator never published') });
   });
 });
 
@@ -238,6 +303,49 @@ describe('applySync', () => {
     expect(await db.revisions.get(22)).toBeUndefined();
     // The cursor stays, so the next sync asks for the refused revision again.
     expect(await db.syncState.get(OPERATOR_ID)).toMatchObject({ cursor: 'c1', refused: second.refused });
+  });
+
+  it('after a rotation stores both keys, keeps the revision of the retired key and takes the new key’s revision', async () => {
+    const retired = await newSigner(9);
+    const first = await retired.sign(revisionFields(21, 1, 'published', demoPistonTrainerContent()));
+    await applySync(db, OPERATOR_ID, response(retired, 'c1', [first]));
+
+    // The operator rotated: key 12 is active, key 9 retired; revision 2 is signed with key 12.
+    const active = await newSigner(12);
+    const second = await active.sign(revisionFields(22, 2, 'published', demoPistonTrainerContentRevised()));
+    const supersededFirst = await retired.sign(revisionFields(21, 1, 'superseded', demoPistonTrainerContent()));
+    const outcome = await applySync(db, OPERATOR_ID, response(active, 'c2', [supersededFirst, second], {}, [retired]));
+    expect(outcome).toMatchObject({ revisionsStored: 2, refused: [], cursor: 'c2' });
+    expect((await db.signingKeys.where('operatorId').equals(OPERATOR_ID).sortBy('id')).map((key) => [key.id, key.retiredAt])).toEqual([
+      [9, '2026-11-20T10:00:00.000Z'],
+      [12, null],
+    ]);
+    expect(await db.operators.get(OPERATOR_ID)).toMatchObject({ signingKeyId: 12, publicKey: active.publicKey });
+    expect((await db.revisions.get(21))!.signingKeyId).toBe(9);
+    expect((await db.revisions.get(22))!.signingKeyId).toBe(12);
+  });
+
+  it('refuses a revision whose signingKeyId the operator never published, holding the cursor', async () => {
+    const signer = await newSigner(9);
+    const outsider = await newSigner(40);
+    const unknown = await outsider.sign(revisionFields(23, 3, 'published', demoPistonTrainerContent()));
+    await applySync(db, OPERATOR_ID, response(signer, 'c1', []));
+    const outcome = await applySync(db, OPERATOR_ID, response(signer, 'c2', [unknown]));
+    expect(outcome.refused).toEqual([{ revisionId: 23, speedBookTitle: 'Sedgeling 4 speed book', number: 3, sentence: expect.stringContaining('signing key No. 40, which your operator never published') }]);
+    expect(await db.revisions.get(23)).toBeUndefined();
+    expect(await db.syncState.get(OPERATOR_ID)).toMatchObject({ cursor: 'c1' });
+  });
+
+  it('never lets a later answer change the public key of a key id it holds: a revision signed by a substitute is refused', async () => {
+    const genuine = await newSigner(9);
+    await applySync(db, OPERATOR_ID, response(genuine, 'c1', [await genuine.sign(revisionFields(21, 1, 'published', demoPistonTrainerContent()))]));
+    // An answer claiming another public key for key No. 9, with a revision signed by it.
+    const substitute = await newSigner(9);
+    const forged = await substitute.sign(revisionFields(22, 2, 'published', demoPistonTrainerContentRevised()));
+    const outcome = await applySync(db, OPERATOR_ID, response(substitute, 'c2', [forged]));
+    expect(outcome.refused).toEqual([expect.objectContaining({ revisionId: 22, sentence: expect.stringContaining('signature does not verify with the operator’s public key No. 9') })]);
+    expect((await db.signingKeys.get(9))!.publicKey).toBe(genuine.publicKey);
+    expect(await db.revisions.get(22)).toBeUndefined();
   });
 
   it('refuses an answer about another operator and stores nothing', async () => {

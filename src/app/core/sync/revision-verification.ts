@@ -2,8 +2,9 @@
  * Checks a revision from `GET /api/sync` before the device stores it: the SHA-256 of its
  * content (shared/speed-book/canonical.ts) must equal the hash it carries, and its Ed25519
  * signature (RFC 8032) over `signedRevisionStatement()` (shared/speed-book/signature.ts) must
- * verify with the operator's public key, through WebCrypto (`crypto.subtle`, Ed25519). No
- * Angular here.
+ * verify with the operator's public key that its `signingKeyId` names — the active key or one
+ * a rotation retired — through WebCrypto (`crypto.subtle`, Ed25519). A revision naming a key
+ * the operator never published is refused. No Angular here.
  */
 import type { SyncRevision } from '../../../../shared/api/sync';
 import { contentSha256 } from '../../../../shared/speed-book/canonical';
@@ -11,10 +12,17 @@ import { signedRevisionStatement } from '../../../../shared/speed-book/signature
 
 export interface VerifyingOperator {
   readonly id: number;
+}
+
+/** One public key of the operator as the server published it. */
+export interface PublishedKey {
+  readonly id: number;
   /** Raw 32-byte Ed25519 public key, standard base64. */
   readonly publicKey: string;
-  readonly signingKeyId: number;
 }
+
+/** The operator's keys by id, imported for WebCrypto (null: the published key is not a raw Ed25519 key). */
+export type OperatorKeys = ReadonlyMap<number, CryptoKey | null>;
 
 export type Verification = { readonly ok: true } | { readonly ok: false; readonly sentence: string };
 
@@ -41,35 +49,46 @@ export async function importOperatorKey(publicKeyBase64: string, subtle: SubtleC
   }
 }
 
+/** Every published key, imported once (a key that does not import stays, as null, so its revisions say why). */
+export async function importOperatorKeys(keys: readonly PublishedKey[], subtle: SubtleCrypto = globalThis.crypto.subtle): Promise<Map<number, CryptoKey | null>> {
+  const imported = new Map<number, CryptoKey | null>();
+  for (const key of keys) imported.set(key.id, await importOperatorKey(key.publicKey, subtle));
+  return imported;
+}
+
 function named(revision: SyncRevision): string {
   return `Revision ${revision.number} of ${revision.speedBookTitle}`;
 }
 
+/** The fields of a published revision its signature covers, with the signature and the key id it names. */
+export type SignedRevision = Pick<SyncRevision, 'id' | 'speedBookId' | 'number' | 'publishedAt' | 'content' | 'contentSha256' | 'signature' | 'signingKeyId'>;
+
 /**
- * Whether `revision` is exactly what the operator's key signed. `key` is the imported public
- * key of `operator` (null when it could not be imported). The sentence names the revision and
- * what failed, for the person at the device.
+ * Why `revision` is not exactly what the operator's key signed (a clause ending with a full
+ * stop), or null when it is. `keys` are the operator's published keys by id
+ * (`importOperatorKeys`); the revision is checked with the one its `signingKeyId` names. The
+ * device's sync and the check page share it.
  */
-export async function verifyRevision(
-  revision: SyncRevision,
-  operator: VerifyingOperator,
-  key: CryptoKey | null,
+export async function revisionSignatureProblem(
+  revision: SignedRevision,
+  operatorId: number,
+  keys: OperatorKeys,
   subtle: SubtleCrypto = globalThis.crypto.subtle,
-): Promise<Verification> {
-  const refuse = (why: string): Verification => ({ ok: false, sentence: `${named(revision)} was not stored on this device: ${why} Cards keep using the data already here; tell your operator's administrator.` });
-  if (key === null) return refuse('the operator’s public key the server sent is not a valid Ed25519 key.');
-  if (revision.signingKeyId !== operator.signingKeyId) return refuse('it was signed with a key this device does not have.');
+): Promise<string | null> {
+  if (!keys.has(revision.signingKeyId)) return `it names signing key No. ${revision.signingKeyId}, which your operator never published.`;
+  const key = keys.get(revision.signingKeyId) ?? null;
+  if (key === null) return `the operator’s public key No. ${revision.signingKeyId} the server sent is not a valid Ed25519 key.`;
   let hash: string;
   try {
     hash = contentSha256(revision.content);
   } catch {
-    return refuse('its content cannot be read.');
+    return 'its content cannot be read.';
   }
-  if (hash !== revision.contentSha256) return refuse('its content does not match the hash it was published with, so it may have been changed.');
+  if (hash !== revision.contentSha256) return 'its content does not match the hash it was published with, so it may have been changed.';
   const signature = base64Bytes(revision.signature);
-  if (!signature || signature.length !== 64) return refuse('its signature is not a valid Ed25519 signature.');
+  if (!signature || signature.length !== 64) return 'its signature is not a valid Ed25519 signature.';
   const statement = signedRevisionStatement({
-    operatorId: operator.id,
+    operatorId,
     speedBookId: revision.speedBookId,
     revisionId: revision.id,
     number: revision.number,
@@ -82,5 +101,20 @@ export async function verifyRevision(
   } catch {
     valid = false;
   }
-  return valid ? { ok: true } : refuse('its signature does not verify with the operator’s public key, so it may have been changed or not come from your operator.');
+  return valid ? null : `its signature does not verify with the operator’s public key No. ${revision.signingKeyId}, so it may have been changed or not come from your operator.`;
+}
+
+/**
+ * Whether a revision from a sync may be stored: `revisionSignatureProblem`, with the sentence
+ * naming the revision and what failed, for the person at the device.
+ */
+export async function verifyRevision(
+  revision: SyncRevision,
+  operator: VerifyingOperator,
+  keys: OperatorKeys,
+  subtle: SubtleCrypto = globalThis.crypto.subtle,
+): Promise<Verification> {
+  const why = await revisionSignatureProblem(revision, operator.id, keys, subtle);
+  if (why === null) return { ok: true };
+  return { ok: false, sentence: `${named(revision)} was not stored on this device: ${why} Cards keep using the data already here; tell your operator's administrator.` };
 }

@@ -5,8 +5,8 @@
  * sync asks for it again. `runSync` is one whole sync: the outbox, then the changes.
  */
 import type { SyncResponse } from '../../../../shared/api/sync';
-import type { RefusedRevision, RevisionRecord, SpeedwrightDeviceDatabase, SyncStateRecord } from '../storage/device-database';
-import { importOperatorKey, verifyRevision } from './revision-verification';
+import type { RefusedRevision, RevisionRecord, SigningKeyRecord, SpeedwrightDeviceDatabase, SyncStateRecord } from '../storage/device-database';
+import { importOperatorKeys, verifyRevision } from './revision-verification';
 import { flushOutbox, type OutboxOutcome } from './sync-outbox';
 import { SyncFailure, describeFailure, type SyncPerson, type SyncTransport } from './sync-transport';
 
@@ -43,20 +43,22 @@ export async function applySync(db: SpeedwrightDeviceDatabase, operatorId: numbe
   }
   const now = (options.now ?? (() => new Date()))().toISOString();
   const subtle = options.subtle ?? globalThis.crypto.subtle;
-  const key = await importOperatorKey(response.operator.publicKey, subtle);
+  const signingKeys = await operatorKeysAfter(db, operatorId, response);
+  const keys = await importOperatorKeys(signingKeys, subtle);
   const verified: RevisionRecord[] = [];
   const refused: RefusedRevision[] = [];
   for (const revision of response.revisions) {
-    const check = await verifyRevision(revision, response.operator, key, subtle);
+    const check = await verifyRevision(revision, response.operator, keys, subtle);
     if (check.ok) verified.push({ ...revision, operatorId, verifiedAt: now });
     else refused.push({ revisionId: revision.id, speedBookTitle: revision.speedBookTitle, number: revision.number, sentence: check.sentence });
   }
   let cursor: string | null = null;
-  await db.transaction('rw', [db.operators, db.aircraftTypes, db.airframes, db.revisions, db.syncState], async () => {
+  await db.transaction('rw', [db.operators, db.signingKeys, db.aircraftTypes, db.airframes, db.revisions, db.syncState], async () => {
     const previous = await db.syncState.get(operatorId);
     cursor = refused.length ? (previous?.cursor ?? null) : response.cursor;
     const { id, name, isDemo, publicKey, signingKeyId, currencyLimitDays } = response.operator;
     await db.operators.put({ id, name, isDemo, publicKey, signingKeyId, currencyLimitDays });
+    await db.signingKeys.bulkPut(signingKeys);
     if (response.aircraftTypes.length) await db.aircraftTypes.bulkPut(response.aircraftTypes.map((type) => ({ ...type, operatorId })));
     if (response.airframes.length) await db.airframes.bulkPut(response.airframes.map((airframe) => ({ ...airframe, operatorId })));
     if (verified.length) await db.revisions.bulkPut(verified);
@@ -64,6 +66,26 @@ export async function applySync(db: SpeedwrightDeviceDatabase, operatorId: numbe
     await db.syncState.put(state);
   });
   return { typesStored: response.aircraftTypes.length, airframesStored: response.airframes.length, revisionsStored: verified.length, refused, cursor };
+}
+
+/**
+ * The operator's public keys once this answer is applied: every key the answer lists (the
+ * active one included), and the keys this device learned at earlier syncs that the answer
+ * does not name — a device never forgets a key, so what it verified stays explained. A key
+ * never changes on a device either: for a key id it already holds, only the retirement is
+ * taken from the answer, never another public key, so revisions signed by a substituted key
+ * under an old id are refused.
+ */
+async function operatorKeysAfter(db: SpeedwrightDeviceDatabase, operatorId: number, response: SyncResponse): Promise<SigningKeyRecord[]> {
+  const byId = new Map<number, SigningKeyRecord>();
+  for (const stored of await db.signingKeys.where('operatorId').equals(operatorId).toArray()) byId.set(stored.id, stored);
+  const { signingKeyId, publicKey } = response.operator;
+  const listed = response.operator.signingKeys.some((key) => key.id === signingKeyId) ? response.operator.signingKeys : [...response.operator.signingKeys, { id: signingKeyId, publicKey, retiredAt: null }];
+  for (const key of listed) {
+    const stored = byId.get(key.id);
+    byId.set(key.id, stored ? { ...stored, retiredAt: key.retiredAt } : { ...key, operatorId });
+  }
+  return [...byId.values()];
 }
 
 /**
