@@ -21,6 +21,8 @@ function step(text: string): void {
 }
 
 async function launch(): Promise<void> {
+  console.log('Speedwright DEMO (npm start): the invented demo operators are seeded, and without SMTP_URL mail goes to a local fake mailbox.');
+  console.log('Not for an operator\'s own data: see README.md, "Running it for your operator" (npm run build, then npm run serve).\n');
   let stopDatabase = false;
   let databaseUrl = process.env['DATABASE_URL'];
   if (!databaseUrl) {
@@ -75,7 +77,7 @@ async function launch(): Promise<void> {
     },
   });
   const port = await supervisor.listening;
-  console.log(`\nSpeedwright is running: http://localhost:${port}/`);
+  console.log(`\nSpeedwright (demo) is running: http://localhost:${port}/`);
   console.log(`Demo accounts: pilot@demo.speedwright.example (and engineer@, approver@, admin@, inspector@), password ${process.env['DEMO_PASSWORD'] ? 'from DEMO_PASSWORD' : DEFAULT_DEMO_PASSWORD}`);
   if (mailbox) console.log('Mail goes to the local fake mailbox: sign in as admin@demo.speedwright.example to read it.');
   console.log('Press Ctrl-C to stop.\n');
