@@ -99,10 +99,13 @@ function serveHere(): void {
  */
 function supervise(count: number): void {
   const supervisor = superviseWorkers({ count });
-  supervisor.listening.catch((error: unknown) => {
-    console.error(error instanceof Error ? error.message : error);
-    process.exit(1);
-  });
+  supervisor.listening.then(
+    (port) => console.log(`Speedwright supervisor (process ${process.pid}): ${count} server process${count === 1 ? '' : 'es'} on port ${port}; SIGTERM stops them gracefully.`),
+    (error: unknown) => {
+      console.error(error instanceof Error ? error.message : error);
+      process.exit(1);
+    },
+  );
   let stopping = false;
   const shutdown = () => {
     if (stopping) return;

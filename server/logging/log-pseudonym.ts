@@ -28,8 +28,11 @@ export function logPseudonym(secret: string): LogPseudonym {
   };
 }
 
-/** Anything shaped like `someone@somewhere` (an e-mail address, or credentials in a URL). */
-const ADDRESS_LIKE = /[^\s@"'<>(),;:/]+@[^\s@"'<>(),;:]+/g;
+/**
+ * Anything shaped like `someone@somewhere`, the `@` also percent-encoded (`%40`, as in a query
+ * string): an e-mail address, or the password and host of credentials in a URL.
+ */
+const ADDRESS_LIKE = /[^\s@"'<>(),;:/?&=#]+(?:@|%40)[^\s@"'<>(),;:/?&=#]+/gi;
 
 /** The text with every e-mail address (or `user:password@host` part of a URL) replaced by `[address]`. */
 export function maskAddresses(text: string): string {
