@@ -59,10 +59,12 @@ describe('loadConfig in production', () => {
     expect(refusal(productionEnv({ PUBLIC_URL: 'ftp://speeds.fleet.example' }))).toContain('PUBLIC_URL must be an http(s) URL');
   });
 
-  it('refuses a missing SMTP_URL and the development sender', () => {
+  it('refuses a missing SMTP_URL, and the development sender beyond this machine', () => {
     expect(refusal(productionEnv({ SMTP_URL: undefined }))).toContain('SMTP_URL is not set');
     expect(refusal(productionEnv({ MAIL_FROM: undefined }))).toContain('MAIL_FROM is not set');
     expect(refusal(productionEnv({ MAIL_FROM: 'Speedwright <no-reply@speedwright.localhost>' }))).toContain('MAIL_FROM is "Speedwright <no-reply@speedwright.localhost>"');
+    // npm start: the demo on localhost, mail to its fake mailbox, the default sender.
+    expect(refusal(productionEnv({ MAIL_FROM: undefined, PUBLIC_URL: 'http://localhost:4300', SMTP_URL: 'smtp://127.0.0.1:2525' }))).toBe('');
   });
 
   it('lists every problem at once, one line each', () => {

@@ -5,7 +5,7 @@
  * In production (NODE_ENV=production, the default) the start is refused, with a sentence naming
  * the variable, when a secret is weak (`secret-strength.ts`) or the two secrets are one,
  * PUBLIC_URL is unset or not https outside loopback, SMTP_URL is unset, or MAIL_FROM is the
- * development sender (a .localhost address). The compiled build
+ * development sender (a .localhost address) on a PUBLIC_URL beyond this machine. The compiled build
  * refuses MAILBOX_DIR, whose page is a development piece it does not hold.
  */
 import { z } from 'zod';
@@ -73,6 +73,7 @@ export function productionProblems(config: ServerConfig, env: NodeJS.ProcessEnv)
   if (config.SESSION_SECRET === config.SIGNING_KEY_SECRET) {
     problems.push('SESSION_SECRET and SIGNING_KEY_SECRET are the same value; give each a secret of its own.');
   }
+  const publicHost = new URL(config.PUBLIC_URL).hostname;
   if (!env['PUBLIC_URL']) {
     problems.push('PUBLIC_URL is not set: give the https:// address people open Speedwright at (mail links and the QR code of every printed card carry it).');
   } else {
@@ -81,7 +82,8 @@ export function productionProblems(config: ServerConfig, env: NodeJS.ProcessEnv)
       problems.push(`PUBLIC_URL must be an https:// address outside this machine, not ${url.origin}: the app's offline mode, the camera and secure cookies need https.`);
     }
   }
-  if (/\.localhost>?\s*$/i.test(config.MAIL_FROM)) {
+  // On this machine alone (npm start's demo, its fake mailbox) the development sender is harmless.
+  if (!isLoopbackHost(publicHost) && /\.localhost>?\s*$/i.test(config.MAIL_FROM)) {
     problems.push(`MAIL_FROM is ${env['MAIL_FROM'] ? `"${config.MAIL_FROM}"` : 'not set'}: give a sender at the operator's own mail domain, such as "Speedwright <speedwright@fleet.example>"; mail servers refuse a .localhost sender.`);
   }
   if (!config.SMTP_URL) {

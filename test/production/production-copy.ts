@@ -19,9 +19,8 @@ import { openLocalDatabase } from '../../db/local';
 import { startFakeSmtp, type FakeSmtp } from '../../server/dev/fake-smtp';
 import { buildServer } from '../../tools/build-server';
 import { freePort } from '../support/app-server';
+import { REUSE_BUILD_VARIABLE } from './reuse-build';
 
-/** Set by `test/run.ts` after it has built the web app and the server: the tests use that build as it is. */
-export const REUSE_BUILD_VARIABLE = 'SPEEDWRIGHT_REUSE_BUILD';
 
 export interface ProductionCopy {
   /** The temporary folder holding dist/, package.json, package-lock.json and the production node_modules. */
