@@ -8,7 +8,7 @@
  * in flight finish within SHUTDOWN_GRACE_SECONDS, then the database pool closes.
  */
 import cluster from 'node:cluster';
-import type { Server } from 'node:http';
+import { createServer } from 'node:http';
 import { createApp } from './app';
 import { databaseReadUrls, loadConfig } from './config';
 import { createSequelize } from '../db/connection';
@@ -26,10 +26,16 @@ export async function serve(env: NodeJS.ProcessEnv = process.env) {
   const sequelize = createSequelize(config.DATABASE_URL, databaseReadUrls(config));
   initModels(sequelize);
   const { app, beginDraining, close } = createApp({ config, sequelize, logger });
-  const server = await new Promise<Server>((resolve, reject) => {
-    const listening = app.listen(config.PORT, config.HOST, (error?: Error) => (error ? reject(error) : resolve(listening)));
-  });
+  const server = createServer(app);
+  // Watching requests from the first one on, so a stop knows every request in flight.
   const stopper = gracefulStopper(server);
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(config.PORT, config.HOST, () => {
+      server.off('error', reject);
+      resolve();
+    });
+  });
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.PORT;
   const graceMs = config.SHUTDOWN_GRACE_SECONDS * 1000;
