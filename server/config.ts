@@ -25,7 +25,7 @@ const envSchema = z.object({
    * Encrypts the operators' Ed25519 private keys at rest (AES-256-GCM under a key derived from
    * it with HKDF-SHA-256). The same on every instance; changing it makes existing keys unusable.
    */
-  SIGNING_KEY_SECRET: z.string({ error: 'SIGNING_KEY_SECRET is not set: make one with `openssl rand -base64 32` and keep it with your backups.' }).min(32, 'SIGNING_KEY_SECRET must be at least 32 characters'),
+  SIGNING_KEY_SECRET: z.string({ error: 'SIGNING_KEY_SECRET is not set: make one with `openssl rand -base64 32` and keep a copy safe, apart from the backups.' }).min(32, 'SIGNING_KEY_SECRET must be at least 32 characters'),
   /** `auto` sets the Secure flag whenever the request arrived over HTTPS (directly or via a trusted proxy). */
   COOKIE_SECURE: z.enum(['auto', 'true', 'false']).default('auto'),
   /** Express "trust proxy" setting: hop count or a list of proxy addresses. */
