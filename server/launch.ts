@@ -1,6 +1,7 @@
 /**
  * `npm start`: the whole product on this machine. Starts the private MariaDB (unless
- * DATABASE_URL names a server), migrates, seeds the invented demo data, builds the web app,
+ * DATABASE_URL names a server, which must then hold no operator but demo ones), migrates,
+ * seeds the invented demo data, builds the web app,
  * serves it from supervised server processes (a process that dies is replaced) and prints the
  * URL. Ctrl-C stops the server and, if it started it, the database.
  */
@@ -9,6 +10,7 @@ import { join } from 'node:path';
 import { openLocalDatabase, localSecrets, stopLocalInstance } from '../db/local';
 import { projectRoot } from '../db/instance';
 import { createMigrator } from '../db/migrator';
+import { refuseRealOperatorDatabase } from './dev/demo-database-guard';
 import { DEFAULT_DEMO_PASSWORD, seedDemo } from './dev/demo-seed';
 import { createSequelize } from '../db/connection';
 import { initModels } from './models';
@@ -35,6 +37,15 @@ async function launch(): Promise<void> {
   step('Migrating and seeding the demo data (invented demo data — not for flight)');
   const sequelize = createSequelize(databaseUrl);
   initModels(sequelize);
+  // A database named by DATABASE_URL may be an operator's real one; the private instance is the demo's own.
+  if (process.env['DATABASE_URL']) {
+    try {
+      await refuseRealOperatorDatabase(sequelize);
+    } catch (error) {
+      await sequelize.close();
+      throw error;
+    }
+  }
   await createMigrator(sequelize, undefined).up();
   await seedDemo(sequelize, process.env['DEMO_PASSWORD'] ?? DEFAULT_DEMO_PASSWORD, {
     signingKeySecret: process.env['SIGNING_KEY_SECRET'] ?? localSecrets().signingKeySecret,
