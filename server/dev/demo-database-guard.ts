@@ -1,8 +1,8 @@
 /**
  * `npm start` seeds the invented demo operators into the database it is given. With
  * DATABASE_URL it would do so into any database, an operator's real one included; this check,
- * run by the launcher before it migrates or seeds a database named by DATABASE_URL, refuses one
- * that holds an operator that is not a demo one. (A real installation starts with `npm run serve`, which never seeds.)
+ * run by the launcher (and `npm run db:seed`) before it migrates or seeds a database named by
+ * DATABASE_URL, refuses one that holds an operator that is not a demo one. (A real installation starts with `npm run serve`, which never seeds.)
  */
 import { QueryTypes, type Sequelize } from 'sequelize';
 
