@@ -22,7 +22,7 @@ describe('the demo database guard', () => {
       await expect(refuseRealOperatorDatabase(sequelize)).resolves.toBeUndefined();
       await insert('guard-real', 0);
       await expect(refuseRealOperatorDatabase(sequelize)).rejects.toThrow(
-        'DATABASE_URL names a database with 1 operator of its own, and npm start is the demo: it would add the invented demo operators there.',
+        'DATABASE_URL names a database with 1 operator of its own; the demo (npm start, npm run db:seed) would add the invented demo operators there.',
       );
     } finally {
       await sequelize.close();

@@ -25,7 +25,7 @@ export async function refuseRealOperatorDatabase(sequelize: Sequelize): Promise<
   const count = await realOperatorCount(sequelize);
   if (count > 0) {
     throw new Error(
-      `DATABASE_URL names a database with ${count} operator${count === 1 ? '' : 's'} of its own, and npm start is the demo: it would add the invented demo operators there. ` +
+      `DATABASE_URL names a database with ${count} operator${count === 1 ? '' : 's'} of its own; the demo (npm start, npm run db:seed) would add the invented demo operators there. ` +
         'Run a real installation with `npm run build` and `npm run serve` (README.md, "Running it for your operator").',
     );
   }
