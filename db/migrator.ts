@@ -33,12 +33,6 @@ const MIGRATIONS: { name: string; module: { up: Migration; down: Migration } }[]
   { name: '20261205-0802-user-address-per-operator', module: userAddressPerOperator },
 ];
 
-/** Names of the migrations this build holds, in order (the `name` column of `schema_migrations`). */
-export const MIGRATION_NAMES: readonly string[] = MIGRATIONS.map(({ name }) => name);
-
-/** The table umzug records applied migrations in. */
-export const MIGRATIONS_TABLE = 'schema_migrations';
-
 export function createMigrator(sequelize: Sequelize, logger: Umzug<QueryInterface>['options']['logger'] = undefined): Umzug<QueryInterface> {
   return new Umzug({
     migrations: MIGRATIONS.map(({ name, module }) => ({ name, up: module.up, down: module.down })),
@@ -47,3 +41,9 @@ export function createMigrator(sequelize: Sequelize, logger: Umzug<QueryInterfac
     logger,
   });
 }
+
+/** Names of the migrations this build holds, in order (the `name` column of `schema_migrations`). */
+export const MIGRATION_NAMES: readonly string[] = MIGRATIONS.map(({ name }) => name);
+
+/** The table umzug records applied migrations in. */
+export const MIGRATIONS_TABLE = 'schema_migrations';
