@@ -2,9 +2,10 @@
 const { createCjsPreset } = require('jest-preset-angular/presets');
 
 /**
- * Four jest projects: the pure shared library, the server against a real MariaDB instance,
- * end-to-end in Debian's Chromium against the production build, and the Angular client
- * under jsdom. `npm run test:unit`, `test:api` and `test:e2e` pick them by name.
+ * Five jest projects: the pure shared library, the server against a real MariaDB instance,
+ * end-to-end in Debian's Chromium against the production build, the Angular client under
+ * jsdom, and the production path (the build installed with production dependencies only).
+ * `npm run test:unit`, `test:api`, `test:e2e` and `test:production` pick them by name.
  */
 const tsJest = ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }];
 
@@ -39,6 +40,13 @@ module.exports = {
       globalTeardown: '<rootDir>/test/e2e/global-teardown.ts',
       setupFiles: ['<rootDir>/test/e2e/env.ts'],
       setupFilesAfterEnv: ['<rootDir>/test/e2e/timeouts.ts'],
+    },
+    {
+      displayName: 'production',
+      testEnvironment: 'node',
+      roots: ['<rootDir>/test/production'],
+      testMatch: ['**/*.spec.ts'],
+      transform: { '^.+\\.ts$': tsJest },
     },
     {
       displayName: 'client',

@@ -44,7 +44,13 @@ export function createMigrator(sequelize: Sequelize, logger: Umzug<QueryInterfac
   return new Umzug({
     migrations: MIGRATIONS.map(({ name, module }) => ({ name, up: module.up, down: module.down })),
     context: sequelize.getQueryInterface(),
-    storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
+    storage: new SequelizeStorage({ sequelize, tableName: MIGRATIONS_TABLE }),
     logger,
   });
 }
+
+/** Names of the migrations this build holds, in order (the `name` column of `schema_migrations`). */
+export const MIGRATION_NAMES: readonly string[] = MIGRATIONS.map(({ name }) => name);
+
+/** The table umzug records applied migrations in. */
+export const MIGRATIONS_TABLE = 'schema_migrations';

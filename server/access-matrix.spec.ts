@@ -33,6 +33,8 @@ type Rule = 'public' | 'signed-in' | Capability | readonly Capability[];
 /** What each route needs, as the roles table names it. A new route: add its line. */
 const ACCESS: Record<string, Rule> = {
   'GET /api/health': 'public',
+  'GET /api/health/live': 'public',
+  'GET /api/health/ready': 'public',
   'GET /api/openapi.json': 'public',
   'GET /api/auth/csrf': 'public',
   'POST /api/auth/login': 'public',

@@ -1,4 +1,3 @@
-import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import connectSessionSequelize from 'connect-session-sequelize';
@@ -20,6 +19,9 @@ import { jsonBoundsBreach, REQUEST_BODY_BOUNDS } from '../shared/api/json-bounds
 import { absoluteSessionLifetime } from './auth/session-lifetime';
 import { databaseReadUrls, type ServerConfig } from './config';
 import { healthRoutes } from './health/health.routes';
+import { createReadinessProbe } from './health/readiness';
+import { logPseudonym } from './logging/log-pseudonym';
+import { requestLogOptions } from './logging/request-log';
 import { DomainError } from './errors/domain-error';
 import { createOutbox, setOutbox } from './mail/outbox';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
@@ -51,11 +53,11 @@ export interface AppDeps {
 
 export interface SpeedwrightApp {
   app: Express;
+  /** From now on readiness answers 503 `shutting_down` (graceful shutdown; main.ts). */
+  beginDraining(): void;
   /** Stops the session store's timers and closes the card check's read pool; the caller closes Sequelize. */
   close(): Promise<void>;
 }
-
-const REQUEST_ID = /^[A-Za-z0-9._-]{1,64}$/;
 
 /**
  * A parsed JSON body within REQUEST_BODY_BOUNDS, or a 400 that names the field it breaks them
@@ -71,7 +73,9 @@ const boundedBody: RequestHandler = (req, _res, next) => {
 export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightApp {
   const app = express();
   const cardCheckReads = createReadPool(config.DATABASE_URL, databaseReadUrls(config));
-  setOutbox(createOutbox(config, logger));
+  const pseudonym = logPseudonym(config.SESSION_SECRET);
+  const readiness = createReadinessProbe(sequelize);
+  setOutbox(createOutbox(config, logger, pseudonym));
   app.disable('x-powered-by');
   app.set('trust proxy', parseTrustProxy(config.TRUST_PROXY));
 
@@ -103,7 +107,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   // The public card check, before the request logger and the sessions: no session lookup, and a
   // compact log line of its own (pino-http serialises every header of every request, a quarter
   // of the cost of an answer on a route that must answer 1,500 times a second).
-  app.use('/api/verify', verifyRoutes({ reads: cardCheckReads, logger, unknownCodesPer15Min: config.VERIFY_UNKNOWN_CODES_PER_15_MIN }));
+  app.use('/api/verify', verifyRoutes({ reads: cardCheckReads, logger, pseudonym, unknownCodesPer15Min: config.VERIFY_UNKNOWN_CODES_PER_15_MIN }));
 
   // Every other /api answer carries personal or operator data: no browser, proxy or service
   // worker keeps a copy (ASVS 8.2.1). Routes may only make it stricter. The public card check
@@ -116,22 +120,11 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   // gzip for JSON answers (a full sync is mostly revision content) and the app's files.
   app.use(compression());
 
-  app.use(
-    pinoHttp({
-      logger,
-      genReqId: (req, res) => {
-        const incoming = req.headers['x-request-id'];
-        const id = typeof incoming === 'string' && REQUEST_ID.test(incoming) ? incoming : randomUUID();
-        res.setHeader('x-request-id', id);
-        return id;
-      },
-      redact: ['req.headers.cookie', 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'],
-      autoLogging: { ignore: (req) => !req.url?.startsWith('/api/') },
-    }),
-  );
+  // JSON lines with request ids and no personal data in clear (logging/request-log.ts).
+  app.use(pinoHttp(requestLogOptions(logger, pseudonym)));
 
   // Health first: it must answer even when sessions (which need the database) cannot.
-  app.use('/api/health', healthRoutes(sequelize));
+  app.use('/api/health', healthRoutes(sequelize, readiness));
 
   const SequelizeStore = connectSessionSequelize(session.Store);
   const store = new SequelizeStore({
@@ -233,6 +226,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
 
   return {
     app,
+    beginDraining: () => readiness.beginDraining(),
     close: async () => {
       store.stopExpiringSessions();
       await cardCheckReads.close();

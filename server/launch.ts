@@ -1,6 +1,7 @@
 /**
  * `npm start`: the whole product on this machine. Starts the private MariaDB (unless
- * DATABASE_URL names a server), migrates, seeds the invented demo data, builds the web app,
+ * DATABASE_URL names a server, which must then hold no operator but demo ones), migrates,
+ * seeds the invented demo data, builds the web app,
  * serves it from supervised server processes (a process that dies is replaced) and prints the
  * URL. Ctrl-C stops the server and, if it started it, the database.
  */
@@ -9,6 +10,7 @@ import { join } from 'node:path';
 import { openLocalDatabase, localSecrets, stopLocalInstance } from '../db/local';
 import { projectRoot } from '../db/instance';
 import { createMigrator } from '../db/migrator';
+import { refuseRealOperatorDatabase } from './dev/demo-database-guard';
 import { DEFAULT_DEMO_PASSWORD, seedDemo } from './dev/demo-seed';
 import { createSequelize } from '../db/connection';
 import { initModels } from './models';
@@ -21,6 +23,8 @@ function step(text: string): void {
 }
 
 async function launch(): Promise<void> {
+  console.log('Speedwright DEMO (npm start): the invented demo operators are seeded, and without SMTP_URL mail goes to a local fake mailbox.');
+  console.log('Not for an operator\'s own data: see README.md, "Running it for your operator" (npm run build, then npm run serve).\n');
   let stopDatabase = false;
   let databaseUrl = process.env['DATABASE_URL'];
   if (!databaseUrl) {
@@ -33,6 +37,15 @@ async function launch(): Promise<void> {
   step('Migrating and seeding the demo data (invented demo data — not for flight)');
   const sequelize = createSequelize(databaseUrl);
   initModels(sequelize);
+  // A database named by DATABASE_URL may be an operator's real one; the private instance is the demo's own.
+  if (process.env['DATABASE_URL']) {
+    try {
+      await refuseRealOperatorDatabase(sequelize);
+    } catch (error) {
+      await sequelize.close();
+      throw error;
+    }
+  }
   await createMigrator(sequelize, undefined).up();
   await seedDemo(sequelize, process.env['DEMO_PASSWORD'] ?? DEFAULT_DEMO_PASSWORD, {
     signingKeySecret: process.env['SIGNING_KEY_SECRET'] ?? localSecrets().signingKeySecret,
@@ -75,7 +88,7 @@ async function launch(): Promise<void> {
     },
   });
   const port = await supervisor.listening;
-  console.log(`\nSpeedwright is running: http://localhost:${port}/`);
+  console.log(`\nSpeedwright (demo) is running: http://localhost:${port}/`);
   console.log(`Demo accounts: pilot@demo.speedwright.example (and engineer@, approver@, admin@, inspector@), password ${process.env['DEMO_PASSWORD'] ? 'from DEMO_PASSWORD' : DEFAULT_DEMO_PASSWORD}`);
   if (mailbox) console.log('Mail goes to the local fake mailbox: sign in as admin@demo.speedwright.example to read it.');
   console.log('Press Ctrl-C to stop.\n');

@@ -7,6 +7,7 @@
 import { createSequelize } from '../../db/connection';
 import { openLocalDatabase } from '../../db/local';
 import { initModels } from '../models';
+import { refuseRealOperatorDatabase } from './demo-database-guard';
 import { DEFAULT_DEMO_PASSWORD, seedDemo } from './demo-seed';
 
 async function seed(): Promise<void> {
@@ -14,6 +15,7 @@ async function seed(): Promise<void> {
   const sequelize = createSequelize(url);
   initModels(sequelize);
   try {
+    if (process.env['DATABASE_URL']) await refuseRealOperatorDatabase(sequelize);
     await seedDemo(sequelize, process.env['DEMO_PASSWORD'] ?? DEFAULT_DEMO_PASSWORD);
     console.log('Demo data seeded (invented demo data — not for flight).');
   } finally {

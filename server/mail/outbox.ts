@@ -7,6 +7,7 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Logger } from 'pino';
 import type { ServerConfig } from '../config';
+import type { LogPseudonym } from '../logging/log-pseudonym';
 
 export interface OutgoingMail {
   /** One recipient per message: nobody sees who else was told. */
@@ -21,20 +22,22 @@ export class Outbox {
     private readonly from: string,
     private readonly publicUrl: string,
     private readonly logger: Logger,
+    /** Recipients are logged by pseudonym only (logging/log-pseudonym.ts). */
+    private readonly pseudonym: LogPseudonym,
   ) {}
 
   /** Sends one message; resolves `false` (and logs why) when it could not be handed over. */
   async send(mail: OutgoingMail): Promise<boolean> {
     if (!this.transport) {
-      this.logger.warn({ to: mail.to, subject: mail.subject }, 'mail not sent: SMTP_URL is not set');
+      this.logger.warn({ to: this.pseudonym(mail.to.toLowerCase()), subject: mail.subject }, 'mail not sent: SMTP_URL is not set');
       return false;
     }
     try {
       await this.transport.sendMail({ from: this.from, to: mail.to, subject: mail.subject, text: mail.text });
-      this.logger.info({ to: mail.to, subject: mail.subject }, 'mail sent');
+      this.logger.info({ to: this.pseudonym(mail.to.toLowerCase()), subject: mail.subject }, 'mail sent');
       return true;
     } catch (error) {
-      this.logger.error({ err: error, to: mail.to, subject: mail.subject }, 'mail could not be sent');
+      this.logger.error({ err: error, to: this.pseudonym(mail.to.toLowerCase()), subject: mail.subject }, 'mail could not be sent');
       return false;
     }
   }
@@ -52,7 +55,10 @@ export class Outbox {
   }
 }
 
-export function createOutbox(config: Pick<ServerConfig, 'SMTP_URL' | 'MAIL_FROM' | 'PUBLIC_URL' | 'MAILBOX_DIR'>, logger: Logger): Outbox {
+/** Without a pseudonym function (a command-line tool without SESSION_SECRET), recipients are not logged at all. */
+const UNNAMED: LogPseudonym = () => '[address]';
+
+export function createOutbox(config: Pick<ServerConfig, 'SMTP_URL' | 'MAIL_FROM' | 'PUBLIC_URL' | 'MAILBOX_DIR'>, logger: Logger, pseudonym: LogPseudonym = UNNAMED): Outbox {
   const transport = config.SMTP_URL
     ? nodemailer.createTransport({
         url: config.SMTP_URL,
@@ -63,7 +69,7 @@ export function createOutbox(config: Pick<ServerConfig, 'SMTP_URL' | 'MAIL_FROM'
         socketTimeout: 20_000,
       } as Parameters<typeof nodemailer.createTransport>[0])
     : undefined;
-  return new Outbox(transport, config.MAIL_FROM, config.PUBLIC_URL, logger.child({ component: 'mail' }));
+  return new Outbox(transport, config.MAIL_FROM, config.PUBLIC_URL, logger.child({ component: 'mail' }), pseudonym);
 }
 
 let current: Outbox | undefined;

@@ -33,6 +33,7 @@ import {
   updateAircraftTypeSchema,
   updateAirframeSchema,
 } from '../../shared/api/fleet';
+import { livenessSchema, readinessSchema } from '../../shared/api/health';
 import { mailboxResponseSchema } from '../../shared/api/mailbox';
 import { invitationSentSchema } from '../../shared/api/people';
 import {
@@ -170,6 +171,14 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
   };
 
   route('get', '/api/health', { summary: 'Whether the server and its database answer', tags: ['health'], who: 'public', ok: { status: 200, schema: healthSchema }, errors: [503] });
+  route('get', '/api/health/live', { summary: 'Liveness: the process answers', tags: ['health'], who: 'public', ok: { status: 200, schema: livenessSchema } });
+  route('get', '/api/health/ready', {
+    summary: 'Readiness: the database answers, every migration of this build has run, and the instance is not shutting down (503 with the reason otherwise)',
+    tags: ['health'],
+    who: 'public',
+    ok: { status: 200, schema: readinessSchema },
+    errors: [503],
+  });
   route('get', '/api/openapi.json', { summary: 'This document', tags: ['meta'], who: 'public', ok: { status: 200, description: 'OpenAPI 3.1' } });
 
   route('get', '/api/auth/csrf', { summary: 'A CSRF token for this session', tags: ['auth'], who: 'public', ok: { status: 200, schema: csrfResponseSchema } });

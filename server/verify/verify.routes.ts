@@ -4,6 +4,7 @@ import type { Logger } from 'pino';
 import { rateLimit } from 'express-rate-limit';
 import { validateCardCode } from '../../shared/card-check/card-code';
 import { DomainError } from '../errors/domain-error';
+import type { LogPseudonym } from '../logging/log-pseudonym';
 import type { ReadPool } from './read-pool';
 import { cardSourceOf, verifyCardCode } from './verify.service';
 
@@ -12,6 +13,8 @@ export interface VerifyRoutesOptions {
   reads: ReadPool;
   /** The app's logger: this router sits before pino-http and logs one short line per answer. */
   logger: Logger;
+  /** Turns the client's address into the pseudonym the logs carry (logging/log-pseudonym.ts). */
+  pseudonym: LogPseudonym;
   /** Unknown or malformed codes one address may ask about in 15 minutes (answers for real codes do not count). */
   unknownCodesPer15Min: number;
 }
@@ -45,7 +48,7 @@ function codeOf(raw: string, res: Response): string {
  * who typed a few wrong codes must still be able to check the card in their hand), and only a
  * code that matches no card answers 429. With several instances the limit applies per instance.
  */
-export function verifyRoutes({ reads, logger, unknownCodesPer15Min }: VerifyRoutesOptions): Router {
+export function verifyRoutes({ reads, logger, pseudonym, unknownCodesPer15Min }: VerifyRoutesOptions): Router {
   const router = Router();
   const guessLimiter = rateLimit({
     windowMs: 15 * 60_000,
@@ -73,7 +76,7 @@ export function verifyRoutes({ reads, logger, unknownCodesPer15Min }: VerifyRout
     res.setHeader('x-request-id', id);
     res.once('finish', () => {
       const ms = Number(process.hrtime.bigint() - started) / 1e6;
-      logger.info({ reqId: id, method: req.method, path: req.originalUrl.split('?')[0], status: res.statusCode, responseTime: Math.round(ms * 10) / 10, remoteAddress: req.ip }, 'card check answered');
+      logger.info({ reqId: id, method: req.method, path: req.originalUrl.split('?')[0], status: res.statusCode, responseTime: Math.round(ms * 10) / 10, ...(req.ip ? { client: pseudonym(req.ip) } : {}) }, 'card check answered');
     });
     next();
   };

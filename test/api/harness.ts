@@ -1,7 +1,7 @@
 /**
  * One Express app per test file against the test database, plus signed-in supertest agents.
  */
-import { pino } from 'pino';
+import { pino, type Logger } from 'pino';
 import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
 import type { Role } from '../../shared/auth/roles';
@@ -21,10 +21,13 @@ export const TEST_PUBLIC_URL = 'http://speedwright.test';
 export interface Harness {
   app: ReturnType<typeof createApp>['app'];
   sequelize: ReturnType<typeof createSequelize>;
+  /** Readiness answers 503 `shutting_down` from now on (as on SIGTERM). */
+  beginDraining(): void;
   close(): Promise<void>;
 }
 
-export function startHarness(overrides: Partial<Record<keyof ServerConfig, string>> = {}): Harness {
+/** `logger`: where the app logs (silent by default). */
+export function startHarness(overrides: Partial<Record<keyof ServerConfig, string>> = {}, { logger = pino({ level: 'silent' }) }: { logger?: Logger } = {}): Harness {
   const config = loadConfig({
     NODE_ENV: 'test',
     DATABASE_URL: process.env['DATABASE_URL'],
@@ -41,10 +44,11 @@ export function startHarness(overrides: Partial<Record<keyof ServerConfig, strin
   });
   const sequelize = createSequelize(config.DATABASE_URL);
   initModels(sequelize);
-  const { app, close } = createApp({ config, sequelize, logger: pino({ level: 'silent' }) });
+  const { app, beginDraining, close } = createApp({ config, sequelize, logger });
   return {
     app,
     sequelize,
+    beginDraining,
     async close() {
       await close();
       await sequelize.close();

@@ -21,6 +21,7 @@ import { projectRoot } from '../../db/instance';
 import { localSecrets, openLocalDatabase, stopLocalInstance } from '../../db/local';
 import { createMigrator } from '../../db/migrator';
 import { seedDemo } from '../../server/dev/demo-seed';
+import { startFakeSmtp } from '../../server/dev/fake-smtp';
 import { recordCardIssue } from '../../server/cards/card-issues.service';
 import { loadCardSource } from '../../server/cards/card-source';
 import { createSequelize } from '../../db/connection';
@@ -100,6 +101,8 @@ async function main(): Promise<number> {
   const { url, instance } = await openLocalDatabase('test', 'speedwright_bench_verify', { fresh: true });
   const codes = await issueCards(url);
   const port = await freePort();
+  // Production's configuration check wants a mail server; the card check sends no mail.
+  const smtp = await startFakeSmtp({ dir: join(projectRoot, '.data', 'mailbox-bench-verify') });
   const server = spawn(process.execPath, ['--import', 'tsx', join(projectRoot, 'server/main.ts')], {
     cwd: projectRoot,
     stdio: ['ignore', 'ignore', 'inherit'],
@@ -111,6 +114,9 @@ async function main(): Promise<number> {
       DATABASE_URL: url,
       SESSION_SECRET: localSecrets().sessionSecret,
       SIGNING_KEY_SECRET: localSecrets().signingKeySecret,
+      PUBLIC_URL: `http://localhost:${port}`,
+      SMTP_URL: smtp.url,
+      MAIL_FROM: 'Speedwright <speedwright@fleet.example>',
       LOG_LEVEL: 'info',
       // One server process per core, as production runs it (WEB_CONCURRENCY, README).
       WEB_CONCURRENCY: String(availableParallelism()),
@@ -145,6 +151,7 @@ async function main(): Promise<number> {
     return ok ? 0 : 1;
   } finally {
     await stopProcess(server);
+    await smtp.stop();
     if (instance.startedHere) await stopLocalInstance('test');
   }
 }
