@@ -25,6 +25,12 @@ export const SERVER_ENTRY_POINTS: Readonly<Record<string, string>> = {
   main: 'server/main.ts',
   /** `npm run migrate`: the migrations of this build against DATABASE_URL. */
   migrate: 'db/migrate.ts',
+  /** `npm run operator:create` / `operator:list`: setting up an operator. */
+  operator: 'server/cli/operator.ts',
+  /** `npm run backup`, `restore`, `backup:check`. */
+  backup: 'server/backup/backup-cli.ts',
+  restore: 'server/backup/restore-cli.ts',
+  'backup-check': 'server/backup/check-cli.ts',
 };
 
 export const SERVER_OUT_DIR = join(root, 'dist', 'server');
