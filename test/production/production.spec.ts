@@ -2,9 +2,12 @@
  * The production path end to end (issue 14): the build installed with production dependencies
  * only into a temporary folder (`production-copy.ts`), its configuration check, `npm run serve`
  * against a fresh MariaDB database, readiness before and after `npm run migrate`, the web app,
- * no demo data, and a graceful stop. The tests run in order and share the installed copy and
- * the server; further steps (the operator commands, key rotation) go between "migrates" and
- * "stops", using `server`, `copy` and `runInCopy`.
+ * no demo data, then the issue's flow through the installed copy's commands and the server's
+ * HTTP API only (an operator created with `operator:create`, invitations followed from the fake
+ * mail server, a revision published, the signing key rotated, a second revision, both verified
+ * with the device's own function; backup, check, restore onto a second server), and a graceful
+ * stop. The tests run in order and share the installed copy and the server; further steps go
+ * before "stops", using `server`, `copy` and `runInCopy`.
  */
 import { spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -212,7 +215,7 @@ describe('the production build, installed with production dependencies only', ()
       const draft = await engineer.post<{ revision: { id: number } }>(`/api/speed-books/${speedBookId}/revisions`, { content, changeSummary }, 201);
       const id = draft.revision.id;
       await engineer.post(`/api/revisions/${id}/submit`);
-      // Four eyes: the engineer who wrote it cannot approve it.
+      // Four eyes: the engineer who wrote it cannot approve it; the approver does.
       expect((await engineer.request('POST', `/api/revisions/${id}/approve`, {})).status).toBe(403);
       await approver.post(`/api/revisions/${id}/approve`);
       return id;
