@@ -140,11 +140,15 @@ export interface ProductionServer {
 }
 
 /**
- * A fresh database `database` on the test instance, a fake mail server, and `npm run serve` in
- * the copy with a production environment (`envOverrides` over it), once it answers liveness.
+ * A fresh database `database` on the test instance (or, with `fresh: false`, the one already
+ * there, e.g. restored from a backup), a fake mail server, and `npm run serve` in the copy with
+ * a production environment (`envOverrides` over it), once it answers liveness.
  */
-export async function startProductionServer(copy: ProductionCopy, { database = 'speedwright_production_test', envOverrides = {} }: { database?: string; envOverrides?: NodeJS.ProcessEnv } = {}): Promise<ProductionServer> {
-  const { url: databaseUrl, instance } = await openLocalDatabase('test', database, { fresh: true });
+export async function startProductionServer(
+  copy: ProductionCopy,
+  { database = 'speedwright_production_test', envOverrides = {}, fresh = true }: { database?: string; envOverrides?: NodeJS.ProcessEnv; fresh?: boolean } = {},
+): Promise<ProductionServer> {
+  const { url: databaseUrl, instance } = await openLocalDatabase('test', database, { fresh });
   const mailboxDir = join(copy.dir, 'mailbox');
   const smtp: FakeSmtp = await startFakeSmtp({ dir: mailboxDir });
   const port = await freePort();
