@@ -38,6 +38,7 @@ import { syncRoutes } from './sync/sync.routes';
 import { createReadPool } from './verify/read-pool';
 import { verifyRoutes } from './verify/verify.routes';
 import { fontPreloadLinks } from './web-app/font-preload';
+import { hashedAssets } from './web-app/hashed-assets';
 import { firstScreenModules, modulePreloadLinks, modulesForPath, type FirstScreenModules } from './web-app/first-screen-preload';
 
 export const SESSION_COOKIE = 'speedwright.sid';
@@ -74,6 +75,9 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   setOutbox(createOutbox(config, logger));
   app.disable('x-powered-by');
   app.set('trust proxy', parseTrustProxy(config.TRUST_PROXY));
+
+  // The build's hashed scripts, styles and fonts: before the document headers, compressed once.
+  app.use(hashedAssets(resolve(config.APP_DIST)));
 
   app.use(
     helmet({
