@@ -40,6 +40,8 @@ import { syncRoutes } from './sync/sync.routes';
 import { createReadPool } from './verify/read-pool';
 import { verifyRoutes } from './verify/verify.routes';
 import { fontPreloadLinks } from './web-app/font-preload';
+import { hashedAssets } from './web-app/hashed-assets';
+import { fetchPreloadLinks, firstScreenRequests } from './web-app/first-screen-requests';
 import { firstScreenModules, modulePreloadLinks, modulesForPath, type FirstScreenModules } from './web-app/first-screen-preload';
 
 export const SESSION_COOKIE = 'speedwright.sid';
@@ -78,6 +80,9 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
   setOutbox(createOutbox(config, logger, pseudonym));
   app.disable('x-powered-by');
   app.set('trust proxy', parseTrustProxy(config.TRUST_PROXY));
+
+  // The build's hashed scripts, styles and fonts: before the document headers, compressed once.
+  app.use(hashedAssets(resolve(config.APP_DIST)));
 
   app.use(
     helmet({
@@ -270,7 +275,11 @@ function serveWebApp(app: Express, distDir: string): void {
     res.setHeader('Cache-Control', 'no-cache');
     fontLinks ??= fontPreloadLinks(distDir) ?? '';
     pageModules ??= firstScreenModules(distDir);
-    const links = [...(fontLinks ? [fontLinks] : []), ...modulePreloadLinks(modulesForPath(pageModules, req.path, typeof req.query['c'] === 'string'))];
+    const links = [
+      ...(fontLinks ? [fontLinks] : []),
+      ...modulePreloadLinks(modulesForPath(pageModules, req.path, typeof req.query['c'] === 'string')),
+      ...fetchPreloadLinks(firstScreenRequests(req.originalUrl)),
+    ];
     if (links.length > 0) res.setHeader('Link', links.join(', '));
     res.sendFile(index);
   });

@@ -2,8 +2,14 @@
  * The shape of a revision's content: field by field, each value on its own. The rules that
  * tie fields together (tables rising, references resolving, limits above stall) live in
  * `content-rules.ts`; `revision-content.ts` joins the two into the one schema.
+ *
+ * Written with zod's small build (`zod/mini`: the same checks and messages, functions instead of
+ * methods). The public check page re-derives a card from a revision through this one schema
+ * (`shared/card/checked-content.ts`); the full build would add its code to that page's download
+ * and spend a phone's main thread building a method table on every one of these schemas at
+ * import. The server, the editor and the card screen use these same objects.
  */
-import * as z from 'zod';
+import * as z from 'zod/mini';
 import { plainText } from '../text/plain-text';
 import { configurationKeySchema } from './configuration-key';
 
@@ -14,21 +20,17 @@ const num = (what: string) =>
   z.number({ error: (issue) => (issue.input === undefined ? `Give ${inSentence(what)}.` : `${what} must be a number.`) });
 
 /** A speed in knots, above zero and below 1 000 kt. */
-export const knots = (what: string) =>
-  num(what).positive(`${what} must be above zero.`).max(999, `${what} must be below 1,000 kt.`);
+export const knots = (what: string) => num(what).check(z.positive(`${what} must be above zero.`), z.maximum(999, `${what} must be below 1,000 kt.`));
 
 /** A weight in kilograms, above zero and below 1 000 000 kg. */
 export const kilograms = (what: string) =>
-  num(what).positive(`${what} must be above zero.`).max(999_999, `${what} must be below 1,000,000 kg.`);
+  num(what).check(z.positive(`${what} must be above zero.`), z.maximum(999_999, `${what} must be below 1,000,000 kg.`));
 
 const capitalised = (what: string) => what.charAt(0).toUpperCase() + what.slice(1);
 const text = (what: string, max: number) =>
   z
     .string({ error: (issue) => (issue.input === undefined ? `Give ${what}.` : `${what} must be text.`) })
-    .check(plainText(capitalised(what)))
-    .trim()
-    .min(1, `Give ${what}.`)
-    .max(max, `${what} must be at most ${max} characters.`);
+    .check(plainText(capitalised(what)), z.trim(), z.minLength(1, `Give ${what}.`), z.maxLength(max, `${what} must be at most ${max} characters.`));
 
 export const AIRCRAFT_CATEGORIES = ['piston-single', 'piston-twin', 'turboprop', 'jet'] as const;
 export const SPEED_PHASES = ['takeoff', 'climb', 'cruise', 'approach', 'landing', 'any'] as const;
@@ -45,10 +47,12 @@ export const STATED_SPEED_UNITS = ['kt', 'mph', 'kmh'] as const;
 
 export const aircraftSchema = z.strictObject({
   category: z.enum(AIRCRAFT_CATEGORIES, { error: 'Choose piston-single, piston-twin, turboprop or jet.' }),
-  engines: num('The number of engines').int('The number of engines must be a whole number.').min(1, 'An aircraft has at least one engine.').max(8, 'At most 8 engines.'),
-  ceilingFt: num('The ceiling').int('The ceiling must be whole feet.').min(1000, 'The ceiling must be at least 1,000 ft.').max(60_000, 'The ceiling must be at most 60,000 ft.'),
+  engines: num('The number of engines').check(z.int('The number of engines must be a whole number.'), z.minimum(1, 'An aircraft has at least one engine.'), z.maximum(8, 'At most 8 engines.')),
+  ceilingFt: num('The ceiling').check(z.int('The ceiling must be whole feet.'), z.minimum(1000, 'The ceiling must be at least 1,000 ft.'), z.maximum(60_000, 'The ceiling must be at most 60,000 ft.')),
   /** Recovery factor K of the total-air-temperature probe (SAT = TAT / (1 + 0.2·K·M²)); 1.0 when absent. */
-  tatRecoveryFactor: num('The TAT probe recovery factor').min(0.5, 'The TAT probe recovery factor must be at least 0.5.').max(1, 'The TAT probe recovery factor must be at most 1.').optional(),
+  tatRecoveryFactor: z.optional(
+    num('The TAT probe recovery factor').check(z.minimum(0.5, 'The TAT probe recovery factor must be at least 0.5.'), z.maximum(1, 'The TAT probe recovery factor must be at most 1.')),
+  ),
 });
 
 export const weightsSchema = z.strictObject({
@@ -56,7 +60,7 @@ export const weightsSchema = z.strictObject({
   maximumTakeoffKg: kilograms('The maximum takeoff weight'),
   maximumLandingKg: kilograms('The maximum landing weight'),
   /** The weight weight-scaled speeds are published at; needed as soon as one speed is scaled. */
-  referenceKg: kilograms('The reference weight').optional(),
+  referenceKg: z.optional(kilograms('The reference weight')),
 });
 
 export { configurationKeySchema };
@@ -72,15 +76,13 @@ export const configurationSchema = z.strictObject({
   /** IAS → CAS, strictly increasing in both columns. */
   positionError: z
     .array(positionErrorPointSchema, { error: 'Give the position-error table as a list of IAS/CAS points.' })
-    .min(2, 'A position-error table needs at least two IAS/CAS points.')
-    .max(100, 'A position-error table has at most 100 points.'),
+    .check(z.minLength(2, 'A position-error table needs at least two IAS/CAS points.'), z.maxLength(100, 'A position-error table has at most 100 points.')),
 });
 
 /** Trade codes (VS1, VR, VREF, V2) or free ones: a letter, then letters and digits. */
 export const speedCodeSchema = z
   .string({ error: 'Give the speed’s code.' })
-  .regex(/^[A-Za-z][A-Za-z0-9]*$/, 'A speed code is a letter followed by letters and digits, such as VREF or VS1.')
-  .max(12, 'A speed code must be at most 12 characters.');
+  .check(z.regex(/^[A-Za-z][A-Za-z0-9]*$/, 'A speed code is a letter followed by letters and digits, such as VREF or VS1.'), z.maxLength(12, 'A speed code must be at most 12 characters.'));
 
 const speedBase = {
   code: speedCodeSchema,
@@ -89,17 +91,16 @@ const speedBase = {
   configurationKey: configurationKeySchema,
   basis: z.enum(SPEED_BASES, { error: 'Choose ias or cas.' }),
   /** Absent in content written before speeds declared their class: then read from the code. */
-  speedClass: z.enum(SPEED_CLASSES, { error: 'Choose stall, minimum, takeoff, climb, approach, limit or other.' }).optional(),
+  speedClass: z.optional(z.enum(SPEED_CLASSES, { error: 'Choose stall, minimum, takeoff, climb, approach, limit or other.' })),
 };
 
 const tableKt = knots('A tabulated speed');
 const axis = (what: string, min: number, max: number, unit: string) =>
   z
-    .array(num(`Each ${what}`).min(min, `Each ${what} must be at least ${min} ${unit}.`).max(max, `Each ${what} must be at most ${max} ${unit}.`), {
+    .array(num(`Each ${what}`).check(z.minimum(min, `Each ${what} must be at least ${min} ${unit}.`), z.maximum(max, `Each ${what} must be at most ${max} ${unit}.`)), {
       error: `Give the ${what} axis as a list of numbers.`,
     })
-    .min(2, `The ${what} axis needs at least two entries.`)
-    .max(50, `The ${what} axis has at most 50 entries.`);
+    .check(z.minLength(2, `The ${what} axis needs at least two entries.`), z.maxLength(50, `The ${what} axis has at most 50 entries.`));
 
 /** Weight-scaled from `referenceKt` at `weights.referenceKg`: V = Vref·√(W / Wref). */
 export const scaledSpeedSchema = z.strictObject({ ...speedBase, kind: z.literal('scaled'), referenceKt: knots('The reference speed') });
@@ -112,8 +113,8 @@ export const tabulatedSpeedSchema = z.strictObject({
   ...speedBase,
   kind: z.literal('tabulated'),
   byWeightKg: axis('weight', 1, 999_999, 'kg'),
-  byPressureAltitudeFt: axis('pressure altitude', -2000, 60_000, 'ft').optional(),
-  byOatC: axis('temperature', -100, 70, '°C').optional(),
+  byPressureAltitudeFt: z.optional(axis('pressure altitude', -2000, 60_000, 'ft')),
+  byOatC: z.optional(axis('temperature', -100, 70, '°C')),
   valuesKt: z.array(z.union([tableKt, z.array(z.union([tableKt, z.array(tableKt)]))]), {
     error: 'Give the tabulated speeds as a list (one entry per weight), nested by altitude and temperature.',
   }),
@@ -132,23 +133,23 @@ export const speedSchema = z.discriminatedUnion('kind', [scaledSpeedSchema, tabu
  * own configuration's.
  */
 export const limitsSchema = z.strictObject({
-  vnoKt: knots('VNO').optional(),
-  vneKt: knots('VNE').optional(),
-  vmoKt: knots('VMO').optional(),
-  mmo: num('MMO').min(0.1, 'MMO must be at least Mach 0.1.').max(0.99, 'MMO must be below Mach 1.').optional(),
+  vnoKt: z.optional(knots('VNO')),
+  vneKt: z.optional(knots('VNE')),
+  vmoKt: z.optional(knots('VMO')),
+  mmo: z.optional(num('MMO').check(z.minimum(0.1, 'MMO must be at least Mach 0.1.'), z.maximum(0.99, 'MMO must be below Mach 1.'))),
   vfeKt: z.record(z.string(), knots('VFE'), { error: 'Give VFE as configuration key → kt.' }),
-  vleKt: knots('VLE').optional(),
-  vloKt: knots('VLO').optional(),
-  vmcKt: knots('VMC').optional(),
-  vyseKt: knots('VYSE').optional(),
+  vleKt: z.optional(knots('VLE')),
+  vloKt: z.optional(knots('VLO')),
+  vmcKt: z.optional(knots('VMC')),
+  vyseKt: z.optional(knots('VYSE')),
 });
 
 const rangeOf = (what: string, min: number, max: number, unit: string) => {
   const bound = (which: string) =>
-    num(`The ${which} ${what}`).min(min, `The ${which} ${what} must be at least ${min} ${unit}.`).max(max, `The ${which} ${what} must be at most ${max} ${unit}.`);
+    num(`The ${which} ${what}`).check(z.minimum(min, `The ${which} ${what} must be at least ${min} ${unit}.`), z.maximum(max, `The ${which} ${what} must be at most ${max} ${unit}.`));
   return z
     .strictObject({ min: bound('lowest'), max: bound('highest') })
-    .refine((range) => range.min < range.max, { message: `The lowest ${what} must be below the highest.`, path: ['max'] });
+    .check(z.refine((range) => range.min < range.max, { message: `The lowest ${what} must be below the highest.`, path: ['max'] }));
 };
 
 const phaseEnvelopeSchema = z.strictObject({
@@ -165,7 +166,9 @@ export const envelopeSchema = z.strictObject({ takeoff: phaseEnvelopeSchema, lan
 
 /** The flight manual's reason why the book departs from one ordering rule; the approver sees it. */
 export const ruleExceptionSchema = z.strictObject({
-  ruleId: z.string({ error: 'Give the rule’s id.' }).regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'A rule id is lower-case letters and digits joined by hyphens.').max(40, 'A rule id must be at most 40 characters.'),
+  ruleId: z
+    .string({ error: 'Give the rule’s id.' })
+    .check(z.regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'A rule id is lower-case letters and digits joined by hyphens.'), z.maxLength(40, 'A rule id must be at most 40 characters.')),
   reason: text('the flight manual’s reason', 1000),
 });
 
@@ -181,15 +184,14 @@ export const revisionContentShape = z.strictObject({
   weights: weightsSchema,
   configurations: z
     .array(configurationSchema, { error: 'Give the configurations as a list.' })
-    .min(1, 'Give at least one configuration (the first is the cruise configuration).')
-    .max(12, 'At most 12 configurations.'),
-  speeds: z.array(speedSchema, { error: 'Give the speeds as a list.' }).max(100, 'At most 100 speeds.'),
+    .check(z.minLength(1, 'Give at least one configuration (the first is the cruise configuration).'), z.maxLength(12, 'At most 12 configurations.')),
+  speeds: z.array(speedSchema, { error: 'Give the speeds as a list.' }).check(z.maxLength(100, 'At most 100 speeds.')),
   limits: limitsSchema,
   indicatorMarkingBasis: z.enum(SPEED_BASES, { error: 'Choose ias or cas.' }),
-  notes: z.string({ error: 'Notes must be text.' }).check(plainText('Notes', 'multi-line')).max(4000, 'Notes must be at most 4,000 characters.'),
-  envelope: envelopeSchema.optional(),
+  notes: z.string({ error: 'Notes must be text.' }).check(plainText('Notes', 'multi-line'), z.maxLength(4000, 'Notes must be at most 4,000 characters.')),
+  envelope: z.optional(envelopeSchema),
   /** True when the book's stall speeds are reference stall speeds (VSR, CS-25 / Part 25 style). */
-  statesReferenceStallSpeeds: z.boolean({ error: 'Say yes or no.' }).optional(),
-  ruleExceptions: z.array(ruleExceptionSchema, { error: 'Give the exceptions as a list.' }).max(20, 'At most 20 rule exceptions.').optional(),
-  statedUnits: statedUnitsSchema.optional(),
+  statesReferenceStallSpeeds: z.optional(z.boolean({ error: 'Say yes or no.' })),
+  ruleExceptions: z.optional(z.array(ruleExceptionSchema, { error: 'Give the exceptions as a list.' }).check(z.maxLength(20, 'At most 20 rule exceptions.'))),
+  statedUnits: z.optional(statedUnitsSchema),
 });

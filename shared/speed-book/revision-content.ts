@@ -6,7 +6,7 @@
  * Units are in every name. Limit speeds are in the basis `indicatorMarkingBasis`; the first
  * configuration is the cruise (clean) configuration through which VNO, VNE and VMO are read.
  */
-import * as z from 'zod';
+import * as z from 'zod/mini';
 import { revisionContentShape } from './content-shape';
 import { contentRuleIssues } from './content-rules';
 
@@ -22,9 +22,11 @@ export {
 
 export const REVISION_SCHEMA_VERSION = 1;
 
-export const revisionContentSchema = revisionContentShape.superRefine((content, ctx) => {
-  for (const issue of contentRuleIssues(content)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
-});
+export const revisionContentSchema = revisionContentShape.check(
+  z.superRefine((content, ctx) => {
+    for (const issue of contentRuleIssues(content)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+  }),
+);
 
 export type RevisionContent = z.infer<typeof revisionContentSchema>;
 export type AircraftCategory = RevisionContent['aircraft']['category'];

@@ -14,7 +14,7 @@
  *
  * One helper for every shared zod schema, so the form and the server refuse the same text.
  */
-import * as z from 'zod';
+import * as z from 'zod/mini';
 
 const BIDI_CONTROLS = '\u061C\u200E\u200F\u202A-\u202E\u2066-\u2069';
 
@@ -55,7 +55,8 @@ export function plainTextProblem(what: string, text: string, kind: TextKind = 's
 /**
  * A zod check refusing what `forbiddenCharacterIn` finds, with a field message. Chain it first,
  * before `.trim()`, so a line break at either end is refused rather than silently cut:
- * `z.string().check(plainText('The name')).trim()`.
+ * `z.string().check(plainText('The name')).trim()`. Made with `zod/mini` (a check of zod's core),
+ * so it serves schemas of either build: the speed book's content (small build) and the API's.
  */
 export function plainText(what: string, kind: TextKind = 'single-line') {
   return z.superRefine<string>((text, context) => {

@@ -2,9 +2,9 @@ import { BreakpointObserver } from '@angular/cdk/layout';
 import { DOCUMENT, NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, Injector, computed, effect, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
-import { MatButtonModule } from '@angular/material/button';
-import { MatIconModule } from '@angular/material/icon';
-import { MatToolbarModule } from '@angular/material/toolbar';
+import { MatIconButton } from '@angular/material/button';
+import { MatIcon } from '@angular/material/icon';
+import { MatToolbar } from '@angular/material/toolbar';
 import { NavigationEnd, Router, RouterLink, RouterOutlet } from '@angular/router';
 import { filter, firstValueFrom, map } from 'rxjs';
 import { ROLE_LABELS } from '../../shared/auth/roles';
@@ -37,9 +37,9 @@ export { SAFETY_CAUTION };
     NgTemplateOutlet,
     RouterOutlet,
     RouterLink,
-    MatToolbarModule,
-    MatButtonModule,
-    MatIconModule,
+    MatToolbar,
+    MatIconButton,
+    MatIcon,
     AccountActions,
     SignedInFrame,
     ConnectionIndicator,

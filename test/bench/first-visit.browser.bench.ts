@@ -18,9 +18,14 @@
  * would send it at best) must stay under 150 KB. The load average is printed beside the figures:
  * on a shared machine a busy neighbour lowers the scores. `LIGHTHOUSE_REPORT_DIR=<dir>` keeps the
  * full reports.
+ *
+ * Before measuring, each page is fetched once with its scripts, style sheet and fonts, as by a
+ * visitor before: the server compresses each hashed file once, on its first request
+ * (`server/web-app/hashed-assets.ts`), and a server that has been running serves them ready.
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { get as httpGet, type IncomingHttpHeaders } from 'node:http';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
@@ -95,6 +100,21 @@ function lighthouse(url: string): LighthouseFigures {
 }
 
 /**
+ * A run that fails to record its trace (Lighthouse's NO_NAVSTART, seen on a busy machine) is
+ * run again, up to twice; a page that fails every time still fails the benchmark.
+ */
+function lighthouseWithRetry(url: string): LighthouseFigures {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return lighthouse(url);
+    } catch (error) {
+      if (attempt >= 3) throw error;
+      console.log(`(run again: ${error instanceof Error ? error.message : String(error)})`);
+    }
+  }
+}
+
+/**
  * The initial JavaScript of the production build: the scripts `index.html` loads and everything
  * they import statically (`import … from "./chunk-….js"`), not the `import()`ed lazy chunks.
  */
@@ -113,6 +133,32 @@ function initialScripts(dist: string): string[] {
     }
   }
   return [...seen].sort();
+}
+
+/**
+ * One earlier visit to `url`: the page, then every file it names (its scripts and style sheet,
+ * and what its `Link` header preloads), so that each is compressed before Lighthouse asks.
+ */
+async function visitOnce(url: string): Promise<void> {
+  const page = await getOnce(url, 'identity');
+  const html = page.body.toString('utf8');
+  const links = page.headers['link'];
+  const named = [
+    ...[...html.matchAll(/\s(?:src|href)="([\w.-]+\.(?:js|css))"/g)].map((match) => match[1]!),
+    ...[...(typeof links === 'string' ? links : '').matchAll(/<\/([^>]+)>/g)].map((match) => match[1]!),
+  ];
+  for (const path of new Set(named)) await getOnce(new URL(`/${path}`, url).href, 'gzip, deflate, br');
+}
+
+/** A GET on a connection of its own (no pooled socket the server may have closed meanwhile). */
+function getOnce(url: string, acceptEncoding: string): Promise<{ headers: IncomingHttpHeaders; body: Buffer }> {
+  return new Promise((resolve, reject) => {
+    httpGet(url, { agent: false, headers: { 'Accept-Encoding': acceptEncoding } }, (res) => {
+      const parts: Buffer[] = [];
+      res.on('data', (part: Buffer) => parts.push(part));
+      res.on('end', () => resolve({ headers: res.headers, body: Buffer.concat(parts) }));
+    }).on('error', reject);
+  });
 }
 
 const kb = (bytes: number) => `${(bytes / 1000).toFixed(1)} KB`;
@@ -138,9 +184,10 @@ async function main(): Promise<void> {
       { name: '/check/<code>?c=…', url: (await issueDemoCard(databaseUrl, server.baseUrl)).url },
     ];
     for (const page of pages) {
+      await visitOnce(page.url);
       const runs: LighthouseFigures[] = [];
       for (let i = 0; i < RUNS; i++) {
-        const figures = lighthouse(page.url);
+        const figures = lighthouseWithRetry(page.url);
         runs.push(figures);
         console.log(
           `${page.name} run ${i + 1}: performance ${figures.score}, transfer ${kb(figures.transferBytes)} in ${figures.requests} requests ` +
@@ -150,7 +197,11 @@ async function main(): Promise<void> {
       }
       const worstScore = Math.min(...runs.map((run) => run.score));
       const worstTransfer = Math.max(...runs.map((run) => run.transferBytes));
-      console.log(`${page.name}: worst performance ${worstScore} (target ≥ ${TARGET_SCORE}), worst transfer ${kb(worstTransfer)} (target < ${kb(TARGET_TRANSFER_BYTES)})`);
+      const median = (values: number[]) => [...values].sort((x, y) => x - y)[Math.floor((values.length - 1) / 2)]!;
+      console.log(
+        `${page.name}: worst performance ${worstScore} (target ≥ ${TARGET_SCORE}), worst transfer ${kb(worstTransfer)} (target < ${kb(TARGET_TRANSFER_BYTES)}); ` +
+          `median performance ${median(runs.map((run) => run.score))}, LCP ${median(runs.map((run) => run.lcpMs)).toFixed(0)} ms, TBT ${median(runs.map((run) => run.tbtMs)).toFixed(0)} ms`,
+      );
       if (worstScore < TARGET_SCORE || worstTransfer >= TARGET_TRANSFER_BYTES) missed = true;
     }
     console.log(`load average ${loadavg().map((v) => v.toFixed(2)).join(' ')}`);

@@ -3,7 +3,8 @@
  * printed card's check page pass axe-core's WCAG 2.1 A and AA rules with no violation; every
  * icon of the app's main screens is drawn as its glyph from the subset icon font (a ligature
  * the font lacks would show its name's letters, many times wider than one icon); index.html
- * preloads the first screen's fonts and the first page's modules; and the service worker's manifest prefetches every
+ * preloads the first screen's fonts and the first page's modules, and the API answers the check
+ * page waits for, which the page then takes (one request each); and the service worker's manifest prefetches every
  * script and every WOFF2 font of the build. Sizes and scores are the benchmark's business
  * (test/bench/first-visit.browser.bench.ts).
  */
@@ -110,6 +111,29 @@ describe('a first visit on a phone', () => {
     for (const path of preloaded) expect((await page.request.get(path)).status()).toBe(200);
     await page.context().close();
     await expectPageModulesPreloaded('/sign-in', links, (again) => again.getByRole('button', { name: 'Sign in' }).waitFor());
+  });
+
+  it('asks the server once for each answer the first screen waits for: the preloaded ones are taken by the page', async () => {
+    const page = await phonePage();
+    const asked: string[] = [];
+    const askedByTheApp: string[] = [];
+    page.on('request', (request) => {
+      const { pathname } = new URL(request.url());
+      if (!pathname.startsWith('/api/')) return;
+      asked.push(pathname);
+      // The app's own requests (HttpClient: XHR) reach the network only when no preload served them.
+      if (request.resourceType() === 'xhr' || request.resourceType() === 'fetch') askedByTheApp.push(pathname);
+    });
+    const response = await page.goto(checkUrl);
+    await page.getByTestId('check-figures-result').waitFor({ timeout: 20_000 });
+    expect(await page.getByTestId('check-figures-result').getAttribute('data-outcome')).toBe('matches');
+    const code = new URL(checkUrl).pathname.split('/')[2]!;
+    const fetches = [...((await response!.headerValue('link')) ?? '').matchAll(/<([^>]+)>; rel=preload; as=fetch; crossorigin/g)].map((match) => match[1]!);
+    expect(fetches).toEqual(['/api/auth/me', `/api/verify/${code}`, `/api/verify/${code}/source`]);
+    // Each once: the preload, never the page's own request beside it.
+    expect(asked.sort()).toEqual([...fetches].sort());
+    expect(askedByTheApp).toEqual([]);
+    await page.context().close();
   });
 
   it('check page of an issued card: no WCAG 2.1 AA violation, icons drawn, the card re-derived, its modules preloaded', async () => {

@@ -1,8 +1,8 @@
 import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
-import { MatButtonModule } from '@angular/material/button';
-import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatButton } from '@angular/material/button';
+import { MatIcon } from '@angular/material/icon';
+import { MatProgressBar } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import type { VerifyKnown } from '../../../shared/card-check/verify-api';
@@ -67,7 +67,7 @@ const OFFLINE_STATUS: Record<'published' | 'superseded' | 'withdrawn', string> =
  */
 @Component({
   selector: 'sw-check-page',
-  imports: [NgTemplateOutlet, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SpeedCardView],
+  imports: [NgTemplateOutlet, RouterLink, MatButton, MatIcon, MatProgressBar, SpeedCardView],
   templateUrl: './check-page.html',
   styleUrl: './check-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,11 +1,11 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
-import { MatIconModule } from '@angular/material/icon';
+import { MatIcon } from '@angular/material/icon';
 import { ConnectionStatus } from '../core/connection/connection-status';
 
 /** "Online" or "Offline" in words (and an icon), announced politely when it changes. */
 @Component({
   selector: 'sw-connection-indicator',
-  imports: [MatIconModule],
+  imports: [MatIcon],
   host: {
     role: 'status',
     class: 'connection-indicator',

@@ -1,12 +1,12 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
-import { MatButtonModule } from '@angular/material/button';
-import { MatIconModule } from '@angular/material/icon';
+import { MatIconButton } from '@angular/material/button';
+import { MatIcon } from '@angular/material/icon';
 import { ThemePreference } from '../core/theme/theme-preference';
 
 /** Switches between the day theme and the dimmed night theme for a dark cockpit. */
 @Component({
   selector: 'sw-theme-toggle',
-  imports: [MatButtonModule, MatIconModule],
+  imports: [MatIconButton, MatIcon],
   template: `
     <button
       mat-icon-button
