@@ -141,6 +141,10 @@ export const limitsSchema = z.strictObject({
   vloKt: knots('VLO').optional(),
   vmcKt: knots('VMC').optional(),
   vyseKt: knots('VYSE').optional(),
+  /** The crosswind the flight manual states as demonstrated, kt: the card cautions above it (not a refusal). */
+  demonstratedCrosswindKt: knots('The demonstrated crosswind').optional(),
+  /** The tailwind limit the flight manual states for takeoff and landing, kt: the card cautions above it. */
+  maximumTailwindKt: knots('The tailwind limit').optional(),
 });
 
 const rangeOf = (what: string, min: number, max: number, unit: string) => {
