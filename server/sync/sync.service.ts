@@ -3,6 +3,7 @@ import type { SyncResponse, SyncRevision } from '../../shared/api/sync';
 import type { Actor } from '../audit/actor';
 import { aircraftTypeView, airframeView } from '../fleet/fleet.service';
 import { AircraftType, Airframe, Operator, Revision, SpeedBook } from '../models';
+import { approachPolicyOf } from '../operator/approach-policy';
 import { publicSigningKey } from '../revisions/signing';
 import { decodeCursor, encodeCursor } from './sync-cursor';
 import { database } from '../transactions';
@@ -52,7 +53,15 @@ export async function syncSince(actor: Actor, cursor: string | undefined, signin
 
   return {
     cursor: encodeCursor(high),
-    operator: { id: operator.id, name: operator.name, isDemo: operator.isDemo, publicKey: key.publicKey, signingKeyId: key.id, currencyLimitDays: operator.currencyLimitDays },
+    operator: {
+      id: operator.id,
+      name: operator.name,
+      isDemo: operator.isDemo,
+      publicKey: key.publicKey,
+      signingKeyId: key.id,
+      currencyLimitDays: operator.currencyLimitDays,
+      approachAdditivePolicy: approachPolicyOf(operator),
+    },
     aircraftTypes: aircraftTypes.map(aircraftTypeView),
     airframes: airframes.map(airframeView),
     revisions: revisions.map((revision) => syncRevisionView(revision, bookById.get(revision.speedBookId)!)),
