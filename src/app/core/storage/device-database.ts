@@ -9,6 +9,7 @@ import Dexie, { type EntityTable } from 'dexie';
 import type { SessionUser } from '../../../../shared/api/auth';
 import type { AircraftTypeView, AirframeView } from '../../../../shared/api/fleet';
 import type { SyncRevision } from '../../../../shared/api/sync';
+import type { ApproachAdditivePolicy } from '../../../../shared/card/approach-policy';
 
 /**
  * One card issued on this device, as kept until (and after) the server has it. The first six
@@ -51,6 +52,12 @@ export interface OperatorRecord {
   readonly signingKeyId: number;
   /** How old (days since the last successful sync) the device's data may be before cards are refused. */
   readonly currencyLimitDays: number;
+  /**
+   * The operator's approach additive policy as the last sync gave it; every card with a wind
+   * carries it in its inputs. Null on a device upgraded from store version 2 until its next
+   * sync (a card with a wind is refused until then: the additive is never guessed).
+   */
+  readonly approachAdditivePolicy: ApproachAdditivePolicy | null;
 }
 
 export type AircraftTypeRecord = AircraftTypeView & { readonly operatorId: number };
@@ -104,7 +111,7 @@ export interface PreferenceRecord {
 }
 
 /** Bumped with every change of the tables below; Dexie upgrades a device's store in place. */
-export const DEVICE_SCHEMA_VERSION = 2;
+export const DEVICE_SCHEMA_VERSION = 3;
 
 export class SpeedwrightDeviceDatabase extends Dexie {
   /** Cards issued here, keyed by entry id; the outbox is the entries with `sentAt` null. */
@@ -123,7 +130,7 @@ export class SpeedwrightDeviceDatabase extends Dexie {
       cardLog: 'id, issuedAt',
     });
     // Version 2 adds the synced data; the card log keeps every entry, indexed by issuer too.
-    this.version(DEVICE_SCHEMA_VERSION).stores({
+    this.version(2).stores({
       cardLog: 'id, issuedAt, issuedById, operatorId',
       operators: 'id',
       aircraftTypes: 'id, operatorId',
@@ -133,5 +140,17 @@ export class SpeedwrightDeviceDatabase extends Dexie {
       sessions: 'userId, operatorId',
       preferences: 'key',
     });
+    // Version 3 keeps the operator's approach additive policy (issue 16); the tables are as they
+    // were. An operator stored before it has none until the next sync writes it.
+    this.version(DEVICE_SCHEMA_VERSION)
+      .stores({})
+      .upgrade((transaction) =>
+        transaction
+          .table<OperatorRecord, number>('operators')
+          .toCollection()
+          .modify((operator) => {
+            if (!('approachAdditivePolicy' in operator)) (operator as { approachAdditivePolicy: ApproachAdditivePolicy | null }).approachAdditivePolicy = null;
+          }),
+      );
   }
 }
