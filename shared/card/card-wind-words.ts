@@ -13,6 +13,11 @@ export const WIND_REFERENCE_SENTENCE =
 
 const UNIT = WIND_DIRECTION_REFERENCE === 'magnetic' ? '°M' : '°T';
 
+/** The unit of headings and wind directions as printed: "°M" (magnetic) or "°T" (true). */
+export function directionUnit(): string {
+  return UNIT;
+}
+
 /** A direction as three figures: 90 → "090°M", 45.5 → "045.5°M". */
 export function directionWords(deg: number): string {
   const [whole, fraction] = String(deg).split('.');
