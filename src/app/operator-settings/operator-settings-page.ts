@@ -15,6 +15,8 @@ import { AuthService } from '../core/auth/auth-service';
 import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { ProblemRetry } from '../core/feedback/problem-retry';
+import type { ApproachAdditivePolicy } from '../../../shared/card/approach-policy';
+import { ApproachPolicyPanel } from './approach-policy-panel';
 
 export const OPERATOR_PATHS = { settings: '/api/operator/settings', signingKey: '/api/operator/signing-key' } as const;
 
@@ -26,11 +28,12 @@ interface KeyShown {
 
 /**
  * The operator's own policies, for its administrators: how old a device's synced data may be
- * before it refuses cards, and the public half of the key revisions are signed with.
+ * before it refuses cards, the approach additive for wind (approach-policy-panel.ts), and the
+ * public half of the key revisions are signed with.
  */
 @Component({
   selector: 'sw-operator-settings-page',
-  imports: [ProblemRetry, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
+  imports: [ProblemRetry, ApproachPolicyPanel, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
   template: `
     <div class="sw-page">
       <h1 class="sw-page-title">Operator settings</h1>
@@ -63,6 +66,10 @@ interface KeyShown {
             </div>
           </form>
         </section>
+
+        @if (approachPolicy(); as policy) {
+          <sw-approach-policy-panel [policy]="policy" />
+        }
 
         @if (key(); as key) {
           <section class="panel" aria-labelledby="key-heading">
@@ -145,6 +152,7 @@ export class OperatorSettingsPage {
   protected readonly problem = this.loadRequest.problem;
   protected readonly status = signal('');
   protected readonly key = signal<KeyShown | null>(null);
+  protected readonly approachPolicy = signal<ApproachAdditivePolicy | null>(null);
 
   constructor() {
     this.load();
@@ -157,6 +165,7 @@ export class OperatorSettingsPage {
     });
     this.loadRequest.run(settingsAndKey, ({ settings, key }) => {
       this.form.setValue({ currencyLimitDays: settings.settings.currencyLimitDays });
+      this.approachPolicy.set(settings.settings.approachAdditivePolicy);
       this.key.set({ id: key.signingKey.id, publicKey: key.signingKey.publicKey, created: utcDay(key.signingKey.createdAt) });
     });
   }
