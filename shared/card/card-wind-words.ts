@@ -3,7 +3,8 @@
  * the printed card and the check page say the same. Pure: no DOM, no Node.
  */
 import type { CardApproach, CardApproachSpeed, CardWind, Wind } from './card';
-import { WIND_DIRECTION_REFERENCE } from './card-inputs-schema';
+import { approachPolicyStatement } from './approach-policy';
+import { WIND_DIRECTION_REFERENCE, cardInputsSchema } from './card-inputs-schema';
 
 /** The one sentence the form and the card give about the reference of headings and winds. */
 export const WIND_REFERENCE_SENTENCE =
@@ -74,4 +75,19 @@ export function approachShortPolicyWords(approach: CardApproach): string {
   const share = (fraction: number) => (fraction === 1 ? '' : fraction === 0.5 ? '½ ' : `${Math.round(fraction * 1000) / 1000} × `);
   const p = approach.policy;
   return `Approach: VREF + ${approach.additiveKt} kt, by the operator’s policy (${share(p.headwindFraction)}headwind + ${share(p.gustFraction)}gust, ${p.minimumKt}–${p.maximumKt} kt; ${approach.windAt} wind).`;
+}
+
+/**
+ * The wind where a card lands and the operator's policy it used, read from a card's inputs as the
+ * card log keeps them: "runway 270°M, wind 300°M 20 kt gusting 30 kt; half the steady headwind …";
+ * "–" without a wind (or for inputs that are not a card's).
+ */
+export function landingWindWords(rawInputs: unknown): string {
+  const parsed = cardInputsSchema.safeParse(rawInputs);
+  if (!parsed.success) return '–';
+  const inputs = parsed.data;
+  const landing = inputs.arrival ?? inputs.departure;
+  if (!landing.wind || landing.runwayHeadingDeg === undefined) return '–';
+  const policy = inputs.approachAdditivePolicy ? `; ${approachPolicyStatement(inputs.approachAdditivePolicy)}` : '';
+  return `runway ${directionWords(landing.runwayHeadingDeg)}, wind ${windWords(landing.wind)}${policy}`;
 }

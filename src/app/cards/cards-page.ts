@@ -13,7 +13,7 @@ import { RevisionNotices } from '../core/sync/revision-notices';
 import { SyncStatusPanel } from '../core/sync/sync-status-panel';
 import { MAX_WIND_KT } from '../../../shared/card';
 import { WIND_REFERENCE_SENTENCE, directionUnit } from '../../../shared/card/card-wind-words';
-import { ALTITUDE_STEPS_FT } from './card-form';
+import { ALTITUDE_STEPS_FT, type FormFieldPath } from './card-form';
 
 const DIRECTION_UNIT = directionUnit();
 import { CardFormModel } from './card-form-model';
@@ -67,12 +67,21 @@ export class CardsPage {
 
   protected readonly altitudeSteps = ALTITUDE_STEPS_FT;
   protected readonly windReference = WIND_REFERENCE_SENTENCE;
-  protected readonly windControls = [
+  private readonly windControls = [
     { control: 'runwayHeading', label: 'Runway heading', unit: DIRECTION_UNIT, hint: '1 to 360' },
     { control: 'windDirection', label: 'Wind from', unit: DIRECTION_UNIT, hint: '1 to 360' },
     { control: 'windSpeed', label: 'Wind speed', unit: 'kt', hint: `0 to ${MAX_WIND_KT}` },
     { control: 'windGust', label: 'Gusts', unit: 'kt', hint: 'Optional; at least the wind speed' },
   ] as const;
+  private readonly windFields = {
+    departure: this.windControls.map((field) => ({ ...field, path: `departure.${field.control}` as FormFieldPath })),
+    arrival: this.windControls.map((field) => ({ ...field, path: `arrival.${field.control}` as FormFieldPath })),
+  };
+
+  /** The wind fields of `where`, each with its form path. */
+  protected windFieldsOf(where: 'departure' | 'arrival') {
+    return this.windFields[where];
+  }
 
   /** What the wind at `where` is for, in one sentence. */
   protected windUse(where: 'departure' | 'arrival'): string {

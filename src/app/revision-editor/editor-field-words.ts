@@ -11,6 +11,9 @@ export const LIMIT_FIELDS: readonly { key: LimitKey; label: string }[] = [
   { key: 'vloKt', label: 'VLO' },
   { key: 'vmcKt', label: 'VMC' },
   { key: 'vyseKt', label: 'VYSE' },
+  // Wind figures of the flight manual: the card cautions above them (not a refusal).
+  { key: 'demonstratedCrosswindKt', label: 'Demonstrated crosswind' },
+  { key: 'maximumTailwindKt', label: 'Tailwind limit' },
 ];
 
 /** Each class with the rounding the card gives it (issue 11: speeds by kind, not by spelling). */
