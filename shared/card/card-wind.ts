@@ -17,7 +17,7 @@
  */
 import { speedRole } from '../speed-book/speed-class';
 import type { Limits } from '../speed-book/revision-content';
-import type { AerodromeConditions, CardApproach, CardApproachSpeed, CardFlapLimit, CardSpeed, CardWind, Wind } from './card';
+import type { AerodromeConditions, CardApproach, CardApproachSpeed, CardFlapLimit, CardSpeed, CardWind } from './card';
 import { approachPolicyStatement, type ApproachAdditivePolicy } from './approach-policy';
 import { refuse } from './card-refusal';
 
