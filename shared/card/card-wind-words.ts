@@ -3,7 +3,7 @@
  * the printed card and the check page say the same. Pure: no DOM, no Node.
  */
 import type { CardApproach, CardApproachSpeed, CardWind, Wind } from './card';
-import { approachPolicyStatement } from './approach-policy';
+import type { ApproachAdditivePolicy } from './approach-policy';
 import { WIND_DIRECTION_REFERENCE, cardInputsSchema } from './card-inputs-schema';
 
 /** The one sentence the form and the card give about the reference of headings and winds. */
@@ -70,16 +70,20 @@ export function shortWindWords(wind: CardWind, withRunway: boolean): string {
   return `${withRunway ? `rwy ${directionWords(wind.runwayHeadingDeg)} · ` : ''}${directionWords(wind.directionDeg)} ${wind.speedKt}${wind.gustKt === null ? '' : `G${wind.gustKt}`} kt · ${along(wind.headwindKt)} · ${cross}`;
 }
 
-/** "Approach: VREF + 11 kt, the operator’s policy ⅓ headwind + ½ gust, 3–15 kt, departure wind." (the printed card's fine print) */
-export function approachShortPolicyWords(approach: CardApproach): string {
+/** A policy in a few words: "½ headwind + gust, 5–20 kt" (a whole share is written without a figure). */
+export function compactPolicyWords(policy: ApproachAdditivePolicy): string {
   const share = (fraction: number) => (fraction === 1 ? '' : fraction === 0.5 ? '½ ' : `${Math.round(fraction * 1000) / 1000} × `);
-  const p = approach.policy;
-  return `Approach: VREF + ${approach.additiveKt} kt, by the operator’s policy (${share(p.headwindFraction)}headwind + ${share(p.gustFraction)}gust, ${p.minimumKt}–${p.maximumKt} kt; ${approach.windAt} wind).`;
+  return `${share(policy.headwindFraction)}headwind + ${share(policy.gustFraction)}gust, ${policy.minimumKt}–${policy.maximumKt} kt`;
+}
+
+/** "Approach: VREF + 11 kt, by the operator’s policy (⅓ headwind + ½ gust, 3–15 kt; departure wind)." (the printed card's fine print) */
+export function approachShortPolicyWords(approach: CardApproach): string {
+  return `Approach: VREF + ${approach.additiveKt} kt, by the operator’s policy (${compactPolicyWords(approach.policy)}; ${approach.windAt} wind).`;
 }
 
 /**
  * The wind where a card lands and the operator's policy it used, read from a card's inputs as the
- * card log keeps them: "runway 270°M, wind 300°M 20 kt gusting 30 kt; half the steady headwind …";
+ * card log keeps them: "rwy 270°M · 300°M 20G30 kt · ½ headwind + gust, 5–20 kt";
  * "–" without a wind (or for inputs that are not a card's).
  */
 export function landingWindWords(rawInputs: unknown): string {
@@ -88,6 +92,7 @@ export function landingWindWords(rawInputs: unknown): string {
   const inputs = parsed.data;
   const landing = inputs.arrival ?? inputs.departure;
   if (!landing.wind || landing.runwayHeadingDeg === undefined) return '–';
-  const policy = inputs.approachAdditivePolicy ? `; ${approachPolicyStatement(inputs.approachAdditivePolicy)}` : '';
-  return `runway ${directionWords(landing.runwayHeadingDeg)}, wind ${windWords(landing.wind)}${policy}`;
+  const policy = inputs.approachAdditivePolicy ? ` · ${compactPolicyWords(inputs.approachAdditivePolicy)}` : '';
+  const { wind } = landing;
+  return `rwy ${directionWords(landing.runwayHeadingDeg)} · ${directionWords(wind.directionDeg)} ${wind.speedKt}${wind.gustKt === undefined ? '' : `G${wind.gustKt}`} kt${policy}`;
 }

@@ -36,41 +36,38 @@ interface WindRow {
             Additive {{ approach.additiveKt }} kt, by your operator's policy: {{ approach.policyStatement }} (the {{ approach.windAt }}'s wind).
           </p>
         }
-        @if (rows().length) {
-          <div class="scroll">
-            <table class="figures" data-testid="card-wind-components">
-              <thead>
-                <tr>
-                  <th scope="col">Aerodrome</th>
-                  <th scope="col">Runway · wind</th>
-                  <th scope="col">Along the runway</th>
-                  <th scope="col">Across</th>
-                  <th scope="col">In the gusts</th>
-                </tr>
-              </thead>
-              <tbody>
-                @for (row of rows(); track row.where) {
-                  <tr [attr.data-where]="row.where">
-                    <th scope="row">{{ row.where }}</th>
-                    <td class="sw-mono">{{ directionWords(row.wind.runwayHeadingDeg) }} · {{ windWords(row.wind) }}</td>
-                    <td data-testid="headwind" [attr.data-kt]="row.wind.headwindKt">
-                      @if (row.wind.headwindKt < 0) {
-                        <mat-icon aria-hidden="true" class="inline">warning</mat-icon>
-                      }
-                      {{ headwindWords(row.wind.headwindKt) }}
-                    </td>
-                    <td data-testid="crosswind" [attr.data-kt]="row.wind.crosswindKt">{{ crosswindWords(row.wind) }}</td>
-                    <td>
-                      @if (row.wind.gust; as gust) {
-                        {{ headwindWords(gust.headwindKt) }}, crosswind {{ gust.crosswindKt }} kt
-                      } @else {
-                        no gusts given
-                      }
-                    </td>
-                  </tr>
-                }
-              </tbody>
-            </table>
+        @for (row of rows(); track row.where) {
+          <div class="aerodrome" data-testid="card-wind-components" [attr.data-where]="row.where">
+            <h4>{{ row.where }}</h4>
+            <dl>
+              <div>
+                <dt>Runway · wind</dt>
+                <dd class="sw-mono">{{ directionWords(row.wind.runwayHeadingDeg) }} · {{ windWords(row.wind) }}</dd>
+              </div>
+              <div>
+                <dt>Along the runway</dt>
+                <dd data-testid="headwind" [attr.data-kt]="row.wind.headwindKt">
+                  @if (row.wind.headwindKt < 0) {
+                    <mat-icon aria-hidden="true" class="inline">warning</mat-icon>
+                  }
+                  {{ headwindWords(row.wind.headwindKt) }}
+                </dd>
+              </div>
+              <div>
+                <dt>Across</dt>
+                <dd data-testid="crosswind" [attr.data-kt]="row.wind.crosswindKt">{{ crosswindWords(row.wind) }}</dd>
+              </div>
+              <div>
+                <dt>In the gusts</dt>
+                <dd>
+                  @if (row.wind.gust; as gust) {
+                    {{ headwindWords(gust.headwindKt) }}, crosswind {{ gust.crosswindKt }} kt
+                  } @else {
+                    no gusts given
+                  }
+                </dd>
+              </div>
+            </dl>
           </div>
         }
         @for (sentence of cautions(); track sentence) {
@@ -114,30 +111,37 @@ interface WindRow {
       font: var(--mat-sys-body-small);
       color: var(--mat-sys-on-surface-variant);
     }
-    .scroll {
-      overflow-x: auto;
+    .aerodrome {
+      margin: 8px 0 0;
+      padding: 8px 0;
+      border-top: 1px solid var(--mat-sys-outline-variant);
     }
-    table.figures {
-      width: 100%;
-      border-collapse: collapse;
-      font: var(--mat-sys-body-medium);
+    h4 {
+      margin: 0 0 4px;
+      font: var(--mat-sys-title-small);
     }
-    th,
-    td {
-      padding: 6px 8px;
-      border-bottom: 1px solid var(--mat-sys-outline-variant);
-      text-align: left;
-      vertical-align: baseline;
+    dl {
+      display: grid;
+      grid-template-columns: repeat(auto-fit, minmax(10rem, 1fr));
+      gap: 4px 16px;
+      margin: 0;
     }
-    thead th {
-      font: var(--mat-sys-label-large);
+    dt {
+      font: var(--mat-sys-label-medium);
       color: var(--mat-sys-on-surface-variant);
+    }
+    dd {
+      margin: 0;
+      font: var(--mat-sys-body-large);
     }
     mat-icon.inline {
       font-size: 18px;
       width: 18px;
       height: 18px;
       vertical-align: -3px;
+    }
+    .caution mat-icon {
+      flex: none;
     }
     .caution {
       display: flex;

@@ -45,7 +45,7 @@ const EXAMPLE = { runwayHeadingDeg: 270, directionDeg: 300, speedKt: 20, gustKt:
       </p>
       <form [formGroup]="form" (submit)="$event.preventDefault(); savePolicy()" novalidate>
         <div class="fields">
-          <mat-form-field appearance="outline">
+          <mat-form-field appearance="outline" subscriptSizing="dynamic">
             <mat-label>Share of the steady headwind</mat-label>
             <input matInput type="number" inputmode="decimal" step="0.05" min="0" max="1" formControlName="headwindFraction" data-testid="policy-headwindFraction" />
             <mat-hint>0 to 1; 0.5 is half</mat-hint>
@@ -53,7 +53,7 @@ const EXAMPLE = { runwayHeadingDeg: 270, directionDeg: 300, speedKt: 20, gustKt:
               <mat-error>{{ sentence }}</mat-error>
             }
           </mat-form-field>
-          <mat-form-field appearance="outline">
+          <mat-form-field appearance="outline" subscriptSizing="dynamic">
             <mat-label>Share of the gust increment</mat-label>
             <input matInput type="number" inputmode="decimal" step="0.05" min="0" max="1" formControlName="gustFraction" data-testid="policy-gustFraction" />
             <mat-hint>0 to 1; 1 is the whole</mat-hint>
@@ -61,7 +61,7 @@ const EXAMPLE = { runwayHeadingDeg: 270, directionDeg: 300, speedKt: 20, gustKt:
               <mat-error>{{ sentence }}</mat-error>
             }
           </mat-form-field>
-          <mat-form-field appearance="outline">
+          <mat-form-field appearance="outline" subscriptSizing="dynamic">
             <mat-label>Least additive</mat-label>
             <input matInput type="number" inputmode="decimal" [min]="bounds.min" [max]="bounds.max" formControlName="minimumKt" data-testid="policy-minimumKt" />
             <span matTextSuffix>kt</span>
@@ -70,7 +70,7 @@ const EXAMPLE = { runwayHeadingDeg: 270, directionDeg: 300, speedKt: 20, gustKt:
               <mat-error>{{ sentence }}</mat-error>
             }
           </mat-form-field>
-          <mat-form-field appearance="outline">
+          <mat-form-field appearance="outline" subscriptSizing="dynamic">
             <mat-label>Most additive</mat-label>
             <input matInput type="number" inputmode="decimal" [min]="bounds.min" [max]="bounds.max" formControlName="maximumKt" data-testid="policy-maximumKt" />
             <span matTextSuffix>kt</span>
@@ -106,7 +106,7 @@ const EXAMPLE = { runwayHeadingDeg: 270, directionDeg: 300, speedKt: 20, gustKt:
     .fields {
       display: grid;
       grid-template-columns: repeat(auto-fill, minmax(15rem, 1fr));
-      gap: 4px 16px;
+      gap: 12px 16px;
     }
     .preview {
       margin: 8px 0;
@@ -148,7 +148,7 @@ export class ApproachPolicyPanel {
   protected readonly preview = computed(() => {
     this.typed();
     const parsed = approachAdditivePolicySchema.safeParse(this.typedPolicy());
-    if (!parsed.success) return 'Complete the four figures to see the policy in words.';
+    if (!parsed.success) return `The policy cannot be used yet: ${parsed.error.issues[0].message[0].toLowerCase()}${parsed.error.issues[0].message.slice(1)}`;
     const policy = parsed.data;
     const { headwindKt } = windComponents(EXAMPLE.runwayHeadingDeg, EXAMPLE.directionDeg, EXAMPLE.speedKt);
     const additiveKt = roundAdditiveUpKt(unroundedAdditiveKt(policy, headwindKt, EXAMPLE.speedKt, EXAMPLE.gustKt));
