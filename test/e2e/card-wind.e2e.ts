@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { readPdf } from '../api/read-pdf';
-import { launchBrowser, newPage } from './browser';
+import { baseUrl, launchBrowser } from './browser';
 import { E2E_PASSWORD } from './constants';
 import { chooseAirframe, expectText, signInThroughPage as signIn } from './page-helpers';
 
@@ -25,41 +25,59 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 
-async function fill(page: Page, testId: string, value: string): Promise<void> {
-  await page.getByTestId(testId).fill(value);
+async function fill(on: Page, testId: string, value: string): Promise<void> {
+  await on.getByTestId(testId).fill(value);
+}
+
+const AXE_SOURCE = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
+
+/** A page whose CSP lets axe-core be injected (the app's CSP forbids inline scripts). */
+async function page(viewport = { width: 1024, height: 768 }): Promise<Page> {
+  const context = await browser.newContext({ baseURL: baseUrl(), viewport, bypassCSP: true });
+  return context.newPage();
+}
+
+/** axe-core's WCAG 2.0/2.1 level A and AA rules (the tags of axe-core 4.x). */
+async function axeViolations(on: Page): Promise<string[]> {
+  await on.addScriptTag({ content: AXE_SOURCE });
+  const violations = await on.evaluate<{ id: string; nodes: { target: string[] }[] }[]>(
+    `axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } }).then((r) => r.violations)`,
+  );
+  return violations.map((v) => `${v.id} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`);
 }
 
 describe('the day’s wind in Chromium', () => {
   it('shows the components and the approach speed of a gusty crosswind on screen and in the PDF', async () => {
-    const page = await newPage(browser);
-    await signIn(page, 'pilot@demo.speedwright.example', E2E_PASSWORD, '/cards');
-    await page.waitForURL('**/cards');
-    await chooseAirframe(page, REGISTRATION);
-    await expectText(page.getByTestId('departure-wind-reference'), 'degrees magnetic');
+    const pilot = await page();
+    // The caution on screen is text with an icon and the word "Caution", never colour alone; axe checks the rest below.
+    await signIn(pilot, 'pilot@demo.speedwright.example', E2E_PASSWORD, '/cards');
+    await pilot.waitForURL('**/cards');
+    await chooseAirframe(pilot, REGISTRATION);
+    await expectText(pilot.getByTestId('departure-wind-reference'), 'degrees magnetic');
 
     // A gust below the steady wind is refused at the gust field, in a sentence.
-    await fill(page, 'input-departure.runwayHeading', '270');
-    await fill(page, 'input-departure.windDirection', '300');
-    await fill(page, 'input-departure.windSpeed', '20');
-    await fill(page, 'input-departure.windGust', '15');
-    await expectText(page.getByTestId('problem-departure.windGust'), 'The gust must be at least the steady wind speed.');
-    await fill(page, 'input-departure.windGust', '30');
+    await fill(pilot, 'input-departure.runwayHeading', '270');
+    await fill(pilot, 'input-departure.windDirection', '300');
+    await fill(pilot, 'input-departure.windSpeed', '20');
+    await fill(pilot, 'input-departure.windGust', '15');
+    await expectText(pilot.getByTestId('problem-departure.windGust'), 'The gust must be at least the steady wind speed.');
+    await fill(pilot, 'input-departure.windGust', '30');
 
-    await expectText(page.getByTestId('approach-policy'), 'Additive 19 kt, by your operator');
-    const wind = page.getByTestId('card-wind-components');
+    await expectText(pilot.getByTestId('approach-policy'), 'Additive 19 kt, by your operator');
+    const wind = pilot.getByTestId('card-wind-components');
     await expectText(wind.getByTestId('headwind'), 'headwind 17 kt');
     await expectText(wind.getByTestId('crosswind'), 'crosswind 10 kt from the right');
-    const vrefIas = Number(await page.locator('[data-testid="card-speeds"] tr[data-code="VREF"] td[data-column="ias"]').innerText());
-    const approach = page.getByTestId('approach-speed');
+    const vrefIas = Number(await pilot.locator('[data-testid="card-speeds"] tr[data-code="VREF"] td[data-column="ias"]').innerText());
+    const approach = pilot.getByTestId('approach-speed');
     expect(Number(await approach.getAttribute('data-kt'))).toBe(vrefIas + 19);
     await expectText(approach, `= VREF ${vrefIas} + 19`);
     // The demo trainer's book states 15 kt as demonstrated: the gusts reach 15, not above, so no caution.
-    expect(await page.getByTestId('wind-caution').count()).toBe(0);
-    await expectText(page.getByTestId('card-caution'), "Planning aid. The approved flight manual and the operator's procedures govern.");
-    expect(await page.locator('main').innerText()).not.toMatch(/NaN|undefined/);
+    expect(await pilot.getByTestId('wind-caution').count()).toBe(0);
+    await expectText(pilot.getByTestId('card-caution'), "Planning aid. The approved flight manual and the operator's procedures govern.");
+    expect(await pilot.locator('main').innerText()).not.toMatch(/NaN|undefined/);
 
     // Printed: the same approach speed, the components and the policy, on the card's two pages.
-    const [download] = await Promise.all([page.waitForEvent('download', { timeout: 60_000 }), page.getByTestId('print-card').click()]);
+    const [download] = await Promise.all([pilot.waitForEvent('download', { timeout: 60_000 }), pilot.getByTestId('print-card').click()]);
     const path = join(mkdtempSync(join(tmpdir(), 'speedwright-wind-')), download.suggestedFilename());
     await download.saveAs(path);
     const { text, pages } = await readPdf(readFileSync(path));
@@ -71,11 +89,25 @@ describe('the day’s wind in Chromium', () => {
     expect(pages).toBe(2);
 
     // Stronger: runway 270, wind 310/25G35 → crosswind 25·sin 40° = 16.07 → 16 kt, above the book's 15 kt: a caution, not a refusal.
-    await fill(page, 'input-departure.windDirection', '310');
-    await fill(page, 'input-departure.windSpeed', '25');
-    await fill(page, 'input-departure.windGust', '35');
-    await expectText(page.getByTestId('wind-caution'), 'exceeds the 15 kt crosswind the flight manual states as demonstrated');
-    expect(await page.getByTestId('speed-card').count()).toBe(1);
-    await page.context().close();
+    await fill(pilot, 'input-departure.windDirection', '310');
+    await fill(pilot, 'input-departure.windSpeed', '25');
+    await fill(pilot, 'input-departure.windGust', '35');
+    await expectText(pilot.getByTestId('wind-caution'), 'exceeds the 15 kt crosswind the flight manual states as demonstrated');
+    expect(await pilot.getByTestId('speed-card').count()).toBe(1);
+    expect(await axeViolations(pilot)).toEqual([]);
+    await pilot.context().close();
+  });
+
+  it('lets an administrator read and set the approach policy, with no accessibility violation', async () => {
+    const admin = await page({ width: 390, height: 844 });
+    await signIn(admin, 'admin@demo.speedwright.example', E2E_PASSWORD, '/operator-settings');
+    await expectText(admin.getByTestId('policy-preview'), 'half the steady headwind plus the whole gust increment, at least 5 kt and at most 20 kt');
+    // runway 270, wind 300/20G30: ½ × 17.32 + 10 = 18.66 → 19 kt with the common practice
+    await expectText(admin.getByTestId('policy-preview'), 'VREF + 19 kt');
+    await admin.getByTestId('policy-maximumKt').fill('4');
+    await admin.getByTestId('save-approach-policy').click();
+    await expectText(admin.getByTestId('approach-policy-status'), 'not saved');
+    expect(await axeViolations(admin)).toEqual([]);
+    await admin.context().close();
   });
 });
