@@ -11,8 +11,8 @@ export const LIMIT_FIELDS: readonly { key: LimitKey; label: string }[] = [
   { key: 'vloKt', label: 'VLO' },
   { key: 'vmcKt', label: 'VMC' },
   { key: 'vyseKt', label: 'VYSE' },
-  // Wind figures of the flight manual: the card cautions above them (not a refusal).
-  { key: 'demonstratedCrosswindKt', label: 'Demonstrated crosswind' },
+  // Wind figures of the flight manual ("Dem.": demonstrated, short enough for the field's label): the card cautions above them, never refuses.
+  { key: 'demonstratedCrosswindKt', label: 'Dem. crosswind' },
   { key: 'maximumTailwindKt', label: 'Tailwind limit' },
 ];
 
