@@ -27,7 +27,9 @@ export function approachNote(card: SpeedCard, speed: CardSpeed): { text: string;
   const approach = card.approach;
   const found = approach?.speeds.find((entry) => entry.code === speed.code && entry.configurationKey === speed.configurationKey);
   if (!approach || !found) return null;
-  return { text: `\nApproach ${found.approachIasKt} KIAS = ${found.code} + ${approach.additiveKt}`, bold: true, fontSize: 7 };
+  // The cautions are printed overleaf, beside the aerodromes; the approach line says so, in words.
+  const overleaf = windCautionSentences(card).length ? ' · CAUTION overleaf' : '';
+  return { text: `\nApproach ${found.approachIasKt} KIAS = ${found.code} + ${approach.additiveKt}${overleaf}`, bold: true, fontSize: 7 };
 }
 
 /**
@@ -46,10 +48,13 @@ export function windBackLines(card: SpeedCard): Content[] {
 
 /** Boxed cautions: crosswind or tailwind above the book's figures, an approach speed at a VFE. */
 export function windCautions(card: SpeedCard): Content[] {
-  const sentences = [
+  return windCautionSentences(card).map(caution);
+}
+
+function windCautionSentences(card: SpeedCard): string[] {
+  return [
     ...(card.departure.wind?.cautions.map((sentence) => `Departure: ${sentence}`) ?? []),
     ...(card.arrival?.wind?.cautions.map((sentence) => `Arrival: ${sentence}`) ?? []),
     ...(card.approach?.speeds.flatMap((speed) => (speed.caution ? [speed.caution] : [])) ?? []),
   ];
-  return sentences.map(caution);
 }

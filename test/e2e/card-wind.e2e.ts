@@ -39,6 +39,8 @@ async function page(viewport = { width: 1024, height: 768 }): Promise<Page> {
 
 /** axe-core's WCAG 2.0/2.1 level A and AA rules (the tags of axe-core 4.x). */
 async function axeViolations(on: Page): Promise<string[]> {
+  // Measured mid-transition, an error line fading in has the contrast of half its colour: wait for the page to be still.
+  await on.waitForFunction('document.getAnimations().length === 0');
   await on.addScriptTag({ content: AXE_SOURCE });
   const violations = await on.evaluate<{ id: string; nodes: { target: string[] }[] }[]>(
     `axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } }).then((r) => r.violations)`,
