@@ -13,6 +13,7 @@ import * as cardIssueCodes from './migrations/20261202-0701-card-issue-codes';
 import * as revisionContributors from './migrations/20261205-0801-revision-contributors';
 import * as userAddressPerOperator from './migrations/20261205-0802-user-address-per-operator';
 import * as signingKeyRetirement from './migrations/20261205-0901-signing-key-retirement';
+import * as approachAdditivePolicy from './migrations/20261205-0902-approach-additive-policy';
 
 
 /**
@@ -33,6 +34,7 @@ const MIGRATIONS: { name: string; module: { up: Migration; down: Migration } }[]
   { name: '20261205-0801-revision-contributors', module: revisionContributors },
   { name: '20261205-0802-user-address-per-operator', module: userAddressPerOperator },
   { name: '20261205-0901-signing-key-retirement', module: signingKeyRetirement },
+  { name: '20261205-0902-approach-additive-policy', module: approachAdditivePolicy },
 ];
 
 /** The names of the migrations this build knows, oldest first (a backup's must all be among them). */

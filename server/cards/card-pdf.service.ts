@@ -21,7 +21,8 @@ import { contentSha256 } from '../../shared/speed-book/canonical';
 import type { Actor } from '../audit/actor';
 import { DomainError, notFound } from '../errors/domain-error';
 import { fieldErrors } from '../errors/field-errors';
-import { Airframe, CardIssue, Revision, SpeedBook } from '../models';
+import { Airframe, CardIssue, Operator, Revision, SpeedBook } from '../models';
+import { approachPolicyOf } from '../operator/approach-policy';
 import { EVER_PUBLISHED_STATUSES } from '../revisions/revision-access';
 import { loadCardSource } from './card-source';
 import { renderCardPdf } from './card-pdf-renderer';
@@ -58,7 +59,13 @@ export function inputsFromQuery(query: Record<string, unknown>, airframeId: numb
       continue;
     }
     const path = name.split('.');
-    if (path.length > 2 || path.some((part) => part === '' || part === '__proto__' || part === 'constructor' || part === 'prototype')) {
+    if (path[0] === 'approachAdditivePolicy') {
+      fields[name] = 'The card uses the operator’s approach additive policy (operator settings); leave it out of the query.';
+      continue;
+    }
+    // Three levels only for the wind: departure.wind.speedKt.
+    const windPath = path.length === 3 && (path[0] === 'departure' || path[0] === 'arrival') && path[1] === 'wind';
+    if ((path.length > 2 && !windPath) || path.some((part) => part === '' || part === '__proto__' || part === 'constructor' || part === 'prototype')) {
       fields[name] = 'This field is not expected here.';
       continue;
     }
@@ -66,6 +73,14 @@ export function inputsFromQuery(query: Record<string, unknown>, airframeId: numb
     if (path.length === 1) {
       if (typeof inputs[name] === 'object') fields[name] = `Give the fields of ${name} as ${name}.<field>.`;
       else inputs[name] = value;
+    } else if (windPath) {
+      const [group, , field] = path;
+      const existing = (inputs[group] ?? {}) as Record<string, unknown>;
+      if (typeof existing !== 'object' || existing === null) {
+        fields[name] = `${group} is given both alone and as ${name}.`;
+        continue;
+      }
+      inputs[group] = { ...existing, wind: { ...((existing['wind'] as Record<string, unknown>) ?? {}), [field]: value } };
     } else {
       const [group, field] = path;
       const existing = inputs[group];
@@ -120,6 +135,8 @@ export interface BatchPrintOptions {
 
 export async function printAirframeCard(actor: Actor, airframeId: number, query: Record<string, unknown>, options: BatchPrintOptions): Promise<PrintedCard> {
   const { inputs: raw, paper, fields } = inputsFromQuery(query, airframeId);
+  // A card with a wind uses the operator's approach additive policy as it stands now (recorded in its inputs).
+  if (hasWind(raw)) raw['approachAdditivePolicy'] = approachPolicyOf(await Operator.findByPk(actor.operatorId, { rejectOnEmpty: true }));
   const parsed = cardInputsSchema.safeParse(raw);
   const problems = { ...(parsed.success ? {} : fieldErrors(parsed.error)), ...fields };
   if (!parsed.success || Object.keys(problems).length) throw new DomainError('invalid', 'invalid_request', 'Some card inputs in the query are not right.', problems);
@@ -149,6 +166,13 @@ export async function printAirframeCard(actor: Actor, airframeId: number, query:
     paper,
   });
   return { pdf: await renderCardPdf(definition), fileName, code, card };
+}
+
+function hasWind(inputs: Record<string, unknown>): boolean {
+  return ['departure', 'arrival'].some((where) => {
+    const conditions = inputs[where];
+    return typeof conditions === 'object' && conditions !== null && ('wind' in conditions || 'runwayHeadingDeg' in conditions);
+  });
 }
 
 /** The query of a reprint: the card's code and, optionally, the paper; nothing else. */

@@ -9,6 +9,13 @@ export class Operator extends Model<InferAttributes<Operator>, InferCreationAttr
   declare isDemo: CreationOptional<boolean>;
   /** How many days a device's synced data may age before it refuses to build cards. */
   declare currencyLimitDays: CreationOptional<number>;
+  /** The approach additive policy (shared/card/approach-policy.ts): share of the steady headwind added to VREF. */
+  declare approachHeadwindFraction: CreationOptional<number>;
+  /** Share of the gust increment added. */
+  declare approachGustFraction: CreationOptional<number>;
+  /** Least and most additive, kt. */
+  declare approachAdditiveMinimumKt: CreationOptional<number>;
+  declare approachAdditiveMaximumKt: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -20,6 +27,10 @@ export class Operator extends Model<InferAttributes<Operator>, InferCreationAttr
         name: { type: DataTypes.STRING(200), allowNull: false },
         isDemo: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         currencyLimitDays: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 30 },
+        approachHeadwindFraction: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0.5 },
+        approachGustFraction: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 1 },
+        approachAdditiveMinimumKt: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 5 },
+        approachAdditiveMaximumKt: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 20 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -254,7 +254,7 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
     tags: ['operator'], who: 'manage-people', ok: { status: 201, schema: signingKeyResponseSchema },
   });
   route('get', '/api/operator/settings', { summary: 'The operator’s settings (the currency limit in days)', tags: ['operator'], who: 'manage-people', ok: { status: 200, schema: operatorSettingsResponseSchema } });
-  route('patch', '/api/operator/settings', { summary: 'Change the operator’s settings (the currency limit in days)', tags: ['operator'], who: 'manage-people', body: operatorSettingsSchema, ok: { status: 200, schema: operatorSettingsResponseSchema } });
+  route('patch', '/api/operator/settings', { summary: 'Change the operator’s settings (the currency limit in days, the approach additive policy)', tags: ['operator'], who: 'manage-people', body: operatorSettingsSchema, ok: { status: 200, schema: operatorSettingsResponseSchema } });
   route('get', '/api/sync', { summary: 'Published data changed since a cursor (everything without one), for offline devices', tags: ['sync'], who: 'read-published', query: syncQuerySchema, ok: { status: 200, schema: syncResponseSchema } });
   route('get', '/api/audit', { summary: 'The audit trail, newest first, filtered and paginated', tags: ['audit'], who: 'read-audit', query: auditQuerySchema, ok: { status: 200, schema: auditPageSchema } });
 

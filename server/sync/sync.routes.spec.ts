@@ -103,8 +103,8 @@ describe('GET and PATCH /api/operator/settings', () => {
   it('lets an administrator set the currency limit, audited and shown in sync; other roles 403; bad values 400', async () => {
     const patch = (who: Session, body: unknown) => who.agent.patch('/api/operator/settings').set('x-csrf-token', who.token).send(body as object);
     const res = await patch(as.admin, { currencyLimitDays: 14 }).expect(200);
-    expect(res.body).toEqual({ settings: { currencyLimitDays: 14 } });
-    expect((await as.admin.agent.get('/api/operator/settings').expect(200)).body).toEqual({ settings: { currencyLimitDays: 14 } });
+    expect(res.body).toEqual({ settings: { currencyLimitDays: 14, approachAdditivePolicy: { headwindFraction: 0.5, gustFraction: 1, minimumKt: 5, maximumKt: 20 } } });
+    expect((await as.admin.agent.get('/api/operator/settings').expect(200)).body).toEqual(res.body);
     await as.pilot.agent.get('/api/operator/settings').expect(403);
     const synced = await sync(as.pilot);
     expect(synced.operator.currencyLimitDays).toBe(14);

@@ -3,6 +3,7 @@ import type { SyncResponse, SyncRevision } from '../../shared/api/sync';
 import type { Actor } from '../audit/actor';
 import { aircraftTypeView, airframeView } from '../fleet/fleet.service';
 import { AircraftType, Airframe, Operator, Revision, SpeedBook } from '../models';
+import { approachPolicyOf } from '../operator/approach-policy';
 import { publishedSigningKeys } from '../revisions/signing';
 import { decodeCursor, encodeCursor } from './sync-cursor';
 import { database } from '../transactions';
@@ -66,6 +67,7 @@ export async function syncSince(actor: Actor, cursor: string | undefined, signin
       // Every key, every time (a handful of rows): a device that missed a rotation still learns the key its revisions name.
       signingKeys: keys.all.map((one) => ({ id: one.id, publicKey: one.publicKey, createdAt: one.createdAt.toISOString(), retiredAt: one.retiredAt?.toISOString() ?? null })),
       currencyLimitDays: operator.currencyLimitDays,
+      approachAdditivePolicy: approachPolicyOf(operator),
     },
     aircraftTypes: aircraftTypes.map(aircraftTypeView),
     airframes: airframes.map(airframeView),

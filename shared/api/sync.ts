@@ -4,6 +4,7 @@
  */
 import * as z from 'zod';
 import { aircraftTypeSchema, airframeSchema } from './fleet';
+import { approachAdditivePolicySchema } from '../card/approach-policy';
 
 const id = z.number().int().positive();
 
@@ -53,6 +54,8 @@ export const syncOperatorSchema = z.object({
    */
   signingKeys: z.array(syncSigningKeySchema),
   currencyLimitDays: z.number().int(),
+  /** The operator's approach additive policy now: a device puts it into the inputs of every card with a wind. */
+  approachAdditivePolicy: approachAdditivePolicySchema,
 });
 
 export const syncResponseSchema = z.object({
@@ -66,13 +69,27 @@ export type SyncResponse = z.infer<typeof syncResponseSchema>;
 
 export const CURRENCY_LIMIT_DAYS = { min: 1, max: 365 } as const;
 
-export const operatorSettingsSchema = z.strictObject({
-  currencyLimitDays: z
-    .number({ error: 'Give the currency limit as a whole number of days.' })
-    .int('Give the currency limit as a whole number of days.')
-    .min(CURRENCY_LIMIT_DAYS.min, `At least ${CURRENCY_LIMIT_DAYS.min} day.`)
-    .max(CURRENCY_LIMIT_DAYS.max, `At most ${CURRENCY_LIMIT_DAYS.max} days.`),
-});
-export type OperatorSettings = z.infer<typeof operatorSettingsSchema>;
+/**
+ * `PATCH /api/operator/settings`: any of the operator's policies, each replaced whole; at least one.
+ * The approach additive policy is shared/card/approach-policy.ts (zod/mini, part of the card inputs).
+ */
+export const operatorSettingsSchema = z
+  .strictObject({
+    currencyLimitDays: z
+      .number({ error: 'Give the currency limit as a whole number of days.' })
+      .int('Give the currency limit as a whole number of days.')
+      .min(CURRENCY_LIMIT_DAYS.min, `At least ${CURRENCY_LIMIT_DAYS.min} day.`)
+      .max(CURRENCY_LIMIT_DAYS.max, `At most ${CURRENCY_LIMIT_DAYS.max} days.`)
+      .optional(),
+    approachAdditivePolicy: z.optional(approachAdditivePolicySchema),
+  })
+  .refine((settings) => settings.currencyLimitDays !== undefined || settings.approachAdditivePolicy !== undefined, {
+    message: 'Give the currency limit or the approach additive policy.',
+  });
+export type OperatorSettingsChange = z.infer<typeof operatorSettingsSchema>;
 
-export const operatorSettingsResponseSchema = z.object({ settings: z.object({ currencyLimitDays: z.number().int() }) });
+/** The operator's policies as `GET` and `PATCH /api/operator/settings` answer them. */
+export const operatorSettingsViewSchema = z.object({ currencyLimitDays: z.number().int(), approachAdditivePolicy: approachAdditivePolicySchema });
+export type OperatorSettings = z.infer<typeof operatorSettingsViewSchema>;
+
+export const operatorSettingsResponseSchema = z.object({ settings: operatorSettingsViewSchema });

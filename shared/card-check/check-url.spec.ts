@@ -47,14 +47,36 @@ describe('the compact payload', () => {
   ])('round-trips %s to the same inputs, revision and digest', (_what, payload) => {
     const text = encodeCheckPayload(payload);
     expect(text).toMatch(UNRESERVED);
+    // Without wind the shorter version-2 form is still written (a smaller QR code).
     expect(text[0]).toBe('2');
     expect(decodeCheckPayload(text)).toEqual({ ok: true, value: payload });
+  });
+
+  it('round-trips the day’s wind at both aerodromes and the operator’s approach policy, and re-derives that card', () => {
+    const windy: CardInputs = {
+      ...jetInputs,
+      departure: { ...jetInputs.departure, runwayHeadingDeg: 270, wind: { directionDeg: 300, speedKt: 20, gustKt: 30 } },
+      arrival: { ...jetInputs.arrival!, runwayHeadingDeg: 45.5, wind: { directionDeg: 10, speedKt: 7 } },
+      approachAdditivePolicy: { headwindFraction: 0.5, gustFraction: 1, minimumKt: 5, maximumKt: 20 },
+    };
+    const card = buildCard(jetRevision, windy, HAND_CONTEXT);
+    const payload: CheckPayload = { revisionId: jetRevision.id, inputs: card.inputs, digest: card.digest };
+    const decoded = decodeCheckPayload(encodeCheckPayload(payload));
+    expect(decoded).toEqual({ ok: true, value: payload });
+    if (decoded.ok) expect(buildCard(jetRevision, decoded.value.inputs, HAND_CONTEXT).digest).toBe(card.digest);
+  });
+
+  it('writes version 3 (28 fields) only for a card with wind or an approach policy', () => {
+    const windy = encodeCheckPayload({ ...pistonPayload, inputs: { ...pistonPayload.inputs, departure: { ...pistonPayload.inputs.departure, runwayHeadingDeg: 90, wind: { directionDeg: 90, speedKt: 5 } } } });
+    expect(windy[0]).toBe('3');
+    expect(windy.slice(45).split('_')).toHaveLength(28);
+    expect(decodeCheckPayload('3' + encodeCheckPayload(pistonPayload).slice(1))).toMatchObject({ ok: false, message: expect.stringContaining('has 16 fields where a card has 28') });
   });
 
   it('still reads a version-1 payload (a card printed before issue 11), marked as made under earlier card rules', () => {
     const text = '1' + encodeCheckPayload(pistonPayload).slice(1);
     expect(decodeCheckPayload(text)).toEqual({ ok: true, value: { ...pistonPayload, earlierCardRules: true } });
-    expect(decodeCheckPayload('3' + text.slice(1))).toMatchObject({ ok: false, message: expect.stringMatching(/in a form this version of Speedwright does not read/) });
+    expect(decodeCheckPayload('4' + text.slice(1))).toMatchObject({ ok: false, message: expect.stringMatching(/in a form this version of Speedwright does not read/) });
   });
 
   it('re-derives the same card, to the digest, from the decoded inputs', () => {
@@ -100,9 +122,9 @@ describe('the compact payload', () => {
 
   it('covers every field of the card inputs (a new field needs a new payload version)', () => {
     expect(Object.keys(cardInputsSchema.shape).sort()).toEqual(
-      ['airframeId', 'altitudeStepFt', 'arrival', 'configuration', 'cruise', 'departure', 'isaDeviationC', 'landingWeightKg', 'weightKg'],
+      ['airframeId', 'altitudeStepFt', 'approachAdditivePolicy', 'arrival', 'configuration', 'cruise', 'departure', 'isaDeviationC', 'landingWeightKg', 'weightKg'],
     );
-    expect(Object.keys(cardInputsSchema.shape.departure.shape).sort()).toEqual(['dewPointC', 'elevationFt', 'oatC', 'qnhHpa']);
+    expect(Object.keys(cardInputsSchema.shape.departure.shape).sort()).toEqual(['dewPointC', 'elevationFt', 'oatC', 'qnhHpa', 'runwayHeadingDeg', 'wind']);
   });
 });
 

@@ -8,6 +8,14 @@
  * without the card log. It is compact (a QR code on a kneeboard card must stay small), URL-safe
  * (only A–Z a–z 0–9 - . _ characters, nothing to escape) and versioned (the first character).
  *
+ * Version 3 adds the day's wind (issue 16) after the 16 fields of version 2: for the departure
+ * and then the arrival, `runwayHeadingDeg _ directionDeg _ speedKt _ gustKt` (all four empty
+ * without a wind), then the operator's approach additive policy the card used,
+ * `headwindFraction _ gustFraction _ minimumKt _ maximumKt` (all four empty without one): 28
+ * fields. A card without wind or policy is still written in the 16 fields of version 2 (a
+ * smaller QR code), and a version-2 payload is re-derived as it always was: a card without
+ * wind has the same figures and digest under today's rules.
+ *
  * Version 2 (cards of CARD_VERSION 2: envelope, ordering rules, rounding by class) has the fields
  * of version 1; the version says which card rules made the digest. A version-1 payload still
  * decodes, marked `earlierCardRules`: its figures were computed under the earlier rules, so they
@@ -26,15 +34,19 @@
  * Decoding checks the result against `cardInputsSchema`; a failure is a sentence, never a throw.
  */
 import { cardInputsSchema, type AerodromeConditions, type CardInputs } from '../card/card';
+import type { ApproachAdditivePolicy } from '../card/approach-policy';
 import { formatCardCode, validateCardCode } from './card-code';
 
 /**
  * The payload's form; a change of fields, or of the card rules behind the digest, means a new
  * version (decoders keep reading the old).
  */
-export const CHECK_PAYLOAD_VERSION = '2';
+export const CHECK_PAYLOAD_VERSION = '3';
 /** Versions before `CHECK_PAYLOAD_VERSION` that decoders still read: their cards follow earlier card rules. */
 const EARLIER_PAYLOAD_VERSIONS = new Set(['1']);
+/** The form of a card without wind and approach policy (the 16 fields of version 2), still written for such cards. */
+const WITHOUT_WIND_PAYLOAD_VERSION = '2';
+const SAME_RULES_PAYLOAD_VERSIONS = new Set([WITHOUT_WIND_PAYLOAD_VERSION]);
 /** Longest payload a decoder reads (a version-1 payload is about 120 characters). */
 export const MAX_CHECK_PAYLOAD_LENGTH = 600;
 
@@ -53,7 +65,9 @@ export type Decoded<T> = { readonly ok: true; readonly value: T } | { readonly o
 const DIGEST_HEX = /^[0-9a-f]{64}$/;
 const DIGEST_B64_LENGTH = 43;
 const B64URL = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_';
-const FIELDS = 16;
+/** Fields of versions 1 and 2, and of version 3 (the wind and the approach policy added). */
+const FIELDS_BEFORE_WIND = 16;
+const FIELDS = 28;
 const NUMBER = /^-?(0|[1-9][0-9]*)(\.[0-9]+)?(e-?[0-9]+)?$/;
 const PAYLOAD_CHARACTERS = /^[A-Za-z0-9_.-]*$/;
 
@@ -143,7 +157,31 @@ export function encodeCheckPayload({ revisionId, inputs, digest }: CheckPayload)
     cruise,
     String(parsed.altitudeStepFt),
   ];
-  return `${CHECK_PAYLOAD_VERSION}${digestToBase64Url(digest)}_${fields.join('_')}`;
+  const windAndPolicy = [...windFields(parsed.departure, 'departure'), ...windFields(parsed.arrival, 'arrival'), ...policyFields(parsed.approachAdditivePolicy)];
+  // A card without wind or policy keeps the shorter version-2 form: its QR code stays as small as before.
+  if (windAndPolicy.every((field) => field === '')) return `${WITHOUT_WIND_PAYLOAD_VERSION}${digestToBase64Url(digest)}_${fields.join('_')}`;
+  return `${CHECK_PAYLOAD_VERSION}${digestToBase64Url(digest)}_${[...fields, ...windAndPolicy].join('_')}`;
+}
+
+function windFields(conditions: AerodromeConditions | undefined, which: string): string[] {
+  if (!conditions?.wind || conditions.runwayHeadingDeg === undefined) return ['', '', '', ''];
+  const { wind } = conditions;
+  return [
+    writeNumber(conditions.runwayHeadingDeg, `${which}.runwayHeadingDeg`),
+    writeNumber(wind.directionDeg, `${which}.wind.directionDeg`),
+    writeNumber(wind.speedKt, `${which}.wind.speedKt`),
+    wind.gustKt === undefined ? '' : writeNumber(wind.gustKt, `${which}.wind.gustKt`),
+  ];
+}
+
+function policyFields(policy: ApproachAdditivePolicy | undefined): string[] {
+  if (!policy) return ['', '', '', ''];
+  return [
+    writeNumber(policy.headwindFraction, 'approachAdditivePolicy.headwindFraction'),
+    writeNumber(policy.gustFraction, 'approachAdditivePolicy.gustFraction'),
+    writeNumber(policy.minimumKt, 'approachAdditivePolicy.minimumKt'),
+    writeNumber(policy.maximumKt, 'approachAdditivePolicy.maximumKt'),
+  ];
 }
 
 const NOT_A_CARD = 'The figures in this code are damaged or incomplete';
@@ -154,18 +192,24 @@ export function decodeCheckPayload(text: string): Decoded<CheckPayload> {
   if (text.length > MAX_CHECK_PAYLOAD_LENGTH) return bad(`${NOT_A_CARD}: it is far longer than any card’s.`);
   if (!PAYLOAD_CHARACTERS.test(text)) return bad(`${NOT_A_CARD}: it holds characters no card code uses.`);
   const earlierCardRules = EARLIER_PAYLOAD_VERSIONS.has(text[0]);
-  if (text[0] !== CHECK_PAYLOAD_VERSION && !earlierCardRules) {
+  if (text[0] !== CHECK_PAYLOAD_VERSION && !earlierCardRules && !SAME_RULES_PAYLOAD_VERSIONS.has(text[0])) {
     return bad('The figures in this code are in a form this version of Speedwright does not read; open the check page on the operator’s Speedwright site.');
   }
   const digest = base64UrlToDigest(text.slice(1, 1 + DIGEST_B64_LENGTH));
   if (digest === undefined || text[1 + DIGEST_B64_LENGTH] !== '_') return bad(`${NOT_A_CARD}: its digest is not readable.`);
   const fields = text.slice(2 + DIGEST_B64_LENGTH).split('_');
-  if (fields.length !== FIELDS) return bad(`${NOT_A_CARD}: it has ${fields.length} fields where a card has ${FIELDS}.`);
+  const expected = text[0] === CHECK_PAYLOAD_VERSION ? FIELDS : FIELDS_BEFORE_WIND;
+  if (fields.length !== expected) return bad(`${NOT_A_CARD}: it has ${fields.length} fields where a card has ${expected}.`);
 
   const [revisionText, airframeText, weight, landingWeight, configuration, ...rest] = fields;
   const departure = rest.slice(0, 4);
   const arrival = rest.slice(4, 8);
-  const [isaDeviation, cruiseText, stepText] = rest.slice(8);
+  const [isaDeviation, cruiseText, stepText] = rest.slice(8, 11);
+  // Versions 1 and 2 end there: no wind, no policy.
+  const windAndPolicy = rest.length > 11 ? rest.slice(11) : new Array<string>(12).fill('');
+  const departureWind = windAndPolicy.slice(0, 4);
+  const arrivalWind = windAndPolicy.slice(4, 8);
+  const policy = windAndPolicy.slice(8, 12);
 
   const problems: string[] = [];
   const numberAt = (field: string, value: string): number => {
@@ -197,6 +241,31 @@ export function decodeCheckPayload(text: string): Decoded<CheckPayload> {
   const landing = optionalAt('landing weight', landingWeight);
   if (landing !== undefined) inputs['landingWeightKg'] = landing;
   if (arrival.some((field) => field !== '')) inputs['arrival'] = aerodrome('arrival', arrival);
+  const addWind = (name: string, conditions: unknown, [heading, direction, speed, gust]: string[]) => {
+    if (![heading, direction, speed, gust].some((field) => field !== '')) return;
+    // A wind without its aerodrome is left for the schema to name (it has no place to go).
+    if (typeof conditions !== 'object' || conditions === null) {
+      problems.push(`${name} wind`);
+      return;
+    }
+    const target = conditions as Record<string, unknown>;
+    target['runwayHeadingDeg'] = numberAt(`${name} runway heading`, heading);
+    const wind: Record<string, unknown> = { directionDeg: numberAt(`${name} wind direction`, direction), speedKt: numberAt(`${name} wind speed`, speed) };
+    const gustKt = optionalAt(`${name} gust`, gust);
+    if (gustKt !== undefined) wind['gustKt'] = gustKt;
+    target['wind'] = wind;
+  };
+  addWind('departure', inputs['departure'], departureWind);
+  addWind('arrival', inputs['arrival'], arrivalWind);
+  if (policy.some((field) => field !== '')) {
+    const [headwindFraction, gustFraction, minimumKt, maximumKt] = policy;
+    inputs['approachAdditivePolicy'] = {
+      headwindFraction: numberAt('headwind fraction of the approach policy', headwindFraction),
+      gustFraction: numberAt('gust fraction of the approach policy', gustFraction),
+      minimumKt: numberAt('minimum additive', minimumKt),
+      maximumKt: numberAt('maximum additive', maximumKt),
+    };
+  }
   const cruiseValue = numberAt('cruise', cruiseText.slice(1));
   if (cruiseText[0] === 'm') inputs['cruise'] = { mach: cruiseValue };
   else if (cruiseText[0] === 'k') inputs['cruise'] = { iasKt: cruiseValue };

@@ -10,6 +10,7 @@ import { altitudeTableBody, stallInTurnBody } from './altitude-block';
 import type { CardPdfInput } from './card-pdf-input';
 import { indicatorBlock } from './indicator-block';
 import { BAR_WIDTH, FIGURES_LAYOUT, bar, caution, fine, head, num, title } from './pdf-blocks';
+import { windBackLines, windCautions } from './wind-block';
 
 /** The back of the card, `width` wide: aerodromes, stall in a turn, indicator, altitude table. */
 export function backPage(input: CardPdfInput, width: number): Content {
@@ -43,7 +44,9 @@ export function backPage(input: CardPdfInput, width: number): Content {
             stack: [
               title('Departure and arrival', 0),
               { table: { headerRows: 1, widths: [BAR_WIDTH, '*', 38, 38, 38], body: aerodromeBody }, layout: FIGURES_LAYOUT },
+              ...windBackLines(card),
               ...cautions,
+              ...windCautions(card),
             ],
           },
           ...(card.stallInTurn.length

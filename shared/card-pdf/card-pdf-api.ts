@@ -15,6 +15,10 @@ const aerodrome = (name: 'departure' | 'arrival', optional: boolean) => {
     [`${name}.qnhHpa`]: field(`QNH at ${name}, hPa`),
     [`${name}.oatC`]: field(`Outside air temperature at ${name}, °C`),
     [`${name}.dewPointC`]: figure(`Dew point at ${name}, °C (optional: dry air)`).optional(),
+    [`${name}.runwayHeadingDeg`]: figure(`Runway heading at ${name}, degrees magnetic 1–360 (optional; with ${name}.wind.*)`).optional(),
+    [`${name}.wind.directionDeg`]: figure(`Wind direction at ${name}, degrees magnetic 1–360, the same north as the runway heading (optional)`).optional(),
+    [`${name}.wind.speedKt`]: figure(`Steady wind speed at ${name}, kt (optional)`).optional(),
+    [`${name}.wind.gustKt`]: figure(`Gusts at ${name}, kt, at least the steady speed (optional)`).optional(),
   };
 };
 

@@ -5,6 +5,7 @@
 import type { Content } from 'pdfmake/interfaces';
 import type { SpeedCard } from '../card/card';
 import { cardNumber, cruiseWords, signedCardNumber } from '../card/card-presentation';
+import { windInputRows } from './wind-block';
 import { BAR_WIDTH, FIGURES_LAYOUT, bar, boxLayout } from './pdf-blocks';
 import { qrVector } from './qr';
 import { lineKey } from './revision-marks';
@@ -55,6 +56,7 @@ function inputRows(card: SpeedCard): [string, string, string | null][] {
     ['Configuration', `${card.takeoffConfiguration.label} (takeoff)`, lineKey.takeoffConfiguration()],
     ['Departure', aerodrome(i.departure), null],
     ['Arrival', i.arrival ? aerodrome(i.arrival) : 'as at departure', null],
+    ...windInputRows(card).map(([label, value]): [string, string, string | null] => [label, value, null]),
     ['En route', `ISA ${signedCardNumber(i.isaDeviationC)} °C · table every ${cardNumber(i.altitudeStepFt)} ft`, null],
     ['Planned cruise', cruiseWords(card), lineKey.cruise()],
   ];

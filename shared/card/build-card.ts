@@ -18,14 +18,15 @@
  * (checked-content.ts), weights (card-weights.ts), the day's atmosphere (card-atmosphere.ts),
  * the envelope (card-envelope-check.ts), speeds and stall in a turn (card-speeds.ts), limits
  * (card-limits.ts), the ordering rules (card-ordering-check.ts), cruise and altitude table
- * (card-cruise.ts, card-altitude-table.ts), the indicator (card-indicator.ts), rounding
+ * (card-cruise.ts, card-altitude-table.ts), the day's wind and the approach speed by the
+ * operator's additive policy (card-wind.ts), the indicator (card-indicator.ts), rounding
  * (card-rounding.ts) and refusals (card-refusal.ts).
  *
  * Anything outside the flight manual's data or the modelled atmosphere refuses the card with a
  * `CardRefusedError` naming the input at fault.
  */
 import type { RevisionContent } from '../speed-book/revision-content';
-import { CARD_VERSION, type CardContext, type CardInputs, type CardRevision, type CardSpeed, type SpeedCard } from './card';
+import { CARD_VERSION, type AerodromeConditions, type CardAerodrome, type CardContext, type CardInputs, type CardRevision, type CardSpeed, type SpeedCard } from './card';
 import { altitudeTable } from './card-altitude-table';
 import { aerodrome } from './card-atmosphere';
 import { plannedCruise } from './card-cruise';
@@ -40,6 +41,7 @@ import { checkWeights, landingWeight } from './card-weights';
 import { checkedContent } from './checked-content';
 import { orderingViolations, type OrderingViolation } from './ordering-rules';
 import { SpeedBook } from './speed-book-reader';
+import { cardApproach, cardWind } from './card-wind';
 
 // The public names that used to live here, so every import of build-card keeps working.
 export { HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT, HIGH_DENSITY_ALTITUDE_FT } from './card-atmosphere';
@@ -89,6 +91,15 @@ export function buildCard(revision: CardRevision, rawInputs: CardInputs, context
   const limits = book.limits();
   refuseBrokenRules(content, orderingViolations(orderingFiguresOf(content, speeds, limits)));
   const cruise = plannedCruise(book, inputs.cruise);
+  const cardSpeedList = speeds.map((speed) => speed.card);
+  // Approach and landing use the arrival's conditions, or the departure's without an arrival.
+  const landingAt = inputs.arrival ? { conditions: inputs.arrival, where: 'arrival' as const } : { conditions: inputs.departure, where: 'departure' as const };
+  const approach = cardApproach(landingAt, inputs.approachAdditivePolicy, cardSpeedList, limits.card.vfe);
+  // The wind keys exist only when a wind was given, so cards without one keep their digest.
+  const withWind = (card: CardAerodrome, conditions: AerodromeConditions): CardAerodrome => {
+    const wind = cardWind(conditions, content.limits);
+    return wind ? { ...card, wind } : card;
+  };
 
   // Every object of the card is written with its keys in RFC 8785 order, so that the digest
   // can use JSON.stringify as it is (card-digest.ts); the order is checked there, not trusted.
@@ -102,19 +113,20 @@ export function buildCard(revision: CardRevision, rawInputs: CardInputs, context
     },
     airframe: { id: context.airframe.id, registration: context.airframe.registration },
     altitudeTable: altitudeTable(book, inputs, cruise, limits),
-    arrival: arrival?.card ?? null,
+    ...(approach ? { approach } : {}),
+    arrival: arrival && inputs.arrival ? withWind(arrival.card, inputs.arrival) : null,
     cardVersion: CARD_VERSION,
     crossoverAltitudeFt: limits.crossoverFt,
     cruise: cruise.card,
     demo: context.demo,
-    departure: departure.card,
+    departure: withWind(departure.card, inputs.departure),
     indicator: cardIndicator(content, speeds, limits),
     inputs: sortedKeys(inputs),
     landing,
     limits: limits.card,
     revision: { contentSha256: revision.contentSha256, id: revision.id, number: revision.number, publishedAt: revision.publishedAt },
     speedBook: { id: context.speedBook.id, title: context.speedBook.title },
-    speeds: speeds.map((speed) => speed.card),
+    speeds: cardSpeedList,
     stallInTurn: stallInTurn(speeds),
     takeoffConfiguration: { key: takeoffConfiguration.key, label: takeoffConfiguration.label },
   };

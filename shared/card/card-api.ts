@@ -23,6 +23,43 @@ export type CardPreviewRequest = z.infer<typeof cardPreviewRequestSchema>;
 
 const limitSpeed = z.object({ iasKt: z.number(), casKt: z.number() });
 
+const cardWindSchema = z.object({
+  runwayHeadingDeg: z.number(),
+  directionDeg: z.number(),
+  speedKt: z.number(),
+  gustKt: z.number().nullable(),
+  headwindKt: z.number(),
+  crosswindKt: z.number(),
+  crosswindFrom: z.enum(['left', 'right']).nullable(),
+  gust: z.object({ headwindKt: z.number(), crosswindKt: z.number() }).nullable(),
+  cautions: z.array(z.string()),
+});
+
+const cardAerodromeSchema = z.object({
+  pressureAltitudeFt: z.number(),
+  densityAltitudeFt: z.number().nullable(),
+  isaDeviationC: z.number(),
+  highDensityAltitude: z.boolean(),
+  wind: cardWindSchema.optional(),
+});
+
+const cardApproachSchema = z.object({
+  windAt: z.enum(['departure', 'arrival']),
+  policy: z.object({ headwindFraction: z.number(), gustFraction: z.number(), minimumKt: z.number(), maximumKt: z.number() }),
+  policyStatement: z.string(),
+  additiveKt: z.number(),
+  speeds: z.array(
+    z.object({
+      code: z.string(),
+      configurationKey: z.string(),
+      configurationLabel: z.string(),
+      vrefIasKt: z.number(),
+      approachIasKt: z.number(),
+      caution: z.string().nullable(),
+    }),
+  ),
+});
+
 /** The card as JSON (see `SpeedCard` in card.ts for what each field means). */
 export const speedCardSchema = z.object({
   digest: z.string().regex(/^[0-9a-f]{64}$/),
@@ -35,8 +72,9 @@ export const speedCardSchema = z.object({
   inputs: cardInputsSchema,
   takeoffConfiguration: z.object({ key: z.string(), label: z.string() }),
   landing: z.object({ source: z.enum(['entered', 'takeoff-weight', 'maximum-landing-weight']), statement: z.string(), weightKg: z.number() }),
-  departure: z.object({ pressureAltitudeFt: z.number(), densityAltitudeFt: z.number().nullable(), isaDeviationC: z.number(), highDensityAltitude: z.boolean() }),
-  arrival: z.object({ pressureAltitudeFt: z.number(), densityAltitudeFt: z.number().nullable(), isaDeviationC: z.number(), highDensityAltitude: z.boolean() }).nullable(),
+  departure: cardAerodromeSchema,
+  arrival: cardAerodromeSchema.nullable(),
+  approach: cardApproachSchema.optional(),
   speeds: z.array(
     z.object({
       code: z.string(),

@@ -34,6 +34,25 @@ describe('cardDigest', () => {
     expect(cardDigest(JSON.parse(JSON.stringify(first)) as SpeedCard)).toBe(first.digest);
   });
 
+  it('covers the day’s wind and the operator’s policy: either changes the digest, a JSON round trip does not', () => {
+    const windy = (gustKt: number, maximumKt: number): CardInputs => ({
+      ...handPistonInputs(),
+      departure: { ...handPistonInputs().departure, runwayHeadingDeg: 270, wind: { directionDeg: 300, speedKt: 20, gustKt } },
+      approachAdditivePolicy: { headwindFraction: 0.5, gustFraction: 1, minimumKt: 5, maximumKt },
+    });
+    const card = buildCard(revisionOf(handPistonContent()), windy(30, 20), HAND_CONTEXT);
+    const { digest, ...body } = card;
+    // RFC 8785 canonical JSON, then SHA-256 (FIPS 180-4): the wind keys are in key order like the rest.
+    expect(digest).toBe(sha256Hex(canonicalJson(body)));
+    expect(canonicalCardJson(body)).toBe(canonicalJson(body));
+    expect(cardDigest(JSON.parse(JSON.stringify(card)) as SpeedCard)).toBe(digest);
+    expect(buildCard(revisionOf(handPistonContent()), JSON.parse(JSON.stringify(windy(30, 20))) as CardInputs, HAND_CONTEXT).digest).toBe(digest);
+    expect(buildCard(revisionOf(handPistonContent()), windy(31, 20), HAND_CONTEXT).digest).not.toBe(digest);
+    expect(buildCard(revisionOf(handPistonContent()), windy(30, 19), HAND_CONTEXT).digest).not.toBe(digest);
+    // Without wind the card is exactly as before the wind existed (its pinned digest).
+    expect(buildCard(revisionOf(handPistonContent()), handPistonInputs(), HAND_CONTEXT).digest).toBe(HAND_PISTON_CARD_DIGEST);
+  });
+
   it('writes the same canonical JSON as the RFC 8785 library, in order or not', () => {
     const card = buildCard(revisionOf(handPistonContent()), handPistonInputs(), HAND_CONTEXT);
     const { digest: _digest, ...body } = card;

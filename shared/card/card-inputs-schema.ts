@@ -9,6 +9,7 @@
 import * as z from 'zod/mini';
 // The key alone (also zod/mini): the check page reads card inputs without the speed book's content schema.
 import { configurationKeySchema } from '../speed-book/configuration-key';
+import { approachAdditivePolicySchema } from './approach-policy';
 
 const num = (what: string) =>
   z.number({ error: (issue) => (issue.input === undefined ? `Give ${what}.` : `${capitalise(what)} must be a number.`) });
@@ -19,6 +20,34 @@ function capitalise(text: string): string {
 
 const weight = (what: string) =>
   num(what).check(z.positive(`${capitalise(what)} must be above zero.`), z.maximum(999_999, `${capitalise(what)} must be below 1,000,000 kg.`));
+
+/** Which north the runway heading and the wind direction are given from: one reference for both (said on screen). */
+export const WIND_DIRECTION_REFERENCE = 'magnetic' as const;
+/** The strongest steady wind or gust a card takes, kt: beyond it the figure is a typing slip. */
+export const MAX_WIND_KT = 150;
+
+/** A direction in whole or decimal degrees, 1–360 (north is 360, as runways and winds are given). */
+const direction = (what: string) =>
+  num(what).check(z.minimum(1, `${capitalise(what)} must be from 1 to 360 degrees (north is 360).`), z.maximum(360, `${capitalise(what)} must be from 1 to 360 degrees (north is 360).`));
+
+const windKnots = (what: string) =>
+  num(what).check(z.minimum(0, `${capitalise(what)} must be 0 kt or more.`), z.maximum(MAX_WIND_KT, `${capitalise(what)} must be at most ${MAX_WIND_KT} kt.`));
+
+/**
+ * The wind at an aerodrome, from the same north as the runway heading (`WIND_DIRECTION_REFERENCE`).
+ * A gust, when given, is at least the steady speed.
+ */
+export const windSchema = z
+  .strictObject({
+    /** Where the wind blows from, degrees 1–360. */
+    directionDeg: direction('the wind direction in degrees'),
+    /** Steady wind speed, kt. */
+    speedKt: windKnots('the wind speed in kt'),
+    /** Gusts, kt; at least the steady speed. */
+    gustKt: z.optional(windKnots('the gust speed in kt')),
+  })
+  .check(z.refine((wind) => wind.gustKt === undefined || wind.gustKt >= wind.speedKt, { message: 'The gust must be at least the steady wind speed.', path: ['gustKt'] }));
+export type Wind = z.infer<typeof windSchema>;
 
 /**
  * Conditions at one aerodrome. Only the type and finiteness are checked here; whether a value
@@ -34,7 +63,14 @@ export const aerodromeConditionsSchema = z.strictObject({
   oatC: num('the outside air temperature in °C'),
   /** Dew point, °C; without it density altitude is for dry air. */
   dewPointC: z.optional(num('the dew point in °C')),
-});
+  /** The heading of the runway in use, degrees 1–360, from the same north as the wind; given with `wind`. */
+  runwayHeadingDeg: z.optional(direction('the runway heading in degrees')),
+  /** The day's wind; given with `runwayHeadingDeg`, for the wind components (and, where the card lands, the approach speed). */
+  wind: z.optional(windSchema),
+}).check(
+  z.refine((conditions) => conditions.wind === undefined || conditions.runwayHeadingDeg !== undefined, { message: 'Give the runway heading with the wind.', path: ['runwayHeadingDeg'] }),
+  z.refine((conditions) => conditions.runwayHeadingDeg === undefined || conditions.wind !== undefined, { message: 'Give the wind with the runway heading.', path: ['wind'] }),
+);
 export type AerodromeConditions = z.infer<typeof aerodromeConditionsSchema>;
 
 /** The planned cruise: an indicated airspeed (through the cruise configuration's table) or a Mach number. */
@@ -68,6 +104,11 @@ export const cardInputsSchema = z.strictObject({
   isaDeviationC: num('the ISA deviation in °C'),
   cruise: cruiseSchema,
   /** Spacing of the altitude table's rows, whole feet. */
+  /**
+   * The operator's approach additive policy at the time the card is made (the device fills it in
+   * from the synced operator settings). Needed when the aerodrome the card lands at has a wind.
+   */
+  approachAdditivePolicy: z.optional(approachAdditivePolicySchema),
   altitudeStepFt: num('the altitude step in feet').check(
     z.int('The altitude step must be whole feet.'),
     z.minimum(100, 'The altitude step must be at least 100 ft.'),

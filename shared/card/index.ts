@@ -7,3 +7,11 @@ export { ORDERING_RULES, orderingRule, type OrderingRule, type OrderingRuleId } 
 export { cardDigest } from './card-digest';
 export * from './card-api';
 export { EN_ROUTE_DEVIATION_CONFIRM_C, enRouteDeviationCheck, isaDeviationFromTat, startingEnRouteDeviationC, type TatReading } from './en-route-deviation';
+export {
+  APPROACH_ADDITIVE_BOUNDS_KT,
+  COMMON_PRACTICE_APPROACH_POLICY,
+  approachAdditivePolicySchema,
+  approachPolicyStatement,
+  type ApproachAdditivePolicy,
+} from './approach-policy';
+export { cardApproach, cardWind, roundAdditiveUpKt, unroundedAdditiveKt, windComponents, type WindComponents } from './card-wind';

@@ -142,6 +142,10 @@ export const limitsSchema = z.strictObject({
   vloKt: z.optional(knots('VLO')),
   vmcKt: z.optional(knots('VMC')),
   vyseKt: z.optional(knots('VYSE')),
+  /** The crosswind the flight manual states as demonstrated, kt: the card cautions above it (not a refusal). */
+  demonstratedCrosswindKt: z.optional(knots('The demonstrated crosswind')),
+  /** The tailwind limit the flight manual states for takeoff and landing, kt: the card cautions above it. */
+  maximumTailwindKt: z.optional(knots('The tailwind limit')),
 });
 
 const rangeOf = (what: string, min: number, max: number, unit: string) => {

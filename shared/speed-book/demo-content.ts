@@ -67,7 +67,7 @@ export function demoPistonTrainerContent(): RevisionContent {
       { code: 'VBG', label: 'Best glide', phase: 'any', configurationKey: 'clean', basis: 'ias', kind: 'scaled', referenceKt: 70 },
       { code: 'VREF', label: 'Final approach, flaps 30°', phase: 'landing', configurationKey: 'landing-flap', basis: 'ias', kind: 'scaled', referenceKt: 63 },
     ],
-    limits: { vnoKt: 125, vneKt: 160, vfeKt: { 'takeoff-flap': 110, 'landing-flap': 85 } },
+    limits: { vnoKt: 125, vneKt: 160, vfeKt: { 'takeoff-flap': 110, 'landing-flap': 85 }, demonstratedCrosswindKt: 15, maximumTailwindKt: 10 },
     indicatorMarkingBasis: 'ias',
     envelope: {
       takeoff: { pressureAltitudeFt: { min: -1500, max: 10000 }, oatC: { min: -40, max: 50 } },
@@ -159,7 +159,7 @@ export function demoTwinTurbopropContent(): RevisionContent {
       // VREF by landing weight: 1.3 × VS0, and never below VMC (88.5 KCAS) at light weights.
       { code: 'VREF', label: 'Final approach', phase: 'landing', configurationKey: 'landing-flap', basis: 'ias', kind: 'tabulated', byWeightKg: [3600, 4600, 5500], valuesKt: [92, 97, 104] },
     ],
-    limits: { vmoKt: 245, mmo: 0.55, vfeKt: { 'takeoff-flap': 175, 'landing-flap': 145 }, vleKt: 175, vloKt: 160, vmcKt: 86, vyseKt: 112 },
+    limits: { vmoKt: 245, mmo: 0.55, vfeKt: { 'takeoff-flap': 175, 'landing-flap': 145 }, vleKt: 175, vloKt: 160, vmcKt: 86, vyseKt: 112, demonstratedCrosswindKt: 25, maximumTailwindKt: 10 },
     indicatorMarkingBasis: 'ias',
     envelope: {
       takeoff: { pressureAltitudeFt: { min: -1000, max: 8000 }, oatC: { min: -40, max: 50 } },
@@ -246,7 +246,7 @@ export function demoLightTwinJetContent(): RevisionContent {
       // VREF by landing weight: 1.3 × VS0, and never below VMC (94.8 KCAS) at light weights.
       { code: 'VREF', label: 'Final approach, flaps 35°', phase: 'landing', configurationKey: 'landing-flap', basis: 'ias', kind: 'tabulated', byWeightKg: [3100, 3800, 4400], valuesKt: [100, 105, 110] },
     ],
-    limits: { vmoKt: 275, mmo: 0.7, vfeKt: { 'takeoff-flap': 195, 'landing-flap': 170 }, vleKt: 190, vloKt: 190, vmcKt: 92, vyseKt: 150 },
+    limits: { vmoKt: 275, mmo: 0.7, vfeKt: { 'takeoff-flap': 195, 'landing-flap': 170 }, vleKt: 190, vloKt: 190, vmcKt: 92, vyseKt: 150, demonstratedCrosswindKt: 24, maximumTailwindKt: 10 },
     indicatorMarkingBasis: 'ias',
     envelope: {
       takeoff: { pressureAltitudeFt: { min: -1000, max: 10000 }, oatC: { min: -40, max: 50 } },

@@ -6,12 +6,14 @@ import { Subject, asyncScheduler, debounceTime, merge, type SchedulerLike } from
 import { CardRefusedError, buildCard, enRouteDeviationCheck, startingEnRouteDeviationC, type CardInputs, type SpeedCard } from '../../../shared/card';
 import { AeroInputError, isaDeviationC, pressureAltitudeFt } from '../../../shared/aero';
 import { AuthService } from '../core/auth/auth-service';
+import { SyncService } from '../core/sync/sync-service';
 import { cardNumber } from '../core/format/display-format';
 import { cardInputsFrom, createCardForm, formFieldOfRefusal, parseTyped, startingValues, type CardFormValue, type FormFieldPath } from './card-form';
 import { CardRevisionSelection } from './card-revision-selection';
 import { cardContextOf, cardRevisionOf, type AirframeChoice, type CardRevisionSource } from './card-sources';
 import { CANONICAL_UNITS, UNIT_FIELDS, UnitPreferences, formatInUnit, fromCanonical, otherUnit, toCanonical, type AnyUnit, type UnitChoice, type UnitField } from './card-units';
 import type { EnteredInput } from './speed-card-view';
+import { directionWords, windWords } from '../../../shared/card/card-wind-words';
 
 /** Long enough that typing "1050" builds one card, short enough to feel live. */
 export const CARD_DEBOUNCE_MS = 300;
@@ -54,9 +56,12 @@ const UNIT_CONTROL: Readonly<Record<UnitField, FormFieldPath>> = {
 @Injectable()
 export class CardFormModel {
   private readonly selection = inject(CardRevisionSelection);
+  private readonly sync = inject(SyncService);
   private readonly unitPreferences = inject(UnitPreferences);
   private readonly user = inject(AuthService).user;
   private readonly scheduler = inject(CARD_FORM_SCHEDULER);
+  /** The operator's approach additive policy as this device last synced it (null before the first sync after an upgrade). */
+  readonly approachPolicy = computed(() => this.sync.snapshot()?.operator?.approachAdditivePolicy ?? null);
 
   readonly form = createCardForm(inject(NonNullableFormBuilder));
   readonly units = signal<UnitChoice>(CANONICAL_UNITS);
@@ -68,7 +73,7 @@ export class CardFormModel {
     const revision = this.selection.revision();
     const choice = this.selection.choice();
     if (!snapshot || !revision || !choice?.book) return null;
-    const reading = cardInputsFrom(snapshot.value, snapshot.units, choice.airframe.id);
+    const reading = cardInputsFrom(snapshot.value, snapshot.units, choice.airframe.id, this.approachPolicy());
     if (reading.inputs === null) return { kind: 'incomplete', problems: reading.problems };
     return this.build(revision, choice, reading.inputs);
   });
@@ -289,6 +294,18 @@ function enteredInputs({ value, units }: Snapshot): EnteredInput[] {
     add('Arrival OAT', 'arrivalOat', value.arrival.oat);
     add('Arrival dew point', 'arrivalDewPoint', value.arrival.dewPoint);
   }
+  addWind(items, 'Departure wind', value.departure);
+  if (value.hasArrival) addWind(items, 'Arrival wind', value.arrival);
   add('ISA deviation (en route)', 'isaDeviation', value.isaDeviation);
   return items;
+}
+
+/** "runway 270°M, wind 300°M 20 kt gusting 30 kt", when the wind fields are filled. */
+function addWind(items: EnteredInput[], label: string, conditions: CardFormValue['departure']): void {
+  const runway = parseTyped(conditions.runwayHeading);
+  const direction = parseTyped(conditions.windDirection);
+  const speed = parseTyped(conditions.windSpeed);
+  if (runway === null || direction === null || speed === null) return;
+  const gust = parseTyped(conditions.windGust);
+  items.push({ label, value: `runway ${directionWords(runway)}, wind ${windWords({ directionDeg: direction, speedKt: speed, gustKt: gust })}` });
 }

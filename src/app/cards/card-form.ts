@@ -5,7 +5,7 @@
  */
 import { FormControl, FormGroup, NonNullableFormBuilder } from '@angular/forms';
 import { takeoffConfigurationKeys } from '../../../shared/card';
-import type { CardInputs } from '../../../shared/card';
+import type { ApproachAdditivePolicy, CardInputs } from '../../../shared/card';
 import type { RevisionContent } from '../../../shared/speed-book/revision-content';
 import { AeroInputError } from '../../../shared/aero';
 import { CANONICAL_UNITS, UNIT_FIELDS, formatInUnit, fromCanonical, toCanonical, type UnitChoice, type UnitField } from './card-units';
@@ -17,7 +17,15 @@ export interface AerodromeControls {
   qnh: FormControl<string>;
   oat: FormControl<string>;
   dewPoint: FormControl<string>;
+  /** Runway heading and wind, degrees (the one reference of `WIND_REFERENCE_SENTENCE`) and kt; all empty: no wind. */
+  runwayHeading: FormControl<string>;
+  windDirection: FormControl<string>;
+  windSpeed: FormControl<string>;
+  windGust: FormControl<string>;
 }
+
+/** The wind controls of an aerodrome, in the order the form shows them. */
+export const WIND_CONTROLS = ['runwayHeading', 'windDirection', 'windSpeed', 'windGust'] as const;
 
 export interface CardFormControls {
   configuration: FormControl<string>;
@@ -57,6 +65,10 @@ export function createCardForm(fb: NonNullableFormBuilder): CardForm {
       qnh: fb.control('1013'),
       oat: fb.control('15'),
       dewPoint: fb.control(''),
+      runwayHeading: fb.control(''),
+      windDirection: fb.control(''),
+      windSpeed: fb.control(''),
+      windGust: fb.control(''),
     });
   return fb.group<CardFormControls>({
     configuration: fb.control(''),
@@ -84,6 +96,10 @@ export function startingValues(content: RevisionContent, units: UnitChoice): Car
     qnh: shown(`${prefix}Qnh`, 1013),
     oat: shown(`${prefix}Oat`, 15),
     dewPoint: '',
+    runwayHeading: '',
+    windDirection: '',
+    windSpeed: '',
+    windGust: '',
   });
   const { limits, aircraft, weights, configurations } = content;
   const cruiseTable = configurations[0].positionError;
@@ -133,7 +149,49 @@ const FIELD_WORDS: Record<UnitField, string> = {
   cruiseIas: 'the cruise IAS',
 };
 
-export function cardInputsFrom(value: CardFormValue, units: UnitChoice, airframeId: number): FormReading {
+/** What each wind field is called in its sentences. */
+const WIND_WORDS: Readonly<Record<(typeof WIND_CONTROLS)[number], { what: string; example: string }>> = {
+  runwayHeading: { what: 'runway heading in degrees', example: '270' },
+  windDirection: { what: 'wind direction in degrees', example: '300' },
+  windSpeed: { what: 'wind speed in kt', example: '20' },
+  windGust: { what: 'gust speed in kt', example: '30' },
+};
+
+/**
+ * The runway heading and wind typed at an aerodrome, as the inputs' `runwayHeadingDeg` and
+ * `wind`; nothing when all four fields are empty. The gust is optional; the others go together.
+ */
+function windFrom(
+  conditions: CardFormValue['departure'],
+  where: 'departure' | 'arrival',
+  problems: Partial<Record<FormFieldPath, string>>,
+): { runwayHeadingDeg?: number; wind?: { directionDeg: number; speedKt: number; gustKt?: number } } {
+  if (WIND_CONTROLS.every((control) => conditions[control].trim() === '')) return {};
+  const figure = (control: (typeof WIND_CONTROLS)[number], optional = false): number | undefined => {
+    const text = conditions[control];
+    const words = WIND_WORDS[control];
+    if (text.trim() === '') {
+      if (!optional) problems[`${where}.${control}`] = `Give the ${where} ${words.what} with the rest of the wind, or leave all the wind fields empty.`;
+      return undefined;
+    }
+    const typed = parseTyped(text);
+    if (typed === null) problems[`${where}.${control}`] = `Type the ${where} ${words.what} as a number, such as ${words.example}.`;
+    return typed ?? undefined;
+  };
+  const runwayHeadingDeg = figure('runwayHeading');
+  const directionDeg = figure('windDirection');
+  const speedKt = figure('windSpeed');
+  const gustKt = figure('windGust', true);
+  if (runwayHeadingDeg === undefined || directionDeg === undefined || speedKt === undefined) return {};
+  return { runwayHeadingDeg, wind: { directionDeg, speedKt, ...(gustKt === undefined ? {} : { gustKt }) } };
+}
+
+/**
+ * The form as `CardInputs`. `approachPolicy` is the operator's approach additive policy from the
+ * device store: it goes into the inputs when the aerodrome the card lands at has a wind (the
+ * arrival, or the departure without one); without it such a card is refused, never guessed.
+ */
+export function cardInputsFrom(value: CardFormValue, units: UnitChoice, airframeId: number, approachPolicy: ApproachAdditivePolicy | null = null): FormReading {
   const problems: Partial<Record<FormFieldPath, string>> = {};
   const read = (field: UnitField, path: FormFieldPath, text: string, optional = false): number | undefined => {
     if (text.trim() === '') {
@@ -159,7 +217,7 @@ export function cardInputsFrom(value: CardFormValue, units: UnitChoice, airframe
     const qnhHpa = read(`${where}Qnh`, `${where}.qnh`, conditions.qnh);
     const oatC = read(`${where}Oat`, `${where}.oat`, conditions.oat);
     const dewPointC = read(`${where}DewPoint`, `${where}.dewPoint`, conditions.dewPoint, true);
-    return { elevationFt: elevationFt!, qnhHpa: qnhHpa!, oatC: oatC!, ...(dewPointC === undefined ? {} : { dewPointC }) };
+    return { elevationFt: elevationFt!, qnhHpa: qnhHpa!, oatC: oatC!, ...(dewPointC === undefined ? {} : { dewPointC }), ...windFrom(conditions, where, problems) };
   };
 
   const weightKg = read('weight', 'weight', value.weight);
@@ -190,6 +248,8 @@ export function cardInputsFrom(value: CardFormValue, units: UnitChoice, airframe
     cruise: cruise!,
     altitudeStepFt: value.altitudeStepFt,
   };
+  const landingAt = arrival ?? departure;
+  if (landingAt.wind && approachPolicy) inputs.approachAdditivePolicy = approachPolicy;
   return { inputs, problems: null };
 }
 
@@ -224,6 +284,11 @@ export function formFieldOfRefusal(field: string): FormFieldPath | null {
     altitudeStepFt: 'altitudeStepFt',
   };
   if (map[field]) return map[field];
+  const wind = /^(departure|arrival)\.(runwayHeadingDeg|wind|wind\.directionDeg|wind\.speedKt|wind\.gustKt)$/.exec(field);
+  if (wind) {
+    const control = ({ runwayHeadingDeg: 'runwayHeading', wind: 'windDirection', 'wind.directionDeg': 'windDirection', 'wind.speedKt': 'windSpeed', 'wind.gustKt': 'windGust' } as const)[wind[2] as 'wind'];
+    return `${wind[1] as 'departure' | 'arrival'}.${control}`;
+  }
   const aerodrome = /^(departure|arrival)\.(elevationFt|qnhHpa|oatC|dewPointC)$/.exec(field);
   if (!aerodrome) return null;
   const control = { elevationFt: 'elevation', qnhHpa: 'qnh', oatC: 'oat', dewPointC: 'dewPoint' }[aerodrome[2]] as keyof AerodromeControls;

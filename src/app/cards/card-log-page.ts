@@ -1,4 +1,5 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { landingWindWords } from '../../../shared/card/card-wind-words';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -81,6 +82,11 @@ export class CardLogPage {
   protected weightOf(entry: CardIssueView): string {
     const weight = entry.inputs['weightKg'];
     return typeof weight === 'number' ? cardNumber(weight) : '–';
+  }
+
+  /** The wind where the card lands and the operator's policy the card used, from its inputs; a dash without a wind. */
+  protected windOf(entry: CardIssueView): string {
+    return landingWindWords(entry.inputs);
   }
 
   private loadPage(cursor: string | null): void {

@@ -10,14 +10,16 @@ const M_PER_FT = 0.3048;
 const HPA_PER_INHG = 33.8639;
 const KG_PER_LB = 0.45359237;
 
+const NO_WIND = { runwayHeading: '', windDirection: '', windSpeed: '', windGust: '' };
+
 function formValue(overrides: Partial<CardFormValue> = {}): CardFormValue {
   return {
     configuration: 'takeoff-flap',
     weight: '1000',
     landingWeight: '',
-    departure: { elevation: '0', qnh: '1013', oat: '15', dewPoint: '' },
+    departure: { elevation: '0', qnh: '1013', oat: '15', dewPoint: '', ...NO_WIND },
     hasArrival: false,
-    arrival: { elevation: '0', qnh: '1013', oat: '15', dewPoint: '' },
+    arrival: { elevation: '0', qnh: '1013', oat: '15', dewPoint: '', ...NO_WIND },
     isaDeviation: '0',
     cruiseKind: 'ias',
     cruiseIas: '100',
@@ -69,7 +71,7 @@ describe('card units', () => {
       cruiseIas: 'km/h',
     };
     const reading = cardInputsFrom(
-      formValue({ weight: '2300', departure: { elevation: '450', qnh: '29.92', oat: '68', dewPoint: '50' }, isaDeviation: '9', cruiseIas: '200' }),
+      formValue({ weight: '2300', departure: { elevation: '450', qnh: '29.92', oat: '68', dewPoint: '50', ...NO_WIND }, isaDeviation: '9', cruiseIas: '200' }),
       units,
       7,
     );

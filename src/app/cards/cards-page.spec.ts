@@ -89,7 +89,7 @@ const STORED: RevisionRecord = {
   verifiedAt: SYNCED_AT,
 };
 const snapshotWith = (revisions: RevisionRecord[], lastSyncedAt = SYNCED_AT): DeviceSnapshot => ({
-  operator: { id: 1, name: 'Kestrel Fen Aviation (demo)', isDemo: true, publicKey: 'a2V5', signingKeyId: 9, currencyLimitDays: 30 },
+  operator: { id: 1, name: 'Kestrel Fen Aviation (demo)', isDemo: true, publicKey: 'a2V5', signingKeyId: 9, currencyLimitDays: 30, approachAdditivePolicy: { headwindFraction: 0.5, gustFraction: 1, minimumKt: 5, maximumKt: 20 } },
   state: { operatorId: 1, cursor: 'c1', lastSyncedAt, lastAttemptAt: lastSyncedAt, lastProblem: null, refused: [] },
   aircraftTypes: [{ ...TYPE, operatorId: 1 }],
   airframes: [{ ...AIRFRAME, operatorId: 1 }],

@@ -11,7 +11,11 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RevisionNotices } from '../core/sync/revision-notices';
 import { SyncStatusPanel } from '../core/sync/sync-status-panel';
-import { ALTITUDE_STEPS_FT } from './card-form';
+import { MAX_WIND_KT } from '../../../shared/card';
+import { WIND_REFERENCE_SENTENCE, directionUnit } from '../../../shared/card/card-wind-words';
+import { ALTITUDE_STEPS_FT, type FormFieldPath } from './card-form';
+
+const DIRECTION_UNIT = directionUnit();
 import { CardFormModel } from './card-form-model';
 import { CardIssuing } from './card-issuing';
 import { CardNumberPipe } from './card-number-pipe';
@@ -62,4 +66,27 @@ export class CardsPage {
   protected readonly issuer = inject(CardIssuing);
 
   protected readonly altitudeSteps = ALTITUDE_STEPS_FT;
+  protected readonly windReference = WIND_REFERENCE_SENTENCE;
+  private readonly windControls = [
+    { control: 'runwayHeading', label: 'Runway heading', unit: DIRECTION_UNIT, hint: '1 to 360' },
+    { control: 'windDirection', label: 'Wind from', unit: DIRECTION_UNIT, hint: '1 to 360' },
+    { control: 'windSpeed', label: 'Wind speed', unit: 'kt', hint: `0 to ${MAX_WIND_KT}` },
+    { control: 'windGust', label: 'Gusts', unit: 'kt', hint: 'Optional; at least the wind speed' },
+  ] as const;
+  private readonly windFields = {
+    departure: this.windControls.map((field) => ({ ...field, path: `departure.${field.control}` as FormFieldPath })),
+    arrival: this.windControls.map((field) => ({ ...field, path: `arrival.${field.control}` as FormFieldPath })),
+  };
+
+  /** The wind fields of `where`, each with its form path. */
+  protected windFieldsOf(where: 'departure' | 'arrival') {
+    return this.windFields[where];
+  }
+
+  /** What the wind at `where` is for, in one sentence. */
+  protected windUse(where: 'departure' | 'arrival'): string {
+    return where === 'arrival' || !this.model.form.controls.hasArrival.value
+      ? 'Gives the headwind and crosswind and, by your operator’s additive policy, the approach speed.'
+      : 'Gives the headwind and crosswind for the takeoff.';
+  }
 }

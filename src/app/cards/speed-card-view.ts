@@ -15,6 +15,7 @@ import {
   type PhaseGroup,
 } from '../../../shared/card/card-presentation';
 import { AltitudeChart } from './altitude-chart';
+import { CardWindView } from './card-wind-view';
 import { CardNumberPipe, cardNumber } from './card-number-pipe';
 import { AirspeedIndicator } from './indicator/airspeed-indicator';
 
@@ -29,7 +30,7 @@ export { DEMO_MARK, utcDate };
 /** The speed card as the pilot reads it; every figure comes rounded from the card model. */
 @Component({
   selector: 'sw-speed-card-view',
-  imports: [MatIconModule, CardNumberPipe, AirspeedIndicator, AltitudeChart],
+  imports: [MatIconModule, CardNumberPipe, AirspeedIndicator, AltitudeChart, CardWindView],
   templateUrl: './speed-card-view.html',
   styleUrl: './speed-card-view.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -10,6 +10,7 @@ import { SAFETY_CAUTION } from '../app';
 import { AuthService } from '../core/auth/auth-service';
 import { cardNumber } from '../cards/card-number-pipe';
 import { utcDate } from '../../../shared/card/card-presentation';
+import { directionWords, windWords } from '../../../shared/card/card-wind-words';
 import { SpeedCardView, type EnteredInput } from '../cards/speed-card-view';
 import { runCardCheck, type CardCheckResult, type FiguresNote } from './card-check-flow';
 import { CheckApi } from './check-api';
@@ -139,6 +140,7 @@ export class CheckPage {
       items.push({ label: `${name} QNH`, value: `${cardNumber(a.qnhHpa)} hPa` });
       items.push({ label: `${name} OAT`, value: `${cardNumber(a.oatC)} °C` });
       if (a.dewPointC !== undefined) items.push({ label: `${name} dew point`, value: `${cardNumber(a.dewPointC)} °C` });
+      if (a.wind && a.runwayHeadingDeg !== undefined) items.push({ label: `${name} wind`, value: `runway ${directionWords(a.runwayHeadingDeg)}, wind ${windWords(a.wind)}` });
     };
     aerodrome('Departure', inputs.departure);
     if (inputs.arrival) aerodrome('Arrival', inputs.arrival);

@@ -18,6 +18,8 @@ import { controlMessage, showServerFieldErrors } from '../core/forms/server-fiel
 import { zodValidator } from '../core/forms/zod-validator';
 import { ProblemRetry } from '../core/feedback/problem-retry';
 import { RotateKeyDialog, type RotateKeyData } from './rotate-key-dialog';
+import type { ApproachAdditivePolicy } from '../../../shared/card/approach-policy';
+import { ApproachPolicyPanel } from './approach-policy-panel';
 
 export const OPERATOR_PATHS = {
   settings: '/api/operator/settings',
@@ -45,12 +47,13 @@ function keysShown(answer: SigningKeyResponse): { active: KeyShown; all: KeyShow
 
 /**
  * The operator's own policies, for its administrators: how old a device's synced data may be
- * before it refuses cards, and the keys revisions are signed with — the active one, those a
- * rotation retired (still verifying what they signed), and the rotation itself.
+ * before it refuses cards, the approach additive for wind (approach-policy-panel.ts), and the
+ * keys revisions are signed with — the active one, those a rotation retired (still verifying
+ * what they signed), and the rotation itself.
  */
 @Component({
   selector: 'sw-operator-settings-page',
-  imports: [ProblemRetry, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
+  imports: [ProblemRetry, ApproachPolicyPanel, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
   template: `
     <div class="sw-page">
       <h1 class="sw-page-title">Operator settings</h1>
@@ -83,6 +86,10 @@ function keysShown(answer: SigningKeyResponse): { active: KeyShown; all: KeyShow
             </div>
           </form>
         </section>
+
+        @if (approachPolicy(); as policy) {
+          <sw-approach-policy-panel [policy]="policy" />
+        }
 
         @if (key(); as key) {
           <section class="panel" aria-labelledby="key-heading">
@@ -220,6 +227,7 @@ export class OperatorSettingsPage {
   protected readonly rotating = this.rotateRequest.busy;
   protected readonly rotateProblem = this.rotateRequest.problem;
   protected readonly keyStatus = signal('');
+  protected readonly approachPolicy = signal<ApproachAdditivePolicy | null>(null);
 
   constructor() {
     this.load();
@@ -232,6 +240,7 @@ export class OperatorSettingsPage {
     });
     this.loadRequest.run(settingsAndKey, ({ settings, key }) => {
       this.form.setValue({ currencyLimitDays: settings.settings.currencyLimitDays });
+      this.approachPolicy.set(settings.settings.approachAdditivePolicy);
       this.showKeys(key);
     });
   }

@@ -11,6 +11,9 @@ export const LIMIT_FIELDS: readonly { key: LimitKey; label: string }[] = [
   { key: 'vloKt', label: 'VLO' },
   { key: 'vmcKt', label: 'VMC' },
   { key: 'vyseKt', label: 'VYSE' },
+  // Wind figures of the flight manual ("Dem.": demonstrated, short enough for the field's label): the card cautions above them, never refuses.
+  { key: 'demonstratedCrosswindKt', label: 'Dem. crosswind' },
+  { key: 'maximumTailwindKt', label: 'Tailwind limit' },
 ];
 
 /** Each class with the rounding the card gives it (issue 11: speeds by kind, not by spelling). */

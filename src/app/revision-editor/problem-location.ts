@@ -30,6 +30,8 @@ export const FIELD_WORDS: Readonly<Record<string, string>> = {
   vloKt: 'VLO (kt)',
   vmcKt: 'VMC (kt)',
   vyseKt: 'VYSE (kt)',
+  demonstratedCrosswindKt: 'Demonstrated crosswind (kt)',
+  maximumTailwindKt: 'Tailwind limit (kt)',
   indicatorMarkingBasis: 'Indicator marking basis',
   notes: 'Notes',
   statedUnits: 'Units of the flight manual',

@@ -26,7 +26,7 @@ export { TableShape } from './table-shape';
 
 export type AircraftCategory = (typeof AIRCRAFT_CATEGORIES)[number];
 
-const LIMIT_KEYS = ['vnoKt', 'vneKt', 'vmoKt', 'mmo', 'vleKt', 'vloKt', 'vmcKt', 'vyseKt'] as const;
+const LIMIT_KEYS = ['vnoKt', 'vneKt', 'vmoKt', 'mmo', 'vleKt', 'vloKt', 'vmcKt', 'vyseKt', 'demonstratedCrosswindKt', 'maximumTailwindKt'] as const;
 export type LimitKey = (typeof LIMIT_KEYS)[number];
 
 /**

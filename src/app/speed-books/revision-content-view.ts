@@ -23,6 +23,8 @@ const LIMIT_ROWS: readonly { key: keyof Omit<RevisionContent['limits'], 'vfeKt'>
   { key: 'vloKt', label: 'VLO', unit: 'kt' },
   { key: 'vmcKt', label: 'VMC', unit: 'kt' },
   { key: 'vyseKt', label: 'VYSE', unit: 'kt' },
+  { key: 'demonstratedCrosswindKt', label: 'Demonstrated crosswind', unit: 'kt' },
+  { key: 'maximumTailwindKt', label: 'Tailwind limit', unit: 'kt' },
 ];
 
 /**

@@ -9,6 +9,7 @@ import Dexie, { type EntityTable } from 'dexie';
 import type { SessionUser } from '../../../../shared/api/auth';
 import type { AircraftTypeView, AirframeView } from '../../../../shared/api/fleet';
 import type { SyncRevision } from '../../../../shared/api/sync';
+import type { ApproachAdditivePolicy } from '../../../../shared/card/approach-policy';
 
 /**
  * One card issued on this device, as kept until (and after) the server has it. The first six
@@ -51,6 +52,12 @@ export interface OperatorRecord {
   readonly signingKeyId: number;
   /** How old (days since the last successful sync) the device's data may be before cards are refused. */
   readonly currencyLimitDays: number;
+  /**
+   * The operator's approach additive policy as the last sync gave it; every card with a wind
+   * carries it in its inputs. Null on a device upgraded from store version 2 or 3 until its next
+   * sync (a card with a wind is refused until then: the additive is never guessed).
+   */
+  readonly approachAdditivePolicy: ApproachAdditivePolicy | null;
 }
 
 /**
@@ -120,7 +127,7 @@ export interface PreferenceRecord {
 }
 
 /** Bumped with every change of the tables below; Dexie upgrades a device's store in place. */
-export const DEVICE_SCHEMA_VERSION = 3;
+export const DEVICE_SCHEMA_VERSION = 4;
 
 export class SpeedwrightDeviceDatabase extends Dexie {
   /** Cards issued here, keyed by entry id; the outbox is the entries with `sentAt` null. */
@@ -152,12 +159,24 @@ export class SpeedwrightDeviceDatabase extends Dexie {
     });
     // Version 3 keeps every public key of the operator (signing-key rotation); the one key a
     // version 2 store knew, the operator's, becomes its first row, so nothing is re-fetched.
-    this.version(DEVICE_SCHEMA_VERSION)
+    this.version(3)
       .stores({ signingKeys: 'id, operatorId' })
       .upgrade(async (tx) => {
         const operators = await tx.table<OperatorRecord, number>('operators').toArray();
         const carried: SigningKeyRecord[] = operators.map((operator) => ({ id: operator.signingKeyId, operatorId: operator.id, publicKey: operator.publicKey, retiredAt: null }));
         if (carried.length) await tx.table<SigningKeyRecord, number>('signingKeys').bulkPut(carried);
       });
+    // Version 4 keeps the operator's approach additive policy (issue 16); the tables are as they
+    // were. An operator stored before it has none until the next sync writes it.
+    this.version(DEVICE_SCHEMA_VERSION)
+      .stores({})
+      .upgrade((transaction) =>
+        transaction
+          .table<OperatorRecord, number>('operators')
+          .toCollection()
+          .modify((operator) => {
+            if (!('approachAdditivePolicy' in operator)) (operator as { approachAdditivePolicy: ApproachAdditivePolicy | null }).approachAdditivePolicy = null;
+          }),
+      );
   }
 }

@@ -83,7 +83,7 @@ function response(signer: Signer, cursor: string, revisions: SyncRevision[], ext
   ];
   return {
     cursor,
-    operator: { id: OPERATOR_ID, name: 'Kestrel Fen Aviation (demo)', isDemo: true, publicKey: signer.publicKey, signingKeyId: signer.keyId, signingKeys, currencyLimitDays: 30 },
+    operator: { id: OPERATOR_ID, name: 'Kestrel Fen Aviation (demo)', isDemo: true, publicKey: signer.publicKey, signingKeyId: signer.keyId, signingKeys, currencyLimitDays: 30, approachAdditivePolicy: { headwindFraction: 0.5, gustFraction: 1, minimumKt: 5, maximumKt: 20 } },
     aircraftTypes: [{ id: 1, designator: 'ZZP1', name: 'Sedgeling 4', category: 'piston-single', engines: 1, ceilingFt: 14000, createdAt: stamp, updatedAt: stamp }],
     airframes: [{ id: 7, registration: 'ZZ-KFA', serial: 'SG4-0012', aircraftTypeId: 1, active: true, createdAt: stamp, updatedAt: stamp }],
     revisions,
@@ -179,11 +179,27 @@ describe('device store', () => {
 
     const upgraded = new SpeedwrightDeviceDatabase(name);
     expect(await upgraded.cardLog.toArray()).toEqual([legacy]);
-    expect(upgraded.verno).toBe(3);
+    expect(upgraded.verno).toBe(4);
     // The new indexes and tables work on the upgraded store.
     expect(await upgraded.cardLog.where('issuedById').equals(PILOT.id).count()).toBe(1);
     await upgraded.syncState.put({ operatorId: 1, cursor: 'c', lastSyncedAt: null, lastAttemptAt: null, lastProblem: null, refused: [] });
     expect(await upgraded.syncState.get(1)).toMatchObject({ cursor: 'c' });
+    upgraded.close();
+    await upgraded.delete();
+  });
+
+  it('upgrades a version-2 store to 4: an operator stored before has no approach policy until the next sync', async () => {
+    const name = `speedwright-upgrade-${Math.random()}`;
+    const old = new Dexie(name);
+    old.version(1).stores({ cardLog: 'id, issuedAt' });
+    old.version(2).stores({ cardLog: 'id, issuedAt, issuedById, operatorId', operators: 'id', aircraftTypes: 'id, operatorId', airframes: 'id, operatorId', revisions: 'id, operatorId, speedBookId, aircraftTypeId', syncState: 'operatorId', sessions: 'userId, operatorId', preferences: 'key' });
+    const stored = { id: 1, name: 'Kestrel Fen Aviation (demo)', isDemo: true, publicKey: 'a2V5', signingKeyId: 9, currencyLimitDays: 30 };
+    await old.table('operators').add(stored);
+    old.close();
+
+    const upgraded = new SpeedwrightDeviceDatabase(name);
+    expect(await upgraded.operators.get(1)).toEqual({ ...stored, approachAdditivePolicy: null });
+    expect(upgraded.verno).toBe(4);
     upgraded.close();
     await upgraded.delete();
   });
@@ -213,7 +229,8 @@ describe('device store version 3 (signing keys)', () => {
     old.close();
 
     const upgraded = new SpeedwrightDeviceDatabase(name);
-    expect(upgraded.verno).toBe(3);
+    // Through version 3 (the key table) to the current 4 (the approach policy).
+    expect(upgraded.verno).toBe(4);
     expect(await upgraded.revisions.get(21)).toEqual(revision);
     expect(await upgraded.cardLog.get(uuid(1))).toEqual(entry(uuid(1)));
     expect(await upgraded.syncState.get(OPERATOR_ID)).toMatchObject({ cursor: 'c7' });
@@ -294,7 +311,11 @@ describe('applySync', () => {
     const first = await applySync(db, OPERATOR_ID, response(signer, 'c1', [good]), { now: () => new Date('2026-12-01T11:00:00.000Z') });
     expect(first).toMatchObject({ revisionsStored: 1, refused: [], cursor: 'c1' });
     expect(await db.revisions.get(21)).toMatchObject({ operatorId: OPERATOR_ID, contentSha256: good.contentSha256, signature: good.signature });
-    expect(await db.operators.get(OPERATOR_ID)).toMatchObject({ publicKey: signer.publicKey, currencyLimitDays: 30 });
+    expect(await db.operators.get(OPERATOR_ID)).toMatchObject({
+      publicKey: signer.publicKey,
+      currencyLimitDays: 30,
+      approachAdditivePolicy: { headwindFraction: 0.5, gustFraction: 1, minimumKt: 5, maximumKt: 20 },
+    });
     expect(await db.syncState.get(OPERATOR_ID)).toMatchObject({ cursor: 'c1', lastSyncedAt: '2026-12-01T11:00:00.000Z', refused: [] });
 
     const second = await applySync(db, OPERATOR_ID, response(signer, 'c2', [bad]));

@@ -56,8 +56,8 @@ export async function applySync(db: SpeedwrightDeviceDatabase, operatorId: numbe
   await db.transaction('rw', [db.operators, db.signingKeys, db.aircraftTypes, db.airframes, db.revisions, db.syncState], async () => {
     const previous = await db.syncState.get(operatorId);
     cursor = refused.length ? (previous?.cursor ?? null) : response.cursor;
-    const { id, name, isDemo, publicKey, signingKeyId, currencyLimitDays } = response.operator;
-    await db.operators.put({ id, name, isDemo, publicKey, signingKeyId, currencyLimitDays });
+    const { id, name, isDemo, publicKey, signingKeyId, currencyLimitDays, approachAdditivePolicy } = response.operator;
+    await db.operators.put({ id, name, isDemo, publicKey, signingKeyId, currencyLimitDays, approachAdditivePolicy });
     await db.signingKeys.bulkPut(signingKeys);
     if (response.aircraftTypes.length) await db.aircraftTypes.bulkPut(response.aircraftTypes.map((type) => ({ ...type, operatorId })));
     if (response.airframes.length) await db.airframes.bulkPut(response.airframes.map((airframe) => ({ ...airframe, operatorId })));
