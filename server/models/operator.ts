@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { idAttribute, timestampAttributes } from './common-attributes';
 
 /** An operator: the company whose people, fleet and speed data Speedwright keeps apart from every other. */
 export class Operator extends Model<InferAttributes<Operator>, InferCreationAttributes<Operator>> {
@@ -15,13 +16,12 @@ export class Operator extends Model<InferAttributes<Operator>, InferCreationAttr
   static initModel(sequelize: Sequelize): typeof Operator {
     Operator.init(
       {
-        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        id: idAttribute(),
         slug: { type: DataTypes.STRING(64), allowNull: false, unique: true },
         name: { type: DataTypes.STRING(200), allowNull: false },
         isDemo: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         currencyLimitDays: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 30 },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        ...timestampAttributes(),
       },
       { sequelize, tableName: 'operators' },
     );

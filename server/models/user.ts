@@ -9,6 +9,7 @@ import {
   type Sequelize,
 } from 'sequelize';
 import { ROLES, type Role } from '../../shared/auth/roles';
+import { idAttribute, timestampAttributes } from './common-attributes';
 import type { Operator } from './operator';
 
 /**
@@ -37,7 +38,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   static initModel(sequelize: Sequelize): typeof User {
     User.init(
       {
-        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        id: idAttribute(),
         email: { type: DataTypes.STRING(254), allowNull: false },
         displayName: { type: DataTypes.STRING(200), allowNull: false },
         role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
@@ -46,8 +47,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         lockedUntil: { type: DataTypes.DATE, allowNull: true },
         lockedByAdmin: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         lastSignInAt: { type: DataTypes.DATE, allowNull: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        ...timestampAttributes(),
       },
       { sequelize, tableName: 'users' },
     );
