@@ -15,7 +15,7 @@ import { ApiRequestError } from '../core/api/api-request-error';
 import { requestState } from '../core/api/request-state';
 import { ListSort } from '../core/table/list-sort';
 import { ListTableState } from '../core/table/list-table-state';
-import { TableToolbar } from '../core/table/table-toolbar';
+import { ListTable } from '../core/table/list-table';
 import { AuthService } from '../core/auth/auth-service';
 import { ChangePersonDialog } from './change-person-dialog';
 import { InvitePersonDialog } from './invite-person-dialog';
@@ -29,9 +29,9 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
  */
 @Component({
   selector: 'sw-people-page',
-  imports: [ProblemRetry, MatTableModule, MatSortModule, ListSort, TableToolbar, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
+  imports: [ProblemRetry, MatTableModule, MatSortModule, ListSort, ListTable, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
   templateUrl: './people-page.html',
-  styleUrls: ['../core/table/list-table.scss', './people-page.scss'],
+  styleUrl: './people-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PeoplePage {
@@ -52,13 +52,9 @@ export class PeoplePage {
   private readonly allRows = computed(() => this.everyone().map(toPersonRow));
 
   protected readonly table = new ListTableState(this.allRows, { active: 'displayName', direction: 'asc' });
-  protected readonly filterText = this.table.filterText;
-
-  protected readonly total = computed(() => this.allRows().length);
-  protected readonly rows = this.table.matching;
   protected readonly countSentence = computed(() => {
-    const shown = this.rows().length;
-    const total = this.total();
+    const shown = this.table.matching().length;
+    const total = this.table.total();
     const noun = total === 1 ? 'person' : 'people';
     return shown === total ? `${total} ${noun}` : `Showing ${shown} of ${total} ${noun}`;
   });
@@ -115,10 +111,6 @@ export class PeoplePage {
 
   protected dismissRefusal(): void {
     this.refusal.set(null);
-  }
-
-  protected filterPeople(text: string): void {
-    this.table.filter(text);
   }
 
   private act<T>(request: Observable<T>, succeeded: (answer: T) => string | null): void {
