@@ -10,7 +10,6 @@ import { OperatorPerson, UpdatePersonRequest, invitePersonRequestSchema } from '
 import { ROLES, ROLE_LABELS, ROLE_SUMMARIES, Role } from '../../../shared/auth/roles';
 import { DialogFooter } from '../core/forms/dialog-footer';
 import { dialogSubmit } from '../core/forms/dialog-submit';
-import { controlMessage } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { OperatorPeople } from './operator-people';
 
@@ -26,7 +25,6 @@ const fields = invitePersonRequestSchema.shape;
 })
 export class ChangePersonDialog {
   private readonly people = inject(OperatorPeople);
-  private readonly dialogRef = inject<MatDialogRef<ChangePersonDialog, OperatorPerson>>(MatDialogRef);
   protected readonly person = inject<OperatorPerson>(MAT_DIALOG_DATA);
 
   protected readonly roles = ROLES.map((role) => ({ role, label: ROLE_LABELS[role] }));
@@ -37,15 +35,10 @@ export class ChangePersonDialog {
   protected readonly roleSummary = toSignal(this.form.controls.role.valueChanges.pipe(map((role) => ROLE_SUMMARIES[role])), {
     initialValue: ROLE_SUMMARIES[this.person.role],
   });
-  private readonly submission = dialogSubmit(this.form, this.dialogRef);
-  protected readonly saving = this.submission.busy;
-  protected readonly problem = this.submission.problem;
-  protected readonly message = (path: string) => controlMessage(this.form, path);
+  protected readonly submission = dialogSubmit(this.form, inject<MatDialogRef<ChangePersonDialog, OperatorPerson>>(MatDialogRef));
 
   protected saveChange(): void {
-    if (this.saving()) return;
-    this.form.markAllAsTouched();
-    if (this.form.invalid) return;
+    if (!this.submission.formReady()) return;
     const { displayName, role } = this.form.getRawValue();
     const change: UpdatePersonRequest = {};
     if (role !== this.person.role) change.role = role;

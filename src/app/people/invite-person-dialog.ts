@@ -11,7 +11,6 @@ import { InvitationSent } from '../../../shared/api/people';
 import { ROLES, ROLE_LABELS, ROLE_SUMMARIES, Role } from '../../../shared/auth/roles';
 import { DialogFooter } from '../core/forms/dialog-footer';
 import { dialogSubmit } from '../core/forms/dialog-submit';
-import { controlMessage } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { OperatorPeople } from './operator-people';
 
@@ -27,7 +26,6 @@ const fields = invitePersonRequestSchema.shape;
 })
 export class InvitePersonDialog {
   private readonly people = inject(OperatorPeople);
-  private readonly dialogRef = inject<MatDialogRef<InvitePersonDialog, InvitationSent>>(MatDialogRef);
 
   protected readonly roles = ROLES.map((role) => ({ role, label: ROLE_LABELS[role] }));
   protected readonly form = inject(NonNullableFormBuilder).group({
@@ -39,16 +37,12 @@ export class InvitePersonDialog {
     this.form.controls.role.valueChanges.pipe(map((role) => (role ? ROLE_SUMMARIES[role] : null))),
     { initialValue: null },
   );
-  private readonly submission = dialogSubmit(this.form, this.dialogRef);
-  protected readonly sending = this.submission.busy;
-  protected readonly problem = this.submission.problem;
-  protected readonly message = (path: string) => controlMessage(this.form, path);
+  protected readonly submission = dialogSubmit(this.form, inject<MatDialogRef<InvitePersonDialog, InvitationSent>>(MatDialogRef));
 
   protected sendInvitation(): void {
-    if (this.sending()) return;
-    this.form.markAllAsTouched();
+    if (!this.submission.formReady()) return;
     const parsed = invitePersonRequestSchema.safeParse(this.form.getRawValue());
-    if (this.form.invalid || !parsed.success) return;
+    if (!parsed.success) return;
     this.submission.submit(this.people.invite(parsed.data));
   }
 }
