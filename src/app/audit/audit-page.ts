@@ -10,9 +10,8 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { debounceTime } from 'rxjs';
 import { AuditEventView } from '../../../shared/api/audit';
-import { can } from '../../../shared/auth/roles';
+import { userMay } from '../core/auth/user-may';
 import { requestState } from '../core/api/request-state';
-import { AuthService } from '../core/auth/auth-service';
 import { CursorPager } from '../core/table/cursor-pager';
 import { CursorPages } from '../core/table/cursor-pages';
 import { DAY_ORDER_PROBLEM, utcDayRange } from '../core/table/utc-day-range';
@@ -42,7 +41,7 @@ interface PersonOption {
 export class AuditPage {
   private readonly trail = inject(AuditTrail);
   private readonly people = inject(OperatorPeople);
-  private readonly user = inject(AuthService).user;
+  private readonly managesPeople = userMay('manage-people');
   private readonly destroyRef = inject(DestroyRef);
 
   protected readonly columns = ['when', 'person', 'action', 'record', 'expand'];
@@ -123,8 +122,7 @@ export class AuditPage {
   }
 
   private loadPeopleForFilter(): void {
-    const user = this.user();
-    if (!user || !can(user.role, 'manage-people')) return;
+    if (!this.managesPeople()) return;
     this.people
       .list()
       .pipe(takeUntilDestroyed(this.destroyRef))

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -10,12 +10,11 @@ import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { debounceTime, from } from 'rxjs';
 import type { AirframeView } from '../../../shared/api/fleet';
-import { can } from '../../../shared/auth/roles';
 import { formatCardCode } from '../../../shared/card-check/card-code';
 import type { CardIssueView } from '../../../shared/card/card-api';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { userMay } from '../core/auth/user-may';
 import { requestState } from '../core/api/request-state';
-import { AuthService } from '../core/auth/auth-service';
 import { CursorPager } from '../core/table/cursor-pager';
 import { CursorPages } from '../core/table/cursor-pages';
 import { DAY_ORDER_PROBLEM, utcDayRange } from '../core/table/utc-day-range';
@@ -42,12 +41,8 @@ export class CardLogPage {
   private readonly cardLog = inject(CardLog);
   private readonly sources = inject(CardSources);
   private readonly destroyRef = inject(DestroyRef);
-  private readonly user = inject(AuthService).user;
 
-  protected readonly preparesCards = computed(() => {
-    const user = this.user();
-    return user !== null && can(user.role, 'prepare-cards');
-  });
+  protected readonly preparesCards = userMay('prepare-cards');
   protected readonly form = inject(NonNullableFormBuilder).group({ airframeId: [0], from: [''], to: [''] });
   protected readonly airframes = signal<readonly AirframeView[]>([]);
   protected readonly entries = signal<readonly CardIssueView[]>([]);

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -8,9 +8,8 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTabsModule } from '@angular/material/tabs';
 import { forkJoin } from 'rxjs';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
-import { can } from '../../../shared/auth/roles';
+import { userMay } from '../core/auth/user-may';
 import { requestState } from '../core/api/request-state';
-import { AuthService } from '../core/auth/auth-service';
 import { AircraftTypeDialog, AircraftTypeDialogData } from './aircraft-type-dialog';
 import { AircraftTypesTable } from './aircraft-types-table';
 import { AirframeDialog, AirframeDialogData } from './airframe-dialog';
@@ -31,12 +30,8 @@ export class FleetPage {
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
   private readonly destroyRef = inject(DestroyRef);
-  private readonly user = inject(AuthService).user;
 
-  protected readonly canManage = computed(() => {
-    const user = this.user();
-    return user !== null && can(user.role, 'manage-fleet');
-  });
+  protected readonly canManage = userMay('manage-fleet');
   private readonly request = requestState();
   protected readonly loading = this.request.busy;
   protected readonly problem = this.request.problem;

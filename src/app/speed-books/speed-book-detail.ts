@@ -10,11 +10,10 @@ import { Router, RouterLink } from '@angular/router';
 import { forkJoin } from 'rxjs';
 import type { AircraftTypeView } from '../../../shared/api/fleet';
 import { createRevisionSchema, reasonSchema, type RevisionSummary } from '../../../shared/api/revisions';
-import { can } from '../../../shared/auth/roles';
 import { REVISION_SCHEMA_VERSION } from '../../../shared/speed-book/revision-content';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { userMay } from '../core/auth/user-may';
 import { requestState } from '../core/api/request-state';
-import { AuthService } from '../core/auth/auth-service';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionStatusChip } from './revision-status-chip';
 import { RevisionsApi, type SpeedBook } from './revisions-api';
@@ -44,7 +43,6 @@ export class SpeedBookDetail {
   private readonly api = inject(RevisionsApi);
   private readonly router = inject(Router);
   private readonly destroyRef = inject(DestroyRef);
-  private readonly user = inject(AuthService).user;
 
   /** NaN when the address does not name a speed book. */
   readonly bookId = input.required<number>();
@@ -54,8 +52,8 @@ export class SpeedBookDetail {
   protected readonly problem = this.request.problem;
   protected readonly book = signal<SpeedBook | null>(null);
   protected readonly type = signal<AircraftTypeView | null>(null);
-  protected readonly mayEdit = computed(() => this.userMay('edit-speed-books'));
-  protected readonly mayPublish = computed(() => this.userMay('publish-revisions'));
+  protected readonly mayEdit = userMay('edit-speed-books');
+  protected readonly mayPublish = userMay('publish-revisions');
   protected readonly openRevision = computed(() => this.book()?.revisions.find((r) => r.status === 'draft' || r.status === 'in_review') ?? null);
 
   protected readonly changeSummary = new FormControl('', { nonNullable: true, validators: zodValidator(createRevisionSchema.shape.changeSummary) });
@@ -144,10 +142,5 @@ export class SpeedBookDetail {
       indicatorMarkingBasis: 'ias',
       notes: '',
     };
-  }
-
-  private userMay(capability: 'edit-speed-books' | 'publish-revisions'): boolean {
-    const user = this.user();
-    return user !== null && can(user.role, capability);
   }
 }

@@ -11,10 +11,9 @@ import { Router, RouterLink } from '@angular/router';
 import { forkJoin } from 'rxjs';
 import type { AircraftTypeView } from '../../../shared/api/fleet';
 import { createSpeedBookSchema, type SpeedBookSummary } from '../../../shared/api/revisions';
-import { can } from '../../../shared/auth/roles';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { userMay } from '../core/auth/user-may';
 import { requestState } from '../core/api/request-state';
-import { AuthService } from '../core/auth/auth-service';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionsApi } from './revisions-api';
 import { UtcDatePipe } from './utc-date-pipe';
@@ -43,17 +42,13 @@ export class SpeedBookList {
   private readonly api = inject(RevisionsApi);
   private readonly router = inject(Router);
   private readonly destroyRef = inject(DestroyRef);
-  private readonly user = inject(AuthService).user;
 
   private readonly request = requestState();
   protected readonly loading = this.request.busy;
   protected readonly problem = this.request.problem;
   protected readonly books = signal<readonly SpeedBookSummary[]>([]);
   protected readonly types = signal<readonly AircraftTypeView[]>([]);
-  protected readonly mayEdit = computed(() => {
-    const user = this.user();
-    return user !== null && can(user.role, 'edit-speed-books');
-  });
+  protected readonly mayEdit = userMay('edit-speed-books');
   /** A type has at most one speed book, so only types without one can get a new one. */
   protected readonly typesWithoutBook = computed(() => this.types().filter((type) => !this.books().some((book) => book.aircraftTypeId === type.id)));
   protected readonly creating = signal(false);
