@@ -1,12 +1,6 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { FormControl, ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { RouterLink } from '@angular/router';
+import { FormControl } from '@angular/forms';
 import { forkJoin, of, switchMap } from 'rxjs';
 import type { AttachmentView } from '../../../shared/api/attachments';
 import { reasonSchema, type RevisionView } from '../../../shared/api/revisions';
@@ -17,6 +11,7 @@ import { ApiRequestError } from '../core/api/api-request-error';
 import { CoverageApi, CoverageRefusal } from '../coverage/coverage-api';
 import { CoveragePicture } from '../coverage/coverage-picture';
 import { AuthService } from '../core/auth/auth-service';
+import { FORM_PAGE_IMPORTS } from '../core/forms/form-page-imports';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionContentView } from '../speed-books/revision-content-view';
 import { RevisionStatusChip } from '../speed-books/revision-status-chip';
@@ -38,13 +33,7 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
   selector: 'sw-revision-review',
   imports: [
     ProblemRetry,
-    ReactiveFormsModule,
-    RouterLink,
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatProgressBarModule,
+    FORM_PAGE_IMPORTS,
     RevisionContentView,
     RevisionStatusChip,
     UtcDatePipe,

@@ -1,12 +1,7 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { FormControl, ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { Router, RouterLink } from '@angular/router';
+import { FormControl } from '@angular/forms';
+import { Router } from '@angular/router';
 import { forkJoin } from 'rxjs';
 import type { AircraftTypeView } from '../../../shared/api/fleet';
 import { createRevisionSchema, reasonSchema, type RevisionSummary } from '../../../shared/api/revisions';
@@ -14,6 +9,7 @@ import { REVISION_SCHEMA_VERSION } from '../../../shared/speed-book/revision-con
 import { ApiRequestError } from '../core/api/api-request-error';
 import { userMay } from '../core/auth/user-may';
 import { requestState } from '../core/api/request-state';
+import { FORM_PAGE_IMPORTS } from '../core/forms/form-page-imports';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionStatusChip } from './revision-status-chip';
 import { RevisionsApi, type SpeedBook } from './revisions-api';
@@ -23,18 +19,7 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
 /** One speed book: its current revision, its revision history, and the next step for the person's role. */
 @Component({
   selector: 'sw-speed-book-detail',
-  imports: [
-    ProblemRetry,
-    ReactiveFormsModule,
-    RouterLink,
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatProgressBarModule,
-    RevisionStatusChip,
-    UtcDatePipe,
-  ],
+  imports: [ProblemRetry, FORM_PAGE_IMPORTS, RevisionStatusChip, UtcDatePipe],
   templateUrl: './speed-book-detail.html',
   styleUrl: './speed-books.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,19 +1,15 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { FormControl, FormGroup } from '@angular/forms';
 import { MatSelectModule } from '@angular/material/select';
-import { Router, RouterLink } from '@angular/router';
+import { Router } from '@angular/router';
 import { forkJoin } from 'rxjs';
 import type { AircraftTypeView } from '../../../shared/api/fleet';
 import { createSpeedBookSchema, type SpeedBookSummary } from '../../../shared/api/revisions';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { userMay } from '../core/auth/user-may';
 import { requestState } from '../core/api/request-state';
+import { FORM_PAGE_IMPORTS } from '../core/forms/form-page-imports';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionsApi } from './revisions-api';
 import { UtcDatePipe } from './utc-date-pipe';
@@ -22,18 +18,7 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
 /** The operator's speed books with their current published revision; engineers add one per type. */
 @Component({
   selector: 'sw-speed-book-list',
-  imports: [
-    ProblemRetry,
-    ReactiveFormsModule,
-    RouterLink,
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatProgressBarModule,
-    MatSelectModule,
-    UtcDatePipe,
-  ],
+  imports: [ProblemRetry, FORM_PAGE_IMPORTS, MatSelectModule, UtcDatePipe],
   templateUrl: './speed-book-list.html',
   styleUrl: './speed-books.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
