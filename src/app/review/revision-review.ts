@@ -8,7 +8,8 @@ import { UNIT_SYMBOLS, isCanonical, statedUnitsOf } from '../../../shared/speed-
 import type { CoverageReport } from '../../../shared/card/coverage-report';
 import { contributionWords, fourEyesRefusal } from '../../../shared/speed-book/four-eyes';
 import { ApiRequestError } from '../core/api/api-request-error';
-import { CoverageApi, CoverageRefusal } from '../coverage/coverage-api';
+import { CoverageApi } from '../coverage/coverage-api';
+import { CoverageRefusal } from '../coverage/coverage-refusal';
 import { CoveragePicture } from '../coverage/coverage-picture';
 import { AuthService } from '../core/auth/auth-service';
 import { FORM_PAGE_IMPORTS } from '../core/forms/form-page-imports';
@@ -142,8 +143,8 @@ export class RevisionReview {
 
   protected publishRevision(): void {
     const revision = this.revision();
-    if (!revision || this.ownRevision() || this.approveRefusal()) return;
-    this.act(this.coverageApi.approve(revision.id), (published) => `Revision ${published.number} is published and signed; it is now the current revision of ${this.book()?.title ?? 'its speed book'}.`);
+    if (!revision || this.approveRefusal()) return;
+    this.act(this.api.approve(revision.id), (published) => `Revision ${published.number} is published and signed; it is now the current revision of ${this.book()?.title ?? 'its speed book'}.`);
   }
 
   protected returnRevision(): void {

@@ -222,7 +222,7 @@ describe('RevisionEditor: envelope, speed classes, rule exceptions and the live 
     patch.flush({ revision: draft((patch.request.body as { content: Content }).content) });
     await fixture.whenStable();
     backend
-      .expectOne({ method: 'POST', url: COVERAGE_PATHS.submit(DRAFT_ID) })
+      .expectOne({ method: 'POST', url: REVISION_PATHS.step(DRAFT_ID, 'submit') })
       .flush(
         { error: { code: 'coverage_failed', message: 'The book gives no card at 1 point of its envelope and breaks 1 rule without a recorded exception.', report: smallCoverageReport() } },
         { status: 422, statusText: 'Unprocessable Content' },

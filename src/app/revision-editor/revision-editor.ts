@@ -10,7 +10,7 @@ import { createRevisionSchema, type RevisionView } from '../../../shared/api/rev
 import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
 import { AIRCRAFT_CATEGORIES, SPEED_BASES, SPEED_PHASES } from '../../../shared/speed-book/revision-content';
 import { ApiRequestError } from '../core/api/api-request-error';
-import { CoverageApi, CoverageRefusal } from '../coverage/coverage-api';
+import { CoverageRefusal } from '../coverage/coverage-refusal';
 import { FORM_PAGE_IMPORTS } from '../core/forms/form-page-imports';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionStatusChip } from '../speed-books/revision-status-chip';
@@ -59,7 +59,6 @@ import { TabulatedSpeedGrid } from './tabulated-speed-grid';
 })
 export class RevisionEditor {
   private readonly api = inject(RevisionsApi);
-  private readonly coverageApi = inject(CoverageApi);
   private readonly coverage = inject(LiveCoverage);
   private readonly router = inject(Router);
   private readonly dialog = inject(MatDialog);
@@ -153,7 +152,7 @@ export class RevisionEditor {
     this.form.group.markAllAsTouched();
     this.changeSummary.markAsTouched();
     this.persist()
-      .pipe(switchMap((saved) => (saved ? this.coverageApi.submit(saved.id) : of(null))))
+      .pipe(switchMap((saved) => (saved ? this.api.submit(saved.id) : of(null))))
       .subscribe({
         next: (submitted) => {
           if (!submitted) return;
