@@ -20,6 +20,7 @@ import { AuditRow, toAuditRow } from './audit-row';
 import { AuditFilter, AuditTrail } from './audit-trail';
 import { AUDIT_ACTION_LABELS, AUDIT_ENTITY_LABELS, entityTypeOfAction } from './audit-vocabulary';
 import { ProblemRetry } from '../core/feedback/problem-retry';
+import { ProblemNote } from '../core/feedback/problem-note';
 
 export const AUDIT_PAGE_SIZE = 25;
 /** Long enough that choosing three filters in a row asks the server once. */
@@ -33,7 +34,7 @@ interface PersonOption {
 /** Who did what to which record, and when: the operator's audit trail, filtered, a page at a time. */
 @Component({
   selector: 'sw-audit-page',
-  imports: [ProblemRetry, ReactiveFormsModule, MatTableModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, CursorPager],
+  imports: [ProblemNote, ProblemRetry, ReactiveFormsModule, MatTableModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, CursorPager],
   templateUrl: './audit-page.html',
   styleUrls: ['../core/table/list-table.scss', './audit-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -25,6 +25,7 @@ import { utcMinutesShort } from '../core/format/display-format';
 import { CardSources } from './card-sources';
 import { DeviceCardLog } from './device-card-log';
 import { ProblemRetry } from '../core/feedback/problem-retry';
+import { ProblemNote } from '../core/feedback/problem-note';
 
 export const CARD_LOG_PAGE_SIZE = 25;
 const FILTER_PAUSE_MS = 300;
@@ -32,7 +33,7 @@ const FILTER_PAUSE_MS = 300;
 /** The operator's card log: every card its people issued and reported, filtered, a page at a time. */
 @Component({
   selector: 'sw-card-log-page',
-  imports: [ProblemRetry, ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, DeviceCardLog, RevisionNotices, RouterLink, CursorPager],
+  imports: [ProblemNote, ProblemRetry, ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, DeviceCardLog, RevisionNotices, RouterLink, CursorPager],
   templateUrl: './card-log-page.html',
   styleUrls: ['../core/table/list-table.scss', './card-log-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
