@@ -2,9 +2,9 @@ import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
 /**
- * A problem sentence in its box, announced at once (`role="alert"`), for what the person can put
- * right where they are (a filter, a link); a failed load with "Try again" is `ProblemRetry`.
- * The icon repeats what the words say; the colour never carries the meaning alone.
+ * A problem sentence in its box, announced at once (`role="alert"`), with whatever the page
+ * projects under it (`ProblemRetry` puts its "Try again" button there). The icon repeats what
+ * the words say; the colour never carries the meaning alone.
  */
 @Component({
   selector: 'sw-problem-note',
@@ -12,7 +12,10 @@ import { MatIconModule } from '@angular/material/icon';
   template: `
     <div class="sw-problem" role="alert">
       <mat-icon>{{ icon() }}</mat-icon>
-      <p [attr.data-testid]="testId()">{{ problem() }}</p>
+      <div>
+        <p [attr.data-testid]="testId()">{{ problem() }}</p>
+        <ng-content />
+      </div>
     </div>
   `,
   styles: `
