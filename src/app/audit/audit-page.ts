@@ -32,6 +32,13 @@ interface PersonOption {
 }
 
 /** Who did what to which record, and when: the operator's audit trail, filtered, a page at a time. */
+const AUDIT_TEXT_COLUMNS: readonly { name: string; header: string; label: 'whenLabel' | 'personLabel' | 'actionLabel' | 'recordLabel' }[] = [
+  { name: 'when', header: 'When', label: 'whenLabel' },
+  { name: 'person', header: 'Person', label: 'personLabel' },
+  { name: 'action', header: 'Action', label: 'actionLabel' },
+  { name: 'record', header: 'Record', label: 'recordLabel' },
+];
+
 @Component({
   selector: 'sw-audit-page',
   imports: [ProblemNote, ProblemRetry, ReactiveFormsModule, MatTableModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, CursorPager],
@@ -45,7 +52,9 @@ export class AuditPage {
   private readonly managesPeople = userMay('manage-people');
   private readonly destroyRef = inject(DestroyRef);
 
-  protected readonly columns = ['when', 'person', 'action', 'record', 'expand'];
+  /** The columns that show one of the row's words, in order; then the details button. */
+  protected readonly textColumns = AUDIT_TEXT_COLUMNS;
+  protected readonly columns = [...AUDIT_TEXT_COLUMNS.map((column) => column.name), 'expand'];
   protected readonly entityTypes = Object.entries(AUDIT_ENTITY_LABELS);
   protected readonly form = inject(NonNullableFormBuilder).group({
     entityType: [''],
