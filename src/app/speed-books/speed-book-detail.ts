@@ -1,13 +1,14 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl } from '@angular/forms';
 import { Router } from '@angular/router';
-import { forkJoin } from 'rxjs';
+import { forkJoin, map } from 'rxjs';
 import type { AircraftTypeView } from '../../../shared/api/fleet';
 import { createRevisionSchema, reasonSchema, type RevisionSummary } from '../../../shared/api/revisions';
 import { REVISION_SCHEMA_VERSION } from '../../../shared/speed-book/revision-content';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { userMay } from '../core/auth/user-may';
+import { addressedRecord } from '../core/api/addressed-record';
 import { requestState } from '../core/api/request-state';
 import { FORM_PAGE_IMPORTS } from '../core/forms/form-page-imports';
 import { zodValidator } from '../core/forms/zod-validator';
@@ -32,11 +33,18 @@ export class SpeedBookDetail {
   /** NaN when the address does not name a speed book. */
   readonly bookId = input.required<number>();
 
-  private readonly request = requestState();
-  protected readonly loading = this.request.busy;
-  protected readonly problem = this.request.problem;
-  protected readonly book = signal<SpeedBook | null>(null);
-  protected readonly type = signal<AircraftTypeView | null>(null);
+  private readonly record = addressedRecord(
+    this.bookId,
+    (id) =>
+      forkJoin({ book: this.api.speedBook(id), types: this.api.aircraftTypes() }).pipe(
+        map(({ book, types }) => ({ book, type: types.find((t) => t.id === book.aircraftTypeId) ?? null })),
+      ),
+    'This address does not name a speed book. Choose one from the list.',
+  );
+  protected readonly loading = this.record.loading;
+  protected readonly problem = this.record.problem;
+  protected readonly book = computed<SpeedBook | null>(() => this.record.value()?.book ?? null);
+  protected readonly type = computed<AircraftTypeView | null>(() => this.record.value()?.type ?? null);
   protected readonly mayEdit = userMay('edit-speed-books');
   protected readonly mayPublish = userMay('publish-revisions');
   protected readonly openRevision = computed(() => this.book()?.revisions.find((r) => r.status === 'draft' || r.status === 'in_review') ?? null);
@@ -51,12 +59,8 @@ export class SpeedBookDetail {
   protected readonly withdrawBusy = this.withdrawal.busy;
   protected readonly withdrawProblem = this.withdrawal.problem;
 
-  constructor() {
-    effect(() => this.loadSpeedBook(this.bookId()));
-  }
-
   protected reload(): void {
-    this.loadSpeedBook(this.bookId());
+    this.record.reload();
   }
 
   protected startDraft(): void {
@@ -102,17 +106,6 @@ export class SpeedBookDetail {
       },
       (error) => error.fields['reason'] ?? error.message,
     );
-  }
-
-  private loadSpeedBook(id: number): void {
-    if (!Number.isFinite(id)) {
-      this.request.showProblem('This address does not name a speed book. Choose one from the list.');
-      return;
-    }
-    this.request.run(forkJoin({ book: this.api.speedBook(id), types: this.api.aircraftTypes() }), ({ book, types }) => {
-      this.book.set(book);
-      this.type.set(types.find((t) => t.id === book.aircraftTypeId) ?? null);
-    });
   }
 
   private emptyContent(): Record<string, unknown> {
