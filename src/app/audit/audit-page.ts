@@ -8,23 +8,18 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
-import { debounceTime } from 'rxjs';
 import { AuditEventView } from '../../../shared/api/audit';
 import { userMay } from '../core/auth/user-may';
-import { requestState } from '../core/api/request-state';
 import { CursorPager } from '../core/table/cursor-pager';
-import { CursorPages } from '../core/table/cursor-pages';
-import { DAY_ORDER_PROBLEM, utcDayRange } from '../core/table/utc-day-range';
+import { FilteredLog } from '../core/table/filtered-log';
 import { OperatorPeople } from '../people/operator-people';
 import { AuditRow, toAuditRow } from './audit-row';
-import { AuditFilter, AuditTrail } from './audit-trail';
+import { AuditFilter, AuditTrail, type AuditPage as AuditPageAnswer } from './audit-trail';
 import { AUDIT_ACTION_LABELS, AUDIT_ENTITY_LABELS, entityTypeOfAction } from './audit-vocabulary';
 import { ProblemRetry } from '../core/feedback/problem-retry';
 import { ProblemNote } from '../core/feedback/problem-note';
 
 export const AUDIT_PAGE_SIZE = 25;
-/** Long enough that choosing three filters in a row asks the server once. */
-const FILTER_PAUSE_MS = 300;
 
 interface PersonOption {
   readonly id: number;
@@ -76,14 +71,23 @@ export class AuditPage {
     return [...byId.values()].sort((a, b) => a.name.localeCompare(b.name, 'en', { sensitivity: 'base' }));
   });
 
-  private readonly request = requestState();
-  protected readonly loading = this.request.busy;
-  protected readonly problem = this.request.problem;
-  protected readonly filterProblem = signal<string | null>(null);
   protected readonly rows = signal<readonly AuditRow[]>([]);
   protected readonly expandedId = signal<number | null>(null);
-  protected readonly pages = new CursorPages((cursor) => this.loadPage(cursor));
   protected readonly filtered = signal(false);
+  private readonly log = new FilteredLog({
+    form: this.form,
+    days: () => this.form.getRawValue(),
+    filterOf: (days): AuditFilter => {
+      const { entityType, action, actorId } = this.form.getRawValue();
+      return { entityType: entityType || undefined, action: action || undefined, actorId: actorId || undefined, ...days };
+    },
+    page: (filter, cursor) => this.trail.page(filter, AUDIT_PAGE_SIZE, cursor),
+    show: (page, filter) => this.showPage(page, filter),
+  });
+  protected readonly loading = this.log.loading;
+  protected readonly problem = this.log.problem;
+  protected readonly filterProblem = this.log.filterProblem;
+  protected readonly pages = this.log.pages;
 
   constructor() {
     this.loadPeopleForFilter();
@@ -107,28 +111,13 @@ export class AuditPage {
       const action = this.form.controls.action.value;
       if (action && entityType && entityTypeOfAction(action) !== entityType) this.form.controls.action.setValue('', { emitEvent: false });
     });
-    this.form.valueChanges.pipe(debounceTime(FILTER_PAUSE_MS), takeUntilDestroyed(this.destroyRef)).subscribe(() => this.pages.first());
   }
 
-  private loadPage(cursor: string | null): void {
-    const filter = this.filter();
-    if (filter === null) return;
+  private showPage(page: AuditPageAnswer, filter: AuditFilter): void {
     this.filtered.set(Object.values(filter).some(Boolean));
-    this.request.runLatest(this.trail.page(filter, AUDIT_PAGE_SIZE, cursor), (page) => {
-      this.pages.arrived(cursor, page.nextCursor);
-      this.rows.set(page.events.map(toAuditRow));
-      this.rememberActors(page.events);
-      this.expandedId.set(null);
-    });
-  }
-
-  /** The form as the server's query, or null (with a sentence) when the dates contradict. */
-  private filter(): AuditFilter | null {
-    const { entityType, action, actorId, from, to } = this.form.getRawValue();
-    const days = utcDayRange(from, to);
-    this.filterProblem.set(days === null ? DAY_ORDER_PROBLEM : null);
-    if (days === null) return null;
-    return { entityType: entityType || undefined, action: action || undefined, actorId: actorId || undefined, ...days };
+    this.rows.set(page.events.map(toAuditRow));
+    this.rememberActors(page.events);
+    this.expandedId.set(null);
   }
 
   private loadPeopleForFilter(): void {

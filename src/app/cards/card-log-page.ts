@@ -8,16 +8,14 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { debounceTime, from } from 'rxjs';
+import { from } from 'rxjs';
 import type { AirframeView } from '../../../shared/api/fleet';
 import { formatCardCode } from '../../../shared/card-check/card-code';
 import type { CardIssueView } from '../../../shared/card/card-api';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { userMay } from '../core/auth/user-may';
-import { requestState } from '../core/api/request-state';
 import { CursorPager } from '../core/table/cursor-pager';
-import { CursorPages } from '../core/table/cursor-pages';
-import { DAY_ORDER_PROBLEM, utcDayRange } from '../core/table/utc-day-range';
+import { FilteredLog } from '../core/table/filtered-log';
 import { RevisionNotices } from '../core/sync/revision-notices';
 import { CardLog, type CardLogFilter } from './card-log';
 import { cardNumber } from './card-number-pipe';
@@ -28,7 +26,6 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
 import { ProblemNote } from '../core/feedback/problem-note';
 
 export const CARD_LOG_PAGE_SIZE = 25;
-const FILTER_PAUSE_MS = 300;
 
 /** The operator's card log: every card its people issued and reported, filtered, a page at a time. */
 @Component({
@@ -47,18 +44,24 @@ export class CardLogPage {
   protected readonly form = inject(NonNullableFormBuilder).group({ airframeId: [0], from: [''], to: [''] });
   protected readonly airframes = signal<readonly AirframeView[]>([]);
   protected readonly entries = signal<readonly CardIssueView[]>([]);
-  private readonly request = requestState();
-  protected readonly loading = this.request.busy;
-  protected readonly problem = this.request.problem;
-  protected readonly filterProblem = signal<string | null>(null);
-  protected readonly pages = new CursorPages((cursor) => this.loadPage(cursor));
+  private readonly log = new FilteredLog({
+    form: this.form,
+    days: () => this.form.getRawValue(),
+    filterOf: (days): CardLogFilter => ({ airframeId: this.form.controls.airframeId.value || undefined, ...days }),
+    page: (filter, cursor) => from(this.cardLog.operatorPage(filter, CARD_LOG_PAGE_SIZE, cursor)),
+    show: (page) => this.entries.set(page.entries),
+    failed: (error) => ApiRequestError.from(error).message,
+  });
+  protected readonly loading = this.log.loading;
+  protected readonly problem = this.log.problem;
+  protected readonly filterProblem = this.log.filterProblem;
+  protected readonly pages = this.log.pages;
 
   constructor() {
     this.sources
       .airframes()
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe({ next: (airframes) => this.airframes.set(airframes), error: () => this.airframes.set([]) });
-    this.form.valueChanges.pipe(debounceTime(FILTER_PAUSE_MS), takeUntilDestroyed(this.destroyRef)).subscribe(() => this.pages.first());
     this.pages.first();
   }
 
@@ -79,24 +82,4 @@ export class CardLogPage {
     return typeof weight === 'number' ? cardNumber(weight) : '–';
   }
 
-  private loadPage(cursor: string | null): void {
-    const filter = this.filter();
-    if (filter === null) return;
-    this.request.runLatest(
-      from(this.cardLog.operatorPage(filter, CARD_LOG_PAGE_SIZE, cursor)),
-      (page) => {
-        this.pages.arrived(cursor, page.nextCursor);
-        this.entries.set(page.entries);
-      },
-      (error) => ApiRequestError.from(error).message,
-    );
-  }
-
-  private filter(): CardLogFilter | null {
-    const { airframeId, from: fromDay, to: toDay } = this.form.getRawValue();
-    const days = utcDayRange(fromDay, toDay);
-    this.filterProblem.set(days === null ? DAY_ORDER_PROBLEM : null);
-    if (days === null) return null;
-    return { airframeId: airframeId || undefined, ...days };
-  }
 }
