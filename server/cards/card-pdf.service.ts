@@ -155,17 +155,7 @@ export async function printAirframeCard(actor: Actor, airframeId: number, query:
   const now = (options.now ?? (() => new Date()))();
   const issuedAt = now.toISOString();
   const code = await options.issueCode(actor, { id: randomUUID(), airframeId, revisionId: revision.id, inputs: { ...inputs }, digest: card.digest, issuedAt });
-  const origin = new URL(options.publicUrl).origin;
-  const { definition, fileName } = cardPdf({
-    card,
-    code: formatCardCode(code),
-    checkUrl: checkUrl(origin, code, { revisionId: revision.id, inputs, digest: card.digest }),
-    issuedAt,
-    dataAsOf: `Data as of ${utcDate(issuedAt)}: revision ${card.revision.number} as published on the server, printed there.`,
-    changes: cardChanges(card, previous),
-    paper,
-  });
-  return { pdf: await renderCardPdf(definition), fileName, code, card };
+  return printedCard({ card, code, inputs, issuedAt, previous, paper, publicUrl: options.publicUrl, printing: 'printed there' });
 }
 
 function hasWind(inputs: Record<string, unknown>): boolean {
@@ -216,13 +206,33 @@ export async function reprintAirframeCard(actor: Actor, airframeId: number, quer
   }
   const previous = previousCardOf(await previousRevisionOf(revision), inputs, source.context);
   const issuedAt = entry.issuedAt.toISOString();
-  const origin = new URL(options.publicUrl).origin;
+  return printedCard({ card, code, inputs, issuedAt, previous, paper, publicUrl: options.publicUrl, printing: 'reprinted' });
+}
+
+/** What the PDF of a card printed on the server is made of. */
+interface CardPrinting {
+  readonly card: SpeedCard;
+  /** The card code, unformatted, as the card log keeps it. */
+  readonly code: string;
+  readonly inputs: CardInputs;
+  readonly issuedAt: string;
+  /** The same inputs on the previous revision, for the card's "changed since" lines. */
+  readonly previous: Parameters<typeof cardChanges>[1];
+  readonly paper: CardPaperSize;
+  /** The operator's Speedwright host, where the check URL points. */
+  readonly publicUrl: string;
+  /** How this copy came to be, said on the card: issued and "printed there", or "reprinted". */
+  readonly printing: 'printed there' | 'reprinted';
+}
+
+/** The card as a PDF: its code, its check URL at the operator's host, its data age and its changes. */
+async function printedCard({ card, code, inputs, issuedAt, previous, paper, publicUrl, printing }: CardPrinting): Promise<PrintedCard> {
   const { definition, fileName } = cardPdf({
     card,
     code: formatCardCode(code),
-    checkUrl: checkUrl(origin, code, { revisionId: revision.id, inputs, digest: card.digest }),
+    checkUrl: checkUrl(new URL(publicUrl).origin, code, { revisionId: card.revision.id, inputs, digest: card.digest }),
     issuedAt,
-    dataAsOf: `Data as of ${utcDate(issuedAt)}: revision ${card.revision.number} as published on the server; reprinted.`,
+    dataAsOf: `Data as of ${utcDate(issuedAt)}: revision ${card.revision.number} as published on the server${printing === 'reprinted' ? '; reprinted' : ', printed there'}.`,
     changes: cardChanges(card, previous),
     paper,
   });

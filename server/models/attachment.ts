@@ -1,9 +1,8 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, type Sequelize } from 'sequelize';
+import { OperatorRecord, operatorRecordAttributes, referenceAttribute } from './common-attributes';
 
 /** A source page of a revision (PDF, PNG or JPEG), kept on disk under a random name. */
-export class Attachment extends Model<InferAttributes<Attachment>, InferCreationAttributes<Attachment>> {
-  declare id: CreationOptional<number>;
-  declare operatorId: number;
+export class Attachment extends OperatorRecord<Attachment> {
   declare revisionId: number;
   /** As the uploader's computer called it; shown, never used as a path. */
   declare originalName: string;
@@ -14,23 +13,18 @@ export class Attachment extends Model<InferAttributes<Attachment>, InferCreation
   /** Random file name inside the operator's folder. */
   declare storageName: string;
   declare uploadedById: number | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize): typeof Attachment {
     Attachment.init(
       {
-        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
-        operatorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-        revisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        ...operatorRecordAttributes(),
+        revisionId: referenceAttribute(),
         originalName: { type: DataTypes.STRING(255), allowNull: false },
         contentType: { type: DataTypes.STRING(100), allowNull: false },
         sizeBytes: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         sha256: { type: DataTypes.CHAR(64), allowNull: false },
         storageName: { type: DataTypes.STRING(64), allowNull: false, unique: true },
         uploadedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'attachments' },
     );

@@ -7,6 +7,7 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
+import { appendOnlyHooks, referenceAttribute } from './common-attributes';
 import type { Operator } from './operator';
 import type { User } from './user';
 
@@ -32,7 +33,7 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
     AuditEvent.init(
       {
         id: { type: DataTypes.BIGINT.UNSIGNED, autoIncrement: true, primaryKey: true },
-        operatorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        operatorId: referenceAttribute(),
         actorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         action: { type: DataTypes.STRING(64), allowNull: false },
         entityType: { type: DataTypes.STRING(64), allowNull: false },
@@ -46,20 +47,7 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
         sequelize,
         tableName: 'audit_events',
         updatedAt: false,
-        hooks: {
-          beforeUpdate: () => {
-            throw new Error('Audit events are append-only.');
-          },
-          beforeBulkUpdate: () => {
-            throw new Error('Audit events are append-only.');
-          },
-          beforeDestroy: () => {
-            throw new Error('Audit events are append-only.');
-          },
-          beforeBulkDestroy: () => {
-            throw new Error('Audit events are append-only.');
-          },
-        },
+        hooks: appendOnlyHooks('Audit events are'),
       },
     );
     return AuditEvent;

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { appendOnlyHooks, referenceAttribute } from './common-attributes';
 
 /**
  * One issued speed card in the card log, as the pilot's device reported it. Append-only: the
@@ -26,10 +27,10 @@ export class CardIssue extends Model<InferAttributes<CardIssue>, InferCreationAt
       {
         id: { type: DataTypes.CHAR(36), allowNull: false, primaryKey: true },
         code: { type: DataTypes.CHAR(9), allowNull: false, unique: 'card_issues_code' },
-        operatorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-        issuedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-        airframeId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-        revisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        operatorId: referenceAttribute(),
+        issuedById: referenceAttribute(),
+        airframeId: referenceAttribute(),
+        revisionId: referenceAttribute(),
         inputs: { type: DataTypes.TEXT, allowNull: false },
         digest: { type: DataTypes.CHAR(64), allowNull: false },
         entrySha256: { type: DataTypes.CHAR(64), allowNull: false },
@@ -40,20 +41,7 @@ export class CardIssue extends Model<InferAttributes<CardIssue>, InferCreationAt
         sequelize,
         tableName: 'card_issues',
         timestamps: false,
-        hooks: {
-          beforeUpdate: () => {
-            throw new Error('The card log is append-only.');
-          },
-          beforeBulkUpdate: () => {
-            throw new Error('The card log is append-only.');
-          },
-          beforeDestroy: () => {
-            throw new Error('The card log is append-only.');
-          },
-          beforeBulkDestroy: () => {
-            throw new Error('The card log is append-only.');
-          },
-        },
+        hooks: appendOnlyHooks('The card log is'),
       },
     );
     return CardIssue;

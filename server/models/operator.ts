@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { idAttribute, timestampAttributes } from './common-attributes';
 
 /** An operator: the company whose people, fleet and speed data Speedwright keeps apart from every other. */
 export class Operator extends Model<InferAttributes<Operator>, InferCreationAttributes<Operator>> {
@@ -22,7 +23,7 @@ export class Operator extends Model<InferAttributes<Operator>, InferCreationAttr
   static initModel(sequelize: Sequelize): typeof Operator {
     Operator.init(
       {
-        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        id: idAttribute(),
         slug: { type: DataTypes.STRING(64), allowNull: false, unique: true },
         name: { type: DataTypes.STRING(200), allowNull: false },
         isDemo: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
@@ -31,8 +32,7 @@ export class Operator extends Model<InferAttributes<Operator>, InferCreationAttr
         approachGustFraction: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 1 },
         approachAdditiveMinimumKt: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 5 },
         approachAdditiveMaximumKt: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 20 },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
+        ...timestampAttributes(),
       },
       { sequelize, tableName: 'operators' },
     );

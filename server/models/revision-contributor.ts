@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { idAttribute, referenceAttribute } from './common-attributes';
 import { CONTRIBUTION_KINDS, type ContributionKind } from '../../shared/speed-book/four-eyes';
 
 /** One person's one kind of contribution to a revision (created, edited, attachments, submitted); kept once. */
@@ -13,10 +14,10 @@ export class RevisionContributor extends Model<InferAttributes<RevisionContribut
   static initModel(sequelize: Sequelize): typeof RevisionContributor {
     RevisionContributor.init(
       {
-        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
-        operatorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-        revisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-        userId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        id: idAttribute(),
+        operatorId: referenceAttribute(),
+        revisionId: referenceAttribute(),
+        userId: referenceAttribute(),
         kind: { type: DataTypes.ENUM(...CONTRIBUTION_KINDS), allowNull: false },
         createdAt: DataTypes.DATE,
       },

@@ -1,4 +1,5 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, type Sequelize } from 'sequelize';
+import { OperatorRecord, operatorRecordAttributes, referenceAttribute } from './common-attributes';
 import { REVISION_STATUSES, type RevisionStatus } from '../../shared/api/revisions';
 
 const FROZEN_AFTER_PUBLISHING = [
@@ -19,9 +20,7 @@ const FROZEN_AFTER_PUBLISHING = [
  * published, no route changes content, hash or signature (only the status moves on, to
  * superseded or withdrawn).
  */
-export class Revision extends Model<InferAttributes<Revision>, InferCreationAttributes<Revision>> {
-  declare id: CreationOptional<number>;
-  declare operatorId: number;
+export class Revision extends OperatorRecord<Revision> {
   declare speedBookId: number;
   declare number: number;
   declare status: RevisionStatus;
@@ -40,8 +39,6 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
   declare contentSha256: string | null;
   declare signature: string | null;
   declare signingKeyId: number | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize): typeof Revision {
     // Fresh objects each time: Sequelize writes the column name into an attribute's definition.
@@ -49,14 +46,13 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
     const nullableUser = () => ({ type: DataTypes.INTEGER.UNSIGNED, allowNull: true });
     Revision.init(
       {
-        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
-        operatorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-        speedBookId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        ...operatorRecordAttributes(),
+        speedBookId: referenceAttribute(),
         number: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         status: { type: DataTypes.ENUM(...REVISION_STATUSES), allowNull: false },
         content: { type: DataTypes.TEXT('long'), allowNull: false },
         changeSummary: { type: DataTypes.STRING(2000), allowNull: false },
-        authorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        authorId: referenceAttribute(),
         submittedAt: nullableDate(),
         returnedAt: nullableDate(),
         returnReason: { type: DataTypes.STRING(2000), allowNull: true },
@@ -69,8 +65,6 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
         contentSha256: { type: DataTypes.CHAR(64), allowNull: true },
         signature: { type: DataTypes.STRING(128), allowNull: true },
         signingKeyId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       {
         sequelize,

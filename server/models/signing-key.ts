@@ -1,4 +1,5 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, type CreationOptional, type Sequelize } from 'sequelize';
+import { OperatorRecord, operatorRecordAttributes } from './common-attributes';
 
 /**
  * An operator's Ed25519 key pair. The public key is served to devices as the raw 32 bytes in
@@ -6,28 +7,21 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
  * One key per operator is active (new publications); a rotation retires it (`active` false,
  * `retiredAt` set) and keeps it, so the revisions it signed stay verifiable.
  */
-export class SigningKey extends Model<InferAttributes<SigningKey>, InferCreationAttributes<SigningKey>> {
-  declare id: CreationOptional<number>;
-  declare operatorId: number;
+export class SigningKey extends OperatorRecord<SigningKey> {
   declare publicKey: string;
   declare encryptedPrivateKey: string;
   declare active: CreationOptional<boolean>;
   /** When a rotation replaced it; null while it is the active key. */
   declare retiredAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize): typeof SigningKey {
     SigningKey.init(
       {
-        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
-        operatorId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        ...operatorRecordAttributes(),
         publicKey: { type: DataTypes.STRING(64), allowNull: false },
         encryptedPrivateKey: { type: DataTypes.TEXT, allowNull: false },
         active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
         retiredAt: { type: DataTypes.DATE, allowNull: true, defaultValue: null },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'signing_keys' },
     );

@@ -1,23 +1,13 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type ForeignKey,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type NonAttribute,
-  type Sequelize,
-} from 'sequelize';
+import { DataTypes, type CreationOptional, type NonAttribute, type Sequelize } from 'sequelize';
 import { ROLES, type Role } from '../../shared/auth/roles';
+import { OperatorRecord, operatorRecordAttributes } from './common-attributes';
 import type { Operator } from './operator';
 
 /**
  * A person who signs in. E-mail addresses are stored lower-case and unique within an operator;
  * across operators at most one person per address has a password (the one who signs in).
  */
-export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
-  declare id: CreationOptional<number>;
-  declare operatorId: ForeignKey<Operator['id']>;
+export class User extends OperatorRecord<User> {
   declare email: string;
   declare displayName: string;
   declare role: Role;
@@ -29,15 +19,13 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   /** Locked by an administrator until unlocked. */
   declare lockedByAdmin: CreationOptional<boolean>;
   declare lastSignInAt: Date | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 
   declare operator?: NonAttribute<Operator>;
 
   static initModel(sequelize: Sequelize): typeof User {
     User.init(
       {
-        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        ...operatorRecordAttributes(),
         email: { type: DataTypes.STRING(254), allowNull: false },
         displayName: { type: DataTypes.STRING(200), allowNull: false },
         role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
@@ -46,8 +34,6 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         lockedUntil: { type: DataTypes.DATE, allowNull: true },
         lockedByAdmin: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         lastSignInAt: { type: DataTypes.DATE, allowNull: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'users' },
     );

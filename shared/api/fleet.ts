@@ -5,6 +5,7 @@
 import * as z from 'zod';
 import { AIRCRAFT_CATEGORIES } from '../speed-book/revision-content';
 import { plainText } from '../text/plain-text';
+import { changeSchema } from './change-schema';
 
 const id = z.number().int().positive();
 
@@ -34,10 +35,7 @@ const aircraftTypeFields = {
 };
 
 export const createAircraftTypeSchema = z.strictObject(aircraftTypeFields);
-export const updateAircraftTypeSchema = z
-  .strictObject(aircraftTypeFields)
-  .partial()
-  .refine((value) => Object.keys(value).length > 0, 'Change at least one field.');
+export const updateAircraftTypeSchema = changeSchema(aircraftTypeFields);
 export type CreateAircraftType = z.infer<typeof createAircraftTypeSchema>;
 export type UpdateAircraftType = z.infer<typeof updateAircraftTypeSchema>;
 
@@ -75,10 +73,7 @@ const airframeFields = {
 };
 
 export const createAirframeSchema = z.strictObject({ ...airframeFields, active: airframeFields.active.default(true) });
-export const updateAirframeSchema = z
-  .strictObject(airframeFields)
-  .partial()
-  .refine((value) => Object.keys(value).length > 0, 'Change at least one field.');
+export const updateAirframeSchema = changeSchema(airframeFields);
 export type CreateAirframe = z.infer<typeof createAirframeSchema>;
 export type UpdateAirframe = z.infer<typeof updateAirframeSchema>;
 

@@ -12,6 +12,7 @@ import { AccountLinks } from './account-links';
 import { AccountSubmit } from './account-submit';
 import { readLinkToken } from './link-token';
 import { NewPasswordFields, sameAs } from './new-password-fields';
+import { ProblemNote } from '../core/feedback/problem-note';
 
 /** Which mail the link came from; the route says it. */
 export type PasswordLinkKind = 'invitation' | 'reset';
@@ -37,7 +38,7 @@ const DEAD_LINK_CODES = new Set(['invalid_link', 'link_used', 'link_replaced', '
 /** Whoever holds the token from the mail chooses a password here, without signing in first. */
 @Component({
   selector: 'sw-choose-password-page',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatIconModule, AccountFrame, NewPasswordFields, AccountSubmit],
+  imports: [ProblemNote, ReactiveFormsModule, RouterLink, MatButtonModule, MatIconModule, AccountFrame, NewPasswordFields, AccountSubmit],
   templateUrl: './choose-password-page.html',
   styleUrl: './account-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -8,6 +8,7 @@ import { requestState } from '../core/api/request-state';
 import { AccountFrame } from './account-frame';
 import { AccountLinks } from './account-links';
 import { readLinkToken } from './link-token';
+import { ProblemNote } from '../core/feedback/problem-note';
 
 /**
  * The link of the "wrong passwords were typed" mail: one button lifts the wait, so a person on
@@ -16,7 +17,7 @@ import { readLinkToken } from './link-token';
  */
 @Component({
   selector: 'sw-unlock-page',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, AccountFrame],
+  imports: [ProblemNote, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, AccountFrame],
   templateUrl: './unlock-page.html',
   styleUrl: './account-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

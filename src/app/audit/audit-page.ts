@@ -8,23 +8,18 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
-import { debounceTime } from 'rxjs';
 import { AuditEventView } from '../../../shared/api/audit';
-import { can } from '../../../shared/auth/roles';
-import { requestState } from '../core/api/request-state';
-import { AuthService } from '../core/auth/auth-service';
+import { userMay } from '../core/auth/user-may';
 import { CursorPager } from '../core/table/cursor-pager';
-import { CursorPages } from '../core/table/cursor-pages';
-import { DAY_ORDER_PROBLEM, utcDayRange } from '../core/table/utc-day-range';
+import { FilteredLog } from '../core/table/filtered-log';
 import { OperatorPeople } from '../people/operator-people';
 import { AuditRow, toAuditRow } from './audit-row';
-import { AuditFilter, AuditTrail } from './audit-trail';
+import { AuditFilter, AuditTrail, type AuditPage as AuditPageAnswer } from './audit-trail';
 import { AUDIT_ACTION_LABELS, AUDIT_ENTITY_LABELS, entityTypeOfAction } from './audit-vocabulary';
 import { ProblemRetry } from '../core/feedback/problem-retry';
+import { ProblemNote } from '../core/feedback/problem-note';
 
 export const AUDIT_PAGE_SIZE = 25;
-/** Long enough that choosing three filters in a row asks the server once. */
-const FILTER_PAUSE_MS = 300;
 
 interface PersonOption {
   readonly id: number;
@@ -32,9 +27,16 @@ interface PersonOption {
 }
 
 /** Who did what to which record, and when: the operator's audit trail, filtered, a page at a time. */
+const AUDIT_TEXT_COLUMNS: readonly { name: string; header: string; label: 'whenLabel' | 'personLabel' | 'actionLabel' | 'recordLabel' }[] = [
+  { name: 'when', header: 'When', label: 'whenLabel' },
+  { name: 'person', header: 'Person', label: 'personLabel' },
+  { name: 'action', header: 'Action', label: 'actionLabel' },
+  { name: 'record', header: 'Record', label: 'recordLabel' },
+];
+
 @Component({
   selector: 'sw-audit-page',
-  imports: [ProblemRetry, ReactiveFormsModule, MatTableModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, CursorPager],
+  imports: [ProblemNote, ProblemRetry, ReactiveFormsModule, MatTableModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, CursorPager],
   templateUrl: './audit-page.html',
   styleUrls: ['../core/table/list-table.scss', './audit-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -42,10 +44,12 @@ interface PersonOption {
 export class AuditPage {
   private readonly trail = inject(AuditTrail);
   private readonly people = inject(OperatorPeople);
-  private readonly user = inject(AuthService).user;
+  private readonly managesPeople = userMay('manage-people');
   private readonly destroyRef = inject(DestroyRef);
 
-  protected readonly columns = ['when', 'person', 'action', 'record', 'expand'];
+  /** The columns that show one of the row's words, in order; then the details button. */
+  protected readonly textColumns = AUDIT_TEXT_COLUMNS;
+  protected readonly columns = [...AUDIT_TEXT_COLUMNS.map((column) => column.name), 'expand'];
   protected readonly entityTypes = Object.entries(AUDIT_ENTITY_LABELS);
   protected readonly form = inject(NonNullableFormBuilder).group({
     entityType: [''],
@@ -67,14 +71,23 @@ export class AuditPage {
     return [...byId.values()].sort((a, b) => a.name.localeCompare(b.name, 'en', { sensitivity: 'base' }));
   });
 
-  private readonly request = requestState();
-  protected readonly loading = this.request.busy;
-  protected readonly problem = this.request.problem;
-  protected readonly filterProblem = signal<string | null>(null);
   protected readonly rows = signal<readonly AuditRow[]>([]);
   protected readonly expandedId = signal<number | null>(null);
-  protected readonly pages = new CursorPages((cursor) => this.loadPage(cursor));
   protected readonly filtered = signal(false);
+  private readonly log = new FilteredLog({
+    form: this.form,
+    days: () => this.form.getRawValue(),
+    filterOf: (days): AuditFilter => {
+      const { entityType, action, actorId } = this.form.getRawValue();
+      return { entityType: entityType || undefined, action: action || undefined, actorId: actorId || undefined, ...days };
+    },
+    page: (filter, cursor) => this.trail.page(filter, AUDIT_PAGE_SIZE, cursor),
+    show: (page, filter) => this.showPage(page, filter),
+  });
+  protected readonly loading = this.log.loading;
+  protected readonly problem = this.log.problem;
+  protected readonly filterProblem = this.log.filterProblem;
+  protected readonly pages = this.log.pages;
 
   constructor() {
     this.loadPeopleForFilter();
@@ -98,33 +111,17 @@ export class AuditPage {
       const action = this.form.controls.action.value;
       if (action && entityType && entityTypeOfAction(action) !== entityType) this.form.controls.action.setValue('', { emitEvent: false });
     });
-    this.form.valueChanges.pipe(debounceTime(FILTER_PAUSE_MS), takeUntilDestroyed(this.destroyRef)).subscribe(() => this.pages.first());
   }
 
-  private loadPage(cursor: string | null): void {
-    const filter = this.filter();
-    if (filter === null) return;
+  private showPage(page: AuditPageAnswer, filter: AuditFilter): void {
     this.filtered.set(Object.values(filter).some(Boolean));
-    this.request.runLatest(this.trail.page(filter, AUDIT_PAGE_SIZE, cursor), (page) => {
-      this.pages.arrived(cursor, page.nextCursor);
-      this.rows.set(page.events.map(toAuditRow));
-      this.rememberActors(page.events);
-      this.expandedId.set(null);
-    });
-  }
-
-  /** The form as the server's query, or null (with a sentence) when the dates contradict. */
-  private filter(): AuditFilter | null {
-    const { entityType, action, actorId, from, to } = this.form.getRawValue();
-    const days = utcDayRange(from, to);
-    this.filterProblem.set(days === null ? DAY_ORDER_PROBLEM : null);
-    if (days === null) return null;
-    return { entityType: entityType || undefined, action: action || undefined, actorId: actorId || undefined, ...days };
+    this.rows.set(page.events.map(toAuditRow));
+    this.rememberActors(page.events);
+    this.expandedId.set(null);
   }
 
   private loadPeopleForFilter(): void {
-    const user = this.user();
-    if (!user || !can(user.role, 'manage-people')) return;
+    if (!this.managesPeople()) return;
     this.people
       .list()
       .pipe(takeUntilDestroyed(this.destroyRef))

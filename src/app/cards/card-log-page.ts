@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
 import { landingWindWords } from '../../../shared/card/card-wind-words';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
@@ -9,17 +9,14 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { debounceTime, from } from 'rxjs';
+import { from } from 'rxjs';
 import type { AirframeView } from '../../../shared/api/fleet';
-import { can } from '../../../shared/auth/roles';
 import { formatCardCode } from '../../../shared/card-check/card-code';
 import type { CardIssueView } from '../../../shared/card/card-api';
 import { ApiRequestError } from '../core/api/api-request-error';
-import { requestState } from '../core/api/request-state';
-import { AuthService } from '../core/auth/auth-service';
+import { userMay } from '../core/auth/user-may';
 import { CursorPager } from '../core/table/cursor-pager';
-import { CursorPages } from '../core/table/cursor-pages';
-import { DAY_ORDER_PROBLEM, utcDayRange } from '../core/table/utc-day-range';
+import { FilteredLog } from '../core/table/filtered-log';
 import { RevisionNotices } from '../core/sync/revision-notices';
 import { CardLog, type CardLogFilter } from './card-log';
 import { cardNumber } from './card-number-pipe';
@@ -27,14 +24,14 @@ import { utcMinutesShort } from '../core/format/display-format';
 import { CardSources } from './card-sources';
 import { DeviceCardLog } from './device-card-log';
 import { ProblemRetry } from '../core/feedback/problem-retry';
+import { ProblemNote } from '../core/feedback/problem-note';
 
 export const CARD_LOG_PAGE_SIZE = 25;
-const FILTER_PAUSE_MS = 300;
 
 /** The operator's card log: every card its people issued and reported, filtered, a page at a time. */
 @Component({
   selector: 'sw-card-log-page',
-  imports: [ProblemRetry, ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, DeviceCardLog, RevisionNotices, RouterLink, CursorPager],
+  imports: [ProblemNote, ProblemRetry, ReactiveFormsModule, MatFormFieldModule, MatSelectModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, DeviceCardLog, RevisionNotices, RouterLink, CursorPager],
   templateUrl: './card-log-page.html',
   styleUrls: ['../core/table/list-table.scss', './card-log-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -43,27 +40,29 @@ export class CardLogPage {
   private readonly cardLog = inject(CardLog);
   private readonly sources = inject(CardSources);
   private readonly destroyRef = inject(DestroyRef);
-  private readonly user = inject(AuthService).user;
 
-  protected readonly preparesCards = computed(() => {
-    const user = this.user();
-    return user !== null && can(user.role, 'prepare-cards');
-  });
+  protected readonly preparesCards = userMay('prepare-cards');
   protected readonly form = inject(NonNullableFormBuilder).group({ airframeId: [0], from: [''], to: [''] });
   protected readonly airframes = signal<readonly AirframeView[]>([]);
   protected readonly entries = signal<readonly CardIssueView[]>([]);
-  private readonly request = requestState();
-  protected readonly loading = this.request.busy;
-  protected readonly problem = this.request.problem;
-  protected readonly filterProblem = signal<string | null>(null);
-  protected readonly pages = new CursorPages((cursor) => this.loadPage(cursor));
+  private readonly log = new FilteredLog({
+    form: this.form,
+    days: () => this.form.getRawValue(),
+    filterOf: (days): CardLogFilter => ({ airframeId: this.form.controls.airframeId.value || undefined, ...days }),
+    page: (filter, cursor) => from(this.cardLog.operatorPage(filter, CARD_LOG_PAGE_SIZE, cursor)),
+    show: (page) => this.entries.set(page.entries),
+    failed: (error) => ApiRequestError.from(error).message,
+  });
+  protected readonly loading = this.log.loading;
+  protected readonly problem = this.log.problem;
+  protected readonly filterProblem = this.log.filterProblem;
+  protected readonly pages = this.log.pages;
 
   constructor() {
     this.sources
       .airframes()
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe({ next: (airframes) => this.airframes.set(airframes), error: () => this.airframes.set([]) });
-    this.form.valueChanges.pipe(debounceTime(FILTER_PAUSE_MS), takeUntilDestroyed(this.destroyRef)).subscribe(() => this.pages.first());
     this.pages.first();
   }
 
@@ -87,26 +86,5 @@ export class CardLogPage {
   /** The wind where the card lands and the operator's policy the card used, from its inputs; a dash without a wind. */
   protected windOf(entry: CardIssueView): string {
     return landingWindWords(entry.inputs);
-  }
-
-  private loadPage(cursor: string | null): void {
-    const filter = this.filter();
-    if (filter === null) return;
-    this.request.runLatest(
-      from(this.cardLog.operatorPage(filter, CARD_LOG_PAGE_SIZE, cursor)),
-      (page) => {
-        this.pages.arrived(cursor, page.nextCursor);
-        this.entries.set(page.entries);
-      },
-      (error) => ApiRequestError.from(error).message,
-    );
-  }
-
-  private filter(): CardLogFilter | null {
-    const { airframeId, from: fromDay, to: toDay } = this.form.getRawValue();
-    const days = utcDayRange(fromDay, toDay);
-    this.filterProblem.set(days === null ? DAY_ORDER_PROBLEM : null);
-    if (days === null) return null;
-    return { airframeId: airframeId || undefined, ...days };
   }
 }

@@ -3,11 +3,10 @@ import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { FormControl } from '@angular/forms';
 import { EMPTY, Subject, catchError, distinctUntilChanged, merge, of, switchMap, tap } from 'rxjs';
 import type { RevisionSummary } from '../../../shared/api/revisions';
-import { can } from '../../../shared/auth/roles';
 import { takeoffConfigurationKeys } from '../../../shared/card';
 import { revisionContentSchema, type RevisionContent } from '../../../shared/speed-book/revision-content';
+import { userMay } from '../core/auth/user-may';
 import { ApiRequestError } from '../core/api/api-request-error';
-import { AuthService } from '../core/auth/auth-service';
 import { utcDate, utcMinutes } from '../core/format/display-format';
 import { SyncService } from '../core/sync/sync-service';
 import { CardSources, airframeChoicesOf, revisionSourceOf, type AirframeChoice, type CardRevisionSource } from './card-sources';
@@ -32,13 +31,9 @@ export interface ShownRevision {
 export class CardRevisionSelection {
   private readonly sources = inject(CardSources);
   private readonly sync = inject(SyncService);
-  private readonly user = inject(AuthService).user;
   private readonly destroyRef = inject(DestroyRef);
 
-  readonly canPreviewDrafts = computed(() => {
-    const user = this.user();
-    return user !== null && can(user.role, 'edit-speed-books');
-  });
+  readonly canPreviewDrafts = userMay('edit-speed-books');
 
   /** Airframes, types and published revisions from the device store: no network needed. */
   readonly choices = computed<readonly AirframeChoice[]>(() => airframeChoicesOf(this.sync.snapshot()));

@@ -5,8 +5,8 @@ import { firstValueFrom } from 'rxjs';
 import { smallCoverageReport } from '../../../shared/api/testing/coverage-fixtures';
 import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
 import { ApiRequestError } from '../core/api/api-request-error';
-import { revisionView } from '../speed-books/testing/revision-fixtures';
-import { COVERAGE_PATHS, CoverageApi, CoverageRefusal } from './coverage-api';
+import { COVERAGE_PATHS, CoverageApi } from './coverage-api';
+import { CoverageRefusal } from './coverage-refusal';
 
 describe('CoverageApi', () => {
   let api: CoverageApi;
@@ -63,44 +63,5 @@ describe('CoverageApi', () => {
     const answer = firstValueFrom(api.revisionCoverage(12));
     backend.expectOne(COVERAGE_PATHS.ofRevision(12)).error(new ProgressEvent('error'), { status: 0 });
     await expect(answer).rejects.toMatchObject({ status: 0, code: 'network_unreachable' });
-  });
-
-  it('submits and answers the revision now in review', async () => {
-    const answer = firstValueFrom(api.submit(12));
-    const request = backend.expectOne(COVERAGE_PATHS.submit(12));
-    expect(request.request.method).toBe('POST');
-    request.flush({ revision: revisionView({}, { id: 12, status: 'in_review' }) });
-    expect((await answer).status).toBe('in_review');
-  });
-
-  it('reads a 422 coverage_failed into a CoverageRefusal with the report', async () => {
-    const answer = firstValueFrom(api.submit(12));
-    backend
-      .expectOne(COVERAGE_PATHS.submit(12))
-      .flush({ error: { code: 'coverage_failed', message: 'The book gives no card at 1 point of its envelope.', report: smallCoverageReport() } }, { status: 422, statusText: 'Unprocessable Content' });
-    const error = await answer.catch((e: unknown) => e);
-    expect(error).toBeInstanceOf(CoverageRefusal);
-    expect((error as CoverageRefusal).message).toBe('The book gives no card at 1 point of its envelope.');
-    expect((error as CoverageRefusal).report.counts.refused).toBe(1);
-  });
-
-  it('keeps any other refusal of submit as the server said it', async () => {
-    const answer = firstValueFrom(api.submit(12));
-    backend
-      .expectOne(COVERAGE_PATHS.submit(12))
-      .flush({ error: { code: 'conflict', message: 'Only a draft can be submitted.' } }, { status: 409, statusText: 'Conflict' });
-    const error = await answer.catch((e: unknown) => e);
-    expect(error).not.toBeInstanceOf(CoverageRefusal);
-    expect(error).toMatchObject({ status: 409, message: 'Only a draft can be submitted.' });
-  });
-
-  it('reads a 422 coverage_failed of approve (publish re-checks) the same way', async () => {
-    const answer = firstValueFrom(api.approve(12));
-    const request = backend.expectOne(COVERAGE_PATHS.approve(12));
-    expect(request.request.method).toBe('POST');
-    request.flush({ error: { code: 'coverage_failed', message: 'Publishing refused: 1 point gives no card.', report: smallCoverageReport() } }, { status: 422, statusText: 'Unprocessable Content' });
-    const error = await answer.catch((e: unknown) => e);
-    expect(error).toBeInstanceOf(CoverageRefusal);
-    expect((error as CoverageRefusal).message).toBe('Publishing refused: 1 point gives no card.');
   });
 });

@@ -6,8 +6,7 @@ import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
 import { AIRCRAFT_CATEGORY_LABELS } from './aircraft-category-labels';
-import { TableToolbar } from '../core/table/table-toolbar';
-import { ListPaginator } from '../core/table/list-paginator';
+import { ListTable } from '../core/table/list-table';
 import { ListSort } from '../core/table/list-sort';
 import { ListTableRow, ListTableState } from '../core/table/list-table-state';
 
@@ -20,9 +19,9 @@ interface AircraftTypeRow extends ListTableRow {
 /** The operator's aircraft types: filter, sort, page, and (for administrators) edit. */
 @Component({
   selector: 'sw-aircraft-types-table',
-  imports: [DecimalPipe, MatTableModule, MatSortModule, ListPaginator, ListSort, TableToolbar, MatIconModule, MatButtonModule],
+  imports: [DecimalPipe, MatTableModule, MatSortModule, ListTable, ListSort, MatIconModule, MatButtonModule],
   templateUrl: './aircraft-types-table.html',
-  styleUrls: ['../core/table/list-table.scss', './fleet-table.scss'],
+  styleUrl: './fleet-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class AircraftTypesTable {

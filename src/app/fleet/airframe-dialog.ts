@@ -5,13 +5,10 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import type { Observable } from 'rxjs';
-import { AircraftTypeView, AirframeView, UpdateAirframe, createAirframeSchema } from '../../../shared/api/fleet';
+import { AircraftTypeView, AirframeView, createAirframeSchema } from '../../../shared/api/fleet';
 import { zodValidator } from '../core/forms/zod-validator';
-import { changedFields } from '../core/forms/changed-fields';
 import { DialogFooter } from '../core/forms/dialog-footer';
 import { dialogSubmit } from '../core/forms/dialog-submit';
-import { controlMessage } from '../core/forms/server-field-errors';
 import { FleetRecords } from './fleet-records';
 
 export interface AirframeDialogData {
@@ -32,7 +29,6 @@ const fields = createAirframeSchema.shape;
 })
 export class AirframeDialog {
   private readonly fleet = inject(FleetRecords);
-  private readonly dialogRef = inject<MatDialogRef<AirframeDialog, AirframeView>>(MatDialogRef);
   protected readonly data = inject<AirframeDialogData>(MAT_DIALOG_DATA);
 
   protected readonly editing = this.data.airframe;
@@ -42,23 +38,17 @@ export class AirframeDialog {
     aircraftTypeId: [this.editing?.aircraftTypeId ?? (null as number | null), zodValidator(fields.aircraftTypeId)],
     active: [this.editing?.active ?? true],
   });
-  private readonly submission = dialogSubmit(this.form, this.dialogRef);
-  protected readonly saving = this.submission.busy;
-  protected readonly problem = this.submission.problem;
-  protected readonly message = (path: string) => controlMessage(this.form, path);
+  protected readonly submission = dialogSubmit(this.form, inject<MatDialogRef<AirframeDialog, AirframeView>>(MatDialogRef));
 
   protected saveAirframe(): void {
-    if (this.saving()) return;
-    this.form.markAllAsTouched();
+    if (!this.submission.formReady()) return;
     const parsed = createAirframeSchema.safeParse(this.form.getRawValue());
-    if (this.form.invalid || !parsed.success) return;
-    const change = this.editing ? changedFields<UpdateAirframe>(this.editing, parsed.data) : null;
-    if (this.editing && change && Object.keys(change).length === 0) {
-      this.submission.closeUnchanged();
-      return;
-    }
-    const request: Observable<AirframeView> =
-      this.editing && change ? this.fleet.changeAirframe(this.editing.id, change) : this.fleet.addAirframe(parsed.data);
-    this.submission.submit(request);
+    if (!parsed.success) return;
+    this.submission.saveRecord(
+      this.editing,
+      parsed.data,
+      (airframe) => this.fleet.addAirframe(airframe),
+      (id, change) => this.fleet.changeAirframe(id, change),
+    );
   }
 }

@@ -4,8 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
-import { TableToolbar } from '../core/table/table-toolbar';
-import { ListPaginator } from '../core/table/list-paginator';
+import { ListTable } from '../core/table/list-table';
 import { ListSort } from '../core/table/list-sort';
 import { ListTableRow, ListTableState } from '../core/table/list-table-state';
 
@@ -20,9 +19,9 @@ interface AirframeRow extends ListTableRow {
 /** The operator's airframes: filter, sort, page, and (for administrators) edit. */
 @Component({
   selector: 'sw-airframes-table',
-  imports: [MatTableModule, MatSortModule, ListPaginator, ListSort, TableToolbar, MatIconModule, MatButtonModule],
+  imports: [MatTableModule, MatSortModule, ListTable, ListSort, MatIconModule, MatButtonModule],
   templateUrl: './airframes-table.html',
-  styleUrls: ['../core/table/list-table.scss', './fleet-table.scss'],
+  styleUrl: './fleet-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class AirframesTable {

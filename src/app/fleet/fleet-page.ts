@@ -1,22 +1,19 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTabsModule } from '@angular/material/tabs';
 import { forkJoin } from 'rxjs';
 import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
-import { can } from '../../../shared/auth/roles';
+import { userMay } from '../core/auth/user-may';
 import { requestState } from '../core/api/request-state';
-import { AuthService } from '../core/auth/auth-service';
 import { AircraftTypeDialog, AircraftTypeDialogData } from './aircraft-type-dialog';
 import { AircraftTypesTable } from './aircraft-types-table';
 import { AirframeDialog, AirframeDialogData } from './airframe-dialog';
 import { AirframesTable } from './airframes-table';
 import { FleetRecords } from './fleet-records';
 import { ProblemRetry } from '../core/feedback/problem-retry';
+import { formDialogs, withSavedRecord } from '../core/forms/form-dialogs';
 
 /** The operator's airframes and aircraft types; administrators add and edit them here. */
 @Component({
@@ -28,15 +25,9 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
 })
 export class FleetPage {
   private readonly fleet = inject(FleetRecords);
-  private readonly dialog = inject(MatDialog);
-  private readonly snackBar = inject(MatSnackBar);
-  private readonly destroyRef = inject(DestroyRef);
-  private readonly user = inject(AuthService).user;
+  private readonly dialogs = formDialogs();
 
-  protected readonly canManage = computed(() => {
-    const user = this.user();
-    return user !== null && can(user.role, 'manage-fleet');
-  });
+  protected readonly canManage = userMay('manage-fleet');
   private readonly request = requestState();
   protected readonly loading = this.request.busy;
   protected readonly problem = this.request.problem;
@@ -71,34 +62,16 @@ export class FleetPage {
   }
 
   private openAirframeDialog(data: AirframeDialogData): void {
-    this.dialog
-      .open<AirframeDialog, AirframeDialogData, AirframeView>(AirframeDialog, { data, autoFocus: 'first-tabbable' })
-      .afterClosed()
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe((saved) => {
-        if (!saved) return;
-        this.airframes.update((list) => replaceOrAppend(list, saved));
-        this.snackBar.open(data.airframe ? `${saved.registration} is saved.` : `${saved.registration} is now in your fleet.`, 'Close', {
-          duration: 5000,
-        });
-      });
+    this.dialogs.open(AirframeDialog, data, (saved: AirframeView) => {
+      this.airframes.update((list) => withSavedRecord(list, saved));
+      this.dialogs.note(data.airframe ? `${saved.registration} is saved.` : `${saved.registration} is now in your fleet.`);
+    });
   }
 
   private openAircraftTypeDialog(data: AircraftTypeDialogData): void {
-    this.dialog
-      .open<AircraftTypeDialog, AircraftTypeDialogData, AircraftTypeView>(AircraftTypeDialog, { data, autoFocus: 'first-tabbable' })
-      .afterClosed()
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe((saved) => {
-        if (!saved) return;
-        this.aircraftTypes.update((list) => replaceOrAppend(list, saved));
-        this.snackBar.open(data.aircraftType ? `${saved.designator} is saved.` : `${saved.designator} is now one of your types.`, 'Close', {
-          duration: 5000,
-        });
-      });
+    this.dialogs.open(AircraftTypeDialog, data, (saved: AircraftTypeView) => {
+      this.aircraftTypes.update((list) => withSavedRecord(list, saved));
+      this.dialogs.note(data.aircraftType ? `${saved.designator} is saved.` : `${saved.designator} is now one of your types.`);
+    });
   }
-}
-
-function replaceOrAppend<T extends { id: number }>(list: readonly T[], saved: T): readonly T[] {
-  return list.some((item) => item.id === saved.id) ? list.map((item) => (item.id === saved.id ? saved : item)) : [...list, saved];
 }

@@ -9,6 +9,7 @@ import { MailboxMessage } from '../../../shared/api/mailbox';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { DevMailbox } from './dev-mailbox';
 import { MailTextPart, splitMailText } from './mail-text';
+import { ProblemNote } from '../core/feedback/problem-note';
 
 interface ShownMessage {
   readonly id: string;
@@ -25,7 +26,7 @@ export const NO_FAKE_MAILBOX =
 /** The mails Speedwright sent while it runs with its local fake mail server, links clickable. */
 @Component({
   selector: 'sw-mailbox-page',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [ProblemNote, MatButtonModule, MatIconModule, MatProgressBarModule],
   templateUrl: './mailbox-page.html',
   styleUrl: './mailbox-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,51 +1,38 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatSelectModule } from '@angular/material/select';
-import { map } from 'rxjs';
 import { OperatorPerson, UpdatePersonRequest, invitePersonRequestSchema } from '../../../shared/api/auth';
-import { ROLES, ROLE_LABELS, ROLE_SUMMARIES, Role } from '../../../shared/auth/roles';
+import type { Role } from '../../../shared/auth/roles';
 import { DialogFooter } from '../core/forms/dialog-footer';
 import { dialogSubmit } from '../core/forms/dialog-submit';
-import { controlMessage } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { OperatorPeople } from './operator-people';
+import { RoleField } from './role-field';
 
 const fields = invitePersonRequestSchema.shape;
 
 /** Changes a person's role or name; closes with the person as the server saved them. */
 @Component({
   selector: 'sw-change-person-dialog',
-  imports: [ReactiveFormsModule, DialogFooter, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule],
+  imports: [ReactiveFormsModule, DialogFooter, RoleField, MatDialogModule, MatFormFieldModule, MatInputModule],
   templateUrl: './change-person-dialog.html',
   styleUrl: './people-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ChangePersonDialog {
   private readonly people = inject(OperatorPeople);
-  private readonly dialogRef = inject<MatDialogRef<ChangePersonDialog, OperatorPerson>>(MatDialogRef);
   protected readonly person = inject<OperatorPerson>(MAT_DIALOG_DATA);
 
-  protected readonly roles = ROLES.map((role) => ({ role, label: ROLE_LABELS[role] }));
   protected readonly form = inject(NonNullableFormBuilder).group({
     displayName: [this.person.displayName, zodValidator(fields.displayName)],
     role: [this.person.role as Role, zodValidator(fields.role)],
   });
-  protected readonly roleSummary = toSignal(this.form.controls.role.valueChanges.pipe(map((role) => ROLE_SUMMARIES[role])), {
-    initialValue: ROLE_SUMMARIES[this.person.role],
-  });
-  private readonly submission = dialogSubmit(this.form, this.dialogRef);
-  protected readonly saving = this.submission.busy;
-  protected readonly problem = this.submission.problem;
-  protected readonly message = (path: string) => controlMessage(this.form, path);
+  protected readonly submission = dialogSubmit(this.form, inject<MatDialogRef<ChangePersonDialog, OperatorPerson>>(MatDialogRef));
 
   protected saveChange(): void {
-    if (this.saving()) return;
-    this.form.markAllAsTouched();
-    if (this.form.invalid) return;
+    if (!this.submission.formReady()) return;
     const { displayName, role } = this.form.getRawValue();
     const change: UpdatePersonRequest = {};
     if (role !== this.person.role) change.role = role;

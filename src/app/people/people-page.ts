@@ -1,11 +1,9 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
-import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Observable } from 'rxjs';
@@ -15,13 +13,14 @@ import { ApiRequestError } from '../core/api/api-request-error';
 import { requestState } from '../core/api/request-state';
 import { ListSort } from '../core/table/list-sort';
 import { ListTableState } from '../core/table/list-table-state';
-import { TableToolbar } from '../core/table/table-toolbar';
+import { ListTable } from '../core/table/list-table';
 import { AuthService } from '../core/auth/auth-service';
 import { ChangePersonDialog } from './change-person-dialog';
 import { InvitePersonDialog } from './invite-person-dialog';
 import { OperatorPeople } from './operator-people';
 import { PersonRow, toPersonRow } from './person-row';
 import { ProblemRetry } from '../core/feedback/problem-retry';
+import { formDialogs, withSavedRecord } from '../core/forms/form-dialogs';
 
 /**
  * The admin's list of the operator's people: who they are, their role, and their account;
@@ -29,16 +28,15 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
  */
 @Component({
   selector: 'sw-people-page',
-  imports: [ProblemRetry, MatTableModule, MatSortModule, ListSort, TableToolbar, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
+  imports: [ProblemRetry, MatTableModule, MatSortModule, ListSort, ListTable, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
   templateUrl: './people-page.html',
-  styleUrls: ['../core/table/list-table.scss', './people-page.scss'],
+  styleUrl: './people-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PeoplePage {
   private readonly people = inject(OperatorPeople);
   private readonly destroyRef = inject(DestroyRef);
-  private readonly dialog = inject(MatDialog);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly dialogs = formDialogs();
   private readonly auth = inject(AuthService);
 
   protected readonly columns: readonly string[] = ['displayName', 'roleLabel', 'accountLabel', 'lastSignIn', 'actions'];
@@ -52,13 +50,9 @@ export class PeoplePage {
   private readonly allRows = computed(() => this.everyone().map(toPersonRow));
 
   protected readonly table = new ListTableState(this.allRows, { active: 'displayName', direction: 'asc' });
-  protected readonly filterText = this.table.filterText;
-
-  protected readonly total = computed(() => this.allRows().length);
-  protected readonly rows = this.table.matching;
   protected readonly countSentence = computed(() => {
-    const shown = this.rows().length;
-    const total = this.total();
+    const shown = this.table.matching().length;
+    const total = this.table.total();
     const noun = total === 1 ? 'person' : 'people';
     return shown === total ? `${total} ${noun}` : `Showing ${shown} of ${total} ${noun}`;
   });
@@ -73,26 +67,17 @@ export class PeoplePage {
 
   protected invitePerson(): void {
     this.refusal.set(null);
-    this.dialog
-      .open<InvitePersonDialog, void, InvitationSent>(InvitePersonDialog, { autoFocus: 'first-tabbable' })
-      .afterClosed()
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe((sent) => sent && this.reportInvitation(sent, 'added'));
+    this.dialogs.open(InvitePersonDialog, undefined, (sent: InvitationSent) => this.reportInvitation(sent, 'added'));
   }
 
   protected changePerson(row: PersonRow): void {
     const person = this.personOf(row);
     if (!person) return;
     this.refusal.set(null);
-    this.dialog
-      .open<ChangePersonDialog, OperatorPerson, OperatorPerson>(ChangePersonDialog, { data: person, autoFocus: 'first-tabbable' })
-      .afterClosed()
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe((saved) => {
-        if (!saved) return;
-        this.keep(saved);
-        this.snackBar.open(`${saved.displayName} is saved.`, 'Close', { duration: 5000 });
-      });
+    this.dialogs.open(ChangePersonDialog, person, (saved: OperatorPerson) => {
+      this.keep(saved);
+      this.dialogs.note(`${saved.displayName} is saved.`);
+    });
   }
 
   protected lockPerson(row: PersonRow): void {
@@ -117,16 +102,12 @@ export class PeoplePage {
     this.refusal.set(null);
   }
 
-  protected filterPeople(text: string): void {
-    this.table.filter(text);
-  }
-
   private act<T>(request: Observable<T>, succeeded: (answer: T) => string | null): void {
     this.refusal.set(null);
     request.pipe(takeUntilDestroyed(this.destroyRef)).subscribe({
       next: (answer) => {
         const sentence = succeeded(answer);
-        if (sentence) this.snackBar.open(sentence, 'Close', { duration: 5000 });
+        if (sentence) this.dialogs.note(sentence);
       },
       error: (error: ApiRequestError) => this.refusal.set(error.message),
     });
@@ -141,7 +122,7 @@ export class PeoplePage {
       );
       return null;
     }
-    this.snackBar.open(`An invitation is on its way to ${sent.user.email}.`, 'Close', { duration: 5000 });
+    this.dialogs.note(`An invitation is on its way to ${sent.user.email}.`);
     return null;
   }
 
@@ -150,8 +131,6 @@ export class PeoplePage {
   }
 
   private keep(saved: OperatorPerson): void {
-    this.everyone.update((list) =>
-      list.some((person) => person.id === saved.id) ? list.map((person) => (person.id === saved.id ? saved : person)) : [...list, saved],
-    );
+    this.everyone.update((list) => withSavedRecord(list, saved));
   }
 }

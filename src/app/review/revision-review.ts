@@ -1,12 +1,6 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { FormControl, ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { RouterLink } from '@angular/router';
+import { FormControl } from '@angular/forms';
 import { forkJoin, of, switchMap } from 'rxjs';
 import type { AttachmentView } from '../../../shared/api/attachments';
 import { reasonSchema, type RevisionView } from '../../../shared/api/revisions';
@@ -14,9 +8,11 @@ import { UNIT_SYMBOLS, isCanonical, statedUnitsOf } from '../../../shared/speed-
 import type { CoverageReport } from '../../../shared/card/coverage-report';
 import { contributionWords, fourEyesRefusal } from '../../../shared/speed-book/four-eyes';
 import { ApiRequestError } from '../core/api/api-request-error';
-import { CoverageApi, CoverageRefusal } from '../coverage/coverage-api';
+import { CoverageApi } from '../coverage/coverage-api';
+import { CoverageRefusal } from '../coverage/coverage-refusal';
 import { CoveragePicture } from '../coverage/coverage-picture';
 import { AuthService } from '../core/auth/auth-service';
+import { FORM_PAGE_IMPORTS } from '../core/forms/form-page-imports';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionContentView } from '../speed-books/revision-content-view';
 import { RevisionStatusChip } from '../speed-books/revision-status-chip';
@@ -38,13 +34,7 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
   selector: 'sw-revision-review',
   imports: [
     ProblemRetry,
-    ReactiveFormsModule,
-    RouterLink,
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatProgressBarModule,
+    FORM_PAGE_IMPORTS,
     RevisionContentView,
     RevisionStatusChip,
     UtcDatePipe,
@@ -153,8 +143,8 @@ export class RevisionReview {
 
   protected publishRevision(): void {
     const revision = this.revision();
-    if (!revision || this.ownRevision() || this.approveRefusal()) return;
-    this.act(this.coverageApi.approve(revision.id), (published) => `Revision ${published.number} is published and signed; it is now the current revision of ${this.book()?.title ?? 'its speed book'}.`);
+    if (!revision || this.approveRefusal()) return;
+    this.act(this.api.approve(revision.id), (published) => `Revision ${published.number} is published and signed; it is now the current revision of ${this.book()?.title ?? 'its speed book'}.`);
   }
 
   protected returnRevision(): void {

@@ -1,19 +1,13 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
-import { signal } from '@angular/core';
+import { HttpTestingController, TestRequest } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { Router, provideRouter } from '@angular/router';
+import { Router } from '@angular/router';
 import { smallCoverageReport } from '../../../shared/api/testing/coverage-fixtures';
 import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
-import { AuthService } from '../core/auth/auth-service';
 import { COVERAGE_PATHS } from '../coverage/coverage-api';
-import { revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/testing/revision-fixtures';
 import { REVISION_PATHS } from '../speed-books/revisions-api';
-import { LIVE_COVERAGE_DEBOUNCE_MS } from './live-coverage';
 import { RevisionEditor } from './revision-editor';
+import { DRAFT_ID, setUpRevisionEditor, type RevisionEditorHarness } from './testing/revision-editor-harness';
 
-const DRAFT_ID = 9;
 // Material forms under jsdom on this machine take several seconds per test.
 jest.setTimeout(30_000);
 
@@ -24,27 +18,16 @@ describe('RevisionEditor: envelope, speed classes, rule exceptions and the live 
   let backend: HttpTestingController;
   let page: HTMLElement;
 
+  let editor: RevisionEditorHarness;
+
   beforeEach(() => {
-    TestBed.configureTestingModule({
-      imports: [RevisionEditor],
-      providers: [
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        provideRouter([]),
-        { provide: AuthService, useValue: { user: signal(sessionUser('engineer')) } },
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-        { provide: LIVE_COVERAGE_DEBOUNCE_MS, useValue: 0 },
-      ],
-    });
-    backend = TestBed.inject(HttpTestingController);
-    fixture = TestBed.createComponent(RevisionEditor);
-    page = fixture.nativeElement;
+    editor = setUpRevisionEditor({ changeSummary: 'Envelope declared.', liveCoverageDebounceMs: 0 });
+    ({ fixture, backend, page } = editor);
   });
 
   afterEach(() => backend.verify());
 
-  const draft = (content: Content) =>
-    revisionView(content, { id: DRAFT_ID, number: 3, status: 'draft', approverId: null, approverName: null, publishedAt: null, submittedAt: null, contentSha256: null, changeSummary: 'Envelope declared.' });
+  const draft = (content: Record<string, unknown>) => editor.draft(content);
 
   const withEnvelope = (): Content => ({
     ...(demoPistonTrainerContent() as unknown as Content),
@@ -75,13 +58,7 @@ describe('RevisionEditor: envelope, speed classes, rule exceptions and the live 
   }
 
   async function openDraft(content: Content): Promise<void> {
-    fixture.componentRef.setInput('revisionId', DRAFT_ID);
-    await fixture.whenStable();
-    backend.expectOne(REVISION_PATHS.revision(DRAFT_ID)).flush({ revision: draft(content) });
-    backend.expectOne(REVISION_PATHS.speedBook(1)).flush({ speedBook: speedBook([revisionSummary({ id: DRAFT_ID, number: 3, status: 'draft' }), revisionSummary()]) });
-    await fixture.whenStable();
-    backend.expectOne(REVISION_PATHS.attachments(DRAFT_ID)).flush({ attachments: [] });
-    await fixture.whenStable();
+    await editor.openDraft(content, fixture);
   }
 
   const field = (path: string) => page.querySelector<HTMLInputElement>(`[data-path="${path}"]`)!;
@@ -222,7 +199,7 @@ describe('RevisionEditor: envelope, speed classes, rule exceptions and the live 
     patch.flush({ revision: draft((patch.request.body as { content: Content }).content) });
     await fixture.whenStable();
     backend
-      .expectOne({ method: 'POST', url: COVERAGE_PATHS.submit(DRAFT_ID) })
+      .expectOne({ method: 'POST', url: REVISION_PATHS.step(DRAFT_ID, 'submit') })
       .flush(
         { error: { code: 'coverage_failed', message: 'The book gives no card at 1 point of its envelope and breaks 1 rule without a recorded exception.', report: smallCoverageReport() } },
         { status: 422, statusText: 'Unprocessable Content' },

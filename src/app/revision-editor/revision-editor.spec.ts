@@ -1,17 +1,12 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { signal } from '@angular/core';
+import { HttpTestingController } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { Router, provideRouter } from '@angular/router';
+import { Router } from '@angular/router';
 import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
-import { AuthService } from '../core/auth/auth-service';
-import { revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/testing/revision-fixtures';
+import { revisionSummary, speedBook } from '../speed-books/testing/revision-fixtures';
 import { REVISION_PATHS } from '../speed-books/revisions-api';
-import { LIVE_COVERAGE_DEBOUNCE_MS } from './live-coverage';
 import { RevisionEditor } from './revision-editor';
+import { DRAFT_ID, setUpRevisionEditor, type RevisionEditorHarness } from './testing/revision-editor-harness';
 
-const DRAFT_ID = 9;
 // Material forms under jsdom on this machine take several seconds per test.
 jest.setTimeout(30_000);
 
@@ -20,37 +15,23 @@ describe('RevisionEditor', () => {
   let backend: HttpTestingController;
   let page: HTMLElement;
 
+  let editor: RevisionEditorHarness;
+
   beforeEach(() => {
-    TestBed.configureTestingModule({
-      imports: [RevisionEditor],
-      providers: [
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        provideRouter([]),
-        { provide: AuthService, useValue: { user: signal(sessionUser('engineer')) } },
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-        // The live coverage sweep has its own tests (revision-editor-coverage.spec.ts); here it never fires.
-        { provide: LIVE_COVERAGE_DEBOUNCE_MS, useValue: 3_600_000 },
-      ],
+    editor = setUpRevisionEditor({
+      changeSummary: 'Flaps-up table from the calibration flight.',
+      // The live coverage sweep has its own tests (revision-editor-coverage.spec.ts); here it never fires.
+      liveCoverageDebounceMs: 3_600_000,
     });
-    backend = TestBed.inject(HttpTestingController);
-    fixture = TestBed.createComponent(RevisionEditor);
-    page = fixture.nativeElement;
+    ({ fixture, backend, page } = editor);
   });
 
   afterEach(() => backend.verify());
 
-  const draft = (content: Record<string, unknown>) =>
-    revisionView(content, { id: DRAFT_ID, number: 3, status: 'draft', approverId: null, approverName: null, publishedAt: null, submittedAt: null, contentSha256: null, changeSummary: 'Flaps-up table from the calibration flight.' });
+  const draft = (content: Record<string, unknown>) => editor.draft(content);
 
   async function openDraft(content: Record<string, unknown>): Promise<void> {
-    fixture.componentRef.setInput('revisionId', DRAFT_ID);
-    await fixture.whenStable();
-    backend.expectOne(REVISION_PATHS.revision(DRAFT_ID)).flush({ revision: draft(content) });
-    backend.expectOne(REVISION_PATHS.speedBook(1)).flush({ speedBook: speedBook([revisionSummary({ id: DRAFT_ID, number: 3, status: 'draft' }), revisionSummary()]) });
-    await fixture.whenStable();
-    backend.expectOne(REVISION_PATHS.attachments(DRAFT_ID)).flush({ attachments: [] });
-    await fixture.whenStable();
+    await editor.openDraft(content, fixture);
   }
 
   const field = (path: string) => page.querySelector<HTMLInputElement>(`[data-path="${path}"]`)!;

@@ -1,20 +1,17 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, computed, effect, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { FormControl, ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
+import { FormControl } from '@angular/forms';
 import { MatDialog } from '@angular/material/dialog';
-import { MAT_FORM_FIELD_DEFAULT_OPTIONS, MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MAT_FORM_FIELD_DEFAULT_OPTIONS } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
-import { Router, RouterLink } from '@angular/router';
+import { Router } from '@angular/router';
 import { Observable, Subscription, forkJoin, map, of, switchMap } from 'rxjs';
 import { createRevisionSchema, type RevisionView } from '../../../shared/api/revisions';
 import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
 import { AIRCRAFT_CATEGORIES, SPEED_BASES, SPEED_PHASES } from '../../../shared/speed-book/revision-content';
 import { ApiRequestError } from '../core/api/api-request-error';
-import { CoverageApi, CoverageRefusal } from '../coverage/coverage-api';
+import { CoverageRefusal } from '../coverage/coverage-refusal';
+import { FORM_PAGE_IMPORTS } from '../core/forms/form-page-imports';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionStatusChip } from '../speed-books/revision-status-chip';
 import { RevisionsApi, type SpeedBook } from '../speed-books/revisions-api';
@@ -43,13 +40,7 @@ import { TabulatedSpeedGrid } from './tabulated-speed-grid';
 @Component({
   selector: 'sw-revision-editor',
   imports: [
-    ReactiveFormsModule,
-    RouterLink,
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatProgressBarModule,
+    FORM_PAGE_IMPORTS,
     MatSelectModule,
     RevisionStatusChip,
     PositionErrorEditor,
@@ -68,7 +59,6 @@ import { TabulatedSpeedGrid } from './tabulated-speed-grid';
 })
 export class RevisionEditor {
   private readonly api = inject(RevisionsApi);
-  private readonly coverageApi = inject(CoverageApi);
   private readonly coverage = inject(LiveCoverage);
   private readonly router = inject(Router);
   private readonly dialog = inject(MatDialog);
@@ -162,7 +152,7 @@ export class RevisionEditor {
     this.form.group.markAllAsTouched();
     this.changeSummary.markAsTouched();
     this.persist()
-      .pipe(switchMap((saved) => (saved ? this.coverageApi.submit(saved.id) : of(null))))
+      .pipe(switchMap((saved) => (saved ? this.api.submit(saved.id) : of(null))))
       .subscribe({
         next: (submitted) => {
           if (!submitted) return;

@@ -1,19 +1,15 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController } from '@angular/common/http/testing';
 import { ChangeDetectionStrategy, Component, signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { provideRouter } from '@angular/router';
 import fc from 'fast-check';
 import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
 import { STATED_DECIMALS, toCanonical, type StatedQuantity, type StatedUnits } from '../../../shared/speed-book/stated-units';
-import { AuthService } from '../core/auth/auth-service';
-import { revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/testing/revision-fixtures';
 import { REVISION_PATHS } from '../speed-books/revisions-api';
 import { RevisionEditor } from './revision-editor';
 import { StatedUnitInput } from './stated-unit-input';
 import { StatedUnitsContext } from './stated-units-context';
+import { DRAFT_ID, setUpRevisionEditor, type RevisionEditorHarness } from './testing/revision-editor-harness';
 
 // Material forms under jsdom on this machine take several seconds per test.
 jest.setTimeout(60_000);
@@ -95,40 +91,23 @@ describe('StatedUnitInput', () => {
 });
 
 describe('RevisionEditor in the flight manual’s units', () => {
-  const DRAFT_ID = 9;
   let fixture: ComponentFixture<RevisionEditor>;
   let backend: HttpTestingController;
   let page: HTMLElement;
 
+  let editor: RevisionEditorHarness;
+
   beforeEach(() => {
-    TestBed.configureTestingModule({
-      imports: [RevisionEditor],
-      providers: [
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        provideRouter([]),
-        { provide: AuthService, useValue: { user: signal(sessionUser('engineer')) } },
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-      ],
-    });
-    backend = TestBed.inject(HttpTestingController);
-    fixture = TestBed.createComponent(RevisionEditor);
-    page = fixture.nativeElement;
+    editor = setUpRevisionEditor({ changeSummary: 'Trainer book from the 1968 owner’s manual (mph).' });
+    ({ fixture, backend, page } = editor);
   });
 
   afterEach(() => backend.verify());
 
-  const draft = (content: Record<string, unknown>) =>
-    revisionView(content, { id: DRAFT_ID, number: 3, status: 'draft', approverId: null, approverName: null, publishedAt: null, submittedAt: null, contentSha256: null, changeSummary: 'Trainer book from the 1968 owner’s manual (mph).' });
+  const draft = (content: Record<string, unknown>) => editor.draft(content);
 
   async function openDraft(content: Record<string, unknown>): Promise<void> {
-    fixture.componentRef.setInput('revisionId', DRAFT_ID);
-    await fixture.whenStable();
-    backend.expectOne(REVISION_PATHS.revision(DRAFT_ID)).flush({ revision: draft(content) });
-    backend.expectOne(REVISION_PATHS.speedBook(1)).flush({ speedBook: speedBook([revisionSummary({ id: DRAFT_ID, number: 3, status: 'draft' }), revisionSummary()]) });
-    await fixture.whenStable();
-    backend.expectOne(REVISION_PATHS.attachments(DRAFT_ID)).flush({ attachments: [] });
-    await fixture.whenStable();
+    await editor.openDraft(content, fixture);
   }
 
   const field = (path: string) => page.querySelector<HTMLInputElement>(`[data-path="${path}"]`)!;

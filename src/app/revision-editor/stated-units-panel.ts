@@ -10,6 +10,12 @@ export type StatedUnitsGroup = FormGroup<{ weight: FormControl<StatedWeightUnit>
 const WEIGHT_WORDS: Record<StatedWeightUnit, string> = { kg: 'kilograms (kg)', lb: 'pounds (lb)' };
 const SPEED_WORDS: Record<StatedSpeedUnit, string> = { kt: 'knots (kt)', mph: 'miles per hour (mph)', kmh: 'kilometres per hour (km/h)' };
 
+/** The two unit choices, weight then speed, each with its units in the words the select shows. */
+const UNIT_KINDS = [
+  { name: 'weight', label: 'Weights in', units: STATED_WEIGHT_UNITS.map((value) => ({ value, words: WEIGHT_WORDS[value] })) },
+  { name: 'speed', label: 'Speeds in', units: STATED_SPEED_UNITS.map((value) => ({ value, words: SPEED_WORDS[value] })) },
+] as const;
+
 /**
  * The units the flight manual prints, chosen per revision. Every weight and speed of the form is
  * typed and shown in them; the content stores kg and kt whatever is chosen, so switching shows
@@ -20,22 +26,16 @@ const SPEED_WORDS: Record<StatedSpeedUnit, string> = { kt: 'knots (kt)', mph: 'm
   imports: [ReactiveFormsModule, MatFormFieldModule, MatSelectModule],
   template: `
     <div class="fields" [formGroup]="units()" data-testid="stated-units">
-      <mat-form-field appearance="outline">
-        <mat-label>Weights in</mat-label>
-        <mat-select formControlName="weight" data-path="statedUnits.weight">
-          @for (unit of weightUnits; track unit) {
-            <mat-option [value]="unit">{{ weightWords[unit] }}</mat-option>
-          }
-        </mat-select>
-      </mat-form-field>
-      <mat-form-field appearance="outline">
-        <mat-label>Speeds in</mat-label>
-        <mat-select formControlName="speed" data-path="statedUnits.speed">
-          @for (unit of speedUnits; track unit) {
-            <mat-option [value]="unit">{{ speedWords[unit] }}</mat-option>
-          }
-        </mat-select>
-      </mat-form-field>
+      @for (kind of kinds; track kind.name) {
+        <mat-form-field appearance="outline">
+          <mat-label>{{ kind.label }}</mat-label>
+          <mat-select [formControlName]="kind.name" [attr.data-path]="'statedUnits.' + kind.name">
+            @for (unit of kind.units; track unit.value) {
+              <mat-option [value]="unit.value">{{ unit.words }}</mat-option>
+            }
+          </mat-select>
+        </mat-form-field>
+      }
     </div>
     <p class="muted">
       Type every weight and speed below as the flight manual prints it, in {{ symbols[units().controls.weight.value] }} and
@@ -63,9 +63,6 @@ const SPEED_WORDS: Record<StatedSpeedUnit, string> = { kt: 'knots (kt)', mph: 'm
 export class StatedUnitsPanel {
   readonly units = input.required<StatedUnitsGroup>();
 
-  protected readonly weightUnits = STATED_WEIGHT_UNITS;
-  protected readonly speedUnits = STATED_SPEED_UNITS;
-  protected readonly weightWords = WEIGHT_WORDS;
-  protected readonly speedWords = SPEED_WORDS;
+  protected readonly kinds = UNIT_KINDS;
   protected readonly symbols = UNIT_SYMBOLS;
 }

@@ -1,10 +1,9 @@
-import { ChangeDetectionStrategy, Component, effect, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import type { RevisionView } from '../../../shared/api/revisions';
-import { requestState } from '../core/api/request-state';
+import { addressedRecord } from '../core/api/addressed-record';
 import { RevisionContentView } from './revision-content-view';
 import { RevisionStatusChip } from './revision-status-chip';
 import { RevisionsApi } from './revisions-api';
@@ -25,24 +24,16 @@ export class RevisionPage {
   /** NaN when the address does not name a revision. */
   readonly revisionId = input.required<number>();
 
-  private readonly request = requestState();
-  protected readonly loading = this.request.busy;
-  protected readonly problem = this.request.problem;
-  protected readonly revision = signal<RevisionView | null>(null);
-
-  constructor() {
-    effect(() => this.loadRevision(this.revisionId()));
-  }
+  private readonly record = addressedRecord(
+    this.revisionId,
+    (id) => this.api.revision(id),
+    'This address does not name a revision. Choose one from its speed book.',
+  );
+  protected readonly loading = this.record.loading;
+  protected readonly problem = this.record.problem;
+  protected readonly revision = this.record.value;
 
   protected reload(): void {
-    this.loadRevision(this.revisionId());
-  }
-
-  private loadRevision(id: number): void {
-    if (!Number.isFinite(id)) {
-      this.request.showProblem('This address does not name a revision. Choose one from its speed book.');
-      return;
-    }
-    this.request.run(this.api.revision(id), (revision) => this.revision.set(revision));
+    this.record.reload();
   }
 }

@@ -17,6 +17,7 @@ import { speedTableUploadSchema, type SpeedTableUploadResponse } from '../../../
 import { ApiClient } from '../core/api/api-client';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { parseResponse } from '../core/api/parse-response';
+import { SWEEP_TIMEOUT_MS, coverageRefusalOr } from '../coverage/coverage-refusal';
 
 export type SpeedBook = z.infer<typeof speedBookResponseSchema>['speedBook'];
 export type RevisionDiff = z.infer<typeof revisionDiffSchema>;
@@ -95,12 +96,14 @@ export class RevisionsApi {
     return this.api.patch(REVISION_PATHS.revision(id), change, revisionResponseSchema).pipe(revision);
   }
 
+  /** Sends a draft to review; fails with a `CoverageRefusal` when the envelope proof fails. */
   submit(id: number): Observable<RevisionView> {
-    return this.api.post(REVISION_PATHS.step(id, 'submit'), {}, revisionResponseSchema).pipe(revision);
+    return this.sweepingStep(REVISION_PATHS.step(id, 'submit'));
   }
 
+  /** Publishes and signs; publishing runs the envelope proof again and refuses the same way. */
   approve(id: number): Observable<RevisionView> {
-    return this.api.post(REVISION_PATHS.step(id, 'approve'), {}, revisionResponseSchema).pipe(revision);
+    return this.sweepingStep(REVISION_PATHS.step(id, 'approve'));
   }
 
   returnToAuthor(id: number, reason: string): Observable<RevisionView> {
@@ -149,6 +152,16 @@ export class RevisionsApi {
       timeout({ first: UPLOAD_TIMEOUT_MS }),
       map(() => undefined),
       catchError((error: unknown) => throwError(() => ApiRequestError.from(error))),
+    );
+  }
+
+  /** A step that runs the envelope sweep on the server: its time, and its 422 read as a `CoverageRefusal`. */
+  private sweepingStep(url: string): Observable<RevisionView> {
+    return this.http.post<unknown>(url, {}).pipe(
+      timeout({ first: SWEEP_TIMEOUT_MS }),
+      parseResponse(revisionResponseSchema),
+      revision,
+      catchError((error: unknown) => throwError(() => coverageRefusalOr(error))),
     );
   }
 

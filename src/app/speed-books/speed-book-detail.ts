@@ -1,20 +1,16 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { FormControl, ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { Router, RouterLink } from '@angular/router';
-import { forkJoin } from 'rxjs';
+import { FormControl } from '@angular/forms';
+import { Router } from '@angular/router';
+import { forkJoin, map } from 'rxjs';
 import type { AircraftTypeView } from '../../../shared/api/fleet';
 import { createRevisionSchema, reasonSchema, type RevisionSummary } from '../../../shared/api/revisions';
-import { can } from '../../../shared/auth/roles';
 import { REVISION_SCHEMA_VERSION } from '../../../shared/speed-book/revision-content';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { userMay } from '../core/auth/user-may';
+import { addressedRecord } from '../core/api/addressed-record';
 import { requestState } from '../core/api/request-state';
-import { AuthService } from '../core/auth/auth-service';
+import { FORM_PAGE_IMPORTS } from '../core/forms/form-page-imports';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionStatusChip } from './revision-status-chip';
 import { RevisionsApi, type SpeedBook } from './revisions-api';
@@ -24,18 +20,7 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
 /** One speed book: its current revision, its revision history, and the next step for the person's role. */
 @Component({
   selector: 'sw-speed-book-detail',
-  imports: [
-    ProblemRetry,
-    ReactiveFormsModule,
-    RouterLink,
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatProgressBarModule,
-    RevisionStatusChip,
-    UtcDatePipe,
-  ],
+  imports: [ProblemRetry, FORM_PAGE_IMPORTS, RevisionStatusChip, UtcDatePipe],
   templateUrl: './speed-book-detail.html',
   styleUrl: './speed-books.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -44,18 +29,24 @@ export class SpeedBookDetail {
   private readonly api = inject(RevisionsApi);
   private readonly router = inject(Router);
   private readonly destroyRef = inject(DestroyRef);
-  private readonly user = inject(AuthService).user;
 
   /** NaN when the address does not name a speed book. */
   readonly bookId = input.required<number>();
 
-  private readonly request = requestState();
-  protected readonly loading = this.request.busy;
-  protected readonly problem = this.request.problem;
-  protected readonly book = signal<SpeedBook | null>(null);
-  protected readonly type = signal<AircraftTypeView | null>(null);
-  protected readonly mayEdit = computed(() => this.userMay('edit-speed-books'));
-  protected readonly mayPublish = computed(() => this.userMay('publish-revisions'));
+  private readonly record = addressedRecord(
+    this.bookId,
+    (id) =>
+      forkJoin({ book: this.api.speedBook(id), types: this.api.aircraftTypes() }).pipe(
+        map(({ book, types }) => ({ book, type: types.find((t) => t.id === book.aircraftTypeId) ?? null })),
+      ),
+    'This address does not name a speed book. Choose one from the list.',
+  );
+  protected readonly loading = this.record.loading;
+  protected readonly problem = this.record.problem;
+  protected readonly book = computed<SpeedBook | null>(() => this.record.value()?.book ?? null);
+  protected readonly type = computed<AircraftTypeView | null>(() => this.record.value()?.type ?? null);
+  protected readonly mayEdit = userMay('edit-speed-books');
+  protected readonly mayPublish = userMay('publish-revisions');
   protected readonly openRevision = computed(() => this.book()?.revisions.find((r) => r.status === 'draft' || r.status === 'in_review') ?? null);
 
   protected readonly changeSummary = new FormControl('', { nonNullable: true, validators: zodValidator(createRevisionSchema.shape.changeSummary) });
@@ -68,12 +59,8 @@ export class SpeedBookDetail {
   protected readonly withdrawBusy = this.withdrawal.busy;
   protected readonly withdrawProblem = this.withdrawal.problem;
 
-  constructor() {
-    effect(() => this.loadSpeedBook(this.bookId()));
-  }
-
   protected reload(): void {
-    this.loadSpeedBook(this.bookId());
+    this.record.reload();
   }
 
   protected startDraft(): void {
@@ -121,17 +108,6 @@ export class SpeedBookDetail {
     );
   }
 
-  private loadSpeedBook(id: number): void {
-    if (!Number.isFinite(id)) {
-      this.request.showProblem('This address does not name a speed book. Choose one from the list.');
-      return;
-    }
-    this.request.run(forkJoin({ book: this.api.speedBook(id), types: this.api.aircraftTypes() }), ({ book, types }) => {
-      this.book.set(book);
-      this.type.set(types.find((t) => t.id === book.aircraftTypeId) ?? null);
-    });
-  }
-
   private emptyContent(): Record<string, unknown> {
     const type = this.type();
     return {
@@ -144,10 +120,5 @@ export class SpeedBookDetail {
       indicatorMarkingBasis: 'ias',
       notes: '',
     };
-  }
-
-  private userMay(capability: 'edit-speed-books' | 'publish-revisions'): boolean {
-    const user = this.user();
-    return user !== null && can(user.role, capability);
   }
 }

@@ -1,20 +1,15 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
-import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { FormControl, FormGroup } from '@angular/forms';
 import { MatSelectModule } from '@angular/material/select';
-import { Router, RouterLink } from '@angular/router';
+import { Router } from '@angular/router';
 import { forkJoin } from 'rxjs';
 import type { AircraftTypeView } from '../../../shared/api/fleet';
 import { createSpeedBookSchema, type SpeedBookSummary } from '../../../shared/api/revisions';
-import { can } from '../../../shared/auth/roles';
 import { ApiRequestError } from '../core/api/api-request-error';
+import { userMay } from '../core/auth/user-may';
 import { requestState } from '../core/api/request-state';
-import { AuthService } from '../core/auth/auth-service';
+import { FORM_PAGE_IMPORTS } from '../core/forms/form-page-imports';
 import { zodValidator } from '../core/forms/zod-validator';
 import { RevisionsApi } from './revisions-api';
 import { UtcDatePipe } from './utc-date-pipe';
@@ -23,18 +18,7 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
 /** The operator's speed books with their current published revision; engineers add one per type. */
 @Component({
   selector: 'sw-speed-book-list',
-  imports: [
-    ProblemRetry,
-    ReactiveFormsModule,
-    RouterLink,
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatProgressBarModule,
-    MatSelectModule,
-    UtcDatePipe,
-  ],
+  imports: [ProblemRetry, FORM_PAGE_IMPORTS, MatSelectModule, UtcDatePipe],
   templateUrl: './speed-book-list.html',
   styleUrl: './speed-books.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -43,17 +27,13 @@ export class SpeedBookList {
   private readonly api = inject(RevisionsApi);
   private readonly router = inject(Router);
   private readonly destroyRef = inject(DestroyRef);
-  private readonly user = inject(AuthService).user;
 
   private readonly request = requestState();
   protected readonly loading = this.request.busy;
   protected readonly problem = this.request.problem;
   protected readonly books = signal<readonly SpeedBookSummary[]>([]);
   protected readonly types = signal<readonly AircraftTypeView[]>([]);
-  protected readonly mayEdit = computed(() => {
-    const user = this.user();
-    return user !== null && can(user.role, 'edit-speed-books');
-  });
+  protected readonly mayEdit = userMay('edit-speed-books');
   /** A type has at most one speed book, so only types without one can get a new one. */
   protected readonly typesWithoutBook = computed(() => this.types().filter((type) => !this.books().some((book) => book.aircraftTypeId === type.id)));
   protected readonly creating = signal(false);

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { MatIconModule } from '@angular/material/icon';
+import { ProblemNote } from './problem-note';
 
 /**
  * The block a page shows when loading failed: the problem sentence, announced at once
@@ -9,22 +9,15 @@ import { MatIconModule } from '@angular/material/icon';
  */
 @Component({
   selector: 'sw-problem-retry',
-  imports: [MatButtonModule, MatIconModule],
+  imports: [MatButtonModule, ProblemNote],
   template: `
-    <div class="sw-problem" role="alert" [attr.data-testid]="blockTestId()">
-      <mat-icon>error</mat-icon>
-      <div>
-        <p [attr.data-testid]="testId()">{{ problem() }}</p>
-        <button mat-stroked-button type="button" (click)="retry.emit()">Try again</button>
-      </div>
-    </div>
+    <sw-problem-note [problem]="problem()" [testId]="testId()" [attr.data-testid]="blockTestId()">
+      <button mat-stroked-button type="button" (click)="retry.emit()">Try again</button>
+    </sw-problem-note>
   `,
   styles: `
     :host {
       display: block;
-    }
-    p {
-      margin: 0;
     }
     button {
       margin-top: 12px;

@@ -42,9 +42,12 @@ export class ListTableState<R extends ListTableRow> {
     this.sort.set(initialSort);
   }
 
+  /** How many rows there are before the filter. */
+  readonly total = computed(() => this.rows().length);
+
   /** "3 airframes", or "2 of 3 airframes match" while a filter hides some. */
   countSentence(singular: string, plural: string): string {
-    const total = this.rows().length;
+    const total = this.total();
     const matching = this.matching().length;
     const noun = total === 1 ? singular : plural;
     return matching === total ? `${total} ${noun}` : `${matching} of ${total} ${noun} match`;
