@@ -35,7 +35,8 @@ export function instanceSpec(name: string, port: number, rootPassword: string): 
   return { dir: join(projectRoot, '.data', `mariadb-${name}`), port, rootPassword };
 }
 
-function findProgram(name: string): string | undefined {
+/** The full path of `name` on PATH or in the usual system folders. */
+export function findProgram(name: string): string | undefined {
   const dirs = [...(process.env['PATH'] ?? '').split(':').filter((dir) => dir.startsWith('/')), ...SEARCH_PATH];
   return dirs.map((dir) => join(dir, name)).find((candidate) => existsSync(candidate));
 }

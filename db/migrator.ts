@@ -12,6 +12,7 @@ import * as syncChangesAndCurrencyLimit from './migrations/20261202-0601-sync-ch
 import * as cardIssueCodes from './migrations/20261202-0701-card-issue-codes';
 import * as revisionContributors from './migrations/20261205-0801-revision-contributors';
 import * as userAddressPerOperator from './migrations/20261205-0802-user-address-per-operator';
+import * as syncStampsAtCommit from './migrations/20261205-0901-sync-stamps-at-commit';
 
 
 /**
@@ -31,6 +32,7 @@ const MIGRATIONS: { name: string; module: { up: Migration; down: Migration } }[]
   { name: '20261202-0701-card-issue-codes', module: cardIssueCodes },
   { name: '20261205-0801-revision-contributors', module: revisionContributors },
   { name: '20261205-0802-user-address-per-operator', module: userAddressPerOperator },
+  { name: '20261205-0901-sync-stamps-at-commit', module: syncStampsAtCommit },
 ];
 
 export function createMigrator(sequelize: Sequelize, logger: Umzug<QueryInterface>['options']['logger'] = undefined): Umzug<QueryInterface> {

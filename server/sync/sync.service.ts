@@ -10,36 +10,44 @@ import { database } from '../transactions';
 /** Only what a device may hold: never drafts or revisions in review. */
 const SYNCED_STATUSES = ['published', 'superseded', 'withdrawn'] as const;
 
+type SyncedTable = 'aircraft_types' | 'airframes' | 'revisions';
+
 interface Changed {
+  table: SyncedTable;
   id: number;
   change_seq: number;
 }
 
-/** Ids and change numbers of the operator's rows of `table` changed after `since`. */
-async function changedRows(table: 'aircraft_types' | 'airframes' | 'revisions', operatorId: number, since: number): Promise<Changed[]> {
+/**
+ * Ids and change numbers of the operator's synced rows changed after `since`, in ONE statement:
+ * one read view, so the new cursor (the largest number answered) never passes a change that a
+ * separate query on another table, run a moment earlier, did not see yet.
+ */
+async function changedRows(operatorId: number, since: number): Promise<Changed[]> {
   // A device refuses what it cannot verify, so a row without its signature is never sent.
-  const statusFilter =
-    table === 'revisions'
-      ? `AND status IN (${SYNCED_STATUSES.map(() => '?').join(', ')}) AND signature IS NOT NULL AND content_sha256 IS NOT NULL AND signing_key_id IS NOT NULL AND published_at IS NOT NULL`
-      : '';
-  return database().query<Changed>(`SELECT id, change_seq FROM ${table} WHERE operator_id = ? AND change_seq > ? ${statusFilter} ORDER BY change_seq`, {
-    replacements: [operatorId, since, ...(table === 'revisions' ? SYNCED_STATUSES : [])],
-    type: QueryTypes.SELECT,
-  });
+  const signed = 'signature IS NOT NULL AND content_sha256 IS NOT NULL AND signing_key_id IS NOT NULL AND published_at IS NOT NULL';
+  const statuses = SYNCED_STATUSES.map(() => '?').join(', ');
+  return database().query<Changed>(
+    `SELECT 'aircraft_types' AS \`table\`, id, change_seq FROM aircraft_types WHERE operator_id = ? AND change_seq > ?
+     UNION ALL SELECT 'airframes', id, change_seq FROM airframes WHERE operator_id = ? AND change_seq > ?
+     UNION ALL SELECT 'revisions', id, change_seq FROM revisions WHERE operator_id = ? AND change_seq > ? AND status IN (${statuses}) AND ${signed}
+     ORDER BY change_seq`,
+    { replacements: [operatorId, since, operatorId, since, operatorId, since, ...SYNCED_STATUSES], type: QueryTypes.SELECT },
+  );
 }
 
 /** What changed for the actor's operator since `cursor` (everything without one). */
 export async function syncSince(actor: Actor, cursor: string | undefined, signingKeySecret: string): Promise<SyncResponse> {
   const since = decodeCursor(cursor);
   const { operatorId } = actor;
-  const [types, frames, revs, operator, key] = await Promise.all([
-    changedRows('aircraft_types', operatorId, since),
-    changedRows('airframes', operatorId, since),
-    changedRows('revisions', operatorId, since),
+  const [changed, operator, key] = await Promise.all([
+    changedRows(operatorId, since),
     Operator.findByPk(operatorId, { rejectOnEmpty: true }),
     publicSigningKey(operatorId, signingKeySecret, actor),
   ]);
-  const high = Math.max(since, ...[...types, ...frames, ...revs].map((row) => Number(row.change_seq)));
+  const high = Math.max(since, ...changed.map((row) => Number(row.change_seq)));
+  const ofTable = (table: SyncedTable) => changed.filter((row) => row.table === table);
+  const [types, frames, revs] = [ofTable('aircraft_types'), ofTable('airframes'), ofTable('revisions')];
 
   const idsOf = (rows: Changed[]) => rows.map((row) => row.id);
   const [aircraftTypes, airframes, revisions] = await Promise.all([
