@@ -52,6 +52,11 @@ export function nodeConfig(node: GaleraNodeLayout, all: GaleraNodeLayout[]): str
     `wsrep-provider-options="gmcast.listen_addr=tcp://127.0.0.1:${node.groupPort};ist.recv_addr=127.0.0.1:${node.istPort};gcache.size=128M"`,
     'wsrep-sst-method=rsync',
     `wsrep-sst-receive-address=127.0.0.1:${node.sstPort}`,
+    // Read-your-writes across nodes: a read waits until its node has applied every transaction
+    // committed in the cluster before it started (MariaDB's wsrep_sync_wait, 1 = reads). Without
+    // it, a session written through one instance's node can be missing a moment later on another
+    // node, and a request routed there is answered "sign in".
+    'wsrep-sync-wait=1',
     // An autocommit statement that loses certification is retried by the node itself.
     'wsrep-retry-autocommit=4',
     '',
