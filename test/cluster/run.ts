@@ -9,6 +9,7 @@ import { randomUUID } from 'node:crypto';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { createSequelize } from '../../db/connection';
 import { localSecrets } from '../../db/local';
+import { clusterLayout } from '../../db/cluster/cluster-layout';
 import { appPid, startApp, stopApp, waitListening } from '../../db/cluster/app-instances';
 import { nodePid, stopNode, waitSynced } from '../../db/cluster/galera-node';
 import { startCluster, startNode, stopCluster } from '../../db/cluster/local-cluster';
@@ -199,7 +200,7 @@ const scenarios: [string, (world: World) => Promise<void>][] = [
   [
     'SIGKILL of a Galera node during a card-log batch and a publication: served on two nodes, rejoins, nothing lost, doubled or half-published',
     async (world) => {
-      const { layout } = await import('../../db/cluster/cluster-layout').then((m) => ({ layout: m.clusterLayout() }));
+      const layout = clusterLayout();
       const victim = layout.nodes[1]!; // instance 2 writes to it
       const revision = await submittedRevision(world);
       const { id } = revision;
@@ -208,35 +209,36 @@ const scenarios: [string, (world: World) => Promise<void>][] = [
       await Promise.all([approver.signIn(email('approver'), DEFAULT_DEMO_PASSWORD), pilot.signIn(email('pilot'), DEFAULT_DEMO_PASSWORD)]);
       const entries = await world.entries(60);
       try {
-      const inFlight = Promise.all([
-        approver.send('POST', `/api/revisions/${id}/approve`, undefined, undefined, 15_000),
-        ...[0, 1, 2].map((i) => pilot.send('POST', '/api/card-issues', { entries: entries.slice(i * 20, i * 20 + 20) }, undefined, 15_000)),
-      ]);
-      await sleep(25);
-      await stopNode(victim, { kill: true });
-      const [approve] = await inFlight;
-      // Still served: the two other nodes keep the quorum once they have evicted the dead one
-      // (Galera's evs.suspect_timeout, 5 s by default), so the instances on them answer again.
-      const killedAt = Date.now();
-      for (const base of [world.instanceUrls[0]!, world.instanceUrls[2]!]) {
-        let health = await new ClusterClient(base).send('GET', '/api/health');
-        while (health.status !== 200 && Date.now() - killedAt < 30_000) {
-          await sleep(250);
-          health = await new ClusterClient(base).send('GET', '/api/health');
+        const inFlight = Promise.all([
+          approver.send('POST', `/api/revisions/${id}/approve`, undefined, undefined, 15_000),
+          ...[0, 1, 2].map((i) => pilot.send('POST', '/api/card-issues', { entries: entries.slice(i * 20, i * 20 + 20) }, undefined, 15_000)),
+        ]);
+        await sleep(25);
+        await stopNode(victim, { kill: true });
+        const [approve, ...batches] = await inFlight;
+        console.log(`      (in flight at the kill: approval ${approve.status}, card-log batches ${batches.map((b) => b.status).join(', ')})`);
+        // Still served: the two other nodes keep the quorum once they have evicted the dead one
+        // (Galera's evs.suspect_timeout, 5 s by default), so the instances on them answer again.
+        const killedAt = Date.now();
+        for (const base of [world.instanceUrls[0]!, world.instanceUrls[2]!]) {
+          let health = await new ClusterClient(base).send('GET', '/api/health');
+          while (health.status !== 200 && Date.now() - killedAt < 30_000) {
+            await sleep(250);
+            health = await new ClusterClient(base).send('GET', '/api/health');
+          }
+          check(health.status === 200, `${base} health answered ${health.status} 30 s after a node went down`);
         }
-        check(health.status === 200, `${base} health answered ${health.status} 30 s after a node went down`);
-      }
-      console.log(`      (the two remaining nodes served again ${((Date.now() - killedAt) / 1000).toFixed(1)} s after the kill)`);
-      // The clients try again through the load balancer, as the app's outbox and the approver would.
-      const again = new ClusterClient(world.lb);
-      await again.signIn(email('approver'), DEFAULT_DEMO_PASSWORD);
-      if (approve.status !== 200) {
-        const retry = await again.send('POST', `/api/revisions/${id}/approve`);
-        check(retry.status === 200 || retry.status === 409, `the approval's retry answered ${retry.status}`);
-      }
-      const device = new ClusterClient(world.instanceUrls[0]!);
-      await device.signIn(email('pilot'), DEFAULT_DEMO_PASSWORD);
-      await deliver(device, entries);
+        console.log(`      (the two remaining nodes served again ${((Date.now() - killedAt) / 1000).toFixed(1)} s after the kill)`);
+        // The clients try again through the load balancer, as the app's outbox and the approver would.
+        const again = new ClusterClient(world.lb);
+        await again.signIn(email('approver'), DEFAULT_DEMO_PASSWORD);
+        if (approve.status !== 200) {
+          const retry = await again.send('POST', `/api/revisions/${id}/approve`);
+          check(retry.status === 200 || retry.status === 409, `the approval's retry answered ${retry.status}`);
+        }
+        const device = new ClusterClient(world.instanceUrls[0]!);
+        await device.signIn(email('pilot'), DEFAULT_DEMO_PASSWORD);
+        await deliver(device, entries);
       } finally {
         // The node comes back and catches up by state transfer.
         await startNode(layout, victim, 3);
@@ -252,23 +254,24 @@ const scenarios: [string, (world: World) => Promise<void>][] = [
   [
     'SIGKILL of a server instance mid-request: nginx retries the reads, the outbox delivers the writes',
     async (world) => {
-      const { clusterLayout } = await import('../../db/cluster/cluster-layout');
       const layout = clusterLayout();
       const victim = layout.apps.at(-1)!;
       const pilot = new ClusterClient(world.lb);
       await pilot.signIn(email('pilot'), DEFAULT_DEMO_PASSWORD);
       const entries = await world.entries(40);
       try {
-      const reads = Promise.all(Array.from({ length: 30 }, () => pilot.send('GET', '/api/sync')));
-      const writes = Promise.all([0, 1, 2, 3].map((i) => pilot.send('POST', '/api/card-issues', { entries: entries.slice(i * 10, i * 10 + 10) })));
-      await sleep(30);
-      await stopApp(victim, { kill: true });
-      const readAnswers = await reads;
-      await writes;
-      check(readAnswers.every((answer) => answer.status === 200), `reads answered ${readAnswers.map((a) => a.status).join(',')}`);
-      await deliver(pilot, entries);
-      const [stored] = await onEveryNode(world, (node) => countStored(node, entries.map((e) => e.id)));
-      check(stored!.rows === 40 && stored!.codes === 40, `stored ${stored!.rows} entries with ${stored!.codes} codes, expected 40`);
+        const reads = Promise.all(Array.from({ length: 30 }, () => pilot.send('GET', '/api/sync')));
+        const writes = Promise.all([0, 1, 2, 3].map((i) => pilot.send('POST', '/api/card-issues', { entries: entries.slice(i * 10, i * 10 + 10) })));
+        await sleep(30);
+        await stopApp(victim, { kill: true });
+        const readAnswers = await reads;
+        const writeAnswers = await writes;
+        const servedBy = new Set(readAnswers.map((answer) => answer.upstream));
+        console.log(`      (reads answered by ${[...servedBy].join(' | ')}; card-log batches in flight answered ${writeAnswers.map((a) => a.status).join(', ')})`);
+        check(readAnswers.every((answer) => answer.status === 200), `reads answered ${readAnswers.map((a) => a.status).join(',')}`);
+        await deliver(pilot, entries);
+        const [stored] = await onEveryNode(world, (node) => countStored(node, entries.map((e) => e.id)));
+        check(stored!.rows === 40 && stored!.codes === 40, `stored ${stored!.rows} entries with ${stored!.codes} codes, expected 40`);
       } finally {
         startApp(layout, victim, localSecrets());
         await waitListening(victim);
@@ -279,7 +282,6 @@ const scenarios: [string, (world: World) => Promise<void>][] = [
 
 async function main(): Promise<number> {
   const started = Date.now();
-  const { clusterLayout } = await import('../../db/cluster/cluster-layout');
   const layout = clusterLayout();
   const wasRunning = layout.nodes.every((node) => nodePid(node)) && layout.apps.every((app) => appPid(app));
   const cluster = await startCluster((line) => console.log(`\u203a ${line}`));
