@@ -8,6 +8,8 @@
  * waiting until every node reports `wsrep_cluster_size` = 3 and `wsrep_local_state_comment` =
  * Synced. Stop is the reverse, leaving node 1 last so that it is the one safe to bootstrap.
  */
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { createSequelize } from '../connection';
 import { createDatabase } from '../instance';
 import { localSecrets } from '../local';
@@ -15,7 +17,7 @@ import { createMigrator } from '../migrator';
 import { appPid, startApp, stopApp, waitListening } from './app-instances';
 import { clusterLayout, type ClusterLayout, type GaleraNodeLayout } from './cluster-layout';
 import { CLUSTER_NEEDS, ensureDebianPackages } from './debian-packages';
-import { launchNode, markSafeToBootstrap, nodeInstance, nodePid, nodeState, safeToBootstrap, savedSeqno, stopNode, waitSynced } from './galera-node';
+import { isAlive, launchNode, markSafeToBootstrap, nodeInstance, nodePid, nodeState, safeToBootstrap, savedSeqno, stopNode, waitSynced } from './galera-node';
 import { startLoadBalancer, stopLoadBalancer } from './load-balancer';
 
 export interface StartedCluster {
@@ -68,9 +70,36 @@ export async function startGalera(layout: ClusterLayout, log: (line: string) => 
   for (const node of layout.nodes) await waitSynced(node, rootPassword, layout.nodes.length);
 }
 
+/**
+ * One start at a time: a second `cluster:start` (or `test:cluster`) while one is bootstrapping
+ * would start nodes and migrate twice. The lock file holds the starting process's pid; a lock
+ * left by a process that is gone is taken over.
+ */
+function takeStartLock(layout: ClusterLayout): () => void {
+  mkdirSync(layout.dir, { recursive: true });
+  const file = join(layout.dir, 'start.lock');
+  if (existsSync(file)) {
+    const holder = Number.parseInt(readFileSync(file, 'utf8'), 10);
+    if (Number.isInteger(holder) && holder > 0 && holder !== process.pid && isAlive(holder)) {
+      throw new Error(`Another start of the local cluster is running (process ${holder}); wait for it, or stop it.`);
+    }
+  }
+  writeFileSync(file, String(process.pid));
+  return () => rmSync(file, { force: true });
+}
+
 /** Everything: nodes, database and user, migrations (once), instances, load balancer. */
 export async function startCluster(log: (line: string) => void = console.log): Promise<StartedCluster> {
   const layout = clusterLayout();
+  const release = takeStartLock(layout);
+  try {
+    return await startEverything(layout, log);
+  } finally {
+    release();
+  }
+}
+
+async function startEverything(layout: ClusterLayout, log: (line: string) => void): Promise<StartedCluster> {
   ensureDebianPackages(CLUSTER_NEEDS, log);
   await startGalera(layout, log);
   const secrets = localSecrets();
