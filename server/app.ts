@@ -19,6 +19,7 @@ import { MariaDbRateLimitStore } from './auth/rate-limit-store';
 import { jsonBoundsBreach, REQUEST_BODY_BOUNDS } from '../shared/api/json-bounds';
 import { absoluteSessionLifetime } from './auth/session-lifetime';
 import { databaseReadUrls, type ServerConfig } from './config';
+import { readSessionsFromPrimary } from './auth/session-reads-on-primary';
 import { healthRoutes } from './health/health.routes';
 import { DomainError } from './errors/domain-error';
 import { createOutbox, setOutbox } from './mail/outbox';
@@ -140,6 +141,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
     expiration: SESSION_HOURS * 3600_000,
     checkExpirationInterval: 15 * 60_000,
   });
+  readSessionsFromPrimary(sequelize);
 
   app.use(
     '/api',

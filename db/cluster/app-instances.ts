@@ -43,8 +43,9 @@ export function startApp(layout: ClusterLayout, app: AppInstanceLayout, secrets:
   if (appPid(app)) return;
   mkdirSync(app.dir, { recursive: true });
   mkdirSync(layout.attachmentsDir, { recursive: true });
+  const { DATABASE_READ_URLS: _notInherited, ...inherited } = process.env;
   const env: NodeJS.ProcessEnv = {
-    ...process.env,
+    ...inherited,
     PATH: `${join(projectRoot, 'node_modules', '.bin')}:${process.env['PATH'] ?? ''}`,
     NODE_ENV: 'production',
     HOST: '127.0.0.1',
@@ -58,7 +59,6 @@ export function startApp(layout: ClusterLayout, app: AppInstanceLayout, secrets:
     LOG_LEVEL: process.env['CLUSTER_LOG_LEVEL'] ?? 'warn',
     ...extraEnv,
   };
-  delete env['DATABASE_READ_URLS'];
   const logFd = openSync(join(app.dir, 'server.log'), 'a');
   const child = spawn('/bin/sh', ['-c', `exec ${serveScript()}`], { cwd: projectRoot, env, detached: true, stdio: ['ignore', logFd, logFd] });
   child.unref();

@@ -32,17 +32,21 @@ async function changedRows(operatorId: number, since: number): Promise<Changed[]
      UNION ALL SELECT 'airframes', id, change_seq FROM airframes WHERE operator_id = ? AND change_seq > ?
      UNION ALL SELECT 'revisions', id, change_seq FROM revisions WHERE operator_id = ? AND change_seq > ? AND status IN (${statuses}) AND ${signed}
      ORDER BY change_seq`,
-    { replacements: [operatorId, since, operatorId, since, operatorId, since, ...SYNCED_STATUSES], type: QueryTypes.SELECT },
+    { replacements: [operatorId, since, operatorId, since, operatorId, since, ...SYNCED_STATUSES], type: QueryTypes.SELECT, useMaster: true },
   );
 }
 
-/** What changed for the actor's operator since `cursor` (everything without one). */
+/**
+ * What changed for the actor's operator since `cursor` (everything without one). Every read here
+ * goes to the primary (`useMaster`), also when DATABASE_READ_URLS names replicas: a replica that
+ * lags would answer a cursor, or miss a row the cursor already counts.
+ */
 export async function syncSince(actor: Actor, cursor: string | undefined, signingKeySecret: string): Promise<SyncResponse> {
   const since = decodeCursor(cursor);
   const { operatorId } = actor;
   const [changed, operator, key] = await Promise.all([
     changedRows(operatorId, since),
-    Operator.findByPk(operatorId, { rejectOnEmpty: true }),
+    Operator.findByPk(operatorId, { rejectOnEmpty: true, useMaster: true }),
     publicSigningKey(operatorId, signingKeySecret, actor),
   ]);
   const high = Math.max(since, ...changed.map((row) => Number(row.change_seq)));
@@ -51,11 +55,11 @@ export async function syncSince(actor: Actor, cursor: string | undefined, signin
 
   const idsOf = (rows: Changed[]) => rows.map((row) => row.id);
   const [aircraftTypes, airframes, revisions] = await Promise.all([
-    types.length ? AircraftType.findAll({ where: { operatorId, id: { [Op.in]: idsOf(types) } }, order: [['id', 'ASC']] }) : [],
-    frames.length ? Airframe.findAll({ where: { operatorId, id: { [Op.in]: idsOf(frames) } }, order: [['id', 'ASC']] }) : [],
-    revs.length ? Revision.findAll({ where: { operatorId, id: { [Op.in]: idsOf(revs) }, status: [...SYNCED_STATUSES], signature: { [Op.ne]: null } }, order: [['id', 'ASC']] }) : [],
+    types.length ? AircraftType.findAll({ where: { operatorId, id: { [Op.in]: idsOf(types) } }, order: [['id', 'ASC']], useMaster: true }) : [],
+    frames.length ? Airframe.findAll({ where: { operatorId, id: { [Op.in]: idsOf(frames) } }, order: [['id', 'ASC']], useMaster: true }) : [],
+    revs.length ? Revision.findAll({ where: { operatorId, id: { [Op.in]: idsOf(revs) }, status: [...SYNCED_STATUSES], signature: { [Op.ne]: null } }, order: [['id', 'ASC']], useMaster: true }) : [],
   ]);
-  const books = revisions.length ? await SpeedBook.findAll({ where: { operatorId, id: { [Op.in]: [...new Set(revisions.map((r) => r.speedBookId))] } } }) : [];
+  const books = revisions.length ? await SpeedBook.findAll({ where: { operatorId, id: { [Op.in]: [...new Set(revisions.map((r) => r.speedBookId))] } }, useMaster: true }) : [];
   const bookById = new Map(books.map((book) => [book.id, book]));
 
   return {

@@ -9,7 +9,10 @@ import { randomUUID } from 'node:crypto';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { createSequelize } from '../../db/connection';
 import { localSecrets } from '../../db/local';
+import { join } from 'node:path';
 import { clusterLayout } from '../../db/cluster/cluster-layout';
+import { setReplicating, startReplicaPair, stopReplicaPair, waitReplicaCaughtUp } from '../../db/cluster/replica-pair';
+import { createMigrator } from '../../db/migrator';
 import { appPid, startApp, stopApp, waitListening } from '../../db/cluster/app-instances';
 import { nodePid, stopNode, waitSynced } from '../../db/cluster/galera-node';
 import { startCluster, startNode, stopCluster } from '../../db/cluster/local-cluster';
@@ -280,6 +283,61 @@ const scenarios: [string, (world: World) => Promise<void>][] = [
   ],
 ];
 
+/**
+ * Read replicas (README, "Replicated MariaDB"): a primary, one replica, an instance with
+ * DATABASE_READ_URLS. With the replica's applier paused (a replica that lags), plain reads
+ * answer from the replica, while sessions and the sync cursor come from the primary.
+ */
+async function replicaScenario(): Promise<void> {
+  const layout = clusterLayout();
+  const pair = await startReplicaPair(layout.database, () => undefined);
+  const primary = createSequelize(pair.primaryUrl);
+  const app = { index: 9, dir: join(layout.dir, 'app-replica'), port: Number(process.env['REPLICA_APP_PORT'] ?? 4679), node: layout.nodes[0]! };
+  try {
+    await createMigrator(primary, undefined).up();
+    initModels(primary);
+    await seedDemo(primary, DEFAULT_DEMO_PASSWORD, { signingKeySecret: localSecrets().signingKeySecret });
+    await waitReplicaCaughtUp(pair);
+    startApp(layout, app, localSecrets(), { DATABASE_URL: pair.primaryUrl, DATABASE_READ_URLS: pair.replicaUrl });
+    await waitListening(app);
+    const base = `http://127.0.0.1:${app.port}`;
+    const admin = new ClusterClient(base);
+    const pilot = new ClusterClient(base);
+    await pilot.signIn(email('pilot'), DEFAULT_DEMO_PASSWORD);
+    const before = await pilot.send('GET', '/api/sync');
+    check(before.status === 200, `sync answered ${before.status}`);
+
+    await setReplicating(pair, false);
+    try {
+      // Signed in while the replica lags: the session is read from the primary.
+      await admin.signIn(email('admin'), DEFAULT_DEMO_PASSWORD);
+      const me = await admin.send('GET', '/api/auth/me');
+      check(me.status === 200, `with the replica behind, the new session answered ${me.status}`);
+      const designator = `R${randomUUID().slice(0, 5).toUpperCase()}`;
+      const made = await admin.send('POST', '/api/aircraft-types', { designator, name: 'Replica test trainer (invented)', category: 'piston-single', engines: 1, ceilingFt: 14000 });
+      check(made.status === 201, `creating a type answered ${made.status}`);
+      const id = (made.body as { aircraftType: { id: number } }).aircraftType.id;
+      // A plain list is a read: it comes from the (lagging) replica, without the new type.
+      const list = await admin.send('GET', '/api/aircraft-types');
+      check(list.status === 200, `the list answered ${list.status}`);
+      check(!JSON.stringify(list.body).includes(designator), 'the list came from the primary, not the replica');
+      // The sync reads the primary: the device gets the new type now, and its cursor is right.
+      const sync = await pilot.send('GET', `/api/sync?cursor=${encodeURIComponent((before.body as { cursor: string }).cursor)}`);
+      check((sync.body as { aircraftTypes: { id: number }[] }).aircraftTypes.some((type) => type.id === id), 'the sync did not answer the type written on the primary');
+      await setReplicating(pair, true);
+      await waitReplicaCaughtUp(pair);
+      const later = await admin.send('GET', '/api/aircraft-types');
+      check(JSON.stringify(later.body).includes(designator), 'the replica never showed the new type');
+    } finally {
+      await setReplicating(pair, true);
+    }
+  } finally {
+    await stopApp(app);
+    await primary.close();
+    if (process.env['KEEP_CLUSTER'] !== '1') await stopReplicaPair();
+  }
+}
+
 async function main(): Promise<number> {
   const started = Date.now();
   const layout = clusterLayout();
@@ -324,6 +382,16 @@ async function main(): Promise<number> {
     }
   }
   await Promise.all(nodes.map((node) => node.close()));
+  const t0 = Date.now();
+  const replicaName = 'read replica: plain reads from the replica, sessions and the sync cursor from the primary';
+  try {
+    await replicaScenario();
+    passed++;
+    console.log(`  \u2713 ${replicaName} (${((Date.now() - t0) / 1000).toFixed(1)} s)`);
+  } catch (error) {
+    failed++;
+    console.log(`  \u2717 ${replicaName}\n      ${error instanceof Error ? error.message : String(error)}`);
+  }
   if (!wasRunning && process.env['KEEP_CLUSTER'] !== '1') await stopCluster((line) => console.log(`\u203a ${line}`));
   console.log(`\n${passed} passed, ${failed} failed (${((Date.now() - started) / 1000).toFixed(0)} s)`);
   return failed === 0 ? 0 : 1;
