@@ -9,6 +9,7 @@
  * Synced. Stop is the reverse, leaving node 1 last so that it is the one safe to bootstrap.
  */
 import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { connect } from 'node:net';
 import { join } from 'node:path';
 import { createSequelize } from '../connection';
 import { createDatabase } from '../instance';
@@ -19,6 +20,7 @@ import { clusterLayout, type ClusterLayout, type GaleraNodeLayout } from './clus
 import { CLUSTER_NEEDS, ensureDebianPackages } from './debian-packages';
 import { isAlive, launchNode, markSafeToBootstrap, nodeInstance, nodePid, nodeState, safeToBootstrap, savedSeqno, stopNode, waitSynced } from './galera-node';
 import { startLoadBalancer, stopLoadBalancer } from './load-balancer';
+import { stopReplicaPair } from './replica-pair';
 
 export interface StartedCluster {
   layout: ClusterLayout;
@@ -43,7 +45,10 @@ export function nodeUrl(layout: ClusterLayout, node: GaleraNodeLayout): string {
 
 /** Starts (or, for a node that already runs, rejoins) one node and waits until it is synced in a cluster of `size`. */
 export async function startNode(layout: ClusterLayout, node: GaleraNodeLayout, size: number): Promise<void> {
-  if (!nodePid(node)) launchNode(node, layout.nodes, false);
+  if (!nodePid(node)) {
+    await checkPortsFree(node);
+    launchNode(node, layout.nodes, false);
+  }
   await waitSynced(node, localSecrets().rootPassword, size);
 }
 
@@ -55,6 +60,7 @@ export async function startGalera(layout: ClusterLayout, log: (line: string) => 
   if (running.length === 0) {
     first = bootstrapNode(layout.nodes);
     log(`Bootstrapping the cluster on ${first.name} (127.0.0.1:${first.sqlPort})`);
+    await checkPortsFree(first);
     launchNode(first, layout.nodes, true);
   } else {
     first = running[0]!;
@@ -128,6 +134,19 @@ export async function stopCluster(log: (line: string) => void = console.log): Pr
   if (await stopLoadBalancer(layout)) log('nginx stopped');
   for (const app of layout.apps) if (await stopApp(app)) log(`instance ${app.index} stopped`);
   for (const node of [...layout.nodes].reverse()) if (await stopNode(node)) log(`${node.name} stopped`);
+  await stopReplicaPair();
+}
+
+/** Throws a clear sentence when something else already listens on one of the node's ports. */
+async function checkPortsFree(node: GaleraNodeLayout): Promise<void> {
+  for (const port of [node.sqlPort, node.groupPort, node.istPort, node.sstPort]) {
+    const taken = await new Promise<boolean>((resolve) => {
+      const socket = connect({ host: '127.0.0.1', port });
+      socket.once('connect', () => (socket.destroy(), resolve(true)));
+      socket.once('error', () => resolve(false));
+    });
+    if (taken) throw new Error(`Port ${port} on 127.0.0.1 (${node.name}) is already in use; stop what holds it or move the cluster's ports (README, "Cluster").`);
+  }
 }
 
 export async function clusterStatus(): Promise<string[]> {
