@@ -17,8 +17,8 @@ function appThrowing(error: unknown) {
 }
 
 /** An error shaped as Sequelize wraps a driver error. */
-function databaseError(sqlState: string, errno: number, message: string) {
-  return Object.assign(new Error(message), { name: 'SequelizeDatabaseError', parent: { sqlState, errno, message } });
+function databaseError(sqlState: string, errno: number, message: string, fatal = false) {
+  return Object.assign(new Error(message), { name: 'SequelizeDatabaseError', parent: { sqlState, errno, message, fatal } });
 }
 
 describe('errorHandler and a lost database', () => {
@@ -30,6 +30,10 @@ describe('errorHandler and a lost database', () => {
   it('answers 503 when a Galera node is outside the primary component (1047)', async () => {
     await request(appThrowing(databaseError('08S01', 1047, 'WSREP has not yet prepared node for application use'))).get('/').expect(503);
     await request(appThrowing(databaseError('HY000', 1047, 'WSREP has not yet prepared node for application use'))).get('/').expect(503);
+  });
+
+  it('answers 503 when the driver says the connection is gone (fatal), whatever the SQLSTATE', async () => {
+    await request(appThrowing(databaseError('HY000', -104, 'read ECONNRESET', true))).get('/').expect(503);
   });
 
   it('keeps 500 for any other database error', async () => {
