@@ -20,6 +20,7 @@ import { jsonBoundsBreach, REQUEST_BODY_BOUNDS } from '../shared/api/json-bounds
 import { absoluteSessionLifetime } from './auth/session-lifetime';
 import { databaseReadUrls, type ServerConfig } from './config';
 import { readSessionsFromPrimary } from './auth/session-reads-on-primary';
+import { readYourWrites } from './middleware/read-your-writes';
 import { healthRoutes } from './health/health.routes';
 import { DomainError } from './errors/domain-error';
 import { createOutbox, setOutbox } from './mail/outbox';
@@ -173,6 +174,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
     secret: config.SESSION_SECRET,
   });
   app.use('/api', passport.initialize(), passport.session(), absoluteSessionLifetime());
+  if (databaseReadUrls(config).length) app.use('/api', readYourWrites(sequelize));
 
   const { csrfSynchronisedProtection, generateToken } = csrfSync({
     getTokenFromRequest: (req) => req.headers['x-csrf-token'] as string | undefined,
