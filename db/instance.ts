@@ -139,8 +139,11 @@ async function answers(spec: InstanceSpec, socketPath: string): Promise<boolean>
 
 const sleep = (ms: number) => new Promise((done) => setTimeout(done, ms));
 
-/** Starts the instance unless it already runs; resolves once it answers queries. */
-export async function startInstance(spec: InstanceSpec, log: (line: string) => void = console.log): Promise<RunningInstance> {
+/**
+ * Starts the instance unless it already runs; resolves once it answers queries. `extraArgs` are
+ * added to mariadbd's command line (a replication primary's binary log, a replica's server id).
+ */
+export async function startInstance(spec: InstanceSpec, log: (line: string) => void = console.log, extraArgs: readonly string[] = []): Promise<RunningInstance> {
   const socketPath = join(spec.dir, 'sock');
   const running = readPid(spec);
   if (running && isAlive(running) && (await answers(spec, socketPath))) {
@@ -175,6 +178,7 @@ export async function startInstance(spec: InstanceSpec, log: (line: string) => v
       '--collation-server=utf8mb4_unicode_ci',
       '--innodb-buffer-pool-size=64M',
       '--skip-name-resolve',
+      ...extraArgs,
     ],
     { detached: true, stdio: ['ignore', logFd, logFd] },
   );

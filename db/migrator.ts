@@ -14,6 +14,7 @@ import * as revisionContributors from './migrations/20261205-0801-revision-contr
 import * as userAddressPerOperator from './migrations/20261205-0802-user-address-per-operator';
 import * as signingKeyRetirement from './migrations/20261205-0901-signing-key-retirement';
 import * as approachAdditivePolicy from './migrations/20261205-0902-approach-additive-policy';
+import * as syncStampsAtCommit from './migrations/20261205-0903-sync-stamps-at-commit';
 
 
 /**
@@ -35,6 +36,7 @@ const MIGRATIONS: { name: string; module: { up: Migration; down: Migration } }[]
   { name: '20261205-0802-user-address-per-operator', module: userAddressPerOperator },
   { name: '20261205-0901-signing-key-retirement', module: signingKeyRetirement },
   { name: '20261205-0902-approach-additive-policy', module: approachAdditivePolicy },
+  { name: '20261205-0903-sync-stamps-at-commit', module: syncStampsAtCommit },
 ];
 
 /** The names of the migrations this build knows, oldest first (a backup's must all be among them). */

@@ -18,6 +18,8 @@ import { MariaDbRateLimitStore } from './auth/rate-limit-store';
 import { jsonBoundsBreach, REQUEST_BODY_BOUNDS } from '../shared/api/json-bounds';
 import { absoluteSessionLifetime } from './auth/session-lifetime';
 import { databaseReadUrls, type ServerConfig } from './config';
+import { readSessionsFromPrimary } from './auth/session-reads-on-primary';
+import { readYourWrites } from './middleware/read-your-writes';
 import { healthRoutes } from './health/health.routes';
 import { createReadinessProbe } from './health/readiness';
 import { logPseudonym } from './logging/log-pseudonym';
@@ -138,6 +140,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
     expiration: SESSION_HOURS * 3600_000,
     checkExpirationInterval: 15 * 60_000,
   });
+  readSessionsFromPrimary(sequelize);
 
   app.use(
     '/api',
@@ -169,6 +172,7 @@ export function createApp({ config, sequelize, logger }: AppDeps): SpeedwrightAp
     secret: config.SESSION_SECRET,
   });
   app.use('/api', passport.initialize(), passport.session(), absoluteSessionLifetime());
+  if (databaseReadUrls(config).length) app.use('/api', readYourWrites(sequelize));
 
   const { csrfSynchronisedProtection, generateToken } = csrfSync({
     getTokenFromRequest: (req) => req.headers['x-csrf-token'] as string | undefined,

@@ -33,7 +33,7 @@ import { DomainError } from '../errors/domain-error';
 import { AircraftType, Airframe, Attachment, CardIssue, initModels, Revision, SigningKey, SpeedBook } from '../models';
 import { verifyStatement } from '../revisions/signing';
 import { createBackup, type BackupResult } from './backup.service';
-import { appliedMigrations, databaseObjects, nextSequenceValue, openDatabase, RESTORE_SEQUENCE_GAP } from './database-contents';
+import { appliedMigrations, databaseObjects, nextSyncNumbers, openDatabase, RESTORE_SEQUENCE_GAP } from './database-contents';
 import { restoreBackup, type RestoreResult } from './restore.service';
 
 // Seeding signs revisions and sweeps envelopes, sign-ins hash passwords: minutes on a busy machine.
@@ -81,7 +81,7 @@ interface SourceFacts {
   /** A device's cursor from before the last change, and what a sync from it answered. */
   deviceCursor: string;
   changesSinceCursor: SyncResponse;
-  syncSequenceNext: number;
+  syncNumbersNext: Record<string, number>;
   /** A cursor from after the backup (the device saw a change the backup does not hold). */
   cursorAheadOfBackup: string;
 }
@@ -130,7 +130,7 @@ async function addAirframe(admin: Session, aircraftTypeId: number): Promise<numb
 }
 
 /** Fills the source database as people would: the demo seed, then a revision with source pages, cards, a device's sync. */
-async function fillSource(): Promise<Omit<SourceFacts, 'syncSequenceNext' | 'cursorAheadOfBackup'>> {
+async function fillSource(): Promise<Omit<SourceFacts, 'syncNumbersNext' | 'cursorAheadOfBackup'>> {
   const seeding = createSequelize(source.url);
   initModels(seeding);
   await createMigrator(seeding).up();
@@ -185,7 +185,7 @@ beforeAll(async () => {
   backupDir = join(work, 'backup');
   backup = await createBackup({ databaseUrl: source.url, attachmentsDir: sourceAttachments(), outDir: backupDir, appVersion: '0.1.0' });
   const sourceDatabase = await openDatabase(source.url);
-  const syncSequenceNext = await nextSequenceValue(sourceDatabase);
+  const syncNumbersNext = await nextSyncNumbers(sourceDatabase);
   await sourceDatabase.close();
 
   // After the backup the fleet changes once more, and a device syncs it: its cursor is beyond the backup.
@@ -194,7 +194,7 @@ beforeAll(async () => {
   await addAirframe(admin, (await AircraftType.findOne({ where: { designator: 'ZZP1' }, rejectOnEmpty: true })).id);
   const cursorAheadOfBackup = (await sync(pilot)).cursor;
   await lateHarness.close();
-  facts = { ...filled, syncSequenceNext, cursorAheadOfBackup };
+  facts = { ...filled, syncNumbersNext, cursorAheadOfBackup };
 
   // The disaster: the database and the attachments are gone.
   await recreateDatabase(source.instance, SOURCE);
@@ -286,19 +286,21 @@ describe('a backup restored into a fresh database', () => {
   });
 
   it('continues the sync cursor: a device neither misses nor repeats a change, even one whose cursor is ahead of the backup', async () => {
-    // The dump carries the sequence's value exactly; the restore then moves it on by the gap.
-    const dumped = /^DO SETVAL\(`sync_change_seq`, (\d+), 0\);$/m.exec(readFileSync(join(backupDir, 'database.sql'), 'utf8'));
-    expect(Number(dumped?.[1])).toBe(facts.syncSequenceNext);
+    // The dump carries every operator's counter row exactly; the restore then moves each on by the gap.
+    const dump = readFileSync(join(backupDir, 'database.sql'), 'utf8');
+    expect(dump).toMatch(/^INSERT INTO `sync_counters` VALUES /m);
+    expect(Object.keys(facts.syncNumbersNext).length).toBeGreaterThanOrEqual(2);
     const restoredDatabase = await openDatabase(target.url);
     try {
-      const next = await nextSequenceValue(restoredDatabase);
-      expect(next).toBe(facts.syncSequenceNext + RESTORE_SEQUENCE_GAP);
-      expect(restored.syncSequenceNext).toBe(next);
-      const [stamps] = await restoredDatabase.query<{ high: number }>(
-        'SELECT GREATEST((SELECT MAX(change_seq) FROM aircraft_types), (SELECT MAX(change_seq) FROM airframes), (SELECT MAX(change_seq) FROM revisions)) AS high',
+      const next = await nextSyncNumbers(restoredDatabase);
+      const expected = Object.fromEntries(Object.entries(facts.syncNumbersNext).map(([operatorId, number]) => [operatorId, number + RESTORE_SEQUENCE_GAP]));
+      expect(next).toEqual(expected);
+      expect(restored.syncNumbersNext).toEqual(next);
+      const stamps = await restoredDatabase.query<{ operatorId: number; high: number }>(
+        'SELECT o.id AS operatorId, GREATEST(COALESCE((SELECT MAX(change_seq) FROM aircraft_types WHERE operator_id = o.id), 0), COALESCE((SELECT MAX(change_seq) FROM airframes WHERE operator_id = o.id), 0), COALESCE((SELECT MAX(change_seq) FROM revisions WHERE operator_id = o.id), 0)) AS high FROM operators o',
         { type: 'SELECT' },
       );
-      expect(next).toBeGreaterThan(Number(stamps!.high));
+      for (const { operatorId, high } of stamps) expect({ operatorId, above: next[String(operatorId)]! > Number(high) }).toEqual({ operatorId, above: true });
     } finally {
       await restoredDatabase.close();
     }

@@ -7,9 +7,12 @@ import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { createSequelize, parseDatabaseUrl } from '../../db/connection';
 import { DomainError } from '../errors/domain-error';
 
-/** The sequence that numbers synced rows (migration 20261202-0601; server/sync/sync-cursor.ts). */
-export const SYNC_SEQUENCE = 'sync_change_seq';
-/** The column its triggers stamp on every synced table. */
+/**
+ * The per-operator counter rows that number synced rows (migration 20261205-0903;
+ * server/sync/sync-cursor.ts): `last_change` is the last number handed out for the operator.
+ */
+export const SYNC_COUNTERS = 'sync_counters';
+/** The column the counters' triggers stamp on every synced table. */
 export const SYNC_STAMP_COLUMN = 'change_seq';
 
 const ER_BAD_DB = 1049;
@@ -52,8 +55,8 @@ const select = <T extends object>(sequelize: Sequelize, sql: string, replacement
 
 // Not QueryTypes.RAW: Sequelize 6 then deletes the mariadb connector's non-configurable `meta`
 // and throws (DEVELOPERS.md, pitfalls); UPDATE reads only affectedRows.
-const execute = (sequelize: Sequelize, sql: string, transaction?: Transaction) =>
-  sequelize.query(sql, { type: QueryTypes.UPDATE, ...(transaction ? { transaction } : {}) });
+const execute = (sequelize: Sequelize, sql: string, transaction?: Transaction, replacements: unknown[] = []) =>
+  sequelize.query(sql, { type: QueryTypes.UPDATE, replacements, ...(transaction ? { transaction } : {}) });
 
 const quoted = (name: string) => `\`${name.replace(/`/g, '``')}\``;
 
@@ -111,11 +114,11 @@ export async function dropEverything(sequelize: Sequelize): Promise<void> {
 }
 
 /**
- * How far a restore moves the sync sequence past what the backup had. Restored rows keep their
+ * How far a restore moves the sync numbering past what the backup had. Restored rows keep their
  * numbers, so a device whose cursor is older than the backup gets exactly the changes after its
  * cursor. But a backup restored after a loss is older than the last sync some devices made: their
  * cursors lie beyond the backup's numbers, and a change after the restore numbered from the
- * backup's sequence (a withdrawal, say) would fall at or below such a cursor and never reach
+ * backup's counters (a withdrawal, say) would fall at or below such a cursor and never reach
  * them. Numbering after the restore starts this far on, far more than the changes a server makes
  * between two backups (a billion: years of writes at ten a second), so every cursor handed out
  * before the loss is below it. The cursor format carries up to 16 digits (server/sync/sync-cursor.ts).
@@ -123,37 +126,40 @@ export async function dropEverything(sequelize: Sequelize): Promise<void> {
 export const RESTORE_SEQUENCE_GAP = 1_000_000_000;
 
 /**
- * Moves the sync sequence beyond every stamped row and every cursor handed out before the
- * backup was restored: its next value becomes the larger of the dumped value (`DO SETVAL` in the
- * dump) and the highest stamp + 1, plus `gap`. A device's next sync then neither misses a change
- * made after the restore nor gets one twice. SETVAL never moves a sequence back (MariaDB
- * Knowledge Base, SETVAL).
- * @returns the sequence's next value, or null when the database has no such sequence
+ * Moves every operator's sync counter beyond every stamped row and every cursor handed out before
+ * the backup was restored: `last_change` becomes the larger of its dumped value and the
+ * operator's highest stamp, plus `gap` (an operator without a counter row gets one). A device's
+ * next sync then neither misses a change made after the restore nor gets one twice.
+ * @returns each operator's next change number (operator id → number), or null when the database has no counters
  */
-export async function continueSyncSequence(sequelize: Sequelize, gap = RESTORE_SEQUENCE_GAP): Promise<number | null> {
-  const [sequence] = await select<{ n: number }>(
+export async function continueSyncNumbering(sequelize: Sequelize, gap = RESTORE_SEQUENCE_GAP): Promise<Record<string, number> | null> {
+  const [counters] = await select<{ n: number }>(
     sequelize,
-    "SELECT COUNT(*) AS n FROM information_schema.TABLES WHERE TABLE_SCHEMA = DATABASE() AND TABLE_NAME = ? AND TABLE_TYPE = 'SEQUENCE'",
-    [SYNC_SEQUENCE],
+    "SELECT COUNT(*) AS n FROM information_schema.TABLES WHERE TABLE_SCHEMA = DATABASE() AND TABLE_NAME = ? AND TABLE_TYPE = 'BASE TABLE'",
+    [SYNC_COUNTERS],
   );
-  if (!Number(sequence?.n)) return null;
+  if (!Number(counters?.n)) return null;
   const stamped = await select<{ name: string }>(
     sequelize,
     "SELECT c.TABLE_NAME AS name FROM information_schema.COLUMNS c JOIN information_schema.TABLES t ON t.TABLE_SCHEMA = c.TABLE_SCHEMA AND t.TABLE_NAME = c.TABLE_NAME AND t.TABLE_TYPE = 'BASE TABLE' WHERE c.TABLE_SCHEMA = DATABASE() AND c.COLUMN_NAME = ? ORDER BY c.TABLE_NAME",
     [SYNC_STAMP_COLUMN],
   );
-  let lastUsed = (await nextSequenceValue(sequelize)) - 1;
-  for (const { name } of stamped) {
-    const [row] = await select<{ high: number | null }>(sequelize, `SELECT MAX(${quoted(SYNC_STAMP_COLUMN)}) AS high FROM ${quoted(name)}`);
-    lastUsed = Math.max(lastUsed, Number(row?.high ?? 0));
-  }
-  await select(sequelize, `SELECT SETVAL(${quoted(SYNC_SEQUENCE)}, ?, 1) AS value`, [lastUsed + gap]);
-  return nextSequenceValue(sequelize);
+  // One statement: each operator's highest stamp over the synced tables, its counter, and the new value.
+  const highest = stamped.length
+    ? `GREATEST(0, ${stamped.map(({ name }) => `COALESCE((SELECT MAX(${quoted(SYNC_STAMP_COLUMN)}) FROM ${quoted(name)} WHERE operator_id = o.id), 0)`).join(', ')})`
+    : '0';
+  await execute(
+    sequelize,
+    `INSERT INTO ${quoted(SYNC_COUNTERS)} (operator_id, last_change) SELECT o.id, ${highest} + ? FROM operators o ` +
+      `ON DUPLICATE KEY UPDATE last_change = GREATEST(${quoted(SYNC_COUNTERS)}.last_change, VALUES(last_change) - ?) + ?`,
+    undefined,
+    [gap, gap, gap],
+  );
+  return nextSyncNumbers(sequelize);
 }
 
-/** The value NEXT VALUE FOR the sync sequence would give, without taking it. */
-export async function nextSequenceValue(sequelize: Sequelize): Promise<number> {
-  // With NOCACHE, next_not_cached_value is exactly the next value (MariaDB Knowledge Base, CREATE SEQUENCE).
-  const [row] = await select<{ next: number }>(sequelize, `SELECT next_not_cached_value AS next FROM ${quoted(SYNC_SEQUENCE)}`);
-  return Number(row?.next);
+/** The change number each operator's next synced write would take (operator id → number), without taking it. */
+export async function nextSyncNumbers(sequelize: Sequelize): Promise<Record<string, number>> {
+  const rows = await select<{ operatorId: number; next: number }>(sequelize, `SELECT operator_id AS operatorId, last_change + 1 AS next FROM ${quoted(SYNC_COUNTERS)} ORDER BY operator_id`);
+  return Object.fromEntries(rows.map((row) => [String(row.operatorId), Number(row.next)]));
 }

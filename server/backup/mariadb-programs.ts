@@ -38,8 +38,8 @@ const common = (optionFile: string) => [`--defaults-extra-file=${optionFile}`, '
  * Dumps the database of `databaseUrl` into `file` (created with mode 0600; it must not exist)
  * as one consistent snapshot: `--single-transaction` reads every InnoDB table at one point in
  * time without locking writers out (MariaDB Knowledge Base, mariadb-dump), with the triggers that
- * stamp the sync cursor, routines, events, and the `sync_change_seq` sequence with its next
- * value (`DO SETVAL(…)`). DEFINER clauses are dropped (dump-definers.ts).
+ * stamp the sync cursor's change numbers, routines, events, and the `sync_counters` rows those
+ * triggers count with. DEFINER clauses are dropped (dump-definers.ts).
  * @returns size and SHA-256 of the file as written
  */
 export async function dumpDatabase(databaseUrl: string, file: string): Promise<FileDigest> {

@@ -14,7 +14,7 @@ import { parseDatabaseUrl } from '../../db/connection';
 import { DomainError } from '../errors/domain-error';
 import { checkBackup } from './backup-check';
 import { ATTACHMENTS_FOLDER, DUMP_FILE, type BackupManifest } from './backup-manifest';
-import { continueSyncSequence, databaseObjects, dropEverything, openDatabase } from './database-contents';
+import { continueSyncNumbering, databaseObjects, dropEverything, openDatabase } from './database-contents';
 import { copyFileWithDigest } from './file-digest';
 import { emptyFolder, isAbsentOrEmptyFolder } from './folder-files';
 import { loadDump } from './mariadb-programs';
@@ -36,8 +36,8 @@ export interface RestoreResult {
   attachmentBytes: number;
   /** Migrations of this build that the backup's database had not, run after loading it. */
   migrationsRun: string[];
-  /** The sync sequence's next value after the restore (null without one). */
-  syncSequenceNext: number | null;
+  /** Each operator's next sync change number after the restore (operator id → number; null without counters). */
+  syncNumbersNext: Record<string, number> | null;
 }
 
 /** As the server's attachment store writes them (attachments.service.ts). */
@@ -82,8 +82,8 @@ export async function restoreBackup(request: RestoreRequest): Promise<RestoreRes
 
       const migrationsRun = (await createMigrator(sequelize).up()).map((migration) => migration.name);
       if (migrationsRun.length > 0) log(`Ran the migrations this version adds: ${migrationsRun.join(', ')}.`);
-      const syncSequenceNext = await continueSyncSequence(sequelize);
-      return { manifest, ...attachments, migrationsRun, syncSequenceNext };
+      const syncNumbersNext = await continueSyncNumbering(sequelize);
+      return { manifest, ...attachments, migrationsRun, syncNumbersNext };
     } catch (error) {
       log('The restore did not finish; emptying the database and the attachments folder again…');
       await dropEverything(sequelize).catch((cleanup: unknown) =>

@@ -33,6 +33,19 @@ interface BodyParserError extends Error {
   code?: string;
 }
 
+/**
+ * A database error that says the server went away, not that the request was wrong: SQLSTATE
+ * class 08, "connection exception" (ISO/IEC 9075; the mariadb driver's "socket has unexpectedly
+ * been closed" is 08S01), or a Galera node that has left the cluster's primary component and
+ * refuses work (1047, "WSREP has not yet prepared node for application use"), or any error the
+ * mariadb driver marks `fatal` (the connection is gone, e.g. "read ECONNRESET"). Answered 503, so
+ * clients try again (on another instance, through the load balancer).
+ */
+function lostDatabase(error: unknown): boolean {
+  const driver = (error as { parent?: { sqlState?: unknown; errno?: unknown; fatal?: unknown } } | undefined)?.parent;
+  return (typeof driver?.sqlState === 'string' && driver.sqlState.startsWith('08')) || driver?.errno === 1047 || driver?.fatal === true;
+}
+
 /** The error as a domain error: itself, or what a body parser, the CSRF check or the database said. */
 function toDomainError(error: unknown): DomainError | undefined {
   if (error instanceof DomainError) return error;
@@ -49,7 +62,12 @@ function toDomainError(error: unknown): DomainError | undefined {
   if (err?.code === 'EBADCSRFTOKEN') {
     return new DomainError('forbidden', 'csrf_invalid', 'This request is missing its security token. Reload the page and try again.');
   }
-  if (err?.name === 'SequelizeConnectionError' || err?.name === 'SequelizeConnectionRefusedError' || err?.name === 'SequelizeConnectionAcquireTimeoutError') {
+  if (
+    err?.name === 'SequelizeConnectionError' ||
+    err?.name === 'SequelizeConnectionRefusedError' ||
+    err?.name === 'SequelizeConnectionAcquireTimeoutError' ||
+    lostDatabase(error)
+  ) {
     return new DomainError('unavailable', 'database_unavailable', 'The database is not reachable right now. Try again shortly.');
   }
   return undefined;

@@ -86,14 +86,18 @@ export async function publicSigningKey(operatorId: number, secret: string, actor
   return existing ?? transact((transaction) => activeSigningKey(operatorId, secret, transaction, actor));
 }
 
-/** The operator's active key and every key it ever had (newest first), made on first need like `publicSigningKey`. */
+/**
+ * The operator's active key and every key it ever had (newest first), made on first need like
+ * `publicSigningKey`. Read from the primary (`useMaster`, a no-op without replicas), as every read
+ * behind a sync is: a lagging replica could miss a key that a revision read from the primary names.
+ */
 export async function publishedSigningKeys(operatorId: number, secret: string, actor?: Actor): Promise<{ active: SigningKey; all: SigningKey[] }> {
   // One plain read in the usual case (a sync runs it on every call); only an operator without a key yet locks.
-  const all = await SigningKey.findAll({ where: { operatorId }, order: [['id', 'DESC']] });
+  const all = await SigningKey.findAll({ where: { operatorId }, order: [['id', 'DESC']], useMaster: true });
   const active = all.find((key) => key.active);
   if (active) return { active, all };
   const made = await transact((transaction) => activeSigningKey(operatorId, secret, transaction, actor));
-  return { active: made, all: await SigningKey.findAll({ where: { operatorId }, order: [['id', 'DESC']] }) };
+  return { active: made, all: await SigningKey.findAll({ where: { operatorId }, order: [['id', 'DESC']], useMaster: true }) };
 }
 
 /**

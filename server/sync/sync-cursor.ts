@@ -8,14 +8,18 @@ import { DomainError } from '../errors/domain-error';
  * row written later in the same second as the cursor is lost; with `>=` every row of that
  * second comes back on every call, so "nothing changed" never answers empty; an id tie-break
  * still loses a row that is written twice in one second (published, then withdrawn). Instead
- * every insert or update of aircraft_types, airframes and revisions takes the next value of
- * one database sequence (triggers of migration 20261202-0601), stored as `change_seq`. A
- * sync answers the rows with `change_seq` above the cursor, and the new cursor is the largest
- * number it answered, so a row changed after the answer always has a larger number.
+ * every insert or update of aircraft_types, airframes and revisions takes the next number of
+ * its operator's row in `sync_counters` (triggers of migration 20261205-0903), stored as
+ * `change_seq`. A sync answers the rows with `change_seq` above the cursor, and the new cursor is
+ * the largest number it answered.
  *
- * Known limit: the number is taken at write time, not at commit; a transaction that commits
- * after a later one that a sync already saw could be skipped. Every write here is a short
- * transaction, and a full sync (no cursor) always repairs a device.
+ * Commit order: the counter row is bumped inside the writing transaction and stays locked until
+ * it ends, so a second writer of the same operator waits; on a Galera cluster two nodes bumping it
+ * at once conflict at certification and one retries (`transact`). Numbers are therefore
+ * committed in the order they are given, and a reader that sees number n sees every smaller
+ * one: no committed change is ever skipped, however long its transaction was (the earlier
+ * sequence handed numbers out at write time and could). A device reading a node that has not
+ * yet applied the latest changes only receives them on its next sync; it never loses them.
  */
 const PREFIX = 'v1.';
 
