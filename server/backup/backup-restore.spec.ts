@@ -288,7 +288,7 @@ describe('a backup restored into a fresh database', () => {
   it('continues the sync cursor: a device neither misses nor repeats a change, even one whose cursor is ahead of the backup', async () => {
     // The dump carries every operator's counter row exactly; the restore then moves each on by the gap.
     const dump = readFileSync(join(backupDir, 'database.sql'), 'utf8');
-    expect(dump).toMatch(/^INSERT INTO `sync_counters` VALUES /m);
+    expect(dump).toMatch(/^INSERT INTO `sync_counters` VALUES\s/m);
     expect(Object.keys(facts.syncNumbersNext).length).toBeGreaterThanOrEqual(2);
     const restoredDatabase = await openDatabase(target.url);
     try {
