@@ -10,6 +10,8 @@
  *    production ↛ `test/` and any `testing/` folder.
  *    ESLint's `no-restricted-imports` reads the import text of `import … from` and `export … from`;
  *    `no-restricted-syntax` applies the same patterns to `import()` (lazy routes) and `require()`.
+ *    Outside `shared/`, shared code is imported through the `@shared/…` alias (tsconfig.json's
+ *    `paths`), never by a relative path that climbs to it (tests included).
  * 3. The few rules switched off, each with its reason.
  */
 import js from '@eslint/js';
@@ -25,6 +27,11 @@ const TEST_SUPPORT = {
   message: 'Test support (a `testing/` folder, `test/`, a test-helpers or fixtures file) is for tests only; production code never imports it.',
 };
 
+const SHARED_BY_ALIAS = {
+  regex: reaches(['shared']),
+  message: 'Import shared code as `@shared/…` (tsconfig.json `paths`), not by a relative path that climbs to `shared/`.',
+};
+
 /**
  * The rules of one boundary: no-restricted-imports with the test-support pattern and `more`, and
  * the same patterns for `import()` and `require()` (esquery reads a regex up to the first `/`,
@@ -32,9 +39,10 @@ const TEST_SUPPORT = {
  */
 const boundary = (/** @type {{ regex: string; message: string }[]} */ ...more) => {
   const patterns = [TEST_SUPPORT, ...more];
+  const imports = [...patterns, SHARED_BY_ALIAS];
   const literal = (/** @type {string} */ regex) => `/${regex.replaceAll('/', '\\x2F')}/`;
   return {
-    'no-restricted-imports': ['error', { patterns }],
+    'no-restricted-imports': ['error', { patterns: imports }],
     'no-restricted-syntax': [
       'error',
       ...patterns.flatMap(({ regex, message }) => [
@@ -62,6 +70,12 @@ export default tseslint.config(
       // copies own properties only), and pngjs and fontkit in tests (untyped; typed at the call).
       '@typescript-eslint/no-require-imports': ['error', { allow: ['^pdfmake$', '^pngjs$', '^fontkit$'] }],
     },
+  },
+  {
+    // Applies to tests too; production files repeat the pattern inside their boundary rules below,
+    // because a later block's no-restricted-imports replaces an earlier one's.
+    files: ['src/**/*.ts', 'server/**/*.ts', 'db/**/*.ts', 'test/**/*.ts', 'tools/**/*.ts'],
+    rules: { 'no-restricted-imports': ['error', { patterns: [SHARED_BY_ALIAS] }] },
   },
   {
     files: ['src/**/*.ts'],
@@ -95,7 +109,7 @@ export default tseslint.config(
     ignores: TESTS,
     rules: {
       ...boundary({
-        regex: '^\\.\\./(?!migration$)',
+        regex: '^\\.\\./(?!migration$)|^@shared/',
         message: 'A migration never imports live code (it must do the same whenever it runs): copy what it needs into `db/migrations/frozen/` and never change the copy.',
       }),
     },
@@ -104,7 +118,10 @@ export default tseslint.config(
     files: ['shared/**/*.ts'],
     ignores: TESTS,
     rules: {
-      ...boundary({ regex: reaches(['src', 'server', 'db']), message: '`shared/` is used by client and server and imports neither.' }),
+      ...boundary(
+        { regex: reaches(['src', 'server', 'db']), message: '`shared/` is used by client and server and imports neither.' },
+        { regex: '^@shared/', message: 'Inside `shared/`, import by relative path: the alias is for the code that uses `shared/`.' },
+      ),
     },
   },
 );

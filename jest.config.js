@@ -9,6 +9,9 @@ const { createCjsPreset } = require('jest-preset-angular/presets');
  */
 const tsJest = ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }];
 
+/** `@shared/…` is the repository's `shared/` folder (tsconfig.json's `paths`). */
+const moduleNameMapper = { '^@shared/(.*)$': '<rootDir>/shared/$1' };
+
 /** @type {import('jest').Config} */
 module.exports = {
   projects: [
@@ -18,6 +21,7 @@ module.exports = {
       roots: ['<rootDir>/shared'],
       testMatch: ['**/*.spec.ts'],
       transform: { '^.+\\.ts$': tsJest },
+      moduleNameMapper,
     },
     {
       displayName: 'server',
@@ -25,6 +29,7 @@ module.exports = {
       roots: ['<rootDir>/server', '<rootDir>/db'],
       testMatch: ['**/*.spec.ts'],
       transform: { '^.+\\.ts$': tsJest },
+      moduleNameMapper,
       globalSetup: '<rootDir>/test/api/global-setup.ts',
       globalTeardown: '<rootDir>/test/api/global-teardown.ts',
       setupFiles: ['<rootDir>/test/api/env.ts'],
@@ -36,6 +41,7 @@ module.exports = {
       roots: ['<rootDir>/test/e2e'],
       testMatch: ['**/*.e2e.ts'],
       transform: { '^.+\\.ts$': tsJest },
+      moduleNameMapper,
       globalSetup: '<rootDir>/test/e2e/global-setup.ts',
       globalTeardown: '<rootDir>/test/e2e/global-teardown.ts',
       setupFiles: ['<rootDir>/test/e2e/env.ts'],
@@ -51,6 +57,7 @@ module.exports = {
     {
       displayName: 'client',
       ...createCjsPreset({ tsconfig: '<rootDir>/tsconfig.spec.json' }),
+      moduleNameMapper,
       roots: ['<rootDir>/src'],
       testMatch: ['**/*.spec.ts'],
       setupFilesAfterEnv: ['<rootDir>/src/setup-jest.ts'],
