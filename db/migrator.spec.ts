@@ -1,5 +1,5 @@
 import { QueryTypes, UniqueConstraintError } from 'sequelize';
-import { isCardCode } from '../shared/card-check/card-code';
+import { isCardCode } from '@shared/card-check/card-code';
 import { openLocalDatabase } from './local';
 import { createMigrator } from './migrator';
 import { createSequelize } from './connection';

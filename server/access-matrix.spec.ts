@@ -16,8 +16,8 @@
  */
 import { randomBytes, randomUUID } from 'node:crypto';
 import type TestAgent from 'supertest/lib/agent';
-import { can, ROLES, type Capability, type Role } from '../shared/auth/roles';
-import { demoPistonTrainerContent } from '../shared/speed-book/demo-content';
+import { can, ROLES, type Capability, type Role } from '@shared/auth/roles';
+import { demoPistonTrainerContent } from '@shared/speed-book/demo-content';
 import { appRoutes } from '../test/api/app-routes';
 import { csrfAgent, startHarness, type Harness } from '../test/api/harness';
 import { createAircraftType, createAirframe } from './fleet/fleet.service';

@@ -15,7 +15,7 @@ import { accountLinksRoutes } from './auth/account-links.routes';
 import { authRoutes } from './auth/auth.routes';
 import { configurePassport } from './auth/passport';
 import { MariaDbRateLimitStore } from './auth/rate-limit-store';
-import { jsonBoundsBreach, REQUEST_BODY_BOUNDS } from '../shared/api/json-bounds';
+import { jsonBoundsBreach, REQUEST_BODY_BOUNDS } from '@shared/api/json-bounds';
 import { absoluteSessionLifetime } from './auth/session-lifetime';
 import { databaseReadUrls, type ServerConfig } from './config';
 import { readSessionsFromPrimary } from './auth/session-reads-on-primary';

@@ -7,7 +7,7 @@ import { createHash, randomBytes } from 'node:crypto';
 import { mkdir, rm, writeFile } from 'node:fs/promises';
 import { basename, join, resolve } from 'node:path';
 import type { Transaction } from 'sequelize';
-import type { AttachmentView } from '../../shared/api/attachments';
+import type { AttachmentView } from '@shared/api/attachments';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { DomainError, notFound } from '../errors/domain-error';
@@ -15,7 +15,7 @@ import { Attachment, Revision, User } from '../models';
 import { recordContribution } from '../revisions/revision-contributors';
 import { OPEN_STATUSES, visibleRevision, type Viewer } from '../revisions/revision-access';
 import { detectAttachmentType } from './file-type';
-import { withoutForbiddenCharacters } from '../../shared/text/plain-text';
+import { withoutForbiddenCharacters } from '@shared/text/plain-text';
 import { transact } from '../transactions';
 
 export const ATTACHMENT_MAX_BYTES = 10 * 1024 * 1024;

@@ -1,4 +1,4 @@
-import type { AttachmentView } from '../../shared/api/attachments';
+import type { AttachmentView } from '@shared/api/attachments';
 
 /**
  * What a file is, from its first bytes (its "magic number"), never from its name or the type

@@ -1,4 +1,4 @@
-import type { Role } from '../../shared/auth/roles';
+import type { Role } from '@shared/auth/roles';
 
 /** Where a change came from, for the audit trail: the client's address and user agent (both null when no request asked for it). */
 export interface RequestOrigin {

@@ -1,5 +1,5 @@
 import { Op, type WhereOptions } from 'sequelize';
-import type { AuditEventView, AuditQuery } from '../../shared/api/audit';
+import type { AuditEventView, AuditQuery } from '@shared/api/audit';
 import { AuditEvent, User } from '../models';
 
 /** One page of the operator's audit trail, newest first; `nextCursor` continues with older events. */

@@ -1,5 +1,5 @@
-import { auditPageSchema } from '../../shared/api/audit';
-import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
+import { auditPageSchema } from '@shared/api/audit';
+import { demoPistonTrainerContent } from '@shared/speed-book/demo-content';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { User } from '../models';
 import { newSpeedBook, publish, signInEveryone, type SessionsByRole } from '../../test/api/test-helpers';

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { auditQuerySchema } from '../../shared/api/audit';
+import { auditQuerySchema } from '@shared/api/audit';
 import { operatorScope, requireCapability } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';
 import { listAudit } from './audit-query.service';

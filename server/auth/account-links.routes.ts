@@ -1,6 +1,6 @@
 import { Router, type RequestHandler } from 'express';
-import { passwordResetRequestSchema, unlockRequestSchema } from '../../shared/api/auth';
-import { acceptInvitationRequestSchema, passwordResetConfirmSchema } from '../../shared/api/new-password';
+import { passwordResetRequestSchema, unlockRequestSchema } from '@shared/api/auth';
+import { acceptInvitationRequestSchema, passwordResetConfirmSchema } from '@shared/api/new-password';
 import type { Sequelize } from 'sequelize';
 import { parseOrThrow } from '../middleware/validate';
 import { originOf } from '../middleware/request-actor';

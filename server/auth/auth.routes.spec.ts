@@ -1,7 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import request from 'supertest';
-import { sessionUserSchema } from '../../shared/api/auth';
-import { ROLES } from '../../shared/auth/roles';
+import { sessionUserSchema } from '@shared/api/auth';
+import { ROLES } from '@shared/auth/roles';
 import { csrfAgent, demoEmail, signIn, startHarness, TEST_PASSWORD, type Harness } from '../../test/api/harness';
 import { User } from '../models';
 import { SESSION_COOKIE } from '../app';

@@ -1,7 +1,7 @@
 import { Router, type RequestHandler } from 'express';
 import type { PassportStatic } from 'passport';
-import { loginRequestSchema } from '../../shared/api/auth';
-import { changePasswordRequestSchema } from '../../shared/api/new-password';
+import { loginRequestSchema } from '@shared/api/auth';
+import { changePasswordRequestSchema } from '@shared/api/new-password';
 import { DomainError } from '../errors/domain-error';
 import { requireSignIn } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';

@@ -3,7 +3,7 @@
  * at the keyboard (OWASP ASVS 4.0.3 §2.1.6); every other session of theirs ends, since whoever
  * knew the old password may hold one (§3.3.3); the change is audited.
  */
-import type { ChangePasswordRequest } from '../../shared/api/new-password';
+import type { ChangePasswordRequest } from '@shared/api/new-password';
 import type { RequestOrigin } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { DomainError } from '../errors/domain-error';

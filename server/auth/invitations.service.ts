@@ -3,7 +3,7 @@
  * that lets them choose one. Single use, seven days, only the hash stored.
  */
 import { Op, type Transaction } from 'sequelize';
-import type { AcceptInvitationRequest } from '../../shared/api/new-password';
+import type { AcceptInvitationRequest } from '@shared/api/new-password';
 import type { RequestOrigin } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { DomainError } from '../errors/domain-error';

@@ -3,7 +3,7 @@
  * exists, while the answer to the request is the same either way.
  */
 import { Op, QueryTypes } from 'sequelize';
-import type { PasswordResetConfirm } from '../../shared/api/new-password';
+import type { PasswordResetConfirm } from '@shared/api/new-password';
 import type { RequestOrigin } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { DomainError } from '../errors/domain-error';

@@ -1,6 +1,6 @@
 import * as argon2 from 'argon2';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { newPasswordProblem } from '../../shared/auth/password-strength';
+import { newPasswordProblem } from '@shared/auth/password-strength';
 import { DomainError } from '../errors/domain-error';
 
 /**

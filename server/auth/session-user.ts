@@ -1,4 +1,4 @@
-import type { SessionUser } from '../../shared/api/auth';
+import type { SessionUser } from '@shared/api/auth';
 import type { User } from '../models';
 
 declare global {

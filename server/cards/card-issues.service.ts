@@ -9,12 +9,12 @@
  * conflict. Concurrent first reports race on the primary key; the losers read the winner's row.
  */
 import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
-import { can } from '../../shared/auth/roles';
-import { generateCardCode } from '../../shared/card-check/card-code';
-import { buildCard } from '../../shared/card/build-card';
-import { CardRefusedError, type CardInputs } from '../../shared/card/card';
-import type { CardIssueEntry, CardIssueQuery, CardIssueResult, CardIssueView } from '../../shared/card/card-api';
-import { canonicalJson, sha256Hex } from '../../shared/speed-book/canonical';
+import { can } from '@shared/auth/roles';
+import { generateCardCode } from '@shared/card-check/card-code';
+import { buildCard } from '@shared/card/build-card';
+import { CardRefusedError, type CardInputs } from '@shared/card/card';
+import type { CardIssueEntry, CardIssueQuery, CardIssueResult, CardIssueView } from '@shared/card/card-api';
+import { canonicalJson, sha256Hex } from '@shared/speed-book/canonical';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { DomainError, notFound } from '../errors/domain-error';

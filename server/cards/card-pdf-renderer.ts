@@ -10,8 +10,8 @@ import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { inflateSync } from 'node:zlib';
 import type { TDocumentDefinitions, TFontDictionary } from 'pdfmake/interfaces';
-import { cardFontDictionary, cardFontFiles, type CardFontFile } from '../../shared/card-pdf/fonts';
-import { woffToSfnt } from '../../shared/card-pdf/woff';
+import { cardFontDictionary, cardFontFiles, type CardFontFile } from '@shared/card-pdf/fonts';
+import { woffToSfnt } from '@shared/card-pdf/woff';
 
 type PdfMake = typeof import('pdfmake');
 

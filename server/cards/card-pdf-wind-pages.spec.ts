@@ -4,12 +4,12 @@
  * operator's policy fit into room the card already had. Rendered in Node (`renderCardPdf`) and
  * read back with pdf-parse. Invented demo data — not for flight.
  */
-import { buildCard } from '../../shared/card/build-card';
-import type { CardInputs } from '../../shared/card/card';
-import { cardPdf } from '../../shared/card-pdf/card-document';
-import { NO_CHANGES } from '../../shared/card-pdf/revision-marks';
-import { contentSha256 } from '../../shared/speed-book/canonical';
-import { demoLightTwinJetContent, demoPistonTrainerContentRevised, demoTwinTurbopropContent } from '../../shared/speed-book/demo-content';
+import { buildCard } from '@shared/card/build-card';
+import type { CardInputs } from '@shared/card/card';
+import { cardPdf } from '@shared/card-pdf/card-document';
+import { NO_CHANGES } from '@shared/card-pdf/revision-marks';
+import { contentSha256 } from '@shared/speed-book/canonical';
+import { demoLightTwinJetContent, demoPistonTrainerContentRevised, demoTwinTurbopropContent } from '@shared/speed-book/demo-content';
 import { readPdf } from '../../test/api/read-pdf';
 import { renderCardPdf } from './card-pdf-renderer';
 

@@ -5,13 +5,13 @@
  */
 import jsQR from 'jsqr';
 import request from 'supertest';
-import { checkUrl } from '../../shared/card-check/check-url';
-import { airframeListSchema, aircraftTypeListSchema } from '../../shared/api/fleet';
-import { revisionResponseSchema, speedBookListSchema } from '../../shared/api/revisions';
-import { formatCardCode, generateCardCode, isCardCode } from '../../shared/card-check/card-code';
-import { buildCard } from '../../shared/card/build-card';
-import { SAFETY_CAUTION } from '../../shared/card/card-presentation';
-import { cardIssuePageSchema } from '../../shared/card/card-api';
+import { checkUrl } from '@shared/card-check/check-url';
+import { airframeListSchema, aircraftTypeListSchema } from '@shared/api/fleet';
+import { revisionResponseSchema, speedBookListSchema } from '@shared/api/revisions';
+import { formatCardCode, generateCardCode, isCardCode } from '@shared/card-check/card-code';
+import { buildCard } from '@shared/card/build-card';
+import { SAFETY_CAUTION } from '@shared/card/card-presentation';
+import { cardIssuePageSchema } from '@shared/card/card-api';
 import { csrfAgent, startHarness, TEST_PUBLIC_URL, type Harness } from '../../test/api/harness';
 import { CardIssue } from '../models';
 import { readPdf } from '../../test/api/read-pdf';

@@ -9,15 +9,15 @@
  */
 import { randomUUID } from 'node:crypto';
 import { Op } from 'sequelize';
-import { checkUrl } from '../../shared/card-check/check-url';
-import { formatCardCode, validateCardCode } from '../../shared/card-check/card-code';
-import { CardRefusedError, cardInputsSchema, type CardInputs, type CardRevision, type SpeedCard } from '../../shared/card/card';
-import { buildCard } from '../../shared/card/build-card';
-import { utcDate } from '../../shared/card/card-presentation';
-import { cardPdf } from '../../shared/card-pdf/card-document';
-import { CARD_PAPER_SIZES, isCardPaperSize, type CardPaperSize } from '../../shared/card-pdf/page-sizes';
-import { cardChanges, previousCardOf } from '../../shared/card-pdf/revision-marks';
-import { contentSha256 } from '../../shared/speed-book/canonical';
+import { checkUrl } from '@shared/card-check/check-url';
+import { formatCardCode, validateCardCode } from '@shared/card-check/card-code';
+import { CardRefusedError, cardInputsSchema, type CardInputs, type CardRevision, type SpeedCard } from '@shared/card/card';
+import { buildCard } from '@shared/card/build-card';
+import { utcDate } from '@shared/card/card-presentation';
+import { cardPdf } from '@shared/card-pdf/card-document';
+import { CARD_PAPER_SIZES, isCardPaperSize, type CardPaperSize } from '@shared/card-pdf/page-sizes';
+import { cardChanges, previousCardOf } from '@shared/card-pdf/revision-marks';
+import { contentSha256 } from '@shared/speed-book/canonical';
 import type { Actor } from '../audit/actor';
 import { DomainError, notFound } from '../errors/domain-error';
 import { fieldErrors } from '../errors/field-errors';

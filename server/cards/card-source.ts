@@ -4,8 +4,8 @@
  * preview and by the card log, which re-derives every reported card.
  */
 import type { Transaction } from 'sequelize';
-import type { CardContext, CardRevision } from '../../shared/card/card';
-import { contentSha256 } from '../../shared/speed-book/canonical';
+import type { CardContext, CardRevision } from '@shared/card/card';
+import { contentSha256 } from '@shared/speed-book/canonical';
 import { DomainError, notFound } from '../errors/domain-error';
 import { AircraftType, Airframe, Operator, Revision, SpeedBook } from '../models';
 import { EVER_PUBLISHED_STATUSES, maySeeRevision, OPEN_STATUSES, type Viewer } from '../revisions/revision-access';

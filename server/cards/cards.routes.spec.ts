@@ -4,16 +4,16 @@
  */
 import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
-import { airframeListSchema, aircraftTypeListSchema } from '../../shared/api/fleet';
-import { revisionResponseSchema, speedBookListSchema } from '../../shared/api/revisions';
-import { CARD_CODE_PATTERN, isCardCode } from '../../shared/card-check/card-code';
-import { buildCard } from '../../shared/card/build-card';
-import type { CardInputs } from '../../shared/card/card';
-import { cardIssueBatchResponseSchema, cardIssuePageSchema, cardPreviewResponseSchema, type CardIssueEntry } from '../../shared/card/card-api';
-import { contentSha256 } from '../../shared/speed-book/canonical';
-import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
+import { airframeListSchema, aircraftTypeListSchema } from '@shared/api/fleet';
+import { revisionResponseSchema, speedBookListSchema } from '@shared/api/revisions';
+import { CARD_CODE_PATTERN, isCardCode } from '@shared/card-check/card-code';
+import { buildCard } from '@shared/card/build-card';
+import type { CardInputs } from '@shared/card/card';
+import { cardIssueBatchResponseSchema, cardIssuePageSchema, cardPreviewResponseSchema, type CardIssueEntry } from '@shared/card/card-api';
+import { contentSha256 } from '@shared/speed-book/canonical';
+import { demoPistonTrainerContent } from '@shared/speed-book/demo-content';
 import { startHarness, type Harness } from '../../test/api/harness';
-import * as cardCode from '../../shared/card-check/card-code';
+import * as cardCode from '@shared/card-check/card-code';
 import type { Actor } from '../audit/actor';
 import { AuditEvent, CardIssue } from '../models';
 import { issueCardCode } from './card-issues.service';

@@ -1,6 +1,6 @@
 import { Router, type RequestHandler } from 'express';
-import { can } from '../../shared/auth/roles';
-import { cardIssueBatchSchema, cardIssueQuerySchema, cardPreviewRequestSchema } from '../../shared/card/card-api';
+import { can } from '@shared/auth/roles';
+import { cardIssueBatchSchema, cardIssueQuerySchema, cardPreviewRequestSchema } from '@shared/card/card-api';
 import { actorOf } from '../middleware/request-actor';
 import { DomainError, notFound } from '../errors/domain-error';
 import { requireCapability } from '../middleware/authorize';

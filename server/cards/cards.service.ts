@@ -3,10 +3,10 @@
  * Pilots preview the published revision; engineers (and approvers) also drafts and revisions in
  * review of their operator.
  */
-import type { Role } from '../../shared/auth/roles';
-import { buildCard } from '../../shared/card/build-card';
-import { CardRefusedError, type CardInputs, type SpeedCard } from '../../shared/card/card';
-import type { CardPreviewRequest } from '../../shared/card/card-api';
+import type { Role } from '@shared/auth/roles';
+import { buildCard } from '@shared/card/build-card';
+import { CardRefusedError, type CardInputs, type SpeedCard } from '@shared/card/card';
+import type { CardPreviewRequest } from '@shared/card/card-api';
 import { DomainError } from '../errors/domain-error';
 import { loadCardSource, type CardSource } from './card-source';
 

@@ -15,7 +15,7 @@
 import { parseArgs } from 'node:util';
 import { pino } from 'pino';
 import * as z from 'zod';
-import type { OperatorSummary } from '../../shared/api/operators';
+import type { OperatorSummary } from '@shared/api/operators';
 import { createSequelize } from '../../db/connection';
 import { createMigrator } from '../../db/migrator';
 import { DomainError } from '../errors/domain-error';

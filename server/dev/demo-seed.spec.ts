@@ -1,6 +1,6 @@
-import { contentSha256 } from '../../shared/speed-book/canonical';
-import { revisionContentProblems } from '../../shared/speed-book/revision-content';
-import { signedRevisionStatement } from '../../shared/speed-book/signature';
+import { contentSha256 } from '@shared/speed-book/canonical';
+import { revisionContentProblems } from '@shared/speed-book/revision-content';
+import { signedRevisionStatement } from '@shared/speed-book/signature';
 import { startHarness, TEST_SIGNING_KEY_SECRET, type Harness } from '../../test/api/harness';
 import { AircraftType, Airframe, Operator, Revision, SigningKey, SpeedBook } from '../models';
 import { verifyStatement } from '../revisions/signing';

@@ -4,14 +4,14 @@
  * that the demo password is set to DEMO_PASSWORD again.
  */
 import type { Sequelize } from 'sequelize';
-import type { Role } from '../../shared/auth/roles';
-import type { AircraftCategory, RevisionContent } from '../../shared/speed-book/revision-content';
+import type { Role } from '@shared/auth/roles';
+import type { AircraftCategory, RevisionContent } from '@shared/speed-book/revision-content';
 import {
   demoLightTwinJetContent,
   demoPistonTrainerContent,
   demoPistonTrainerContentRevised,
   demoTwinTurbopropContent,
-} from '../../shared/speed-book/demo-content';
+} from '@shared/speed-book/demo-content';
 import type { Actor } from '../audit/actor';
 import { hashPassword } from '../auth/passwords';
 import { AircraftType, Airframe, Operator, Revision, SpeedBook, User } from '../models';

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { Op } from 'sequelize';
-import type { MailboxMessage } from '../../shared/api/mailbox';
+import type { MailboxMessage } from '@shared/api/mailbox';
 import { operatorScope, requireCapability } from '../middleware/authorize';
 import { User } from '../models';
 import { readMailbox } from './mailbox';

@@ -1,5 +1,5 @@
 import { randomBytes } from 'node:crypto';
-import { aircraftTypeListSchema, airframeListSchema } from '../../shared/api/fleet';
+import { aircraftTypeListSchema, airframeListSchema } from '@shared/api/fleet';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { AircraftType, Airframe, AuditEvent } from '../models';
 import { signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';

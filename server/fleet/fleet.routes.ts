@@ -4,7 +4,7 @@ import {
   createAirframeSchema,
   updateAircraftTypeSchema,
   updateAirframeSchema,
-} from '../../shared/api/fleet';
+} from '@shared/api/fleet';
 import { actorOf } from '../middleware/request-actor';
 import { operatorScope, requireCapability } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';

@@ -1,5 +1,5 @@
 import { UniqueConstraintError } from 'sequelize';
-import type { AircraftTypeView, AirframeView, CreateAircraftType, CreateAirframe, UpdateAircraftType, UpdateAirframe } from '../../shared/api/fleet';
+import type { AircraftTypeView, AirframeView, CreateAircraftType, CreateAirframe, UpdateAircraftType, UpdateAirframe } from '@shared/api/fleet';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { DomainError, notFound } from '../errors/domain-error';

@@ -1,6 +1,6 @@
 import request from 'supertest';
-import { healthSchema } from '../../shared/api/auth';
-import { livenessSchema, readinessSchema } from '../../shared/api/health';
+import { healthSchema } from '@shared/api/auth';
+import { livenessSchema, readinessSchema } from '@shared/api/health';
 import { MIGRATION_NAMES } from '../../db/migrator';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { createReadinessProbe } from './readiness';

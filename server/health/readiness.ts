@@ -6,7 +6,7 @@
  * instances keep serving until they are replaced. Liveness is simpler and lives in the routes.
  */
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { Readiness } from '../../shared/api/health';
+import type { Readiness } from '@shared/api/health';
 import { MIGRATION_NAMES, MIGRATIONS_TABLE } from '../../db/migrator';
 
 /** How long the database may take to answer a probe before the instance counts as not ready. */

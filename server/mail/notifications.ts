@@ -10,7 +10,7 @@
  * commits (nothing is sent if it rolls back); the promise then resolves at once.
  */
 import { Op, type Transaction } from 'sequelize';
-import type { Role } from '../../shared/auth/roles';
+import type { Role } from '@shared/auth/roles';
 import { SpeedBook, User } from '../models';
 import { revisionPublishedMail, revisionSubmittedMail, revisionWithdrawnMail, type RevisionMailFacts } from './messages';
 import { outbox, type OutgoingMail } from './outbox';

@@ -1,6 +1,6 @@
 import '../auth/session-user';
 import type { RequestHandler, Response } from 'express';
-import { can, type Capability } from '../../shared/auth/roles';
+import { can, type Capability } from '@shared/auth/roles';
 import { DomainError } from '../errors/domain-error';
 
 /** The 401 of a request nobody is signed in for; it says so when the 12 hours of a sign-in ran out. */

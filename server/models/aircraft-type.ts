@@ -1,6 +1,6 @@
 import { DataTypes, type Sequelize } from 'sequelize';
 import { OperatorRecord, operatorRecordAttributes } from './common-attributes';
-import { AIRCRAFT_CATEGORIES, type AircraftCategory } from '../../shared/speed-book/revision-content';
+import { AIRCRAFT_CATEGORIES, type AircraftCategory } from '@shared/speed-book/revision-content';
 
 /** A type the operator flies; its speed book holds the flight manual's figures. */
 export class AircraftType extends OperatorRecord<AircraftType> {

@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import { idAttribute, referenceAttribute } from './common-attributes';
-import { CONTRIBUTION_KINDS, type ContributionKind } from '../../shared/speed-book/four-eyes';
+import { CONTRIBUTION_KINDS, type ContributionKind } from '@shared/speed-book/four-eyes';
 
 /** One person's one kind of contribution to a revision (created, edited, attachments, submitted); kept once. */
 export class RevisionContributor extends Model<InferAttributes<RevisionContributor>, InferCreationAttributes<RevisionContributor>> {

@@ -1,6 +1,6 @@
 import { DataTypes, type Sequelize } from 'sequelize';
 import { OperatorRecord, operatorRecordAttributes, referenceAttribute } from './common-attributes';
-import { REVISION_STATUSES, type RevisionStatus } from '../../shared/api/revisions';
+import { REVISION_STATUSES, type RevisionStatus } from '@shared/api/revisions';
 
 const FROZEN_AFTER_PUBLISHING = [
   'speedBookId',

@@ -1,5 +1,5 @@
 import { DataTypes, type CreationOptional, type NonAttribute, type Sequelize } from 'sequelize';
-import { ROLES, type Role } from '../../shared/auth/roles';
+import { ROLES, type Role } from '@shared/auth/roles';
 import { OperatorRecord, operatorRecordAttributes } from './common-attributes';
 import type { Operator } from './operator';
 

@@ -5,9 +5,9 @@
  */
 import { OpenAPIRegistry, OpenApiGeneratorV31, type ResponseConfig, type RouteConfig } from '@asteasolutions/zod-to-openapi';
 import * as z from 'zod';
-import { passwordResetRequestedSchema } from '../../shared/api/account-links';
-import { acceptInvitationRequestSchema, changePasswordRequestSchema, passwordResetConfirmSchema } from '../../shared/api/new-password';
-import { auditPageSchema, auditQuerySchema } from '../../shared/api/audit';
+import { passwordResetRequestedSchema } from '@shared/api/account-links';
+import { acceptInvitationRequestSchema, changePasswordRequestSchema, passwordResetConfirmSchema } from '@shared/api/new-password';
+import { auditPageSchema, auditQuerySchema } from '@shared/api/audit';
 import {
   apiErrorSchema,
   csrfResponseSchema,
@@ -22,7 +22,7 @@ import {
   sessionUserSchema,
   unlockRequestSchema,
   updatePersonRequestSchema,
-} from '../../shared/api/auth';
+} from '@shared/api/auth';
 import {
   aircraftTypeListSchema,
   aircraftTypeResponseSchema,
@@ -32,10 +32,10 @@ import {
   createAirframeSchema,
   updateAircraftTypeSchema,
   updateAirframeSchema,
-} from '../../shared/api/fleet';
-import { livenessSchema, readinessSchema } from '../../shared/api/health';
-import { mailboxResponseSchema } from '../../shared/api/mailbox';
-import { invitationSentSchema } from '../../shared/api/people';
+} from '@shared/api/fleet';
+import { livenessSchema, readinessSchema } from '@shared/api/health';
+import { mailboxResponseSchema } from '@shared/api/mailbox';
+import { invitationSentSchema } from '@shared/api/people';
 import {
   createRevisionSchema,
   contentCoverageRequestSchema,
@@ -48,10 +48,10 @@ import {
   speedBookListSchema,
   speedBookResponseSchema,
   updateRevisionSchema,
-} from '../../shared/api/revisions';
-import { attachmentListSchema, attachmentResponseSchema } from '../../shared/api/attachments';
-import { speedTableUploadSchema } from '../../shared/api/uploads';
-import { revisionContentSchema } from '../../shared/speed-book/revision-content';
+} from '@shared/api/revisions';
+import { attachmentListSchema, attachmentResponseSchema } from '@shared/api/attachments';
+import { speedTableUploadSchema } from '@shared/api/uploads';
+import { revisionContentSchema } from '@shared/speed-book/revision-content';
 import {
   cardIssueBatchResponseSchema,
   cardIssueBatchSchema,
@@ -60,11 +60,11 @@ import {
   cardIssueResponseSchema,
   cardPreviewRequestSchema,
   cardPreviewResponseSchema,
-} from '../../shared/card/card-api';
-import { cardPdfQuerySchema, cardPdfReprintQuerySchema } from '../../shared/card-pdf/card-pdf-api';
-import { verifyResponseSchema, verifySourceResponseSchema } from '../../shared/card-check/verify-api';
-import { verifyCodeParamsSchema } from '../../shared/card-check/verify-params';
-import { operatorSettingsResponseSchema, operatorSettingsSchema, syncQuerySchema, syncResponseSchema } from '../../shared/api/sync';
+} from '@shared/card/card-api';
+import { cardPdfQuerySchema, cardPdfReprintQuerySchema } from '@shared/card-pdf/card-pdf-api';
+import { verifyResponseSchema, verifySourceResponseSchema } from '@shared/card-check/verify-api';
+import { verifyCodeParamsSchema } from '@shared/card-check/verify-params';
+import { operatorSettingsResponseSchema, operatorSettingsSchema, syncQuerySchema, syncResponseSchema } from '@shared/api/sync';
 
 type Method = RouteConfig['method'];
 

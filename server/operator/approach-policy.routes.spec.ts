@@ -7,9 +7,9 @@
  * defaults are the common practice (from memory): ½ headwind + the whole gust, 5 to 20 kt.
  */
 import { writeFileSync } from 'node:fs';
-import { syncResponseSchema } from '../../shared/api/sync';
-import { airframeListSchema } from '../../shared/api/fleet';
-import { cardIssuePageSchema } from '../../shared/card/card-api';
+import { syncResponseSchema } from '@shared/api/sync';
+import { airframeListSchema } from '@shared/api/fleet';
+import { cardIssuePageSchema } from '@shared/card/card-api';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { readPdf } from '../../test/api/read-pdf';
 import { signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';

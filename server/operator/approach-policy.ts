@@ -2,7 +2,7 @@
  * The operator's approach additive policy as the `operators` row keeps it (four columns) and as
  * the API, the sync and the card inputs carry it (`ApproachAdditivePolicy`).
  */
-import type { ApproachAdditivePolicy } from '../../shared/card/approach-policy';
+import type { ApproachAdditivePolicy } from '@shared/card/approach-policy';
 import type { Operator } from '../models';
 
 /** The policy of an operator row. */

@@ -6,8 +6,8 @@
  * where the change came from, with nobody signed in.
  */
 import { QueryTypes, UniqueConstraintError, fn, col, where } from 'sequelize';
-import { COMMAND_LINE_USER_AGENT } from '../../shared/api/audit';
-import { createOperatorRequestSchema, type OperatorSummary } from '../../shared/api/operators';
+import { COMMAND_LINE_USER_AGENT } from '@shared/api/audit';
+import { createOperatorRequestSchema, type OperatorSummary } from '@shared/api/operators';
 import type { RequestOrigin } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { invitationLink, issueInvitation, sendInvitation } from '../auth/invitations.service';

@@ -1,8 +1,8 @@
 import { Router } from 'express';
-import type { SigningKeyResponse, SigningKeyView } from '../../shared/api/revisions';
+import type { SigningKeyResponse, SigningKeyView } from '@shared/api/revisions';
 import { actorOf } from '../middleware/request-actor';
 import { requireCapability } from '../middleware/authorize';
-import { operatorSettingsSchema } from '../../shared/api/sync';
+import { operatorSettingsSchema } from '@shared/api/sync';
 import { parseOrThrow } from '../middleware/validate';
 import type { SigningKey } from '../models';
 import { publishedSigningKeys, rotateSigningKey } from '../revisions/signing';

@@ -1,4 +1,4 @@
-import type { OperatorSettings, OperatorSettingsChange } from '../../shared/api/sync';
+import type { OperatorSettings, OperatorSettingsChange } from '@shared/api/sync';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { Operator } from '../models';

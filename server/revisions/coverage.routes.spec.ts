@@ -3,9 +3,9 @@
  * `POST /api/revisions/coverage`, and the 422 `coverage_failed` of submit and publish, which
  * carries the report and leaves the revision as it was.
  */
-import type { CoverageReport } from '../../shared/card/coverage-report';
-import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
-import type { RevisionContent } from '../../shared/speed-book/revision-content';
+import type { CoverageReport } from '@shared/card/coverage-report';
+import { demoPistonTrainerContent } from '@shared/speed-book/demo-content';
+import type { RevisionContent } from '@shared/speed-book/revision-content';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { AuditEvent, Revision } from '../models';
 import { newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';

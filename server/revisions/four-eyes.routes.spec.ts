@@ -4,8 +4,8 @@
  * 403 with the reason — while an approver who contributed nothing may. The revision lists its
  * contributors and the approval's audit event names them.
  */
-import { revisionResponseSchema } from '../../shared/api/revisions';
-import { demoPistonTrainerContent, demoPistonTrainerContentRevised } from '../../shared/speed-book/demo-content';
+import { revisionResponseSchema } from '@shared/api/revisions';
+import { demoPistonTrainerContent, demoPistonTrainerContentRevised } from '@shared/speed-book/demo-content';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { AuditEvent } from '../models';
 import { newSpeedBook, newTeam, type Session } from '../../test/api/test-helpers';

@@ -4,8 +4,8 @@
  * write and approve them; everyone of the operator sees what was ever published. A revision the
  * viewer may not see answers as one that does not exist (404), so its existence is not told.
  */
-import type { RevisionStatus } from '../../shared/api/revisions';
-import { can, type Role } from '../../shared/auth/roles';
+import type { RevisionStatus } from '@shared/api/revisions';
+import { can, type Role } from '@shared/auth/roles';
 import { notFound } from '../errors/domain-error';
 import { Revision } from '../models';
 

@@ -4,8 +4,8 @@
  * actor here in the same transaction; approving asks `refuseContributor` first.
  */
 import type { Transaction } from 'sequelize';
-import type { RevisionContributorView } from '../../shared/api/revisions';
-import { CONTRIBUTION_KINDS, contributionWords, fourEyesRefusal, type ContributionKind } from '../../shared/speed-book/four-eyes';
+import type { RevisionContributorView } from '@shared/api/revisions';
+import { CONTRIBUTION_KINDS, contributionWords, fourEyesRefusal, type ContributionKind } from '@shared/speed-book/four-eyes';
 import type { Actor } from '../audit/actor';
 import { forbidden } from '../errors/domain-error';
 import { RevisionContributor, User } from '../models';

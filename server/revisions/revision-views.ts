@@ -1,5 +1,5 @@
-import type { RevisionContributorView, RevisionStatus, RevisionSummary, RevisionView } from '../../shared/api/revisions';
-import { revisionContentProblems } from '../../shared/speed-book/revision-content';
+import type { RevisionContributorView, RevisionStatus, RevisionSummary, RevisionView } from '@shared/api/revisions';
+import { revisionContentProblems } from '@shared/speed-book/revision-content';
 import { Revision, User } from '../models';
 import { OPEN_STATUSES } from './revision-access';
 

@@ -1,9 +1,9 @@
 import { webcrypto } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
-import { revisionResponseSchema, signingKeyResponseSchema, speedBookListSchema, speedBookResponseSchema } from '../../shared/api/revisions';
-import { contentSha256 } from '../../shared/speed-book/canonical';
-import { demoPistonTrainerContent, demoPistonTrainerContentRevised } from '../../shared/speed-book/demo-content';
-import { signedRevisionStatement } from '../../shared/speed-book/signature';
+import { revisionResponseSchema, signingKeyResponseSchema, speedBookListSchema, speedBookResponseSchema } from '@shared/api/revisions';
+import { contentSha256 } from '@shared/speed-book/canonical';
+import { demoPistonTrainerContent, demoPistonTrainerContentRevised } from '@shared/speed-book/demo-content';
+import { signedRevisionStatement } from '@shared/speed-book/signature';
 import { mailTo, startHarness, type Harness } from '../../test/api/harness';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { Logger } from 'pino';
-import { contentCoverageRequestSchema, diffQuerySchema, reasonSchema, updateRevisionSchema } from '../../shared/api/revisions';
+import { contentCoverageRequestSchema, diffQuerySchema, reasonSchema, updateRevisionSchema } from '@shared/api/revisions';
 import { AttachmentStore } from '../attachments/attachments.service';
 import { actorOf } from '../middleware/request-actor';
 import { requireCapability } from '../middleware/authorize';

@@ -5,13 +5,13 @@
  * its audit event in the same transaction.
  */
 import type { Transaction } from 'sequelize';
-import type { RevisionView } from '../../shared/api/revisions';
-import { canonicalJson, contentSha256 } from '../../shared/speed-book/canonical';
-import { diffContent, type ContentChange } from '../../shared/speed-book/diff';
-import { revisionContentProblems, revisionContentSchema, type RevisionContent } from '../../shared/speed-book/revision-content';
-import { sweepEnvelope } from '../../shared/card/coverage';
-import type { CoverageReport } from '../../shared/card/coverage-report';
-import { signedRevisionStatement } from '../../shared/speed-book/signature';
+import type { RevisionView } from '@shared/api/revisions';
+import { canonicalJson, contentSha256 } from '@shared/speed-book/canonical';
+import { diffContent, type ContentChange } from '@shared/speed-book/diff';
+import { revisionContentProblems, revisionContentSchema, type RevisionContent } from '@shared/speed-book/revision-content';
+import { sweepEnvelope } from '@shared/card/coverage';
+import type { CoverageReport } from '@shared/card/coverage-report';
+import { signedRevisionStatement } from '@shared/speed-book/signature';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { forbidden, DomainError, notFound } from '../errors/domain-error';

@@ -5,8 +5,8 @@
  * needs, so an allowed call succeeds and a refused one is refused for its role alone.
  */
 import { randomBytes } from 'node:crypto';
-import type { Role } from '../../shared/auth/roles';
-import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
+import type { Role } from '@shared/auth/roles';
+import { demoPistonTrainerContent } from '@shared/speed-book/demo-content';
 import { csrfAgent, startHarness, TEST_SIGNING_KEY_SECRET, type Harness } from '../../test/api/harness';
 import type { Actor } from '../audit/actor';
 import { createAircraftType, createAirframe } from '../fleet/fleet.service';

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { createRevisionSchema, createSpeedBookSchema } from '../../shared/api/revisions';
+import { createRevisionSchema, createSpeedBookSchema } from '@shared/api/revisions';
 import { actorOf } from '../middleware/request-actor';
 import { requireCapability } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';

@@ -1,5 +1,5 @@
 import { UniqueConstraintError } from 'sequelize';
-import type { SpeedBookSummary } from '../../shared/api/revisions';
+import type { SpeedBookSummary } from '@shared/api/revisions';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { DomainError, notFound } from '../errors/domain-error';

@@ -1,9 +1,9 @@
 import 'fake-indexeddb/auto';
 import { randomUUID } from 'node:crypto';
-import { sessionUserSchema } from '../../shared/api/auth';
-import { buildCard, type CardInputs } from '../../shared/card';
-import { cardIssuePageSchema } from '../../shared/card/card-api';
-import { demoPistonTrainerContentRevised } from '../../shared/speed-book/demo-content';
+import { sessionUserSchema } from '@shared/api/auth';
+import { buildCard, type CardInputs } from '@shared/card';
+import { cardIssuePageSchema } from '@shared/card/card-api';
+import { demoPistonTrainerContentRevised } from '@shared/speed-book/demo-content';
 import { SpeedwrightDeviceDatabase, type CardLogRecord } from '../../src/app/core/storage/device-database';
 import { SyncFailure, flushOutbox, revisionNotices, runSync, waitingEntries, type SyncTransport } from '../../src/app/core/sync/device-sync';
 import { agentTransport } from '../../test/api/device-sync-transport';

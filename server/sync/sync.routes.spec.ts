@@ -1,7 +1,7 @@
 import { webcrypto } from 'node:crypto';
-import { syncResponseSchema, type SyncResponse } from '../../shared/api/sync';
-import { signedRevisionStatement } from '../../shared/speed-book/signature';
-import { demoPistonTrainerContentRevised } from '../../shared/speed-book/demo-content';
+import { syncResponseSchema, type SyncResponse } from '@shared/api/sync';
+import { signedRevisionStatement } from '@shared/speed-book/signature';
+import { demoPistonTrainerContentRevised } from '@shared/speed-book/demo-content';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { AuditEvent, Revision } from '../models';
 import { newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { syncQuerySchema } from '../../shared/api/sync';
+import { syncQuerySchema } from '@shared/api/sync';
 import { actorOf } from '../middleware/request-actor';
 import { requireCapability } from '../middleware/authorize';
 import { parseOrThrow } from '../middleware/validate';

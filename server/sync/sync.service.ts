@@ -1,5 +1,5 @@
 import { Op, QueryTypes } from 'sequelize';
-import type { SyncResponse, SyncRevision } from '../../shared/api/sync';
+import type { SyncResponse, SyncRevision } from '@shared/api/sync';
 import type { Actor } from '../audit/actor';
 import { aircraftTypeView, airframeView } from '../fleet/fleet.service';
 import { AircraftType, Airframe, Operator, Revision, SpeedBook } from '../models';

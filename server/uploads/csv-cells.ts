@@ -3,8 +3,8 @@
  * kt/kg ranges converted, kept inside them), and the configuration keys and speed codes by the
  * revision content's own schemas, each with the sentence a fleet engineer acts on.
  */
-import { configurationKeySchema, speedCodeSchema } from '../../shared/speed-book/content-shape';
-import { CANONICAL_UNITS, UNIT_SYMBOLS, fromCanonical, type StatedUnits } from '../../shared/speed-book/stated-units';
+import { configurationKeySchema, speedCodeSchema } from '@shared/speed-book/content-shape';
+import { CANONICAL_UNITS, UNIT_SYMBOLS, fromCanonical, type StatedUnits } from '@shared/speed-book/stated-units';
 import type { CsvRowError } from './csv-problems';
 import { canonicalColumn, unitColumn } from './csv-units';
 import type { CsvRow } from './speed-table-upload';

@@ -4,7 +4,7 @@
  * points, a correction of at most 30 kt (more is likelier swapped columns). Compared in the
  * file's unit, stored in kt.
  */
-import { CANONICAL_UNITS, UNIT_SYMBOLS, fromCanonical, toCanonical, type StatedUnits } from '../../shared/speed-book/stated-units';
+import { CANONICAL_UNITS, UNIT_SYMBOLS, fromCanonical, toCanonical, type StatedUnits } from '@shared/speed-book/stated-units';
 import { CONFIGURATION_KEY, configurationKeyReason, number } from './csv-cells';
 import { sortErrors, type CsvRowError } from './csv-problems';
 import type { CsvUnits } from './csv-units';

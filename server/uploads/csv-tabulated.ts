@@ -4,8 +4,8 @@
  * every combination present once, at least two values an axis. Built into the nested values
  * of the revision content (weight outermost), in kg and kt.
  */
-import { UNIT_SYMBOLS, toCanonical, type StatedUnits } from '../../shared/speed-book/stated-units';
-import { speedCodeSchema } from '../../shared/speed-book/content-shape';
+import { UNIT_SYMBOLS, toCanonical, type StatedUnits } from '@shared/speed-book/stated-units';
+import { speedCodeSchema } from '@shared/speed-book/content-shape';
 import { assertGridWithinBounds } from './csv-bounds';
 import { CONFIGURATION_KEY, SPEED_CODE, configurationKeyReason, number, schemaMessage } from './csv-cells';
 import { sortErrors, type CsvRowError } from './csv-problems';

@@ -7,8 +7,8 @@
  * `shared/speed-book/stated-units.ts` (exact factors of the 1959 yard and pound agreement and
  * the international nautical mile).
  */
-import { STATED_SPEED_UNITS, STATED_WEIGHT_UNITS } from '../../shared/speed-book/content-shape';
-import { UNIT_SYMBOLS, type StatedSpeedUnit, type StatedWeightUnit } from '../../shared/speed-book/stated-units';
+import { STATED_SPEED_UNITS, STATED_WEIGHT_UNITS } from '@shared/speed-book/content-shape';
+import { UNIT_SYMBOLS, type StatedSpeedUnit, type StatedWeightUnit } from '@shared/speed-book/stated-units';
 import { csvFileError } from './csv-problems';
 
 /** The columns that hold a figure with a unit, by what they mean. */

@@ -4,7 +4,7 @@
  * passes is the shape a draft takes).
  */
 import type * as z from 'zod';
-import type { positionErrorPointSchema, tabulatedSpeedSchema } from '../../shared/speed-book/content-shape';
+import type { positionErrorPointSchema, tabulatedSpeedSchema } from '@shared/speed-book/content-shape';
 import type { CsvRowError } from './csv-problems';
 import type { CsvUnits } from './csv-units';
 

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { speedTableUploadSchema } from '../../shared/api/uploads';
+import { speedTableUploadSchema } from '@shared/api/uploads';
 import { csrfAgent, demoEmail, signIn, startHarness, type Harness } from '../../test/api/harness';
 import { sessionOf } from '../../test/api/role-sessions';
 

@@ -1,6 +1,6 @@
 import request from 'supertest';
-import { operatorPeopleSchema, operatorPersonResponseSchema } from '../../shared/api/auth';
-import { mailboxResponseSchema } from '../../shared/api/mailbox';
+import { operatorPeopleSchema, operatorPersonResponseSchema } from '@shared/api/auth';
+import { mailboxResponseSchema } from '@shared/api/mailbox';
 import { csrfAgent, demoEmail, mailTo, mailsTo, signIn, startHarness, TEST_PASSWORD, TEST_PUBLIC_URL, type Harness } from '../../test/api/harness';
 import { AuditEvent, Invitation, PasswordResetToken, User } from '../models';
 import { sessionOf } from '../../test/api/role-sessions';

@@ -1,6 +1,6 @@
 import request from 'supertest';
-import { operatorPeopleSchema } from '../../shared/api/auth';
-import { ROLES } from '../../shared/auth/roles';
+import { operatorPeopleSchema } from '@shared/api/auth';
+import { ROLES } from '@shared/auth/roles';
 import { demoEmail, signIn, startHarness, type Harness } from '../../test/api/harness';
 import { sessionOf } from '../../test/api/role-sessions';
 import { User } from '../models';

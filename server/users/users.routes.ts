@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { actorOf } from '../middleware/request-actor';
-import { invitePersonRequestSchema, updatePersonRequestSchema } from '../../shared/api/auth';
+import { invitePersonRequestSchema, updatePersonRequestSchema } from '@shared/api/auth';
 import { operatorScope, requireCapability } from '../middleware/authorize';
 import { idParam } from '../middleware/id-param';
 import { parseOrThrow } from '../middleware/validate';

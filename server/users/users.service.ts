@@ -1,5 +1,5 @@
 import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
-import type { InvitePersonRequest, OperatorPerson, UpdatePersonRequest } from '../../shared/api/auth';
+import type { InvitePersonRequest, OperatorPerson, UpdatePersonRequest } from '@shared/api/auth';
 import type { Actor } from '../audit/actor';
 import { recordAudit } from '../audit/audit.service';
 import { issueInvitation, sendInvitation } from '../auth/invitations.service';

@@ -6,12 +6,12 @@
  */
 import { randomBytes, randomUUID } from 'node:crypto';
 import request from 'supertest';
-import { generateCardCode, cardCodeCheckCharacter, formatCardCode } from '../../shared/card-check/card-code';
-import { verifyResponseSchema, verifySourceResponseSchema } from '../../shared/card-check/verify-api';
-import { buildCard } from '../../shared/card/build-card';
-import type { CardInputs } from '../../shared/card/card';
-import { cardIssueBatchResponseSchema, cardPreviewResponseSchema } from '../../shared/card/card-api';
-import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
+import { generateCardCode, cardCodeCheckCharacter, formatCardCode } from '@shared/card-check/card-code';
+import { verifyResponseSchema, verifySourceResponseSchema } from '@shared/card-check/verify-api';
+import { buildCard } from '@shared/card/build-card';
+import type { CardInputs } from '@shared/card/card';
+import { cardIssueBatchResponseSchema, cardPreviewResponseSchema } from '@shared/card/card-api';
+import { demoPistonTrainerContent } from '@shared/speed-book/demo-content';
 import { startHarness, type Harness } from '../../test/api/harness';
 import { newSpeedBook, publish, signInEveryone, type Session, type SessionsByRole } from '../../test/api/test-helpers';
 

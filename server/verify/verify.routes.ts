@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { Router, type ErrorRequestHandler, type RequestHandler, type Response } from 'express';
 import type { Logger } from 'pino';
 import { rateLimit } from 'express-rate-limit';
-import { validateCardCode } from '../../shared/card-check/card-code';
+import { validateCardCode } from '@shared/card-check/card-code';
 import { DomainError } from '../errors/domain-error';
 import type { LogPseudonym } from '../logging/log-pseudonym';
 import type { ReadPool } from './read-pool';

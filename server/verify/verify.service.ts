@@ -4,8 +4,8 @@
  * instances on the path, so it stays fast under load. It gives only what the card itself prints (see
  * shared/card-check/verify-api.ts for what is public and why).
  */
-import type { VerifyResponse, VerifySource } from '../../shared/card-check/verify-api';
-import type { RevisionStatus } from '../../shared/api/revisions';
+import type { VerifyResponse, VerifySource } from '@shared/card-check/verify-api';
+import type { RevisionStatus } from '@shared/api/revisions';
 import type { ReadPool } from './read-pool';
 
 const STATUS: Partial<Record<RevisionStatus, 'current' | 'superseded' | 'withdrawn'>> = {

@@ -1,7 +1,7 @@
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { FIGURES_DIFFER } from '../../shared/card-check/figures-check';
+import { FIGURES_DIFFER } from '@shared/card-check/figures-check';
 import { firstScreenModules, modulePreloadLinks, modulesForPath } from './first-screen-preload';
 
 /** A small build as Angular's chunk optimizer writes one: an entry, shared and page chunks. */

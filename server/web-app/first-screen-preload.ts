@@ -1,6 +1,6 @@
 import { existsSync, readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { FIGURES_DIFFER } from '../../shared/card-check/figures-check';
+import { FIGURES_DIFFER } from '@shared/card-check/figures-check';
 
 /**
  * The code of the two pages a phone most often opens first, the sign-in page and a printed

@@ -1,4 +1,4 @@
-import { checkUrl, type CheckPayload } from '../../shared/card-check/check-url';
+import { checkUrl, type CheckPayload } from '@shared/card-check/check-url';
 import { fetchPreloadLinks, firstScreenRequests, SESSION_PATH } from './first-screen-requests';
 
 // A check URL as a printed card's QR code carries it (shared/card-check/check-url.ts builds it).

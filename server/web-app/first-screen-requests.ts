@@ -1,5 +1,5 @@
-import { parseCheckUrl } from '../../shared/card-check/check-url';
-import { VERIFY_PATHS } from '../../shared/card-check/verify-api';
+import { parseCheckUrl } from '@shared/card-check/check-url';
+import { VERIFY_PATHS } from '@shared/card-check/verify-api';
 
 /** The session probe every page's guards wait for (`AuthService.session()` in the app). */
 export const SESSION_PATH = '/api/auth/me';

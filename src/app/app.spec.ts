@@ -3,7 +3,7 @@ import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
 import { SwUpdate } from '@angular/service-worker';
 import { Subject, of, throwError } from 'rxjs';
-import { SessionUser } from '../../shared/api/auth';
+import { SessionUser } from '@shared/api/auth';
 import { App, SAFETY_CAUTION } from './app';
 import { APP_NAVIGATION } from './app.navigation';
 import { ApiRequestError } from './core/api/api-request-error';

@@ -7,7 +7,7 @@ import { MatIcon } from '@angular/material/icon';
 import { MatToolbar } from '@angular/material/toolbar';
 import { NavigationEnd, Router, RouterLink, RouterOutlet } from '@angular/router';
 import { filter, firstValueFrom, map } from 'rxjs';
-import { ROLE_LABELS } from '../../shared/auth/roles';
+import { ROLE_LABELS } from '@shared/auth/roles';
 import { ApiRequestError } from './core/api/api-request-error';
 import { AuthService } from './core/auth/auth-service';
 import type { SyncService } from './core/sync/sync-service';
@@ -19,7 +19,7 @@ import { ConnectionIndicator } from './shell/connection-indicator';
 import type { DiscardWaitingData } from './shell/discard-waiting-dialog';
 import { SignedInFrame } from './shell/signed-in-frame';
 import { ThemeToggle } from './shell/theme-toggle';
-import { SAFETY_CAUTION } from '../../shared/card/card-presentation';
+import { SAFETY_CAUTION } from '@shared/card/card-presentation';
 
 /** Landscape tablets and desktops keep the navigation open beside the page. */
 export const WIDE_SCREEN_QUERY = '(min-width: 960px)';

@@ -5,8 +5,8 @@
  * does (status 0 when no answer came).
  */
 import type TestAgent from 'supertest/lib/agent';
-import { syncResponseSchema } from '../../shared/api/sync';
-import { cardIssueBatchResponseSchema } from '../../shared/card/card-api';
+import { syncResponseSchema } from '@shared/api/sync';
+import { cardIssueBatchResponseSchema } from '@shared/card/card-api';
 import type { SyncTransport } from '../../src/app/core/sync/device-sync';
 
 export class TransportFailure extends Error {

@@ -2,6 +2,7 @@
  * Before the API tests: the private test MariaDB instance (its own data directory and port,
  * never the demo database), a fresh test database, migrations and the seed.
  */
+import '../support/shared-alias';
 import { rmSync, writeFileSync } from 'node:fs';
 import { openLocalDatabase } from '../../db/local';
 import { createMigrator } from '../../db/migrator';

@@ -1,3 +1,4 @@
+import '../support/shared-alias';
 import { readFileSync } from 'node:fs';
 import { stopLocalInstance } from '../../db/local';
 import { apiTestEnvFile } from './constants';

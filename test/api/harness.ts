@@ -4,7 +4,7 @@
 import { pino, type Logger } from 'pino';
 import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
-import type { Role } from '../../shared/auth/roles';
+import type { Role } from '@shared/auth/roles';
 import { createApp } from '../../server/app';
 import { loadConfig, type ServerConfig } from '../../server/config';
 import { createSequelize } from '../../db/connection';

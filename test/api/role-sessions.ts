@@ -1,4 +1,4 @@
-import type { Role } from '../../shared/auth/roles';
+import type { Role } from '@shared/auth/roles';
 import { newPerson } from './test-helpers';
 import { demoEmail, signIn, type Harness } from './harness';
 

@@ -5,9 +5,9 @@
  */
 import { randomBytes } from 'node:crypto';
 import type TestAgent from 'supertest/lib/agent';
-import type { Role } from '../../shared/auth/roles';
-import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
-import type { RevisionContent } from '../../shared/speed-book/revision-content';
+import type { Role } from '@shared/auth/roles';
+import { demoPistonTrainerContent } from '@shared/speed-book/demo-content';
+import type { RevisionContent } from '@shared/speed-book/revision-content';
 import { signIn, TEST_PASSWORD, type Harness } from './harness';
 import { sessionOf } from './role-sessions';
 import { hashPassword } from '../../server/auth/passwords';

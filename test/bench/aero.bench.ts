@@ -13,8 +13,8 @@
  * machine); a `convertAirspeed` sample is a batch of 100 calls. Table and bare-loop samples
  * alternate, so both sides of the ratio see the same conditions.
  */
-import * as aero from '../../shared/aero';
-import type { AirspeedInput, PositionErrorTable } from '../../shared/aero';
+import * as aero from '@shared/aero';
+import type { AirspeedInput, PositionErrorTable } from '@shared/aero';
 
 // Bound once: tsx's CommonJS output would otherwise read each imported name through a getter
 // on every call, a cost of the test runner and not of the library (see shared/aero/airspeed.ts).

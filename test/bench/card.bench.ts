@@ -16,7 +16,7 @@
  * figures: on a shared machine a busy neighbour stretches every sample.
  */
 import { loadavg } from 'node:os';
-import * as card from '../../shared/card';
+import * as card from '@shared/card';
 import { BENCH_CARD } from './pdf-bench-card';
 
 // Bound once: tsx's CommonJS output reads each imported name through a getter on every use.

@@ -8,9 +8,9 @@
  * one warm-up; the load average is printed beside the figures (a busy neighbour stretches them).
  */
 import { loadavg } from 'node:os';
-import * as coverage from '../../shared/card/coverage';
-import * as demo from '../../shared/speed-book/demo-content';
-import { revisionContentSchema } from '../../shared/speed-book/revision-content';
+import * as coverage from '@shared/card/coverage';
+import * as demo from '@shared/speed-book/demo-content';
+import { revisionContentSchema } from '@shared/speed-book/revision-content';
 
 const { sweepEnvelope } = coverage;
 const TARGET_MS = 2000;

@@ -3,13 +3,13 @@
  * table (as card.bench.ts), revision marks against an earlier revision with a lower VMO, a card
  * code and check URL. Invented demo data — not for flight.
  */
-import { checkUrl } from '../../shared/card-check/check-url';
-import { formatCardCode } from '../../shared/card-check/card-code';
-import type { SpeedCard } from '../../shared/card/card';
-import { cardChanges, previousCardOf, type CardChanges } from '../../shared/card-pdf/revision-marks';
-import type { CardPdfInput } from '../../shared/card-pdf/card-document';
-import { contentSha256 } from '../../shared/speed-book/canonical';
-import { demoLightTwinJetContent } from '../../shared/speed-book/demo-content';
+import { checkUrl } from '@shared/card-check/check-url';
+import { formatCardCode } from '@shared/card-check/card-code';
+import type { SpeedCard } from '@shared/card/card';
+import { cardChanges, previousCardOf, type CardChanges } from '@shared/card-pdf/revision-marks';
+import type { CardPdfInput } from '@shared/card-pdf/card-document';
+import { contentSha256 } from '@shared/speed-book/canonical';
+import { demoLightTwinJetContent } from '@shared/speed-book/demo-content';
 
 const content = demoLightTwinJetContent();
 const earlier = demoLightTwinJetContent();

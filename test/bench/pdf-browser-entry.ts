@@ -3,9 +3,9 @@
  * screen's "Print card" (shared/card-pdf's definition, src/app/cards/browser-pdfmake.ts's
  * pdfmake with the fonts fetched from /pdf-fonts/), timed in the page.
  */
-import { buildCard } from '../../shared/card/build-card';
-import { cardPdf } from '../../shared/card-pdf/card-document';
-import { NO_CHANGES } from '../../shared/card-pdf/revision-marks';
+import { buildCard } from '@shared/card/build-card';
+import { cardPdf } from '@shared/card-pdf/card-document';
+import { NO_CHANGES } from '@shared/card-pdf/revision-marks';
 import { loadPdfMake, renderPdfInBrowser } from '../../src/app/cards/browser-pdfmake';
 import { BENCH_CARD } from './pdf-bench-card';
 

@@ -20,9 +20,9 @@ import { createReadStream, existsSync, mkdtempSync, rmSync, writeFileSync } from
 import { createServer } from 'node:http';
 import { loadavg, tmpdir } from 'node:os';
 import { basename, dirname, join } from 'node:path';
-import { buildCard } from '../../shared/card/build-card';
-import { cardPdf } from '../../shared/card-pdf/card-document';
-import { cardFontFiles } from '../../shared/card-pdf/fonts';
+import { buildCard } from '@shared/card/build-card';
+import { cardPdf } from '@shared/card-pdf/card-document';
+import { cardFontFiles } from '@shared/card-pdf/fonts';
 import { renderCardPdf } from '../../server/cards/card-pdf-renderer';
 import { launchBrowser } from '../e2e/browser';
 import { BENCH_CARD } from './pdf-bench-card';

@@ -33,8 +33,8 @@ import { createApp } from '../../server/app';
 import { loadConfig } from '../../server/config';
 import { createSequelize } from '../../db/connection';
 import { initModels } from '../../server/models';
-import { demoLightTwinJetContent, demoPistonTrainerContent, demoPistonTrainerContentRevised, demoTwinTurbopropContent } from '../../shared/speed-book/demo-content';
-import type { RevisionContent } from '../../shared/speed-book/revision-content';
+import { demoLightTwinJetContent, demoPistonTrainerContent, demoPistonTrainerContentRevised, demoTwinTurbopropContent } from '@shared/speed-book/demo-content';
+import type { RevisionContent } from '@shared/speed-book/revision-content';
 
 const FULL_TARGET_MS = 1000;
 const FULL_TARGET_BYTES = 400_000;

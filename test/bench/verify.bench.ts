@@ -26,8 +26,8 @@ import { recordCardIssue } from '../../server/cards/card-issues.service';
 import { loadCardSource } from '../../server/cards/card-source';
 import { createSequelize } from '../../db/connection';
 import { AircraftType, Airframe, initModels, Revision, SpeedBook, User } from '../../server/models';
-import { buildCard } from '../../shared/card/build-card';
-import type { CardInputs } from '../../shared/card/card';
+import { buildCard } from '@shared/card/build-card';
+import type { CardInputs } from '@shared/card/card';
 import { freePort, stopProcess, waitUntilHealthy } from '../support/app-server';
 
 // autocannon ships no types; the part of its API used here.

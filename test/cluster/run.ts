@@ -19,10 +19,10 @@ import { startCluster, startNode, stopCluster } from '../../db/cluster/local-clu
 import { loadCardSource } from '../../server/cards/card-source';
 import { DEFAULT_DEMO_PASSWORD, seedDemo } from '../../server/dev/demo-seed';
 import { AircraftType, Airframe, initModels, Revision, SpeedBook, User } from '../../server/models';
-import { buildCard } from '../../shared/card/build-card';
-import type { CardInputs } from '../../shared/card/card';
-import { MAX_CARD_ISSUES_PER_BATCH } from '../../shared/card/card-api';
-import { demoPistonTrainerContent } from '../../shared/speed-book/demo-content';
+import { buildCard } from '@shared/card/build-card';
+import type { CardInputs } from '@shared/card/card';
+import { MAX_CARD_ISSUES_PER_BATCH } from '@shared/card/card-api';
+import { demoPistonTrainerContent } from '@shared/speed-book/demo-content';
 import { ClusterClient } from './http-client';
 
 const sleep = (ms: number) => new Promise((done) => setTimeout(done, ms));

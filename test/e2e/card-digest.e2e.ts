@@ -8,7 +8,7 @@
 import { buildSync } from 'esbuild';
 import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
-import { HAND_PISTON_CARD_DIGEST } from '../../shared/card/testing/test-fixtures';
+import { HAND_PISTON_CARD_DIGEST } from '@shared/card/testing/test-fixtures';
 import { launchBrowser, newPage } from './browser';
 
 const root = join(__dirname, '..', '..');

@@ -2,6 +2,7 @@
  * Before the end-to-end tests: the real server on a free loopback port against a fresh e2e
  * database (`speedwright_e2e_test`) on the private test instance (test/support/app-server.ts).
  */
+import '../support/shared-alias';
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { projectRoot } from '../../db/instance';

@@ -1,3 +1,4 @@
+import '../support/shared-alias';
 import { stopLocalInstance } from '../../db/local';
 
 export default async function globalTeardown(): Promise<void> {

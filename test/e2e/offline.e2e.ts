@@ -1,7 +1,7 @@
 import { request, type APIRequestContext, type Browser, type Page } from 'playwright-core';
-import { loginResponseSchema } from '../../shared/api/auth';
-import { revisionResponseSchema, speedBookListSchema } from '../../shared/api/revisions';
-import { cardIssuePageSchema } from '../../shared/card/card-api';
+import { loginResponseSchema } from '@shared/api/auth';
+import { revisionResponseSchema, speedBookListSchema } from '@shared/api/revisions';
+import { cardIssuePageSchema } from '@shared/card/card-api';
 import { baseUrl, launchBrowser } from './browser';
 import { E2E_PASSWORD } from './constants';
 import { chooseAirframe, expectText, signInThroughPage as signIn } from './page-helpers';

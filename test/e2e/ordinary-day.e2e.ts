@@ -1,5 +1,5 @@
 import type { Browser, Page } from 'playwright-core';
-import { pressureAltitudeFt } from '../../shared/aero';
+import { pressureAltitudeFt } from '@shared/aero';
 import { launchBrowser, newPage } from './browser';
 import { E2E_PASSWORD } from './constants';
 import { chooseAirframe, expectText, signInThroughPage as signIn } from './page-helpers';

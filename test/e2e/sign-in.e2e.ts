@@ -1,5 +1,5 @@
 import type { Browser, Page } from 'playwright-core';
-import { ROLES, type Role } from '../../shared/auth/roles';
+import { ROLES, type Role } from '@shared/auth/roles';
 import { launchBrowser, newPage } from './browser';
 import { E2E_PASSWORD } from './constants';
 import { expectText, signInThroughPage as signIn } from './page-helpers';

@@ -1,11 +1,11 @@
 import type { Browser, Page } from 'playwright-core';
-import { aircraftTypeListSchema, airframeListSchema } from '../../shared/api/fleet';
-import { revisionResponseSchema, speedBookListSchema } from '../../shared/api/revisions';
-import { iasToCasKt } from '../../shared/aero';
-import { buildCard, type CardInputs } from '../../shared/card';
-import { cardIssueBatchSchema, cardIssuePageSchema } from '../../shared/card/card-api';
-import { revisionContentSchema } from '../../shared/speed-book/revision-content';
-import { roundingOfClass, speedClassOf } from '../../shared/speed-book/speed-class';
+import { aircraftTypeListSchema, airframeListSchema } from '@shared/api/fleet';
+import { revisionResponseSchema, speedBookListSchema } from '@shared/api/revisions';
+import { iasToCasKt } from '@shared/aero';
+import { buildCard, type CardInputs } from '@shared/card';
+import { cardIssueBatchSchema, cardIssuePageSchema } from '@shared/card/card-api';
+import { revisionContentSchema } from '@shared/speed-book/revision-content';
+import { roundingOfClass, speedClassOf } from '@shared/speed-book/speed-class';
 import { launchBrowser, newPage } from './browser';
 import { E2E_PASSWORD } from './constants';
 import { chooseAirframe, expectText, signInThroughPage as signIn } from './page-helpers';

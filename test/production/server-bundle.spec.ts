@@ -11,7 +11,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { projectRoot } from '../../db/instance';
 import { MIGRATION_NAMES } from '../../db/migrator';
-import { cardFontFiles } from '../../shared/card-pdf/fonts';
+import { cardFontFiles } from '@shared/card-pdf/fonts';
 import { buildServer, SERVER_ENTRY_POINTS, type ServerBuild } from '../../tools/build-server';
 
 jest.setTimeout(120_000);

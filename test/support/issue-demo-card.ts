@@ -8,9 +8,9 @@ import { recordCardIssue } from '../../server/cards/card-issues.service';
 import { loadCardSource } from '../../server/cards/card-source';
 import { createSequelize } from '../../db/connection';
 import { AircraftType, Airframe, initModels, Revision, SpeedBook, User } from '../../server/models';
-import { checkUrl } from '../../shared/card-check/check-url';
-import { buildCard } from '../../shared/card/build-card';
-import type { CardInputs } from '../../shared/card/card';
+import { checkUrl } from '@shared/card-check/check-url';
+import { buildCard } from '@shared/card/build-card';
+import type { CardInputs } from '@shared/card/card';
 
 export async function issueDemoCard(databaseUrl: string, baseUrl: string): Promise<{ code: string; url: string }> {
   const sequelize = createSequelize(databaseUrl);

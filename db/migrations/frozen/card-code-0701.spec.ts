@@ -1,4 +1,4 @@
-import { cardCodeCheckCharacter, generateCardCode, isCardCode } from '../../../shared/card-check/card-code';
+import { cardCodeCheckCharacter, generateCardCode, isCardCode } from '@shared/card-check/card-code';
 import { cardCodeCheckCharacter0701, generateCardCode0701 } from './card-code-0701';
 
 /** A repeatable byte source: a linear congruential generator (Numerical Recipes' constants, from memory). */

@@ -1,8 +1,8 @@
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
-import { PasswordResetRequest, passwordSetResponseSchema } from '../../../shared/api/auth';
-import type { AcceptInvitationRequest, ChangePasswordRequest, PasswordResetConfirm } from '../../../shared/api/new-password';
-import { passwordResetRequestedSchema } from '../../../shared/api/account-links';
+import { PasswordResetRequest, passwordSetResponseSchema } from '@shared/api/auth';
+import type { AcceptInvitationRequest, ChangePasswordRequest, PasswordResetConfirm } from '@shared/api/new-password';
+import { passwordResetRequestedSchema } from '@shared/api/account-links';
 import { API_PATHS } from '../core/api/api-paths';
 import { ApiClient } from '../core/api/api-client';
 

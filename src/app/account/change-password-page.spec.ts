@@ -4,7 +4,7 @@ import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { SessionUser } from '../../../shared/api/auth';
+import type { SessionUser } from '@shared/api/auth';
 import { API_PATHS } from '../core/api/api-paths';
 import { AuthService } from '../core/auth/auth-service';
 import { ChangePasswordPage } from './change-password-page';

@@ -5,7 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { RouterLink } from '@angular/router';
-import { newPasswordProblem } from '../../../shared/auth/password-strength';
+import { newPasswordProblem } from '@shared/auth/password-strength';
 import { requestState } from '../core/api/request-state';
 import { AuthService } from '../core/auth/auth-service';
 import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';

@@ -3,7 +3,7 @@ import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { ActivatedRoute, RouterLink } from '@angular/router';
-import { newPasswordSchema } from '../../../shared/api/new-password';
+import { newPasswordSchema } from '@shared/api/new-password';
 import { requestState } from '../core/api/request-state';
 import { showServerFieldErrors } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';

@@ -5,7 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { RouterLink } from '@angular/router';
-import { passwordResetRequestSchema } from '../../../shared/api/auth';
+import { passwordResetRequestSchema } from '@shared/api/auth';
 import { requestState } from '../core/api/request-state';
 import { controlMessage, showServerFieldErrors } from '../core/forms/server-field-errors';
 import { zodValidator } from '../core/forms/zod-validator';

@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { linkTokenSchema } from '../../../shared/api/auth';
+import { linkTokenSchema } from '@shared/api/auth';
 
 /** What the address bar of a mailed link says about its token. */
 export type LinkTokenReading = { readonly token: string } | { readonly problem: string };

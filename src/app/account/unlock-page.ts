@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ActivatedRoute, RouterLink } from '@angular/router';
-import { unlockRequestSchema } from '../../../shared/api/auth';
+import { unlockRequestSchema } from '@shared/api/auth';
 import { requestState } from '../core/api/request-state';
 import { AccountFrame } from './account-frame';
 import { AccountLinks } from './account-links';

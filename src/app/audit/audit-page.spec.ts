@@ -3,8 +3,8 @@ import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@a
 import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { AuditEventView } from '../../../shared/api/audit';
-import { Role } from '../../../shared/auth/roles';
+import { AuditEventView } from '@shared/api/audit';
+import { Role } from '@shared/auth/roles';
 import { API_PATHS } from '../core/api/api-paths';
 import { AuthService } from '../core/auth/auth-service';
 import { AUDIT_PAGE_SIZE, AuditPage } from './audit-page';

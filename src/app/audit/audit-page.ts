@@ -8,7 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
-import { AuditEventView } from '../../../shared/api/audit';
+import { AuditEventView } from '@shared/api/audit';
 import { userMay } from '../core/auth/user-may';
 import { CursorPager } from '../core/table/cursor-pager';
 import { FilteredLog } from '../core/table/filtered-log';

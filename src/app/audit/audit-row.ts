@@ -1,5 +1,5 @@
 import { utcDateTime } from '../core/format/display-format';
-import { AuditEventView, COMMAND_LINE_USER_AGENT } from '../../../shared/api/audit';
+import { AuditEventView, COMMAND_LINE_USER_AGENT } from '@shared/api/audit';
 import { actionLabel, entityLabel } from './audit-vocabulary';
 
 /** One line of a record's details: a field and what happened to it. */

@@ -2,7 +2,7 @@ import { HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import * as z from 'zod';
-import { AuditQuery, auditPageSchema } from '../../../shared/api/audit';
+import { AuditQuery, auditPageSchema } from '@shared/api/audit';
 import { API_PATHS } from '../core/api/api-paths';
 import { ApiClient } from '../core/api/api-client';
 

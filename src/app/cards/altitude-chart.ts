@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { Legend, LineElement, LinearScale, PointElement, ScatterController, Tooltip, type ChartConfiguration } from 'chart.js';
 import { BaseChartDirective, provideCharts } from 'ng2-charts';
-import type { SpeedCard } from '../../../shared/card';
+import type { SpeedCard } from '@shared/card';
 import { ThemePreference } from '../core/theme/theme-preference';
 import { altitudeSeries, type AltitudePoint } from './altitude-series';
 

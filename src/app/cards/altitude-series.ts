@@ -4,8 +4,8 @@
  * into TAS and Mach with the flight-physics library. For the picture only; the card's figures
  * are the table's.
  */
-import { AeroInputError, convertAirspeed } from '../../../shared/aero';
-import type { SpeedCard } from '../../../shared/card';
+import { AeroInputError, convertAirspeed } from '@shared/aero';
+import type { SpeedCard } from '@shared/card';
 
 export interface AltitudePoint {
   /** TAS in kt, or Mach. */

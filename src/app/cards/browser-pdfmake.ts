@@ -5,8 +5,8 @@
  * the service worker, so this works offline) and unpacked once from WOFF (shared/card-pdf/woff.ts).
  */
 import type { TDocumentDefinitions } from 'pdfmake/interfaces';
-import { BROWSER_FONT_PATH, cardFontDictionary, cardFontFiles, type CardFontFile } from '../../../shared/card-pdf/fonts';
-import { woffToSfnt } from '../../../shared/card-pdf/woff';
+import { BROWSER_FONT_PATH, cardFontDictionary, cardFontFiles, type CardFontFile } from '@shared/card-pdf/fonts';
+import { woffToSfnt } from '@shared/card-pdf/woff';
 
 type PdfMake = typeof import('pdfmake/build/pdfmake');
 

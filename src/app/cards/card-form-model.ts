@@ -3,8 +3,8 @@ import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl, NonNullableFormBuilder } from '@angular/forms';
 import type { ErrorStateMatcher } from '@angular/material/core';
 import { Subject, asyncScheduler, debounceTime, merge, type SchedulerLike } from 'rxjs';
-import { CardRefusedError, buildCard, enRouteDeviationCheck, startingEnRouteDeviationC, type CardInputs, type SpeedCard } from '../../../shared/card';
-import { AeroInputError, isaDeviationC, pressureAltitudeFt } from '../../../shared/aero';
+import { CardRefusedError, buildCard, enRouteDeviationCheck, startingEnRouteDeviationC, type CardInputs, type SpeedCard } from '@shared/card';
+import { AeroInputError, isaDeviationC, pressureAltitudeFt } from '@shared/aero';
 import { AuthService } from '../core/auth/auth-service';
 import { SyncService } from '../core/sync/sync-service';
 import { cardNumber } from '../core/format/display-format';
@@ -13,7 +13,7 @@ import { CardRevisionSelection } from './card-revision-selection';
 import { cardContextOf, cardRevisionOf, type AirframeChoice, type CardRevisionSource } from './card-sources';
 import { CANONICAL_UNITS, UNIT_FIELDS, UnitPreferences, formatInUnit, fromCanonical, otherUnit, toCanonical, type AnyUnit, type UnitChoice, type UnitField } from './card-units';
 import type { EnteredInput } from './speed-card-view';
-import { directionWords, windWords } from '../../../shared/card/card-wind-words';
+import { directionWords, windWords } from '@shared/card/card-wind-words';
 
 /** Long enough that typing "1050" builds one card, short enough to feel live. */
 export const CARD_DEBOUNCE_MS = 300;

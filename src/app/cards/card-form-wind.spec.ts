@@ -1,4 +1,4 @@
-import { COMMON_PRACTICE_APPROACH_POLICY } from '../../../shared/card';
+import { COMMON_PRACTICE_APPROACH_POLICY } from '@shared/card';
 import { cardInputsFrom, formFieldOfRefusal, type CardFormValue } from './card-form';
 import { CANONICAL_UNITS } from './card-units';
 

@@ -4,10 +4,10 @@
  * per field, what is missing or not a number.
  */
 import { FormControl, FormGroup, NonNullableFormBuilder } from '@angular/forms';
-import { takeoffConfigurationKeys } from '../../../shared/card';
-import type { ApproachAdditivePolicy, CardInputs } from '../../../shared/card';
-import type { RevisionContent } from '../../../shared/speed-book/revision-content';
-import { AeroInputError } from '../../../shared/aero';
+import { takeoffConfigurationKeys } from '@shared/card';
+import type { ApproachAdditivePolicy, CardInputs } from '@shared/card';
+import type { RevisionContent } from '@shared/speed-book/revision-content';
+import { AeroInputError } from '@shared/aero';
 import { CANONICAL_UNITS, UNIT_FIELDS, formatInUnit, fromCanonical, toCanonical, type UnitChoice, type UnitField } from './card-units';
 
 export type CruiseKind = 'ias' | 'mach';

@@ -1,9 +1,9 @@
 import { DOCUMENT } from '@angular/common';
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
-import type { SpeedCard } from '../../../shared/card';
-import { checkUrl, formatCardCode } from '../../../shared/card-check';
-import { CARD_PAPERS, CARD_PAPER_SIZES, cardChanges, cardPdf, previousCardOf, type CardPaperSize, type PreviousCard } from '../../../shared/card-pdf';
+import type { SpeedCard } from '@shared/card';
+import { checkUrl, formatCardCode } from '@shared/card-check';
+import { CARD_PAPERS, CARD_PAPER_SIZES, cardChanges, cardPdf, previousCardOf, type CardPaperSize, type PreviousCard } from '@shared/card-pdf';
 import { AuthService } from '../core/auth/auth-service';
 import { utcDate } from '../core/format/display-format';
 import { DeviceStore } from '../core/storage/device-store';

@@ -1,8 +1,8 @@
 import { Injectable, effect, inject, signal, untracked } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
-import type { SpeedCard } from '../../../shared/card';
-import type { SessionUser } from '../../../shared/api/auth';
-import { cardIssuePageSchema, cardIssueResponseSchema, type CardIssueView } from '../../../shared/card/card-api';
+import type { SpeedCard } from '@shared/card';
+import type { SessionUser } from '@shared/api/auth';
+import { cardIssuePageSchema, cardIssueResponseSchema, type CardIssueView } from '@shared/card/card-api';
 import { ApiClient } from '../core/api/api-client';
 import { AuthService } from '../core/auth/auth-service';
 import { DeviceStore, type CardLogRecord } from '../core/storage/device-store';

@@ -1,5 +1,5 @@
 import { Pipe, PipeTransform } from '@angular/core';
-import { cardNumber } from '../../../shared/card/card-presentation';
+import { cardNumber } from '@shared/card/card-presentation';
 
 export { cardNumber };
 

@@ -1,6 +1,6 @@
 import { DOCUMENT } from '@angular/common';
 import { Injectable, inject } from '@angular/core';
-import { isCardPaperSize, type CardPaperSize } from '../../../shared/card-pdf/page-sizes';
+import { isCardPaperSize, type CardPaperSize } from '@shared/card-pdf/page-sizes';
 
 const KEY = 'speedwright.card-paper.';
 

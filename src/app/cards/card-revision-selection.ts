@@ -2,9 +2,9 @@ import { DestroyRef, Injectable, computed, effect, inject, signal } from '@angul
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { FormControl } from '@angular/forms';
 import { EMPTY, Subject, catchError, distinctUntilChanged, merge, of, switchMap, tap } from 'rxjs';
-import type { RevisionSummary } from '../../../shared/api/revisions';
-import { takeoffConfigurationKeys } from '../../../shared/card';
-import { revisionContentSchema, type RevisionContent } from '../../../shared/speed-book/revision-content';
+import type { RevisionSummary } from '@shared/api/revisions';
+import { takeoffConfigurationKeys } from '@shared/card';
+import { revisionContentSchema, type RevisionContent } from '@shared/speed-book/revision-content';
 import { userMay } from '../core/auth/user-may';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { utcDate, utcMinutes } from '../core/format/display-format';

@@ -1,9 +1,9 @@
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
-import { airframeListSchema, type AircraftTypeView, type AirframeView } from '../../../shared/api/fleet';
-import { revisionResponseSchema, speedBookResponseSchema, type RevisionSummary, type RevisionView } from '../../../shared/api/revisions';
-import type { CardContext, CardRevision } from '../../../shared/card';
-import { contentSha256 } from '../../../shared/speed-book/canonical';
+import { airframeListSchema, type AircraftTypeView, type AirframeView } from '@shared/api/fleet';
+import { revisionResponseSchema, speedBookResponseSchema, type RevisionSummary, type RevisionView } from '@shared/api/revisions';
+import type { CardContext, CardRevision } from '@shared/card';
+import { contentSha256 } from '@shared/speed-book/canonical';
 import { ApiClient } from '../core/api/api-client';
 import type { RevisionRecord } from '../core/storage/device-database';
 import type { DeviceSnapshot } from '../core/sync/sync-service';

@@ -1,6 +1,6 @@
 import { Injectable, inject } from '@angular/core';
 import { DOCUMENT } from '@angular/common';
-import { cToF, fToC, ftToM, hpaToInhg, inhgToHpa, kgToLb, kmhToKt, ktToKmh, lbToKg, mToFt } from '../../../shared/aero';
+import { cToF, fToC, ftToM, hpaToInhg, inhgToHpa, kgToLb, kmhToKt, ktToKmh, lbToKg, mToFt } from '@shared/aero';
 
 /** What a form field measures; each kind offers the canonical unit and one other. */
 export type Quantity = 'speed' | 'length' | 'pressure' | 'mass' | 'temperature' | 'temperatureDifference';

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { CardWind, SpeedCard } from '../../../shared/card';
-import { crosswindWords, directionWords, headwindWords, windWords } from '../../../shared/card/card-wind-words';
+import type { CardWind, SpeedCard } from '@shared/card';
+import { crosswindWords, directionWords, headwindWords, windWords } from '@shared/card/card-wind-words';
 
 interface WindRow {
   readonly where: 'Departure' | 'Arrival';

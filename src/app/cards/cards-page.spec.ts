@@ -1,4 +1,4 @@
-import { decodeCheckPayload } from '../../../shared/card-check/check-url';
+import { decodeCheckPayload } from '@shared/card-check/check-url';
 import { provideRouter } from '@angular/router';
 import 'fake-indexeddb/auto';
 import { provideHttpClient } from '@angular/common/http';
@@ -6,12 +6,12 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { Component, computed, input, signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import type { SessionUser } from '../../../shared/api/auth';
-import type { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
-import type { RevisionView } from '../../../shared/api/revisions';
-import { buildCard, type CardInputs, type SpeedCard } from '../../../shared/card';
-import { contentSha256 } from '../../../shared/speed-book/canonical';
-import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
+import type { SessionUser } from '@shared/api/auth';
+import type { AircraftTypeView, AirframeView } from '@shared/api/fleet';
+import type { RevisionView } from '@shared/api/revisions';
+import { buildCard, type CardInputs, type SpeedCard } from '@shared/card';
+import { contentSha256 } from '@shared/speed-book/canonical';
+import { demoPistonTrainerContent } from '@shared/speed-book/demo-content';
 import { AuthService } from '../core/auth/auth-service';
 import { DeviceStore, SpeedwrightDeviceDatabase, type RevisionRecord } from '../core/storage/device-store';
 import { DAY_MS, dataCurrency, type RevisionNotice } from '../core/sync/device-sync';

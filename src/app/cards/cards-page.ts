@@ -11,8 +11,8 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RevisionNotices } from '../core/sync/revision-notices';
 import { SyncStatusPanel } from '../core/sync/sync-status-panel';
-import { MAX_WIND_KT } from '../../../shared/card';
-import { WIND_REFERENCE_SENTENCE, directionUnit } from '../../../shared/card/card-wind-words';
+import { MAX_WIND_KT } from '@shared/card';
+import { WIND_REFERENCE_SENTENCE, directionUnit } from '@shared/card/card-wind-words';
 import { ALTITUDE_STEPS_FT, type FormFieldPath } from './card-form';
 
 const DIRECTION_UNIT = directionUnit();

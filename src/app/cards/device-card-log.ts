@@ -2,9 +2,9 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import { formatCardCode } from '../../../shared/card-check/card-code';
-import { encodeCheckPayload } from '../../../shared/card-check/check-url';
-import type { CardInputs } from '../../../shared/card/card';
+import { formatCardCode } from '@shared/card-check/card-code';
+import { encodeCheckPayload } from '@shared/card-check/check-url';
+import type { CardInputs } from '@shared/card/card';
 import { AuthService } from '../core/auth/auth-service';
 import { SyncService } from '../core/sync/sync-service';
 import type { CardLogRecord } from '../core/storage/device-store';

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { SpeedCard } from '../../../shared/card';
+import type { SpeedCard } from '@shared/card';
 import {
   DEMO_MARK,
   SAFETY_CAUTION,
@@ -13,7 +13,7 @@ import {
   utcDate,
   type LimitRow,
   type PhaseGroup,
-} from '../../../shared/card/card-presentation';
+} from '@shared/card/card-presentation';
 import { AltitudeChart } from './altitude-chart';
 import { CardWindView } from './card-wind-view';
 import { CardNumberPipe, cardNumber } from './card-number-pipe';

@@ -4,8 +4,8 @@ import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { AeroInputError } from '../../../shared/aero';
-import { isaDeviationFromTat } from '../../../shared/card';
+import { AeroInputError } from '@shared/aero';
+import { isaDeviationFromTat } from '@shared/card';
 import { cardNumber } from './card-number-pipe';
 import { parseTyped } from './card-form';
 

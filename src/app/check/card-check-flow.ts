@@ -3,10 +3,10 @@
  * function with its dependencies passed in, so the page stays a template and the flow is
  * tested without a browser.
  */
-import type { SessionUser } from '../../../shared/api/auth';
-import { parseCheckUrl, type CheckPayload, type ParsedCheckUrl } from '../../../shared/card-check/check-url';
-import type { FiguresCheck } from '../../../shared/card-check/figures-check';
-import type { VerifyResponse, VerifySource } from '../../../shared/card-check/verify-api';
+import type { SessionUser } from '@shared/api/auth';
+import { parseCheckUrl, type CheckPayload, type ParsedCheckUrl } from '@shared/card-check/check-url';
+import type { FiguresCheck } from '@shared/card-check/figures-check';
+import type { VerifyResponse, VerifySource } from '@shared/card-check/verify-api';
 import { ApiRequestError } from '../core/api/api-request-error';
 import type { OfflineCheck, OfflineCheckReader } from './offline-check-data';
 import type { SignatureNote } from './source-signature';
@@ -57,7 +57,7 @@ export const UNREACHABLE = 'This device cannot reach the operator’s Speedwrigh
  * code's figures are to be checked, after the verdict's request: the check page's first download
  * stays small on a phone.
  */
-const loadCheckFigures = () => import('../../../shared/card-check/figures-check').then((m) => m.checkFigures);
+const loadCheckFigures = () => import('@shared/card-check/figures-check').then((m) => m.checkFigures);
 
 const TYPED = 'A typed code carries no figures: scan the QR code on the card to check its figures too.';
 

@@ -1,6 +1,6 @@
 import { Injectable, inject } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
-import { VERIFY_PATHS, verifyResponseSchema, verifySourceResponseSchema, type VerifyResponse, type VerifySource } from '../../../shared/card-check/verify-api';
+import { VERIFY_PATHS, verifyResponseSchema, verifySourceResponseSchema, type VerifyResponse, type VerifySource } from '@shared/card-check/verify-api';
 import { ApiClient } from '../core/api/api-client';
 
 /** The public card check calls (no sign-in, no CSRF: both are GETs). */

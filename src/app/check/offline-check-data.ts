@@ -1,5 +1,5 @@
 import { Injectable, Injector, inject } from '@angular/core';
-import type { CardContext, CardRevision } from '../../../shared/card/card';
+import type { CardContext, CardRevision } from '@shared/card/card';
 import type { RevisionRecord, SpeedwrightDeviceDatabase } from '../core/storage/device-database';
 
 /** What this device holds, from its last sync, about the revision a card names. */

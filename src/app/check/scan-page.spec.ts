@@ -1,9 +1,9 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
-import { encodeCheckPayload } from '../../../shared/card-check/check-url';
-import { cardCodeCheckCharacter } from '../../../shared/card-check/card-code';
-import { buildCard } from '../../../shared/card/build-card';
-import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '../../../shared/card/testing/test-fixtures';
+import { encodeCheckPayload } from '@shared/card-check/check-url';
+import { cardCodeCheckCharacter } from '@shared/card-check/card-code';
+import { buildCard } from '@shared/card/build-card';
+import { HAND_CONTEXT, handPistonContent, handPistonInputs, revisionOf } from '@shared/card/testing/test-fixtures';
 import { cameraProblem } from './qr-camera';
 import { ScanPage } from './scan-page';
 

@@ -8,7 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { Router } from '@angular/router';
 import { fromEvent } from 'rxjs';
-import { parseCheckUrl, type ParsedCheckUrl } from '../../../shared/card-check/check-url';
+import { parseCheckUrl, type ParsedCheckUrl } from '@shared/card-check/check-url';
 import { QrCamera } from './qr-camera';
 
 export type CameraState = 'starting' | 'on' | 'off' | 'problem';

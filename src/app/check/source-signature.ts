@@ -4,7 +4,7 @@
  * core/sync/revision-verification.ts), with the public key the card check's source names —
  * the operator's active key or one a rotation retired. Loaded only once a card's source is in.
  */
-import type { VerifySource } from '../../../shared/card-check/verify-api';
+import type { VerifySource } from '@shared/card-check/verify-api';
 import { importOperatorKeys, revisionSignatureProblem } from '../core/sync/revision-verification';
 
 export type SignatureNote =

@@ -1,8 +1,8 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, catchError, map, throwError, timeout } from 'rxjs';
-import type { CoverageReport } from '../../../shared/card/coverage-report';
-import { coverageResponseSchema } from '../../../shared/api/coverage';
+import type { CoverageReport } from '@shared/card/coverage-report';
+import { coverageResponseSchema } from '@shared/api/coverage';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { parseResponse } from '../core/api/parse-response';
 import { SWEEP_TIMEOUT_MS } from './coverage-refusal';

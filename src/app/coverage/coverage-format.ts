@@ -1,4 +1,4 @@
-import type { CoverageCell, CoverageOutcome, CoverageRange } from '../../../shared/card/coverage-report';
+import type { CoverageCell, CoverageOutcome, CoverageRange } from '@shared/card/coverage-report';
 
 /**
  * Words and figures of the coverage picture. Locale-independent on purpose (thousands with a

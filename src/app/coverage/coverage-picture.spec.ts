@@ -1,5 +1,5 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
-import { coverageReport, coverageSheet, smallCoverageReport } from '../../../shared/api/testing/coverage-fixtures';
+import { coverageReport, coverageSheet, smallCoverageReport } from '@shared/api/testing/coverage-fixtures';
 import { CoveragePicture } from './coverage-picture';
 
 describe('CoveragePicture', () => {

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, ElementRef, computed, inject, input, signal } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { CoverageCell, CoverageOutcome, CoverageReport, CoverageSheet } from '../../../shared/card/coverage-report';
+import type { CoverageCell, CoverageOutcome, CoverageReport, CoverageSheet } from '@shared/card/coverage-report';
 import { OUTCOME_SYMBOLS, OUTCOME_WORDS, formatAltitudeFt, formatOatC, formatRange, formatWeightKg, groupedNumber, pointLabel, pointsWord } from './coverage-format';
 
 interface CellView {

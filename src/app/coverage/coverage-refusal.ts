@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { coverageFailedSchema } from '../../../shared/api/coverage';
-import type { CoverageReport } from '../../../shared/card/coverage-report';
+import { coverageFailedSchema } from '@shared/api/coverage';
+import type { CoverageReport } from '@shared/card/coverage-report';
 import { ApiRequestError } from '../core/api/api-request-error';
 
 /**

@@ -1,4 +1,4 @@
-import type { AircraftCategory } from '../../../shared/speed-book/revision-content';
+import type { AircraftCategory } from '@shared/speed-book/revision-content';
 
 /** How the fleet pages name each category of aircraft type. */
 export const AIRCRAFT_CATEGORY_LABELS: Readonly<Record<AircraftCategory, string>> = {

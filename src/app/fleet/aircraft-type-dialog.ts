@@ -4,8 +4,8 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { AircraftTypeView, createAircraftTypeSchema } from '../../../shared/api/fleet';
-import type { AircraftCategory } from '../../../shared/speed-book/revision-content';
+import { AircraftTypeView, createAircraftTypeSchema } from '@shared/api/fleet';
+import type { AircraftCategory } from '@shared/speed-book/revision-content';
 import { zodValidator } from '../core/forms/zod-validator';
 import { DialogFooter } from '../core/forms/dialog-footer';
 import { dialogSubmit } from '../core/forms/dialog-submit';

@@ -4,7 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
+import { AircraftTypeView, AirframeView } from '@shared/api/fleet';
 import { AIRCRAFT_CATEGORY_LABELS } from './aircraft-category-labels';
 import { ListTable } from '../core/table/list-table';
 import { ListSort } from '../core/table/list-sort';

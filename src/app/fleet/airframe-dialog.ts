@@ -5,7 +5,7 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { AircraftTypeView, AirframeView, createAirframeSchema } from '../../../shared/api/fleet';
+import { AircraftTypeView, AirframeView, createAirframeSchema } from '@shared/api/fleet';
 import { zodValidator } from '../core/forms/zod-validator';
 import { DialogFooter } from '../core/forms/dialog-footer';
 import { dialogSubmit } from '../core/forms/dialog-submit';

@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
+import { AircraftTypeView, AirframeView } from '@shared/api/fleet';
 import { ListTable } from '../core/table/list-table';
 import { ListSort } from '../core/table/list-sort';
 import { ListTableRow, ListTableState } from '../core/table/list-table-state';

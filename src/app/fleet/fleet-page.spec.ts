@@ -3,9 +3,9 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
-import { SessionUser } from '../../../shared/api/auth';
-import { Role } from '../../../shared/auth/roles';
+import { AircraftTypeView, AirframeView } from '@shared/api/fleet';
+import { SessionUser } from '@shared/api/auth';
+import { Role } from '@shared/auth/roles';
 import { API_PATHS } from '../core/api/api-paths';
 import { AuthService } from '../core/auth/auth-service';
 import { FleetPage } from './fleet-page';

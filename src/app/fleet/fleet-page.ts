@@ -4,7 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTabsModule } from '@angular/material/tabs';
 import { forkJoin } from 'rxjs';
-import { AircraftTypeView, AirframeView } from '../../../shared/api/fleet';
+import { AircraftTypeView, AirframeView } from '@shared/api/fleet';
 import { userMay } from '../core/auth/user-may';
 import { requestState } from '../core/api/request-state';
 import { AircraftTypeDialog, AircraftTypeDialogData } from './aircraft-type-dialog';

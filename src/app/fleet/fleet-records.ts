@@ -11,7 +11,7 @@ import {
   aircraftTypeResponseSchema,
   airframeListSchema,
   airframeResponseSchema,
-} from '../../../shared/api/fleet';
+} from '@shared/api/fleet';
 import { API_PATHS } from '../core/api/api-paths';
 import { ApiClient } from '../core/api/api-client';
 

@@ -1,4 +1,4 @@
-import { Capability } from '../../../shared/auth/roles';
+import { Capability } from '@shared/auth/roles';
 
 /** Each capability as a plain sentence a person reads on their home page. */
 export const CAPABILITY_SENTENCES: Readonly<Record<Capability, string>> = {

@@ -1,8 +1,8 @@
 import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import { SessionUser } from '../../../shared/api/auth';
-import { ROLE_SUMMARIES, Role, can } from '../../../shared/auth/roles';
+import { SessionUser } from '@shared/api/auth';
+import { ROLE_SUMMARIES, Role, can } from '@shared/auth/roles';
 import { APP_NAVIGATION } from '../app.navigation';
 import { AuthService } from '../core/auth/auth-service';
 import { NAVIGATION_ENTRIES } from '../core/navigation/navigation-entry';

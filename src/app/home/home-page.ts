@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import { CAPABILITIES, ROLE_LABELS, ROLE_SUMMARIES, can } from '../../../shared/auth/roles';
+import { CAPABILITIES, ROLE_LABELS, ROLE_SUMMARIES, can } from '@shared/auth/roles';
 import { AuthService } from '../core/auth/auth-service';
 import { RevisionNotices } from '../core/sync/revision-notices';
 import { SyncStatusPanel } from '../core/sync/sync-status-panel';

@@ -1,6 +1,6 @@
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
-import { MailboxMessage, mailboxResponseSchema } from '../../../shared/api/mailbox';
+import { MailboxMessage, mailboxResponseSchema } from '@shared/api/mailbox';
 import { API_PATHS } from '../core/api/api-paths';
 import { ApiClient } from '../core/api/api-client';
 

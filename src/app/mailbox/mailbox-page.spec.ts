@@ -1,7 +1,7 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
-import { MailboxMessage } from '../../../shared/api/mailbox';
+import { MailboxMessage } from '@shared/api/mailbox';
 import { API_PATHS } from '../core/api/api-paths';
 import { MailboxPage, NO_FAKE_MAILBOX } from './mailbox-page';
 

@@ -5,7 +5,7 @@ import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MailboxMessage } from '../../../shared/api/mailbox';
+import { MailboxMessage } from '@shared/api/mailbox';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { DevMailbox } from './dev-mailbox';
 import { MailTextPart, splitMailText } from './mail-text';

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { RouterLink } from '@angular/router';
-import { ROLE_LABELS } from '../../../shared/auth/roles';
+import { ROLE_LABELS } from '@shared/auth/roles';
 import { AuthService } from '../core/auth/auth-service';
 
 /** Where the capability guard sends someone whose role may not open the page they asked for. */

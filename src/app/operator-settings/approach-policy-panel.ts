@@ -5,7 +5,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { operatorSettingsResponseSchema } from '../../../shared/api/sync';
+import { operatorSettingsResponseSchema } from '@shared/api/sync';
 import {
   APPROACH_ADDITIVE_BOUNDS_KT,
   approachAdditivePolicySchema,
@@ -14,7 +14,7 @@ import {
   unroundedAdditiveKt,
   windComponents,
   type ApproachAdditivePolicy,
-} from '../../../shared/card';
+} from '@shared/card';
 import { ApiClient } from '../core/api/api-client';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { requestState } from '../core/api/request-state';

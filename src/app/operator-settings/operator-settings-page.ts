@@ -9,8 +9,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { filter, forkJoin } from 'rxjs';
-import { signingKeyResponseSchema, type SigningKeyResponse } from '../../../shared/api/revisions';
-import { CURRENCY_LIMIT_DAYS, operatorSettingsResponseSchema, operatorSettingsSchema } from '../../../shared/api/sync';
+import { signingKeyResponseSchema, type SigningKeyResponse } from '@shared/api/revisions';
+import { CURRENCY_LIMIT_DAYS, operatorSettingsResponseSchema, operatorSettingsSchema } from '@shared/api/sync';
 import { ApiClient } from '../core/api/api-client';
 import { requestState } from '../core/api/request-state';
 import { AuthService } from '../core/auth/auth-service';
@@ -18,7 +18,7 @@ import { controlMessage, showServerFieldErrors } from '../core/forms/server-fiel
 import { zodValidator } from '../core/forms/zod-validator';
 import { ProblemRetry } from '../core/feedback/problem-retry';
 import { RotateKeyDialog, type RotateKeyData } from './rotate-key-dialog';
-import type { ApproachAdditivePolicy } from '../../../shared/card/approach-policy';
+import type { ApproachAdditivePolicy } from '@shared/card/approach-policy';
 import { ApproachPolicyPanel } from './approach-policy-panel';
 
 export const OPERATOR_PATHS = {

@@ -3,9 +3,9 @@ import { AbstractControl, NonNullableFormBuilder, ReactiveFormsModule } from '@a
 import { MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { invitePersonRequestSchema } from '../../../shared/api/auth';
-import { InvitationSent } from '../../../shared/api/people';
-import type { Role } from '../../../shared/auth/roles';
+import { invitePersonRequestSchema } from '@shared/api/auth';
+import { InvitationSent } from '@shared/api/people';
+import type { Role } from '@shared/auth/roles';
 import { DialogFooter } from '../core/forms/dialog-footer';
 import { dialogSubmit } from '../core/forms/dialog-submit';
 import { zodValidator } from '../core/forms/zod-validator';

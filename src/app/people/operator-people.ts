@@ -6,8 +6,8 @@ import {
   UpdatePersonRequest,
   operatorPeopleSchema,
   operatorPersonResponseSchema,
-} from '../../../shared/api/auth';
-import { InvitationSent, invitationSentSchema } from '../../../shared/api/people';
+} from '@shared/api/auth';
+import { InvitationSent, invitationSentSchema } from '@shared/api/people';
 import { API_PATHS } from '../core/api/api-paths';
 import { ApiClient } from '../core/api/api-client';
 

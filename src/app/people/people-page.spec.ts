@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { OperatorPerson } from '../../../shared/api/auth';
+import { OperatorPerson } from '@shared/api/auth';
 import { API_PATHS } from '../core/api/api-paths';
 import { AuthService } from '../core/auth/auth-service';
 import { PeoplePage } from './people-page';

@@ -1,6 +1,6 @@
 import { utcDateTime } from '../core/format/display-format';
-import { OperatorPerson } from '../../../shared/api/auth';
-import { ROLE_LABELS } from '../../../shared/auth/roles';
+import { OperatorPerson } from '@shared/api/auth';
+import { ROLE_LABELS } from '@shared/auth/roles';
 import type { ListTableRow } from '../core/table/list-table-state';
 
 /** A person as the people table shows, sorts and filters them. */

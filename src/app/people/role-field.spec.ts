@@ -1,6 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 import { FormControl } from '@angular/forms';
-import { ROLE_SUMMARIES, type Role } from '../../../shared/auth/roles';
+import { ROLE_SUMMARIES, type Role } from '@shared/auth/roles';
 import { RoleField } from './role-field';
 
 describe('RoleField', () => {

@@ -4,7 +4,7 @@ import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
 import { map, startWith, switchMap } from 'rxjs';
-import { ROLES, ROLE_LABELS, ROLE_SUMMARIES, type Role } from '../../../shared/auth/roles';
+import { ROLES, ROLE_LABELS, ROLE_SUMMARIES, type Role } from '@shared/auth/roles';
 
 /**
  * The role of a person being invited or changed: the roles by their labels, and under the field

@@ -1,4 +1,4 @@
-import { CANONICAL_UNITS, UNIT_SYMBOLS, describeFigures, quantityAtPath, statedUnitWords, type StatedUnits } from '../../../shared/speed-book/stated-units';
+import { CANONICAL_UNITS, UNIT_SYMBOLS, describeFigures, quantityAtPath, statedUnitWords, type StatedUnits } from '@shared/speed-book/stated-units';
 import { FIELD_WORDS } from '../revision-editor/problem-location';
 
 /**

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { CANONICAL_UNITS, type StatedUnits } from '../../../shared/speed-book/stated-units';
+import { CANONICAL_UNITS, type StatedUnits } from '@shared/speed-book/stated-units';
 import type { RevisionDiff } from '../speed-books/revisions-api';
 import { changeLocation, changeValueIn } from './change-location';
 

@@ -3,9 +3,9 @@ import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@a
 import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { SessionUser } from '../../../shared/api/auth';
-import { smallCoverageReport } from '../../../shared/api/testing/coverage-fixtures';
-import { demoPistonTrainerContentRevised } from '../../../shared/speed-book/demo-content';
+import type { SessionUser } from '@shared/api/auth';
+import { smallCoverageReport } from '@shared/api/testing/coverage-fixtures';
+import { demoPistonTrainerContentRevised } from '@shared/speed-book/demo-content';
 import { COVERAGE_PATHS } from '../coverage/coverage-api';
 import { AuthService } from '../core/auth/auth-service';
 import { PEOPLE, revisionSummary, revisionView, sessionUser, speedBook } from '../speed-books/testing/revision-fixtures';

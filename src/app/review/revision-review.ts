@@ -2,11 +2,11 @@ import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, injec
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl } from '@angular/forms';
 import { forkJoin, of, switchMap } from 'rxjs';
-import type { AttachmentView } from '../../../shared/api/attachments';
-import { reasonSchema, type RevisionView } from '../../../shared/api/revisions';
-import { UNIT_SYMBOLS, isCanonical, statedUnitsOf } from '../../../shared/speed-book/stated-units';
-import type { CoverageReport } from '../../../shared/card/coverage-report';
-import { contributionWords, fourEyesRefusal } from '../../../shared/speed-book/four-eyes';
+import type { AttachmentView } from '@shared/api/attachments';
+import { reasonSchema, type RevisionView } from '@shared/api/revisions';
+import { UNIT_SYMBOLS, isCanonical, statedUnitsOf } from '@shared/speed-book/stated-units';
+import type { CoverageReport } from '@shared/card/coverage-report';
+import { contributionWords, fourEyesRefusal } from '@shared/speed-book/four-eyes';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { CoverageApi } from '../coverage/coverage-api';
 import { CoverageRefusal } from '../coverage/coverage-refusal';

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, input, signal } f
 import { DomSanitizer, type SafeResourceUrl } from '@angular/platform-browser';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import type { AttachmentView } from '../../../shared/api/attachments';
+import type { AttachmentView } from '@shared/api/attachments';
 
 /** The flight-manual pages attached to a revision, one at a time, PDF in a frame or an image. */
 @Component({

@@ -4,7 +4,7 @@ import type { Observable } from 'rxjs';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import type { AttachmentView } from '../../../shared/api/attachments';
+import type { AttachmentView } from '@shared/api/attachments';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { RevisionsApi } from '../speed-books/revisions-api';
 import { UtcDatePipe } from '../speed-books/utc-date-pipe';

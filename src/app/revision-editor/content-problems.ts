@@ -1,5 +1,5 @@
-import { revisionContentShape } from '../../../shared/speed-book/content-shape';
-import { revisionContentProblems } from '../../../shared/speed-book/revision-content';
+import { revisionContentShape } from '@shared/speed-book/content-shape';
+import { revisionContentProblems } from '@shared/speed-book/revision-content';
 
 /**
  * The schema's problems of `content`. The cross-field rules can throw on a table emptied while

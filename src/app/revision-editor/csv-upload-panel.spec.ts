@@ -1,7 +1,7 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
-import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
+import type { SpeedTableUploadResponse } from '@shared/api/uploads';
 import { REVISION_PATHS } from '../speed-books/revisions-api';
 import { CsvUploadPanel } from './csv-upload-panel';
 

@@ -3,8 +3,8 @@ import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import type { CsvRowError, SpeedTableUploadResponse } from '../../../shared/api/uploads';
-import { UNIT_SYMBOLS } from '../../../shared/speed-book/stated-units';
+import type { CsvRowError, SpeedTableUploadResponse } from '@shared/api/uploads';
+import { UNIT_SYMBOLS } from '@shared/speed-book/stated-units';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { RevisionsApi } from '../speed-books/revisions-api';
 

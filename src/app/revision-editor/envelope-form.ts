@@ -1,5 +1,5 @@
 import { AbstractControl, FormArray, FormControl, FormGroup } from '@angular/forms';
-import { SPEED_CLASSES } from '../../../shared/speed-book/content-shape';
+import { SPEED_CLASSES } from '@shared/speed-book/content-shape';
 
 /**
  * The editor's fields of the envelope proof: the envelope the book declares (pressure altitude

@@ -1,7 +1,7 @@
 import { DestroyRef, Injectable, InjectionToken, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { EMPTY, Subject, catchError, debounceTime, switchMap, tap } from 'rxjs';
-import type { CoverageReport } from '../../../shared/card/coverage-report';
+import type { CoverageReport } from '@shared/card/coverage-report';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { CoverageApi } from '../coverage/coverage-api';
 

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, input } from '@an
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { statedSymbol } from '../../../shared/speed-book/stated-units';
+import { statedSymbol } from '@shared/speed-book/stated-units';
 import { ConfigurationGroup, pointGroup } from './revision-form';
 import { StatedUnitInput } from './stated-unit-input';
 import { StatedUnitsContext } from './stated-units-context';

@@ -1,8 +1,8 @@
 import { HttpTestingController, TestRequest } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router } from '@angular/router';
-import { smallCoverageReport } from '../../../shared/api/testing/coverage-fixtures';
-import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
+import { smallCoverageReport } from '@shared/api/testing/coverage-fixtures';
+import { demoPistonTrainerContent } from '@shared/speed-book/demo-content';
 import { COVERAGE_PATHS } from '../coverage/coverage-api';
 import { REVISION_PATHS } from '../speed-books/revisions-api';
 import { RevisionEditor } from './revision-editor';

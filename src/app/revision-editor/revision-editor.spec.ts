@@ -1,7 +1,7 @@
 import { HttpTestingController } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router } from '@angular/router';
-import { demoPistonTrainerContent } from '../../../shared/speed-book/demo-content';
+import { demoPistonTrainerContent } from '@shared/speed-book/demo-content';
 import { revisionSummary, speedBook } from '../speed-books/testing/revision-fixtures';
 import { REVISION_PATHS } from '../speed-books/revisions-api';
 import { RevisionEditor } from './revision-editor';

@@ -6,9 +6,9 @@ import { MAT_FORM_FIELD_DEFAULT_OPTIONS } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
 import { Router } from '@angular/router';
 import { Observable, Subscription, forkJoin, map, of, switchMap } from 'rxjs';
-import { createRevisionSchema, type RevisionView } from '../../../shared/api/revisions';
-import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
-import { AIRCRAFT_CATEGORIES, SPEED_BASES, SPEED_PHASES } from '../../../shared/speed-book/revision-content';
+import { createRevisionSchema, type RevisionView } from '@shared/api/revisions';
+import type { SpeedTableUploadResponse } from '@shared/api/uploads';
+import { AIRCRAFT_CATEGORIES, SPEED_BASES, SPEED_PHASES } from '@shared/speed-book/revision-content';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { CoverageRefusal } from '../coverage/coverage-refusal';
 import { FORM_PAGE_IMPORTS } from '../core/forms/form-page-imports';
@@ -29,7 +29,7 @@ import { RevisionForm } from './revision-form';
 import { StatedUnitInput } from './stated-unit-input';
 import { StatedUnitsContext } from './stated-units-context';
 import { StatedUnitsPanel } from './stated-units-panel';
-import { restateFigures, statedSymbol, statedUnitWords } from '../../../shared/speed-book/stated-units';
+import { restateFigures, statedSymbol, statedUnitWords } from '@shared/speed-book/stated-units';
 import { TabulatedSpeedGrid } from './tabulated-speed-grid';
 
 /**

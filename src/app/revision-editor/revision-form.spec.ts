@@ -1,4 +1,4 @@
-import { demoLightTwinJetContent } from '../../../shared/speed-book/demo-content';
+import { demoLightTwinJetContent } from '@shared/speed-book/demo-content';
 import { RevisionForm } from './revision-form';
 
 // Issue 11: a draft saved from the editor keeps the content fields the form has no control for.

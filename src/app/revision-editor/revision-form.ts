@@ -1,7 +1,7 @@
 import { AbstractControl, FormArray, FormControl, FormGroup } from '@angular/forms';
-import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
-import { AIRCRAFT_CATEGORIES, REVISION_SCHEMA_VERSION, SPEED_BASES } from '../../../shared/speed-book/revision-content';
-import { CANONICAL_UNITS, statedUnitsOf, type StatedSpeedUnit, type StatedUnits, type StatedWeightUnit } from '../../../shared/speed-book/stated-units';
+import type { SpeedTableUploadResponse } from '@shared/api/uploads';
+import { AIRCRAFT_CATEGORIES, REVISION_SCHEMA_VERSION, SPEED_BASES } from '@shared/speed-book/revision-content';
+import { CANONICAL_UNITS, statedUnitsOf, type StatedSpeedUnit, type StatedUnits, type StatedWeightUnit } from '@shared/speed-book/stated-units';
 import { blankConfigurationGroup, configurationFieldControls, configurationGroupsOf, configurationsContent, type ConfigurationGroup } from './configuration-form';
 import {
   envelopeContent,

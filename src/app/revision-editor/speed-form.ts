@@ -1,5 +1,5 @@
 import { FormArray, FormControl, FormGroup } from '@angular/forms';
-import { SPEED_BASES, SPEED_PHASES } from '../../../shared/speed-book/revision-content';
+import { SPEED_BASES, SPEED_PHASES } from '@shared/speed-book/revision-content';
 import { speedClassOf, type SpeedClass } from './envelope-form';
 import { list, num, numberControl, oneOf, out, str, text, withoutUndefined, type AddField, type Json, type NumberControl } from './form-content';
 

@@ -1,6 +1,6 @@
 import { Directive, ElementRef, Renderer2, computed, effect, forwardRef, inject, input, untracked } from '@angular/core';
 import { NG_VALUE_ACCESSOR, type ControlValueAccessor } from '@angular/forms';
-import { CANONICAL_UNITS, STATED_DECIMALS, fromCanonical, roundTo, toCanonical, type StatedQuantity } from '../../../shared/speed-book/stated-units';
+import { CANONICAL_UNITS, STATED_DECIMALS, fromCanonical, roundTo, toCanonical, type StatedQuantity } from '@shared/speed-book/stated-units';
 import { StatedUnitsContext } from './stated-units-context';
 
 /**

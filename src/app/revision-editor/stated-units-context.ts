@@ -1,5 +1,5 @@
 import { Injectable, signal } from '@angular/core';
-import { CANONICAL_UNITS, type StatedUnits } from '../../../shared/speed-book/stated-units';
+import { CANONICAL_UNITS, type StatedUnits } from '@shared/speed-book/stated-units';
 
 /**
  * The units the flight manual of the revision being edited prints, for every figure field of

@@ -2,8 +2,8 @@ import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
-import { STATED_SPEED_UNITS, STATED_WEIGHT_UNITS } from '../../../shared/speed-book/content-shape';
-import { UNIT_SYMBOLS, type StatedSpeedUnit, type StatedWeightUnit } from '../../../shared/speed-book/stated-units';
+import { STATED_SPEED_UNITS, STATED_WEIGHT_UNITS } from '@shared/speed-book/content-shape';
+import { UNIT_SYMBOLS, type StatedSpeedUnit, type StatedWeightUnit } from '@shared/speed-book/stated-units';
 
 export type StatedUnitsGroup = FormGroup<{ weight: FormControl<StatedWeightUnit>; speed: FormControl<StatedSpeedUnit> }>;
 

@@ -1,6 +1,6 @@
 import { FormArray } from '@angular/forms';
-import type { SpeedTableUploadResponse } from '../../../shared/api/uploads';
-import { UNIT_SYMBOLS, type StatedUnits } from '../../../shared/speed-book/stated-units';
+import type { SpeedTableUploadResponse } from '@shared/api/uploads';
+import { UNIT_SYMBOLS, type StatedUnits } from '@shared/speed-book/stated-units';
 import { configurationGroup, pointGroup, type ConfigurationGroup } from './configuration-form';
 import { speedGroup, tableGroup, type SpeedGroup } from './speed-form';
 

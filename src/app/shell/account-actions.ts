@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { RouterLink } from '@angular/router';
-import type { SessionUser } from '../../../shared/api/auth';
+import type { SessionUser } from '@shared/api/auth';
 
 /**
  * The toolbar's part for a signed-in person: their name and role with the account menu, and

@@ -2,7 +2,7 @@ import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
-import { SessionUser } from '../../../shared/api/auth';
+import { SessionUser } from '@shared/api/auth';
 import { API_PATHS } from '../core/api/api-paths';
 import { csrfInterceptor } from '../core/auth/csrf-interceptor';
 import { signInRedirectInterceptor } from '../core/auth/sign-in-redirect-interceptor';

@@ -14,7 +14,7 @@ import { ConnectionStatus } from '../core/connection/connection-status';
 import { zodValidator } from '../core/forms/zod-validator';
 
 type SignInField = 'email' | 'password';
-type LoginRequestSchema = typeof import('../../../shared/api/session').loginRequestSchema;
+type LoginRequestSchema = typeof import('@shared/api/session').loginRequestSchema;
 
 /** Our own sentences for when the server's answer carried none. */
 const FALLBACK_SENTENCES: Readonly<Record<number, string>> = {
@@ -45,7 +45,7 @@ export class SignInPage {
    * focuses the form (or submits it), not with the page; the fields get their validators as
    * soon as they arrive, well before a field is left.
    */
-  private rules: Promise<typeof import('../../../shared/api/session')> | null = null;
+  private rules: Promise<typeof import('@shared/api/session')> | null = null;
   protected readonly form = inject(NonNullableFormBuilder).group({ email: [''], password: [''] });
   protected readonly online = inject(ConnectionStatus).online;
   protected readonly probeProblem = this.auth.probeProblem;
@@ -53,10 +53,10 @@ export class SignInPage {
   protected readonly problem = signal<string | null>(null);
   protected readonly passwordVisible = signal(false);
 
-  protected prepareValidation(): Promise<typeof import('../../../shared/api/session') | null> {
+  protected prepareValidation(): Promise<typeof import('@shared/api/session') | null> {
     if (!this.rules) {
       const loading = this.pendingTasks.add();
-      this.rules = import('../../../shared/api/session');
+      this.rules = import('@shared/api/session');
       this.rules.then(({ loginRequestSchema }) => this.applyRules(loginRequestSchema)).catch(() => (this.rules = null)).finally(loading);
     }
     return this.rules.catch(() => null);

@@ -1,9 +1,9 @@
 import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { revisionContentShape } from '../../../shared/speed-book/content-shape';
-import type { RevisionContent, Speed } from '../../../shared/speed-book/revision-content';
-import { UNIT_SYMBOLS, fromCanonical, isCanonical, statedSymbol, statedUnitsOf } from '../../../shared/speed-book/stated-units';
+import { revisionContentShape } from '@shared/speed-book/content-shape';
+import type { RevisionContent, Speed } from '@shared/speed-book/revision-content';
+import { UNIT_SYMBOLS, fromCanonical, isCanonical, statedSymbol, statedUnitsOf } from '@shared/speed-book/stated-units';
 import { gridPages } from './tabulated-grid';
 
 const CATEGORY_LABELS: Record<RevisionContent['aircraft']['category'], string> = {

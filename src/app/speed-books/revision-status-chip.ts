@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { RevisionStatus } from '../../../shared/api/revisions';
+import type { RevisionStatus } from '@shared/api/revisions';
 
 /** Our words for the five states of a revision (product.md, "Vocabulary"). */
 export const REVISION_STATUS_LABELS: Readonly<Record<RevisionStatus, string>> = {

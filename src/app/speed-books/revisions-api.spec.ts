@@ -2,7 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { firstValueFrom } from 'rxjs';
-import { smallCoverageReport } from '../../../shared/api/testing/coverage-fixtures';
+import { smallCoverageReport } from '@shared/api/testing/coverage-fixtures';
 import { CoverageRefusal } from '../coverage/coverage-refusal';
 import { REVISION_PATHS, RevisionsApi } from './revisions-api';
 import { revisionView } from './testing/revision-fixtures';

@@ -2,8 +2,8 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, catchError, forkJoin, map, of, switchMap, throwError, timeout } from 'rxjs';
 import * as z from 'zod';
-import { attachmentListSchema, attachmentResponseSchema, type AttachmentView } from '../../../shared/api/attachments';
-import { aircraftTypeListSchema, type AircraftTypeView } from '../../../shared/api/fleet';
+import { attachmentListSchema, attachmentResponseSchema, type AttachmentView } from '@shared/api/attachments';
+import { aircraftTypeListSchema, type AircraftTypeView } from '@shared/api/fleet';
 import {
   revisionDiffSchema,
   revisionResponseSchema,
@@ -12,8 +12,8 @@ import {
   type RevisionSummary,
   type RevisionView,
   type SpeedBookSummary,
-} from '../../../shared/api/revisions';
-import { speedTableUploadSchema, type SpeedTableUploadResponse } from '../../../shared/api/uploads';
+} from '@shared/api/revisions';
+import { speedTableUploadSchema, type SpeedTableUploadResponse } from '@shared/api/uploads';
 import { ApiClient } from '../core/api/api-client';
 import { ApiRequestError } from '../core/api/api-request-error';
 import { parseResponse } from '../core/api/parse-response';

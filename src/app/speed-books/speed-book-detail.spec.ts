@@ -3,8 +3,8 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
-import type { SessionUser } from '../../../shared/api/auth';
-import type { Role } from '../../../shared/auth/roles';
+import type { SessionUser } from '@shared/api/auth';
+import type { Role } from '@shared/auth/roles';
 import { AuthService } from '../core/auth/auth-service';
 import { AIRCRAFT_TYPES, revisionSummary, revisionView, sessionUser, speedBook } from './testing/revision-fixtures';
 import { REVISION_PATHS } from './revisions-api';

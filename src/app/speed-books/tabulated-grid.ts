@@ -1,4 +1,4 @@
-import type { TabulatedSpeed } from '../../../shared/speed-book/revision-content';
+import type { TabulatedSpeed } from '@shared/speed-book/revision-content';
 
 /** One table of a tabulated speed as it is printed: weights down, pressure altitudes across. */
 export interface GridPage {

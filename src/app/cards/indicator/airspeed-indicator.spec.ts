@@ -1,7 +1,7 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
-import type { CardIndicator } from '../../../../shared/card';
+import type { CardIndicator } from '@shared/card';
 import { AirspeedIndicator } from './airspeed-indicator';
-import { angleOfKt, dialScale, polar } from '../../../../shared/card/indicator-geometry';
+import { angleOfKt, dialScale, polar } from '@shared/card/indicator-geometry';
 
 // A piston single's markings (14 CFR 23.1545, from memory): white VS0–VFE, green VS1–VNO,
 // yellow VNO–VNE, red line at VNE.

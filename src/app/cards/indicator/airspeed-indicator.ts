@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import type { CardIndicator } from '../../../../shared/card';
-import { DIAL_CENTRE, DIAL_FACE_RADIUS, drawDial } from '../../../../shared/card/indicator-geometry';
+import type { CardIndicator } from '@shared/card';
+import { DIAL_CENTRE, DIAL_FACE_RADIUS, drawDial } from '@shared/card/indicator-geometry';
 
 /**
  * The airspeed-indicator markings at this card's weight, drawn as the airworthiness rules define

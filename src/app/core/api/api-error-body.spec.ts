@@ -1,5 +1,5 @@
 import * as fc from 'fast-check';
-import { apiErrorSchema } from '../../../../shared/api/session';
+import { apiErrorSchema } from '@shared/api/session';
 import { readApiErrorBody } from './api-error-body';
 
 /** The hand check must agree with the shared schema (the server's contract) on every body. */

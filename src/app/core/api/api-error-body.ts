@@ -1,4 +1,4 @@
-import type { ApiError } from '../../../../shared/api/session';
+import type { ApiError } from '@shared/api/session';
 
 /**
  * The `error` of an API error body (`apiErrorSchema` in shared/api/session.ts: code and message

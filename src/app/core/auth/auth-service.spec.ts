@@ -2,7 +2,7 @@ import 'fake-indexeddb/auto';
 import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import { SessionUser } from '../../../../shared/api/auth';
+import { SessionUser } from '@shared/api/auth';
 import { API_PATHS, CSRF_HEADER } from '../api/api-paths';
 import { ApiRequestError } from '../api/api-request-error';
 import { DeviceStore, SpeedwrightDeviceDatabase } from '../storage/device-store';

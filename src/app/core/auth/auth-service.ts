@@ -1,6 +1,6 @@
 import { Injectable, Injector, computed, inject, signal } from '@angular/core';
 import { Observable, catchError, finalize, from, map, of, shareReplay, tap } from 'rxjs';
-import type { LoginRequest, SessionUser } from '../../../../shared/api/session';
+import type { LoginRequest, SessionUser } from '@shared/api/session';
 import { API_PATHS } from '../api/api-paths';
 import { ApiClient } from '../api/api-client';
 import { ApiRequestError } from '../api/api-request-error';

@@ -1,7 +1,7 @@
 import { inject } from '@angular/core';
 import { CanActivateFn, Router } from '@angular/router';
 import { map } from 'rxjs';
-import { Capability, can } from '../../../../shared/auth/roles';
+import { Capability, can } from '@shared/auth/roles';
 import { AuthService } from './auth-service';
 
 /**

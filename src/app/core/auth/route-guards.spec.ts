@@ -1,7 +1,7 @@
 import { TestBed } from '@angular/core/testing';
 import { ActivatedRouteSnapshot, Router, RouterStateSnapshot, UrlTree, provideRouter } from '@angular/router';
 import { Observable, firstValueFrom, of } from 'rxjs';
-import { SessionUser } from '../../../../shared/api/auth';
+import { SessionUser } from '@shared/api/auth';
 import { AuthService } from './auth-service';
 import { capabilityGuard } from './capability-guard';
 import { signedInGuard, signedOutGuard } from './signed-in-guard';

@@ -1,6 +1,6 @@
 import * as fc from 'fast-check';
-import { csrfResponseSchema, loginResponseSchema } from '../../../../shared/api/session';
-import { ROLES } from '../../../../shared/auth/roles';
+import { csrfResponseSchema, loginResponseSchema } from '@shared/api/session';
+import { ROLES } from '@shared/auth/roles';
 import { readCsrfAnswer, readSessionAnswer } from './session-answers';
 
 /** The hand checks must give the shared schemas' verdicts (the server's contract) on every body. */

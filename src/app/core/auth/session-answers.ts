@@ -1,5 +1,5 @@
-import { ROLES, type Role } from '../../../../shared/auth/roles';
-import type { SessionUser } from '../../../../shared/api/session';
+import { ROLES, type Role } from '@shared/auth/roles';
+import type { SessionUser } from '@shared/api/session';
 
 /**
  * The two answers the app's shell reads on every first visit — the session (`/api/auth/me`,

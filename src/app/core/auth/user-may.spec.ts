@@ -1,6 +1,6 @@
 import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
-import type { Role } from '../../../../shared/auth/roles';
+import type { Role } from '@shared/auth/roles';
 import { AuthService } from './auth-service';
 import { userMay } from './user-may';
 

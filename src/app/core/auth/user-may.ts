@@ -1,5 +1,5 @@
 import { computed, inject, type Signal } from '@angular/core';
-import { can, type Capability } from '../../../../shared/auth/roles';
+import { can, type Capability } from '@shared/auth/roles';
 import { AuthService } from './auth-service';
 
 /**

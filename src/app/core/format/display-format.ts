@@ -13,7 +13,7 @@
  * - `cardNumber(value, decimals)`: "1,100" — figures with thousands separators.
  * - `fileSize(bytes)`: "1.2 MB", "340 kB".
  */
-import { cardNumber, utcDate } from '../../../../shared/card/card-presentation';
+import { cardNumber, utcDate } from '@shared/card/card-presentation';
 
 export { cardNumber, utcDate };
 

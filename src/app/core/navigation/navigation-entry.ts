@@ -1,6 +1,6 @@
 import { InjectionToken } from '@angular/core';
 import { Route } from '@angular/router';
-import { Capability } from '../../../../shared/auth/roles';
+import { Capability } from '@shared/auth/roles';
 
 /**
  * One place of the app: its route, its entry in the side navigation and its line among the home

@@ -1,5 +1,5 @@
 import { Injectable, computed, inject } from '@angular/core';
-import { can } from '../../../../shared/auth/roles';
+import { can } from '@shared/auth/roles';
 import { AuthService } from '../auth/auth-service';
 import { NAVIGATION_ENTRIES, NavigationEntry } from './navigation-entry';
 

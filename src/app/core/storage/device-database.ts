@@ -6,10 +6,10 @@
  * data (`removeOperatorData` in core/sync/device-sync.ts).
  */
 import Dexie, { type EntityTable } from 'dexie';
-import type { SessionUser } from '../../../../shared/api/auth';
-import type { AircraftTypeView, AirframeView } from '../../../../shared/api/fleet';
-import type { SyncRevision } from '../../../../shared/api/sync';
-import type { ApproachAdditivePolicy } from '../../../../shared/card/approach-policy';
+import type { SessionUser } from '@shared/api/auth';
+import type { AircraftTypeView, AirframeView } from '@shared/api/fleet';
+import type { SyncRevision } from '@shared/api/sync';
+import type { ApproachAdditivePolicy } from '@shared/card/approach-policy';
 
 /**
  * One card issued on this device, as kept until (and after) the server has it. The first six

@@ -2,7 +2,7 @@
  * The device session: the person the server last confirmed, kept so the app opens offline
  * after a reload, and what signing out removes from the device.
  */
-import type { SessionUser } from '../../../../shared/api/auth';
+import type { SessionUser } from '@shared/api/auth';
 import type { CachedSessionRecord, SpeedwrightDeviceDatabase } from '../storage/device-database';
 
 /** Keeps the person the server just confirmed, so the app opens offline after a reload. */

@@ -2,12 +2,12 @@ import 'fake-indexeddb/auto';
 import Dexie from 'dexie';
 import { TestScheduler } from 'rxjs/testing';
 import { Subject, of, throwError } from 'rxjs';
-import type { SessionUser } from '../../../../shared/api/auth';
-import type { SyncResponse, SyncRevision } from '../../../../shared/api/sync';
-import type { CardIssueEntry, CardIssueResult } from '../../../../shared/card/card-api';
-import { contentSha256 } from '../../../../shared/speed-book/canonical';
-import { demoPistonTrainerContent, demoPistonTrainerContentRevised } from '../../../../shared/speed-book/demo-content';
-import { signedRevisionStatement } from '../../../../shared/speed-book/signature';
+import type { SessionUser } from '@shared/api/auth';
+import type { SyncResponse, SyncRevision } from '@shared/api/sync';
+import type { CardIssueEntry, CardIssueResult } from '@shared/card/card-api';
+import { contentSha256 } from '@shared/speed-book/canonical';
+import { demoPistonTrainerContent, demoPistonTrainerContentRevised } from '@shared/speed-book/demo-content';
+import { signedRevisionStatement } from '@shared/speed-book/signature';
 import { SpeedwrightDeviceDatabase, type CardLogRecord } from '../storage/device-database';
 import {
   DAY_MS,

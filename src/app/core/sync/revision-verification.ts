@@ -6,9 +6,9 @@
  * a rotation retired — through WebCrypto (`crypto.subtle`, Ed25519). A revision naming a key
  * the operator never published is refused. No Angular here.
  */
-import type { SyncRevision } from '../../../../shared/api/sync';
-import { contentSha256 } from '../../../../shared/speed-book/canonical';
-import { signedRevisionStatement } from '../../../../shared/speed-book/signature';
+import type { SyncRevision } from '@shared/api/sync';
+import { contentSha256 } from '@shared/speed-book/canonical';
+import { signedRevisionStatement } from '@shared/speed-book/signature';
 
 export interface VerifyingOperator {
   readonly id: number;

@@ -4,7 +4,7 @@
  * refused revision is not stored, is reported in `refused`, and holds the cursor so the next
  * sync asks for it again. `runSync` is one whole sync: the outbox, then the changes.
  */
-import type { SyncResponse } from '../../../../shared/api/sync';
+import type { SyncResponse } from '@shared/api/sync';
 import type { RefusedRevision, RevisionRecord, SigningKeyRecord, SpeedwrightDeviceDatabase, SyncStateRecord } from '../storage/device-database';
 import { importOperatorKeys, verifyRevision } from './revision-verification';
 import { flushOutbox, type OutboxOutcome } from './sync-outbox';

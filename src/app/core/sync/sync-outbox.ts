@@ -6,7 +6,7 @@
  * outbox as it was. Idempotent by entry id on the server, so sending again after a lost answer
  * doubles nothing.
  */
-import { MAX_CARD_ISSUES_PER_BATCH, type CardIssueEntry, type CardIssueResult } from '../../../../shared/card/card-api';
+import { MAX_CARD_ISSUES_PER_BATCH, type CardIssueEntry, type CardIssueResult } from '@shared/card/card-api';
 import type { CardLogRecord, SpeedwrightDeviceDatabase } from '../storage/device-database';
 import { describeFailure, type SyncPerson, type SyncTransport } from './sync-transport';
 

@@ -4,8 +4,8 @@
  * test/api/device-sync-transport.ts (a supertest agent). A transport throws an error with a
  * numeric `status` (0: no answer) and a `message` sentence when a call fails.
  */
-import type { SyncResponse } from '../../../../shared/api/sync';
-import type { CardIssueEntry, CardIssueResult } from '../../../../shared/card/card-api';
+import type { SyncResponse } from '@shared/api/sync';
+import type { CardIssueEntry, CardIssueResult } from '@shared/card/card-api';
 import type { OutboxOutcome } from './sync-outbox';
 
 export interface SyncTransport {

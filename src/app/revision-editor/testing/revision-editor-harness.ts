@@ -4,7 +4,7 @@ import { signal, type Provider } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { provideRouter } from '@angular/router';
-import type { RevisionView } from '../../../../shared/api/revisions';
+import type { RevisionView } from '@shared/api/revisions';
 import { AuthService } from '../../core/auth/auth-service';
 import { REVISION_PATHS } from '../../speed-books/revisions-api';
 import { revisionSummary, revisionView, sessionUser, speedBook } from '../../speed-books/testing/revision-fixtures';

@@ -2,9 +2,9 @@
  * Revisions and speed books as the API answers them, for the component tests of the speed
  * books, the revision editor and the review. Figures: shared/speed-book/demo-content.ts.
  */
-import type { SessionUser } from '../../../../shared/api/auth';
-import type { RevisionSummary, RevisionView } from '../../../../shared/api/revisions';
-import type { Role } from '../../../../shared/auth/roles';
+import type { SessionUser } from '@shared/api/auth';
+import type { RevisionSummary, RevisionView } from '@shared/api/revisions';
+import type { Role } from '@shared/auth/roles';
 import type { SpeedBook } from '../revisions-api';
 
 export const PEOPLE = { engineer: 3, approver: 4, otherApprover: 6 } as const;
