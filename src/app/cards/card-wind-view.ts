@@ -71,7 +71,7 @@ interface WindRow {
           </div>
         }
         @for (sentence of cautions(); track sentence) {
-          <p class="caution" role="note" data-testid="wind-caution"><mat-icon aria-hidden="true">warning</mat-icon><span><strong>Caution: </strong>{{ sentence }}</span></p>
+          <p class="sw-caution-note" role="note" data-testid="wind-caution"><mat-icon aria-hidden="true">warning</mat-icon><span><strong>Caution: </strong>{{ sentence }}</span></p>
         }
       </section>
     }
@@ -139,19 +139,6 @@ interface WindRow {
       width: 18px;
       height: 18px;
       vertical-align: -3px;
-    }
-    .caution mat-icon {
-      flex: none;
-    }
-    .caution {
-      display: flex;
-      gap: 8px;
-      align-items: flex-start;
-      margin: 8px 0 0;
-      padding: 8px 12px;
-      border-radius: 8px;
-      background: var(--sw-caution-container);
-      color: var(--sw-on-caution-container);
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -88,21 +88,8 @@ const EXAMPLE = { runwayHeadingDeg: 270, directionDeg: 300, speedKt: 20, gustKt:
       </form>
     </section>
   `,
+  styleUrl: './settings-panel.scss',
   styles: `
-    .panel {
-      max-width: 720px;
-      margin: 16px 0 24px;
-      padding: 16px 20px;
-      border: 1px solid var(--mat-sys-outline-variant);
-      border-radius: 12px;
-    }
-    h2 {
-      display: flex;
-      gap: 8px;
-      align-items: center;
-      margin: 0 0 8px;
-      font: var(--mat-sys-title-large);
-    }
     .fields {
       display: grid;
       grid-template-columns: repeat(auto-fill, minmax(15rem, 1fr));

@@ -130,21 +130,8 @@ function keysShown(answer: SigningKeyResponse): { active: KeyShown; all: KeyShow
       }
     </div>
   `,
+  styleUrl: './settings-panel.scss',
   styles: `
-    .panel {
-      max-width: 720px;
-      margin: 16px 0 24px;
-      padding: 16px 20px;
-      border: 1px solid var(--mat-sys-outline-variant);
-      border-radius: 12px;
-    }
-    h2 {
-      display: flex;
-      gap: 8px;
-      align-items: center;
-      margin: 0 0 8px;
-      font: var(--mat-sys-title-large);
-    }
     mat-form-field {
       width: min(100%, 340px);
     }
