@@ -53,6 +53,7 @@ module.exports = {
       roots: ['<rootDir>/test/production'],
       testMatch: ['**/*.spec.ts'],
       transform: { '^.+\\.ts$': tsJest },
+      moduleNameMapper,
     },
     {
       displayName: 'client',

@@ -10,6 +10,7 @@ import { join } from 'node:path';
 import { projectRoot } from '../instance';
 import type { AppInstanceLayout, ClusterLayout } from './cluster-layout';
 import { isAlive } from './galera-node';
+import { mailCatcherUrl } from './mail-catcher';
 
 const sleep = (ms: number) => new Promise((done) => setTimeout(done, ms));
 
@@ -54,6 +55,9 @@ export function startApp(layout: ClusterLayout, app: AppInstanceLayout, secrets:
     SESSION_SECRET: secrets.sessionSecret,
     SIGNING_KEY_SECRET: secrets.signingKeySecret,
     PUBLIC_URL: `http://127.0.0.1:${layout.balancerPort}`,
+    // The cluster's own fake mail server (mail-catcher.ts): production refuses to start without one.
+    SMTP_URL: mailCatcherUrl(),
+    MAIL_FROM: 'Speedwright cluster <speedwright@cluster.example>',
     ATTACHMENTS_DIR: layout.attachmentsDir,
     WEB_CONCURRENCY: '1',
     LOG_LEVEL: process.env['CLUSTER_LOG_LEVEL'] ?? 'warn',

@@ -19,6 +19,7 @@ import { appPid, startApp, stopApp, waitListening } from './app-instances';
 import { clusterLayout, type ClusterLayout, type GaleraNodeLayout } from './cluster-layout';
 import { CLUSTER_NEEDS, ensureDebianPackages } from './debian-packages';
 import { isAlive, launchNode, markSafeToBootstrap, nodeInstance, nodePid, nodeState, safeToBootstrap, savedSeqno, stopNode, waitSynced } from './galera-node';
+import { startMailCatcher, stopMailCatcher } from './mail-catcher';
 import { startLoadBalancer, stopLoadBalancer } from './load-balancer';
 import { stopReplicaPair } from './replica-pair';
 
@@ -119,6 +120,7 @@ async function startEverything(layout: ClusterLayout, log: (line: string) => voi
   } finally {
     await sequelize.close();
   }
+  await startMailCatcher(layout);
   log(`Starting ${layout.apps.length} Speedwright instances`);
   for (const app of layout.apps) startApp(layout, app, secrets);
   for (const app of layout.apps) await waitListening(app);
@@ -135,6 +137,7 @@ export async function stopCluster(log: (line: string) => void = console.log): Pr
   for (const app of layout.apps) if (await stopApp(app)) log(`instance ${app.index} stopped`);
   for (const node of [...layout.nodes].reverse()) if (await stopNode(node)) log(`${node.name} stopped`);
   await stopReplicaPair();
+  if (await stopMailCatcher(layout)) log('mail server stopped');
 }
 
 /** Throws a clear sentence when something else already listens on one of the node's ports. */

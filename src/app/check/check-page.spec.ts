@@ -103,6 +103,20 @@ describe('CheckPage', () => {
     await fixture.whenStable();
   }
 
+  /**
+   * settle(), then waits (at most 5 s) until the page has finished checking: after the card's
+   * source arrives, the signature check (WebCrypto) and the figures' re-derivation run on their
+   * own time, longer than settle()'s few turns on a loaded machine.
+   */
+  async function settleAnswer(): Promise<void> {
+    await settle();
+    const deadline = Date.now() + 5000;
+    while (page.querySelector('mat-progress-bar[aria-label="Checking the card"]') && Date.now() < deadline) {
+      await new Promise((done) => setTimeout(done, 20));
+      await settle();
+    }
+  }
+
   async function open(codeText: string, c?: string): Promise<void> {
     fixture = TestBed.createComponent(CheckPage);
     fixture.componentRef.setInput('code', codeText);
@@ -118,7 +132,7 @@ describe('CheckPage', () => {
     backend.expectOne(`/api/verify/${code}`).flush(known);
     await settle();
     backend.expectOne(`/api/verify/${code}/source`).flush(source);
-    await settle();
+    await settleAnswer();
     expect(text('check-status-title')).toBe('Revision in force');
     expect(text('check-registration')).toBe('ZZ-TST');
     expect(text('check-revision')).toBe('3, published 30 Nov 2026, 08:00 UTC');
@@ -135,7 +149,7 @@ describe('CheckPage', () => {
     backend.expectOne(`/api/verify/${code}`).flush({ ...known, status: 'superseded' });
     await settle();
     backend.expectOne(`/api/verify/${code}/source`).flush({ ...source, signature: { ...source.signature, keyRetiredAt: '2026-12-05T21:00:00.000Z' } });
-    await settle();
+    await settleAnswer();
     expect(page.querySelector('[data-testid="check-signature"]')?.getAttribute('data-outcome')).toBe('verified');
     expect(text('check-signature')).toBe('Verified with the operator’s key No. 4, retired 5 Dec 2026, 21:00 UTC (it still verifies what it signed)');
 
@@ -145,7 +159,7 @@ describe('CheckPage', () => {
     await settle();
     // The revision number changed after signing: the signature no longer covers it.
     backend.expectOne(`/api/verify/${other}/source`).flush({ ...source, revision: { ...source.revision, number: source.revision.number + 1 } });
-    await settle();
+    await settleAnswer();
     const refusal = page.querySelector('[data-testid="check-signature"]');
     expect(refusal?.getAttribute('data-outcome')).toBe('refused');
     expect(refusal?.getAttribute('role')).toBe('alert');
@@ -170,7 +184,7 @@ describe('CheckPage', () => {
     backend.expectOne(`/api/verify/${code}`).flush(known);
     await settle();
     backend.expectOne(`/api/verify/${code}/source`).flush(source);
-    await settle();
+    await settleAnswer();
     expect(text('check-figures-result')).toContain('The figures in this code do not match the card that was issued.');
     expect(page.querySelector('[data-testid="speed-card"]')).toBeNull();
     // Said before the status of the issued card, which would otherwise read as all clear.
@@ -187,7 +201,7 @@ describe('CheckPage', () => {
     backend.expectOne(`/api/verify/${code}`).flush(known);
     await settle();
     backend.expectOne(`/api/verify/${code}/source`).flush({ ...source, digest: earlierDigest });
-    await settle();
+    await settleAnswer();
     expect(page.querySelector('[data-testid="check-figures-result"]')?.getAttribute('data-outcome')).toBe('none');
     expect(text('check-figures-result')).toContain('The digest in this code is the digest of the card issued under it. The card was made under an earlier version');
     expect(page.querySelector('[data-testid="speed-card"]')).toBeNull();
