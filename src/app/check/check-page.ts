@@ -1,6 +1,5 @@
 import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
-import { MatButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
@@ -68,7 +67,7 @@ const OFFLINE_STATUS: Record<'published' | 'superseded' | 'withdrawn', string> =
  */
 @Component({
   selector: 'sw-check-page',
-  imports: [NgTemplateOutlet, RouterLink, MatButton, MatIcon, MatProgressBar, SpeedCardView],
+  imports: [NgTemplateOutlet, RouterLink, MatIcon, MatProgressBar, SpeedCardView],
   templateUrl: './check-page.html',
   styleUrl: './check-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

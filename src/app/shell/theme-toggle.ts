@@ -1,15 +1,14 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
-import { MatIconButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
 import { ThemePreference } from '../core/theme/theme-preference';
 
 /** Switches between the day theme and the dimmed night theme for a dark cockpit. */
 @Component({
   selector: 'sw-theme-toggle',
-  imports: [MatIconButton, MatIcon],
+  imports: [MatIcon],
   template: `
     <button
-      mat-icon-button
+      class="sw-icon-button"
       type="button"
       aria-label="Night theme"
       [attr.aria-pressed]="isNight()"

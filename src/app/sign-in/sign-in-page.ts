@@ -1,7 +1,6 @@
 import { ChangeDetectionStrategy, ChangeDetectorRef, Component, DestroyRef, PendingTasks, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
-import { MatButton, MatIconButton } from '@angular/material/button';
 import { MatError, MatFormField, MatLabel, MatSuffix } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
@@ -25,7 +24,7 @@ const FALLBACK_SENTENCES: Readonly<Record<number, string>> = {
 
 @Component({
   selector: 'sw-sign-in-page',
-  imports: [ReactiveFormsModule, RouterLink, MatFormField, MatLabel, MatError, MatSuffix, MatInput, MatButton, MatIconButton, MatIcon, MatProgressBar],
+  imports: [ReactiveFormsModule, RouterLink, MatFormField, MatLabel, MatError, MatSuffix, MatInput, MatIcon, MatProgressBar],
   templateUrl: './sign-in-page.html',
   styleUrl: './sign-in-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -6,19 +6,16 @@ const loadSnackBar = () => import('@angular/material/snack-bar').then((m) => m.M
 
 /**
  * The app's short messages at the foot of the screen (Material's snack bar), with the snack
- * bar's code (and the overlay code under it) loaded when first needed or once the service
- * worker is ready, instead of in the first download.
+ * bar's code (and the overlay code under it) loaded on the first message, never in a first
+ * visit that shows none (issue 17). Offline it still loads: the service worker prefetches
+ * every script of the app (`ngsw-config.json`, group `app-shell`) and answers from its cache.
+ * A load that fails (offline before the service worker holds the app) is tried again on the
+ * next message.
  */
 @Injectable({ providedIn: 'root' })
 export class Notices {
   private readonly injector = inject(Injector);
   private snackBar: Promise<MatSnackBar> | null = null;
-
-  constructor() {
-    // Once the service worker holds the app, the snack bar's code is in memory before any
-    // message: one about a page that cannot be fetched offline must not need the network.
-    void globalThis.navigator?.serviceWorker?.ready.then(() => this.load()).catch(() => undefined);
-  }
 
   /** Shows `message` with an action button; the observable emits when the action is taken. */
   open(message: string, action: string): Observable<void> {
