@@ -36,6 +36,9 @@
 import { cardInputsSchema, type AerodromeConditions, type CardInputs } from '../card/card';
 import type { ApproachAdditivePolicy } from '../card/approach-policy';
 import { formatCardCode, validateCardCode } from './card-code';
+import { base64UrlToDigest, DIGEST_B64_LENGTH, digestToBase64Url } from './digest-base64url';
+
+export { base64UrlToDigest, digestToBase64Url } from './digest-base64url';
 
 /**
  * The payload's form; a change of fields, or of the card rules behind the digest, means a new
@@ -62,9 +65,6 @@ export interface CheckPayload {
 
 export type Decoded<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly message: string };
 
-const DIGEST_HEX = /^[0-9a-f]{64}$/;
-const DIGEST_B64_LENGTH = 43;
-const B64URL = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_';
 /** Fields of versions 1 and 2, and of version 3 (the wind and the approach policy added). */
 const FIELDS_BEFORE_WIND = 16;
 const FIELDS = 28;
@@ -72,44 +72,6 @@ const NUMBER = /^-?(0|[1-9][0-9]*)(\.[0-9]+)?(e-?[0-9]+)?$/;
 const PAYLOAD_CHARACTERS = /^[A-Za-z0-9_.-]*$/;
 
 const bad = (message: string): Decoded<never> => ({ ok: false, message });
-
-// ---------------------------------------------------------------------------------------------
-// Digest ↔ base64url
-
-/** 64 hex digits as 43 base64url characters. */
-export function digestToBase64Url(hex: string): string {
-  if (!DIGEST_HEX.test(hex)) throw new Error('A digest is 64 lower-case hexadecimal digits.');
-  const bytes: number[] = [];
-  for (let i = 0; i < 64; i += 2) bytes.push(parseInt(hex.slice(i, i + 2), 16));
-  let text = '';
-  for (let i = 0; i < bytes.length; i += 3) {
-    const chunk = (bytes[i] << 16) | ((bytes[i + 1] ?? 0) << 8) | (bytes[i + 2] ?? 0);
-    const characters = i + 2 < bytes.length ? 4 : i + 1 < bytes.length ? 3 : 2;
-    for (let k = 0; k < characters; k++) text += B64URL[(chunk >> (18 - 6 * k)) & 63];
-  }
-  return text;
-}
-
-/** 43 base64url characters as 64 hex digits; undefined when they are not a 32-byte value. */
-export function base64UrlToDigest(text: string): string | undefined {
-  if (text.length !== DIGEST_B64_LENGTH) return undefined;
-  let bits = 0;
-  let buffer = 0;
-  let hex = '';
-  for (const character of text) {
-    const value = B64URL.indexOf(character);
-    if (value < 0) return undefined;
-    buffer = (buffer << 6) | value;
-    bits += 6;
-    if (bits >= 8) {
-      bits -= 8;
-      hex += ((buffer >> bits) & 255).toString(16).padStart(2, '0');
-      buffer &= (1 << bits) - 1;
-    }
-  }
-  // 43 characters are 258 bits: the last 2 must be zero in the canonical form.
-  return buffer === 0 ? hex : undefined;
-}
 
 // ---------------------------------------------------------------------------------------------
 // Numbers
