@@ -1,12 +1,11 @@
 import { DOCUMENT } from '@angular/common';
 import { utcDateTime } from '../core/format/display-format';
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MailboxMessage } from '@shared/api/mailbox';
-import { ApiRequestError } from '../core/api/api-request-error';
+import { requestState } from '../core/api/request-state';
 import { DevMailbox } from './dev-mailbox';
 import { MailTextPart, splitMailText } from './mail-text';
 import { ProblemNote } from '../core/feedback/problem-note';
@@ -33,11 +32,11 @@ export const NO_FAKE_MAILBOX =
 })
 export class MailboxPage {
   private readonly mailbox = inject(DevMailbox);
-  private readonly destroyRef = inject(DestroyRef);
   private readonly origin = inject(DOCUMENT).location.origin;
 
-  protected readonly loading = signal(true);
-  protected readonly problem = signal<string | null>(null);
+  private readonly request = requestState();
+  protected readonly loading = this.request.busy;
+  protected readonly problem = this.request.problem;
   protected readonly messages = signal<readonly ShownMessage[]>([]);
 
   constructor() {
@@ -45,21 +44,12 @@ export class MailboxPage {
   }
 
   protected loadMessages(): void {
-    this.loading.set(true);
-    this.problem.set(null);
-    this.mailbox
-      .messages()
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: (messages) => {
-          this.messages.set(messages.map((message) => this.toShown(message)));
-          this.loading.set(false);
-        },
-        error: (error: ApiRequestError) => {
-          this.problem.set(error.status === 404 ? NO_FAKE_MAILBOX : error.message);
-          this.loading.set(false);
-        },
-      });
+    if (this.loading()) return;
+    this.request.run(
+      this.mailbox.messages(),
+      (messages) => this.messages.set(messages.map((message) => this.toShown(message))),
+      (error) => (error.status === 404 ? NO_FAKE_MAILBOX : error.message),
+    );
   }
 
   private toShown(message: MailboxMessage): ShownMessage {

@@ -16,7 +16,7 @@ import type { SessionUser } from '@shared/api/auth';
   template: `
     <button mat-button type="button" class="person" data-testid="signed-in-person" [matMenuTriggerFor]="accountMenu">
       <mat-icon>account_circle</mat-icon>
-      <span class="person-text">
+      <span class="person-text sw-hidden-on-phone">
         <span class="person-name">{{ user().displayName }}</span>
         <span class="person-role">{{ roleLabel() }}</span>
       </span>
@@ -34,7 +34,7 @@ import type { SessionUser } from '@shared/api/auth';
     </mat-menu>
     <button mat-button type="button" class="sign-out" [disabled]="signingOut()" (click)="signOut.emit()">
       <mat-icon>logout</mat-icon>
-      <span class="sign-out-label">Sign out</span>
+      <span class="sw-hidden-when-narrow">Sign out</span>
     </button>
   `,
   styles: `
@@ -84,29 +84,8 @@ import type { SessionUser } from '@shared/api/auth';
 
     // Portrait tablets: the sign-out button keeps its icon and its accessible name, loses the words.
     @media (max-width: 840px) {
-      .sign-out-label {
-        position: absolute;
-        width: 1px;
-        height: 1px;
-        overflow: hidden;
-        clip: rect(0 0 0 0);
-        white-space: nowrap;
-      }
-
       .sign-out .mat-icon {
         margin: 0;
-      }
-    }
-
-    // Phones: the account menu keeps its name for screen readers (WCAG 2.1 SC 4.1.2).
-    @media (max-width: 600px) {
-      .person .person-text {
-        position: absolute;
-        width: 1px;
-        height: 1px;
-        overflow: hidden;
-        clip-path: inset(50%);
-        white-space: nowrap;
       }
     }
   `,

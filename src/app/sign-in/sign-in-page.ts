@@ -11,6 +11,7 @@ import { ApiRequestError } from '../core/api/api-request-error';
 import { AuthService } from '../core/auth/auth-service';
 import { ConnectionStatus } from '../core/connection/connection-status';
 import { zodValidator } from '../core/forms/zod-validator';
+import { AccountFrame } from '../account/account-frame';
 
 type SignInField = 'email' | 'password';
 type LoginRequestSchema = typeof import('@shared/api/session').loginRequestSchema;
@@ -24,7 +25,7 @@ const FALLBACK_SENTENCES: Readonly<Record<number, string>> = {
 
 @Component({
   selector: 'sw-sign-in-page',
-  imports: [ReactiveFormsModule, RouterLink, MatFormField, MatLabel, MatError, MatSuffix, MatInput, MatIcon, MatProgressBar],
+  imports: [ReactiveFormsModule, RouterLink, MatFormField, MatLabel, MatError, MatSuffix, MatInput, MatIcon, MatProgressBar, AccountFrame],
   templateUrl: './sign-in-page.html',
   styleUrl: './sign-in-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

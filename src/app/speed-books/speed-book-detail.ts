@@ -1,12 +1,10 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { FormControl } from '@angular/forms';
 import { Router } from '@angular/router';
-import { forkJoin, map } from 'rxjs';
+import { forkJoin, map, switchMap } from 'rxjs';
 import type { AircraftTypeView } from '@shared/api/fleet';
 import { createRevisionSchema, reasonSchema, type RevisionSummary } from '@shared/api/revisions';
 import { REVISION_SCHEMA_VERSION } from '@shared/speed-book/revision-content';
-import { ApiRequestError } from '../core/api/api-request-error';
 import { userMay } from '../core/auth/user-may';
 import { addressedRecord } from '../core/api/addressed-record';
 import { requestState } from '../core/api/request-state';
@@ -28,7 +26,6 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
 export class SpeedBookDetail {
   private readonly api = inject(RevisionsApi);
   private readonly router = inject(Router);
-  private readonly destroyRef = inject(DestroyRef);
 
   /** NaN when the address does not name a speed book. */
   readonly bookId = input.required<number>();
@@ -50,8 +47,9 @@ export class SpeedBookDetail {
   protected readonly openRevision = computed(() => this.book()?.revisions.find((r) => r.status === 'draft' || r.status === 'in_review') ?? null);
 
   protected readonly changeSummary = new FormControl('', { nonNullable: true, validators: zodValidator(createRevisionSchema.shape.changeSummary) });
-  protected readonly startingDraft = signal(false);
-  protected readonly draftProblem = signal<string | null>(null);
+  private readonly drafting = requestState();
+  protected readonly startingDraft = this.drafting.busy;
+  protected readonly draftProblem = this.drafting.problem;
 
   protected readonly withdrawing = signal<RevisionSummary | null>(null);
   protected readonly withdrawReason = new FormControl('', { nonNullable: true, validators: zodValidator(reasonSchema.shape.reason) });
@@ -66,22 +64,18 @@ export class SpeedBookDetail {
   protected startDraft(): void {
     const book = this.book();
     this.changeSummary.markAsTouched();
-    if (!book || this.changeSummary.invalid) return;
-    this.startingDraft.set(true);
-    this.draftProblem.set(null);
+    if (!book || this.changeSummary.invalid || this.startingDraft()) return;
     const changeSummary = this.changeSummary.value.trim();
     // With nothing published to copy, the first draft starts from the type's own figures.
     const content = book.revisions.some((r) => r.publishedAt !== null) ? undefined : this.emptyContent();
-    this.api
-      .startDraft(book.id, { changeSummary, ...(content ? { content } : {}) })
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: (revision) => void this.router.navigate(['/drafts'], { queryParams: { revision: revision.id } }),
-        error: (error: ApiRequestError) => {
-          this.startingDraft.set(false);
-          this.draftProblem.set(error.fields['changeSummary'] ?? error.message);
-        },
-      });
+    // Busy until the editor is open, so the button cannot start a second draft meanwhile.
+    this.drafting.run(
+      this.api
+        .startDraft(book.id, { changeSummary, ...(content ? { content } : {}) })
+        .pipe(switchMap((revision) => this.router.navigate(['/drafts'], { queryParams: { revision: revision.id } }))),
+      () => undefined,
+      (error) => error.fields['changeSummary'] ?? error.message,
+    );
   }
 
   protected askWithdrawReason(revision: RevisionSummary): void {

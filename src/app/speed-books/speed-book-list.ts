@@ -1,12 +1,10 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { FormControl, FormGroup } from '@angular/forms';
 import { MatSelectModule } from '@angular/material/select';
 import { Router } from '@angular/router';
-import { forkJoin } from 'rxjs';
+import { forkJoin, switchMap } from 'rxjs';
 import type { AircraftTypeView } from '@shared/api/fleet';
 import { createSpeedBookSchema, type SpeedBookSummary } from '@shared/api/revisions';
-import { ApiRequestError } from '../core/api/api-request-error';
 import { userMay } from '../core/auth/user-may';
 import { requestState } from '../core/api/request-state';
 import { FORM_PAGE_IMPORTS } from '../core/forms/form-page-imports';
@@ -26,7 +24,6 @@ import { ProblemRetry } from '../core/feedback/problem-retry';
 export class SpeedBookList {
   private readonly api = inject(RevisionsApi);
   private readonly router = inject(Router);
-  private readonly destroyRef = inject(DestroyRef);
 
   private readonly request = requestState();
   protected readonly loading = this.request.busy;
@@ -36,8 +33,9 @@ export class SpeedBookList {
   protected readonly mayEdit = userMay('edit-speed-books');
   /** A type has at most one speed book, so only types without one can get a new one. */
   protected readonly typesWithoutBook = computed(() => this.types().filter((type) => !this.books().some((book) => book.aircraftTypeId === type.id)));
-  protected readonly creating = signal(false);
-  protected readonly createProblem = signal<string | null>(null);
+  private readonly creation = requestState();
+  protected readonly creating = this.creation.busy;
+  protected readonly createProblem = this.creation.problem;
   protected readonly newBook = new FormGroup({
     aircraftTypeId: new FormControl<number | null>(null, zodValidator(createSpeedBookSchema.shape.aircraftTypeId)),
     title: new FormControl('', { nonNullable: true, validators: zodValidator(createSpeedBookSchema.shape.title) }),
@@ -66,19 +64,15 @@ export class SpeedBookList {
 
   protected createSpeedBook(): void {
     this.newBook.markAllAsTouched();
-    if (this.newBook.invalid) return;
+    if (this.newBook.invalid || this.creating()) return;
     const { aircraftTypeId, title } = this.newBook.getRawValue();
-    this.creating.set(true);
-    this.createProblem.set(null);
-    this.api
-      .createSpeedBook({ aircraftTypeId: aircraftTypeId!, title: title.trim() })
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: (book) => void this.router.navigate(['/speed-books'], { queryParams: { book: book.id } }),
-        error: (error: ApiRequestError) => {
-          this.creating.set(false);
-          this.createProblem.set(error.fields['aircraftTypeId'] ?? error.fields['title'] ?? error.message);
-        },
-      });
+    // Busy until the new book's page is open, so the button cannot create it twice meanwhile.
+    this.creation.run(
+      this.api
+        .createSpeedBook({ aircraftTypeId: aircraftTypeId!, title: title.trim() })
+        .pipe(switchMap((book) => this.router.navigate(['/speed-books'], { queryParams: { book: book.id } }))),
+      () => undefined,
+      (error) => error.fields['aircraftTypeId'] ?? error.fields['title'] ?? error.message,
+    );
   }
 }

@@ -49,7 +49,8 @@ export class RequestState {
       )
       .subscribe({
         next: succeeded,
-        error: (error: ApiRequestError) => this.problemSignal.set(failed(error)),
+        // Whatever failed (a refusal, a timeout, a navigation the request led to) is read as one.
+        error: (error: unknown) => this.problemSignal.set(failed(ApiRequestError.from(error))),
       });
   }
 
