@@ -18,7 +18,7 @@
  * (checked-content.ts), weights (card-weights.ts), the day's atmosphere (card-atmosphere.ts),
  * the envelope (card-envelope-check.ts), speeds and stall in a turn (card-speeds.ts), limits
  * (card-limits.ts), the ordering rules (card-ordering-check.ts), cruise and altitude table
- * (card-cruise.ts, card-altitude-table.ts), the day's wind and the approach speed by the
+ * (card-cruise.ts, card-altitude-table.ts), icing conditions (card-icing.ts), the day's wind and the approach speed by the
  * operator's additive policy (card-wind.ts), the indicator (card-indicator.ts), rounding
  * (card-rounding.ts) and refusals (card-refusal.ts).
  *
@@ -42,6 +42,7 @@ import { checkedContent } from './checked-content';
 import { orderingViolations, type OrderingViolation } from './ordering-rules';
 import { SpeedBook } from './speed-book-reader';
 import { cardApproach, cardWind } from './card-wind';
+import { cardIcing } from './card-icing';
 
 // The public names that used to live here, so every import of build-card keeps working.
 export { HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT, HIGH_DENSITY_ALTITUDE_FT } from './card-atmosphere';
@@ -90,6 +91,8 @@ export function buildCard(revision: CardRevision, rawInputs: CardInputs, context
   const speeds = cardSpeeds(book, inputs, landing.weightKg, takeoffConfiguration.key, departure, arrival);
   const limits = book.limits();
   refuseBrokenRules(content, orderingViolations(orderingFiguresOf(content, speeds, limits)));
+  // The iced speeds keep the ordering rules too; the key exists only when icing is ticked.
+  const icing = cardIcing(content, inputs.icing, speeds, limits);
   const cruise = plannedCruise(book, inputs.cruise);
   const cardSpeedList = speeds.map((speed) => speed.card);
   // Approach and landing use the arrival's conditions, or the departure's without an arrival.
@@ -120,6 +123,7 @@ export function buildCard(revision: CardRevision, rawInputs: CardInputs, context
     cruise: cruise.card,
     demo: context.demo,
     departure: withWind(departure.card, inputs.departure),
+    ...(icing ? { icing } : {}),
     indicator: cardIndicator(content, speeds, limits),
     inputs: sortedKeys(inputs),
     landing,
