@@ -31,7 +31,9 @@ async function page(viewport = { width: 1024, height: 768 }): Promise<Page> {
 
 async function shoot(on: Page, name: string): Promise<void> {
   const dir = process.env['SW_SCREENSHOT_DIR'];
-  if (dir) await on.screenshot({ path: join(dir, name), fullPage: true });
+  if (!dir) return;
+  await on.screenshot({ path: join(dir, `${name}-form.png`) });
+  await on.getByTestId('card-icing').screenshot({ path: join(dir, `${name}-icing.png`) });
 }
 
 describe('icing conditions in Chromium', () => {
@@ -54,15 +56,17 @@ describe('icing conditions in Chromium', () => {
     await expectText(pilot.getByTestId('icing-note'), 'No ice increment stated for Flaps approach');
     await expectText(pilot.getByTestId('card-caution'), "Planning aid. The approved flight manual and the operator's procedures govern.");
     expect(await pilot.locator('main').innerText()).not.toMatch(/NaN|undefined/);
-    await shoot(pilot, `card-icing-${name}.png`);
+    await shoot(pilot, `card-icing-${name}`);
 
     const [download] = await Promise.all([pilot.waitForEvent('download', { timeout: 60_000 }), pilot.getByTestId('print-card').click()]);
     const path = join(mkdtempSync(join(tmpdir(), 'speedwright-icing-')), download.suggestedFilename());
     await download.saveAs(path);
+    if (process.env['SW_SCREENSHOT_DIR']) await download.saveAs(join(process.env['SW_SCREENSHOT_DIR'], `card-icing-${name}.pdf`));
     const { text } = await readPdf(readFileSync(path));
     const flat = text.replace(/\s+/g, ' ');
     expect(flat).toContain('ICED » 107 KIAS = VREF + 10 ice');
     expect(flat).toContain('No ice increment stated for Flaps approach');
+    expect(flat).toContain('Icing conditions: ICED » figures are the normal IAS plus the book');
     expect(flat).toContain("The approved flight manual and the operator's procedures govern");
     await pilot.context().close();
   });
