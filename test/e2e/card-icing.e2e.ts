@@ -24,9 +24,22 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 
+/** A page whose CSP lets axe-core be injected (the app's CSP forbids inline scripts). */
 async function page(viewport = { width: 1024, height: 768 }): Promise<Page> {
-  const context = await browser.newContext({ baseURL: baseUrl(), viewport });
+  const context = await browser.newContext({ baseURL: baseUrl(), viewport, bypassCSP: true });
   return context.newPage();
+}
+
+const AXE_SOURCE = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
+
+/** axe-core's WCAG 2.0/2.1 level A and AA rules (the tags of axe-core 4.x). */
+async function axeViolations(on: Page): Promise<string[]> {
+  await on.waitForFunction('document.getAnimations().length === 0');
+  await on.addScriptTag({ content: AXE_SOURCE });
+  const violations = await on.evaluate<{ id: string; nodes: { target: string[] }[] }[]>(
+    `axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } }).then((r) => r.violations)`,
+  );
+  return violations.map((v) => `${v.id} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`);
 }
 
 async function shoot(on: Page, name: string): Promise<void> {
@@ -57,6 +70,7 @@ describe('icing conditions in Chromium', () => {
     await expectText(pilot.getByTestId('card-caution'), "Planning aid. The approved flight manual and the operator's procedures govern.");
     expect(await pilot.locator('main').innerText()).not.toMatch(/NaN|undefined/);
     await shoot(pilot, `card-icing-${name}`);
+    expect(await axeViolations(pilot)).toEqual([]);
 
     const [download] = await Promise.all([pilot.waitForEvent('download', { timeout: 60_000 }), pilot.getByTestId('print-card').click()]);
     const path = join(mkdtempSync(join(tmpdir(), 'speedwright-icing-')), download.suggestedFilename());

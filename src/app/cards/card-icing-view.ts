@@ -28,7 +28,7 @@ import type { SpeedCard } from '@shared/card';
                 <tr data-testid="iced-speed" [attr.data-code]="speed.code" [attr.data-kt]="speed.icedIasKt">
                   <th scope="row">{{ speed.code }} <span class="fine">{{ speed.label }}, {{ speed.configurationLabel }}</span></th>
                   <td class="sw-mono">{{ speed.iasKt }}</td>
-                  <td class="sw-mono iced"><span aria-hidden="true">❄ </span>Iced {{ speed.icedIasKt }} <span class="fine">(+{{ speed.incrementKt }})</span></td>
+                  <td class="sw-mono iced"><span class="nowrap"><span aria-hidden="true">❄ </span>Iced {{ speed.icedIasKt }}</span> <span class="fine">(+{{ speed.incrementKt }})</span></td>
                 </tr>
               }
             </tbody>
@@ -61,6 +61,9 @@ import type { SpeedCard } from '@shared/card';
     }
     td.iced {
       font-weight: 700;
+    }
+    .nowrap {
+      white-space: nowrap;
     }
     .fine {
       margin: 4px 0;
