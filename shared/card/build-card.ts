@@ -42,7 +42,7 @@ import { checkedContent } from './checked-content';
 import { orderingViolations, type OrderingViolation } from './ordering-rules';
 import { SpeedBook } from './speed-book-reader';
 import { cardApproach, cardWind } from './card-wind';
-import { cardIcing } from './card-icing';
+import { cardIcing, icedViolations } from './card-icing';
 
 // The public names that used to live here, so every import of build-card keeps working.
 export { HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT, HIGH_DENSITY_ALTITUDE_FT } from './card-atmosphere';
@@ -144,6 +144,8 @@ export function buildCard(revision: CardRevision, rawInputs: CardInputs, context
  * returned rather than thrown, so the sweep can tell "refused" from "rule broken".
  * Takeoff: the takeoff configuration's speeds at `inputs.departure`; landing: the approach and
  * landing speeds at `inputs.arrival` and `inputs.landingWeightKg`. Both check the envelope.
+ * When the book states ice increments, the rules broken by the iced figures are returned too,
+ * and an iced speed beyond its position-error table refuses, as the card with icing would.
  */
 export function cardFigures(content: RevisionContent, inputs: CardInputs, scope: CardScope): CardFigures {
   const book = SpeedBook.of(content);
@@ -157,6 +159,8 @@ export function cardFigures(content: RevisionContent, inputs: CardInputs, scope:
   const speeds = cardSpeeds(book, inputs, landing.weightKg, takeoffKey, where, where, scope.phase, scope.landingConfigurationKey);
   const limits = book.limits();
   const violations = orderingViolations(orderingFiguresOf(content, speeds, limits));
-  return { speeds: speeds.map((speed) => speed.card), violations };
+  // A book with ice increments: the rules must hold for the iced figures too (a rule broken both ways counts once).
+  const iced = icedViolations(content, speeds, limits).filter((violation) => !violations.some((normal) => normal.ruleId === violation.ruleId));
+  return { speeds: speeds.map((speed) => speed.card), violations: [...violations, ...iced] };
 }
 

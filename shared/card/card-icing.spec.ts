@@ -7,6 +7,7 @@
 import { demoTwinTurbopropContent } from '../speed-book/demo-content';
 import { revisionContentSchema, type RevisionContent } from '../speed-book/revision-content';
 import { buildCard } from './build-card';
+import { sweepEnvelope } from './coverage';
 import type { CardInputs } from './card';
 import { HAND_CONTEXT, revisionOf } from './testing/test-fixtures';
 
@@ -67,6 +68,17 @@ describe('icing conditions on the card', () => {
     content.speeds.push({ code: 'VX', label: 'Best angle of climb', phase: 'climb', configurationKey: 'takeoff-flap', basis: 'ias', kind: 'fixed', valueKt: 110 });
     expect(card(content).speeds.find((speed) => speed.code === 'VX')!.iasKt).toBe(110);
     expect(() => card(content, true)).toThrow(expect.objectContaining({ code: 'ordering-rule-broken' }) as unknown as Error);
+  });
+
+  it('lets the review’s envelope sweep see a rule only the iced speeds break', () => {
+    const content = demoTwinTurbopropContent();
+    content.configurations[1] = { ...content.configurations[1], iceIncrementKt: 20 };
+    content.speeds.push({ code: 'VX', label: 'Best angle of climb', phase: 'climb', configurationKey: 'takeoff-flap', basis: 'ias', kind: 'fixed', valueKt: 110 });
+    const report = sweepEnvelope(revisionContentSchema.parse(content));
+    expect(report.rules.map((rule) => rule.ruleId)).toContain('vx-vy');
+    expect(report.passes).toBe(false);
+    // The demo turboprop as shipped (+10 kt clean and landing) passes its sweep with the iced figures.
+    expect(sweepEnvelope(revisionContentSchema.parse(demoTwinTurbopropContent())).passes).toBe(true);
   });
 
   it('refuses the card when an iced speed lies beyond its position-error table, never extrapolated', () => {

@@ -24,7 +24,7 @@ import { orderingFiguresOf, refuseBrokenRules } from './card-ordering-check';
 import { guarded } from './card-refusal';
 import { ROUNDERS } from './card-rounding';
 import type { ComputedSpeed } from './card-speeds';
-import { orderingViolations } from './ordering-rules';
+import { orderingViolations, type OrderingViolation } from './ordering-rules';
 
 const { iasToCasKt } = aero;
 
@@ -43,6 +43,23 @@ export function takesIceIncrement(speed: { readonly code: string; readonly speed
  */
 export function cardIcing(content: RevisionContent, icing: boolean | undefined, speeds: readonly ComputedSpeed[], limits: ComputedLimits): CardIcing | undefined {
   if (icing !== true) return undefined;
+  const { card, icedSpeeds } = icedFigures(content, speeds);
+  refuseBrokenRules(content, orderingViolations(orderingFiguresOf(content, icedSpeeds, limits)));
+  return card;
+}
+
+/**
+ * The ordering rules the iced speeds break, for the envelope sweep (coverage.ts), so that the
+ * review sees a book whose iced speeds a card would refuse; none when the book states no
+ * increment. Throws `CardRefusedError` for an iced speed beyond its position-error table.
+ */
+export function icedViolations(content: RevisionContent, speeds: readonly ComputedSpeed[], limits: ComputedLimits): OrderingViolation[] {
+  if (!content.configurations.some((configuration) => configuration.iceIncrementKt !== undefined)) return [];
+  return orderingViolations(orderingFiguresOf(content, icedFigures(content, speeds).icedSpeeds, limits));
+}
+
+/** The iced speeds (as the card shows them) and the card's speeds with the iced figures in place. */
+function icedFigures(content: RevisionContent, speeds: readonly ComputedSpeed[]): { card: CardIcing; icedSpeeds: ComputedSpeed[] } {
   const incrementOf = new Map(content.configurations.map((configuration) => [configuration.key, configuration.iceIncrementKt]));
   const bookSpeedOf = new Map(content.speeds.map((speed) => [`${speed.configurationKey}\u0000${speed.code}`, speed]));
   const iced: CardIcedSpeed[] = [];
@@ -77,6 +94,6 @@ export function cardIcing(content: RevisionContent, icing: boolean | undefined, 
     });
     icedComputed.push({ ...speed, casKt: icedCasKt, card: { ...speed.card, iasKt: icedIasKt, casKt: ROUNDERS[speed.card.rounding](icedCasKt) } });
   }
-  refuseBrokenRules(content, orderingViolations(orderingFiguresOf(content, icedComputed, limits)));
-  return { notes: missing.map((label) => `No ice increment stated for ${label}: the book gives no iced figures for it; the normal speeds are shown.`), speeds: iced };
+  const notes = missing.map((label) => `No ice increment stated for ${label}: the book gives no iced figures for it; the normal speeds are shown.`);
+  return { card: { notes, speeds: iced }, icedSpeeds: icedComputed };
 }
