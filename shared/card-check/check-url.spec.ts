@@ -8,6 +8,7 @@ import fc from 'fast-check';
 import { buildCard } from '../card/build-card';
 import { cardInputsSchema, type CardInputs } from '../card/card';
 import { HAND_CONTEXT, handJetContent, handPistonContent, handPistonInputs, revisionOf } from '../card/testing/test-fixtures';
+import { demoTwinTurbopropContent } from '../speed-book/demo-content';
 import { generateCardCode } from './card-code';
 import {
   base64UrlToDigest,
@@ -76,7 +77,8 @@ describe('the compact payload', () => {
   it('still reads a version-1 payload (a card printed before issue 11), marked as made under earlier card rules', () => {
     const text = '1' + encodeCheckPayload(pistonPayload).slice(1);
     expect(decodeCheckPayload(text)).toEqual({ ok: true, value: { ...pistonPayload, earlierCardRules: true } });
-    expect(decodeCheckPayload('4' + text.slice(1))).toMatchObject({ ok: false, message: expect.stringMatching(/in a form this version of Speedwright does not read/) });
+    // Version 4 is the icing form (issue 16); 5 is a form no decoder reads yet.
+    expect(decodeCheckPayload('5' + text.slice(1))).toMatchObject({ ok: false, message: expect.stringMatching(/in a form this version of Speedwright does not read/) });
   });
 
   it('re-derives the same card, to the digest, from the decoded inputs', () => {
@@ -122,7 +124,7 @@ describe('the compact payload', () => {
 
   it('covers every field of the card inputs (a new field needs a new payload version)', () => {
     expect(Object.keys(cardInputsSchema.shape).sort()).toEqual(
-      ['airframeId', 'altitudeStepFt', 'approachAdditivePolicy', 'arrival', 'configuration', 'cruise', 'departure', 'isaDeviationC', 'landingWeightKg', 'weightKg'],
+      ['airframeId', 'altitudeStepFt', 'approachAdditivePolicy', 'arrival', 'configuration', 'cruise', 'departure', 'icing', 'isaDeviationC', 'landingWeightKg', 'weightKg'],
     );
     expect(Object.keys(cardInputsSchema.shape.departure.shape).sort()).toEqual(['dewPointC', 'elevationFt', 'oatC', 'qnhHpa', 'runwayHeadingDeg', 'wind']);
   });
@@ -225,5 +227,27 @@ describe('checkUrl and parseCheckUrl', () => {
     expect(parseCheckUrl('https://a.example/check/K7M4RTX9A')).toEqual({ ok: false, message: expect.stringContaining('does not fit') });
     expect(parseCheckUrl('https://a.example/check/%E0%A4%A')).toEqual({ ok: false, message: 'The card code in this address is damaged.' });
     expect(parseCheckUrl('')).toEqual({ ok: false, message: 'Type the code printed on the card.' });
+  });
+});
+
+describe('the compact payload with icing conditions (issue 16)', () => {
+  it('writes version 4 only for a card with icing ticked and reads it back to the same inputs', () => {
+    const revision = revisionOf(demoTwinTurbopropContent());
+    const inputs: CardInputs = {
+      airframeId: HAND_CONTEXT.airframe.id, weightKg: 4600, configuration: 'takeoff-flap',
+      departure: { elevationFt: 0, qnhHpa: 1013.25, oatC: 15 }, isaDeviationC: 0, cruise: { iasKt: 200 }, altitudeStepFt: 5000,
+    };
+    const plain = buildCard(revision, inputs, HAND_CONTEXT);
+    const iced = buildCard(revision, { ...inputs, icing: true }, HAND_CONTEXT);
+    const plainText = encodeCheckPayload({ revisionId: revision.id, inputs: plain.inputs, digest: plain.digest });
+    const icedText = encodeCheckPayload({ revisionId: revision.id, inputs: iced.inputs, digest: iced.digest });
+    expect(plainText[0]).toBe('2');
+    expect(icedText[0]).toBe('4');
+    expect(icedText.endsWith('_1')).toBe(true);
+    const decoded = decodeCheckPayload(icedText);
+    if (!decoded.ok) throw new Error(decoded.message);
+    expect(decoded.value.inputs.icing).toBe(true);
+    expect(buildCard(revision, decoded.value.inputs, HAND_CONTEXT).digest).toBe(iced.digest);
+    expect(decodeCheckPayload(icedText.slice(0, -1) + '2')).toMatchObject({ ok: false, message: expect.stringMatching(/icing is not readable/) });
   });
 });

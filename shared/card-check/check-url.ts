@@ -16,6 +16,9 @@
  * smaller QR code), and a version-2 payload is re-derived as it always was: a card without
  * wind has the same figures and digest under today's rules.
  *
+ * Version 4 adds icing conditions (issue 16): the 28 fields of version 3 and `1` as a 29th,
+ * written only for a card with icing ticked; every other card keeps its version-2 or -3 form.
+ *
  * Version 2 (cards of CARD_VERSION 2: envelope, ordering rules, rounding by class) has the fields
  * of version 1; the version says which card rules made the digest. A version-1 payload still
  * decodes, marked `earlierCardRules`: its figures were computed under the earlier rules, so they
@@ -49,7 +52,9 @@ export const CHECK_PAYLOAD_VERSION = '3';
 const EARLIER_PAYLOAD_VERSIONS = new Set(['1']);
 /** The form of a card without wind and approach policy (the 16 fields of version 2), still written for such cards. */
 const WITHOUT_WIND_PAYLOAD_VERSION = '2';
-const SAME_RULES_PAYLOAD_VERSIONS = new Set([WITHOUT_WIND_PAYLOAD_VERSION]);
+/** The form of a card with icing conditions ticked: version 3's fields and the icing flag. */
+const ICING_PAYLOAD_VERSION = '4';
+const SAME_RULES_PAYLOAD_VERSIONS = new Set([WITHOUT_WIND_PAYLOAD_VERSION, ICING_PAYLOAD_VERSION]);
 /** Longest payload a decoder reads (a version-1 payload is about 120 characters). */
 export const MAX_CHECK_PAYLOAD_LENGTH = 600;
 
@@ -68,6 +73,7 @@ export type Decoded<T> = { readonly ok: true; readonly value: T } | { readonly o
 /** Fields of versions 1 and 2, and of version 3 (the wind and the approach policy added). */
 const FIELDS_BEFORE_WIND = 16;
 const FIELDS = 28;
+const FIELDS_WITH_ICING = 29;
 const NUMBER = /^-?(0|[1-9][0-9]*)(\.[0-9]+)?(e-?[0-9]+)?$/;
 const PAYLOAD_CHARACTERS = /^[A-Za-z0-9_.-]*$/;
 
@@ -120,6 +126,7 @@ export function encodeCheckPayload({ revisionId, inputs, digest }: CheckPayload)
     String(parsed.altitudeStepFt),
   ];
   const windAndPolicy = [...windFields(parsed.departure, 'departure'), ...windFields(parsed.arrival, 'arrival'), ...policyFields(parsed.approachAdditivePolicy)];
+  if (parsed.icing === true) return `${ICING_PAYLOAD_VERSION}${digestToBase64Url(digest)}_${[...fields, ...windAndPolicy, '1'].join('_')}`;
   // A card without wind or policy keeps the shorter version-2 form: its QR code stays as small as before.
   if (windAndPolicy.every((field) => field === '')) return `${WITHOUT_WIND_PAYLOAD_VERSION}${digestToBase64Url(digest)}_${fields.join('_')}`;
   return `${CHECK_PAYLOAD_VERSION}${digestToBase64Url(digest)}_${[...fields, ...windAndPolicy].join('_')}`;
@@ -160,7 +167,7 @@ export function decodeCheckPayload(text: string): Decoded<CheckPayload> {
   const digest = base64UrlToDigest(text.slice(1, 1 + DIGEST_B64_LENGTH));
   if (digest === undefined || text[1 + DIGEST_B64_LENGTH] !== '_') return bad(`${NOT_A_CARD}: its digest is not readable.`);
   const fields = text.slice(2 + DIGEST_B64_LENGTH).split('_');
-  const expected = text[0] === CHECK_PAYLOAD_VERSION ? FIELDS : FIELDS_BEFORE_WIND;
+  const expected = text[0] === ICING_PAYLOAD_VERSION ? FIELDS_WITH_ICING : text[0] === CHECK_PAYLOAD_VERSION ? FIELDS : FIELDS_BEFORE_WIND;
   if (fields.length !== expected) return bad(`${NOT_A_CARD}: it has ${fields.length} fields where a card has ${expected}.`);
 
   const [revisionText, airframeText, weight, landingWeight, configuration, ...rest] = fields;
@@ -172,6 +179,7 @@ export function decodeCheckPayload(text: string): Decoded<CheckPayload> {
   const departureWind = windAndPolicy.slice(0, 4);
   const arrivalWind = windAndPolicy.slice(4, 8);
   const policy = windAndPolicy.slice(8, 12);
+  const icingText = windAndPolicy[12];
 
   const problems: string[] = [];
   const numberAt = (field: string, value: string): number => {
@@ -227,6 +235,10 @@ export function decodeCheckPayload(text: string): Decoded<CheckPayload> {
       minimumKt: numberAt('minimum additive', minimumKt),
       maximumKt: numberAt('maximum additive', maximumKt),
     };
+  }
+  if (icingText !== undefined) {
+    if (icingText === '1') inputs['icing'] = true;
+    else problems.push('icing');
   }
   const cruiseValue = numberAt('cruise', cruiseText.slice(1));
   if (cruiseText[0] === 'm') inputs['cruise'] = { mach: cruiseValue };

@@ -10,6 +10,7 @@ import { altitudeTableBody, stallInTurnBody } from './altitude-block';
 import type { CardPdfInput } from './card-pdf-input';
 import { indicatorBlock } from './indicator-block';
 import { BAR_WIDTH, FIGURES_LAYOUT, bar, caution, fine, head, num, title } from './pdf-blocks';
+import { icingBackLines } from './icing-block';
 import { windBackLines, windCautions } from './wind-block';
 
 /** The back of the card, `width` wide: aerodromes, stall in a turn, indicator, altitude table. */
@@ -45,6 +46,7 @@ export function backPage(input: CardPdfInput, width: number): Content {
               title('Departure and arrival', 0),
               { table: { headerRows: 1, widths: [BAR_WIDTH, '*', 38, 38, 38], body: aerodromeBody }, layout: FIGURES_LAYOUT },
               ...windBackLines(card),
+              ...icingBackLines(card),
               ...cautions,
               ...windCautions(card),
             ],

@@ -8,6 +8,7 @@ import type { SpeedCard } from '../card/card';
 import { cardNumber, limitRows, phaseGroups, showsWeightColumn } from '../card/card-presentation';
 import { BAR_WIDTH, GREY, MONO, bar, head, num } from './pdf-blocks';
 import { lineKey } from './revision-marks';
+import { icedNote } from './icing-block';
 import { approachNote } from './wind-block';
 
 const noteOf = <T>(note: T | null): T[] => (note === null ? [] : [note]);
@@ -26,7 +27,7 @@ export function speedsTable(card: SpeedCard, marked: (key: string) => boolean): 
       speedBody.push([
         bar(marked(lineKey.speed(speed.code, speed.configurationKey))),
         { text: speed.code, font: MONO, bold: true, fontSize: 10, lineHeight: 0.9, margin: [0, 1.5, 0, 0] },
-        { text: [speed.label, { text: ` · ${speed.configurationLabel}`, fontSize: 6.3 }, ...noteOf(approachNote(card, speed))], margin: [0, 2.2, 0, 0] },
+        { text: [speed.label, { text: ` · ${speed.configurationLabel}`, fontSize: 6.3 }, ...noteOf(approachNote(card, speed)), ...noteOf(icedNote(card, speed))], margin: [0, 2.2, 0, 0] },
         ...(showWeight ? [num(cardNumber(speed.weightKg), { margin: [0, 2.5, 0, 0] })] : []),
         num(cardNumber(speed.iasKt), { bold: true, fontSize: 13.5 }),
         num(cardNumber(speed.casKt), { fontSize: 8.5, margin: [0, 2, 0, 0] }),

@@ -18,7 +18,7 @@
  * (checked-content.ts), weights (card-weights.ts), the day's atmosphere (card-atmosphere.ts),
  * the envelope (card-envelope-check.ts), speeds and stall in a turn (card-speeds.ts), limits
  * (card-limits.ts), the ordering rules (card-ordering-check.ts), cruise and altitude table
- * (card-cruise.ts, card-altitude-table.ts), the day's wind and the approach speed by the
+ * (card-cruise.ts, card-altitude-table.ts), icing conditions (card-icing.ts), the day's wind and the approach speed by the
  * operator's additive policy (card-wind.ts), the indicator (card-indicator.ts), rounding
  * (card-rounding.ts) and refusals (card-refusal.ts).
  *
@@ -42,6 +42,7 @@ import { checkedContent } from './checked-content';
 import { orderingViolations, type OrderingViolation } from './ordering-rules';
 import { SpeedBook } from './speed-book-reader';
 import { cardApproach, cardWind } from './card-wind';
+import { cardIcing, icedViolations } from './card-icing';
 
 // The public names that used to live here, so every import of build-card keeps working.
 export { HIGH_DENSITY_ALTITUDE_ABOVE_FIELD_FT, HIGH_DENSITY_ALTITUDE_FT } from './card-atmosphere';
@@ -90,6 +91,8 @@ export function buildCard(revision: CardRevision, rawInputs: CardInputs, context
   const speeds = cardSpeeds(book, inputs, landing.weightKg, takeoffConfiguration.key, departure, arrival);
   const limits = book.limits();
   refuseBrokenRules(content, orderingViolations(orderingFiguresOf(content, speeds, limits)));
+  // The iced speeds keep the ordering rules too; the key exists only when icing is ticked.
+  const icing = cardIcing(content, inputs.icing, speeds, limits);
   const cruise = plannedCruise(book, inputs.cruise);
   const cardSpeedList = speeds.map((speed) => speed.card);
   // Approach and landing use the arrival's conditions, or the departure's without an arrival.
@@ -120,6 +123,7 @@ export function buildCard(revision: CardRevision, rawInputs: CardInputs, context
     cruise: cruise.card,
     demo: context.demo,
     departure: withWind(departure.card, inputs.departure),
+    ...(icing ? { icing } : {}),
     indicator: cardIndicator(content, speeds, limits),
     inputs: sortedKeys(inputs),
     landing,
@@ -140,6 +144,8 @@ export function buildCard(revision: CardRevision, rawInputs: CardInputs, context
  * returned rather than thrown, so the sweep can tell "refused" from "rule broken".
  * Takeoff: the takeoff configuration's speeds at `inputs.departure`; landing: the approach and
  * landing speeds at `inputs.arrival` and `inputs.landingWeightKg`. Both check the envelope.
+ * When the book states ice increments, the rules broken by the iced figures are returned too,
+ * and an iced speed beyond its position-error table refuses, as the card with icing would.
  */
 export function cardFigures(content: RevisionContent, inputs: CardInputs, scope: CardScope): CardFigures {
   const book = SpeedBook.of(content);
@@ -153,6 +159,8 @@ export function cardFigures(content: RevisionContent, inputs: CardInputs, scope:
   const speeds = cardSpeeds(book, inputs, landing.weightKg, takeoffKey, where, where, scope.phase, scope.landingConfigurationKey);
   const limits = book.limits();
   const violations = orderingViolations(orderingFiguresOf(content, speeds, limits));
-  return { speeds: speeds.map((speed) => speed.card), violations };
+  // A book with ice increments: the rules must hold for the iced figures too (a rule broken both ways counts once).
+  const iced = icedViolations(content, speeds, limits).filter((violation) => !violations.some((normal) => normal.ruleId === violation.ruleId));
+  return { speeds: speeds.map((speed) => speed.card), violations: [...violations, ...iced] };
 }
 

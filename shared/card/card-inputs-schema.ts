@@ -109,6 +109,11 @@ export const cardInputsSchema = z.strictObject({
    * from the synced operator settings). Needed when the aerodrome the card lands at has a wind.
    */
   approachAdditivePolicy: z.optional(approachAdditivePolicySchema),
+  /**
+   * Icing conditions: the card shows each speed the book gives an ice increment for beside its
+   * iced figure (card-icing.ts). Absent or false: no icing part, and the card's digest is as before.
+   */
+  icing: z.optional(z.boolean({ error: 'Say yes or no for icing conditions.' })),
   altitudeStepFt: num('the altitude step in feet').check(
     z.int('The altitude step must be whole feet.'),
     z.minimum(100, 'The altitude step must be at least 100 ft.'),

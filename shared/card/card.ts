@@ -12,6 +12,7 @@
  */
 import type { AircraftCategory, SpeedBasis, SpeedPhase } from '../speed-book/revision-content';
 import type { CardInputs } from './card-inputs-schema';
+import type { CardIcing } from './card-icing-model';
 import type { CardApproach, CardWind } from './card-wind-model';
 
 /**
@@ -73,6 +74,10 @@ export interface CardAerodrome {
 // The day's wind and the approach speed: card-wind-model.ts (re-exported here)
 
 export * from './card-wind-model';
+
+// Icing conditions: card-icing-model.ts (re-exported here)
+
+export * from './card-icing-model';
 
 /** Why a speed was rounded the way it was. */
 export type CardRounding = 'limit-down' | 'stall-up' | 'nearest';
@@ -245,6 +250,8 @@ export interface SpeedCard {
   readonly arrival: CardAerodrome | null;
   /** The approach speeds for the day's wind; present only when the aerodrome the card lands at has a wind. */
   readonly approach?: CardApproach;
+  /** The speeds beside their iced figures; present only when the pilot ticked icing conditions (card-icing.ts). */
+  readonly icing?: CardIcing;
   readonly speeds: readonly CardSpeed[];
   readonly stallInTurn: readonly CardStallInTurn[];
   readonly limits: CardLimits;

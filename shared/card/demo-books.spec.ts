@@ -66,6 +66,23 @@ describe.each(BOOKS)('the demo %s', (_name, make) => {
     );
   });
 
+  it('gives a card with icing conditions at random points inside its declared envelope, iced speeds above the normal ones (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.constantFrom(...keys),
+        fc.double({ min: minimumKg, max: maximumTakeoffKg, noNaN: true }),
+        fc.double({ min: envelope.takeoff.pressureAltitudeFt.min, max: envelope.takeoff.pressureAltitudeFt.max, noNaN: true }),
+        fc.double({ min: envelope.takeoff.oatC.min, max: envelope.takeoff.oatC.max, noNaN: true }),
+        (configuration, weightKg, altitudeFt, oatC) => {
+          const inputs = { ...inputsAt(content, configuration, weightKg, altitudeFt, 1013.25, oatC, { mach: 0.3 }), icing: true };
+          const card = buildCard(revision, inputs, HAND_CONTEXT); // throws (fails) on any refusal or broken rule
+          for (const speed of card.icing!.speeds) expect(speed.icedIasKt).toBe(speed.iasKt + speed.incrementKt);
+        },
+      ),
+      { numRuns: 100 },
+    );
+  });
+
   it('never refuses an ordinary day: sea level to 5,000 ft, QNH 980–1040 hPa, OAT −35…+45 °C (property)', () => {
     fc.assert(
       fc.property(

@@ -15,3 +15,4 @@ export {
   type ApproachAdditivePolicy,
 } from './approach-policy';
 export { cardApproach, cardWind, roundAdditiveUpKt, unroundedAdditiveKt, windComponents, type WindComponents } from './card-wind';
+export { cardIcing, ICED_SPEED_CLASSES, takesIceIncrement } from './card-icing';

@@ -77,6 +77,16 @@ export const configurationSchema = z.strictObject({
   positionError: z
     .array(positionErrorPointSchema, { error: 'Give the position-error table as a list of IAS/CAS points.' })
     .check(z.minLength(2, 'A position-error table needs at least two IAS/CAS points.'), z.maxLength(100, 'A position-error table has at most 100 points.')),
+  /**
+   * The flight manual's increment for ice accretion in this configuration, whole kt 0–40: with
+   * "icing conditions" ticked the card shows, beside each normal figure, the speed plus this
+   * increment for the speeds of this configuration of class takeoff, minimum (V2, VREF; not VMC),
+   * climb and approach (`ICED_SPEED_CLASSES`, shared/card/card-icing.ts). Stall and limit speeds
+   * are never increased. Absent: the manual states none (the card says so when icing is ticked).
+   */
+  iceIncrementKt: z.optional(
+    num('The ice increment').check(z.int('The ice increment must be whole knots.'), z.minimum(0, 'The ice increment must be at least 0 kt.'), z.maximum(40, 'The ice increment must be at most 40 kt.')),
+  ),
 });
 
 /** Trade codes (VS1, VR, VREF, V2) or free ones: a letter, then letters and digits. */

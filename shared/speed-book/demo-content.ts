@@ -105,6 +105,8 @@ export function demoTwinTurbopropContent(): RevisionContent {
       {
         key: 'clean',
         label: 'Flaps up, gear up',
+        // Invented demo data — not for flight: climb speeds +10 kt in icing conditions.
+        iceIncrementKt: 10,
         positionError: [
           { iasKt: 65, casKt: 70 },
           { iasKt: 90, casKt: 92 },
@@ -132,6 +134,8 @@ export function demoTwinTurbopropContent(): RevisionContent {
       {
         key: 'landing-flap',
         label: 'Flaps down, gear down',
+        // Invented demo data — not for flight: approach and landing speeds +10 kt in icing conditions.
+        iceIncrementKt: 10,
         positionError: [
           { iasKt: 55, casKt: 61 },
           { iasKt: 75, casKt: 78 },

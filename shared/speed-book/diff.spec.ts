@@ -72,4 +72,12 @@ describe('diffContent', () => {
     expect(diffContent({}, { notes: 'x' })).toEqual([{ path: 'notes', after: 'x', kind: 'added' }]);
     expect(diffContent(null, { notes: 'x' })).toEqual([{ path: '', before: null, after: { notes: 'x' }, kind: 'changed' }]);
   });
+
+  it('shows an ice increment stated, changed or withdrawn on its configuration', () => {
+    const before = demoPistonTrainerContent();
+    const after = demoPistonTrainerContent();
+    after.configurations[2].iceIncrementKt = 10;
+    expect(diffContent(before, after)).toEqual([{ path: 'configurations[landing-flap].iceIncrementKt', after: 10, kind: 'added' }]);
+    expect(diffContent(after, before)).toEqual([{ path: 'configurations[landing-flap].iceIncrementKt', before: 10, kind: 'removed' }]);
+  });
 });

@@ -37,6 +37,14 @@ describe('revision content schema', () => {
     expect(problemsAfter((c) => Object.assign(c.weights, { zeroFuelKg: 900 }))).toEqual({ 'weights.zeroFuelKg': 'This field is not expected here.' });
   });
 
+  it('takes an ice increment of whole kt from 0 to 40 per configuration, and refuses others with a sentence', () => {
+    expect(problemsAfter((c) => (c.configurations[2].iceIncrementKt = 0))).toEqual({});
+    expect(problemsAfter((c) => (c.configurations[2].iceIncrementKt = 40))).toEqual({});
+    expect(problemsAfter((c) => (c.configurations[2].iceIncrementKt = 41))).toEqual({ 'configurations.2.iceIncrementKt': 'The ice increment must be at most 40 kt.' });
+    expect(problemsAfter((c) => (c.configurations[2].iceIncrementKt = -5))).toEqual({ 'configurations.2.iceIncrementKt': 'The ice increment must be at least 0 kt.' });
+    expect(problemsAfter((c) => (c.configurations[2].iceIncrementKt = 7.5))).toEqual({ 'configurations.2.iceIncrementKt': 'The ice increment must be whole knots.' });
+  });
+
   it('refuses a speed of zero or below', () => {
     expect(problemsAfter((c) => (c.limits.vneKt = 0))).toMatchObject({ 'limits.vneKt': 'VNE must be above zero.' });
   });

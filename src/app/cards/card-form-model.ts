@@ -297,6 +297,7 @@ function enteredInputs({ value, units }: Snapshot): EnteredInput[] {
   addWind(items, 'Departure wind', value.departure);
   if (value.hasArrival) addWind(items, 'Arrival wind', value.arrival);
   add('ISA deviation (en route)', 'isaDeviation', value.isaDeviation);
+  if (value.icing) items.push({ label: 'Icing conditions', value: 'yes: iced speeds shown beside the normal ones' });
   return items;
 }
 

@@ -39,6 +39,8 @@ export interface CardFormControls {
   cruiseIas: FormControl<string>;
   cruiseMach: FormControl<string>;
   altitudeStepFt: FormControl<number>;
+  /** Icing conditions: the card shows the book's iced speeds beside the normal ones. */
+  icing: FormControl<boolean>;
 }
 
 export type CardForm = FormGroup<CardFormControls>;
@@ -82,6 +84,7 @@ export function createCardForm(fb: NonNullableFormBuilder): CardForm {
     cruiseIas: fb.control(''),
     cruiseMach: fb.control(''),
     altitudeStepFt: fb.control(1000),
+    icing: fb.control(false),
   });
 }
 
@@ -118,6 +121,7 @@ export function startingValues(content: RevisionContent, units: UnitChoice): Car
     cruiseIas: shown('cruiseIas', cruiseIasKt),
     cruiseMach: limits.mmo === undefined ? '0.3' : String(Math.round((limits.mmo - 0.05) * 100) / 100),
     altitudeStepFt: aircraft.ceilingFt > 20_000 ? 2000 : 1000,
+    icing: false,
   };
 }
 
@@ -247,6 +251,8 @@ export function cardInputsFrom(value: CardFormValue, units: UnitChoice, airframe
     isaDeviationC: isaDeviationC!,
     cruise: cruise!,
     altitudeStepFt: value.altitudeStepFt,
+    // Only when ticked, so a card without icing keeps its inputs, payload and digest as before.
+    ...(value.icing ? { icing: true } : {}),
   };
   const landingAt = arrival ?? departure;
   if (landingAt.wind && approachPolicy) inputs.approachAdditivePolicy = approachPolicy;

@@ -25,6 +25,7 @@ function formValue(overrides: Partial<CardFormValue> = {}): CardFormValue {
     cruiseIas: '100',
     cruiseMach: '',
     altitudeStepFt: 1000,
+    icing: false,
     ...overrides,
   };
 }

@@ -15,6 +15,7 @@ import {
   type PhaseGroup,
 } from '@shared/card/card-presentation';
 import { AltitudeChart } from './altitude-chart';
+import { CardIcingView } from './card-icing-view';
 import { CardWindView } from './card-wind-view';
 import { CardNumberPipe, cardNumber } from './card-number-pipe';
 import { AirspeedIndicator } from './indicator/airspeed-indicator';
@@ -30,7 +31,7 @@ export { DEMO_MARK, utcDate };
 /** The speed card as the pilot reads it; every figure comes rounded from the card model. */
 @Component({
   selector: 'sw-speed-card-view',
-  imports: [MatIconModule, CardNumberPipe, AirspeedIndicator, AltitudeChart, CardWindView],
+  imports: [MatIconModule, CardNumberPipe, AirspeedIndicator, AltitudeChart, CardWindView, CardIcingView],
   templateUrl: './speed-card-view.html',
   styleUrl: './speed-card-view.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -8,6 +8,8 @@ export type ConfigurationGroup = FormGroup<{
   label: FormControl<string>;
   /** Kept with its configuration in the form; in the content it is `limits.vfeKt[key]`. */
   vfeKt: NumberControl;
+  /** The flight manual's ice increment for this configuration, whole kt; empty when none is stated. */
+  iceIncrementKt: NumberControl;
   positionError: FormArray<PointGroup>;
 }>;
 type Point = { iasKt: number | null; casKt: number | null };
@@ -16,11 +18,12 @@ export function pointGroup(iasKt: number | null = null, casKt: number | null = n
   return new FormGroup({ iasKt: numberControl(iasKt), casKt: numberControl(casKt) });
 }
 
-export function configurationGroup(key: string, label: string, vfeKt: number | null, points: Point[]): ConfigurationGroup {
+export function configurationGroup(key: string, label: string, vfeKt: number | null, points: Point[], iceIncrementKt: number | null = null): ConfigurationGroup {
   return new FormGroup({
     key: text(key),
     label: text(label),
     vfeKt: numberControl(vfeKt),
+    iceIncrementKt: numberControl(iceIncrementKt),
     positionError: new FormArray(points.map((p) => pointGroup(p.iasKt, p.casKt))),
   });
 }
@@ -36,7 +39,7 @@ export function configurationGroupsOf(content: Json): ConfigurationGroup[] {
   return list(content['configurations']).map((item) => {
     const c = record(item);
     const points = list(c['positionError']).map((p) => ({ iasKt: num(record(p)['iasKt']), casKt: num(record(p)['casKt']) }));
-    return configurationGroup(str(c['key']), str(c['label']), num(vfe[str(c['key'])]), points);
+    return configurationGroup(str(c['key']), str(c['label']), num(vfe[str(c['key'])]), points, num(c['iceIncrementKt']));
   });
 }
 
@@ -48,11 +51,14 @@ export function configurationsContent(configurations: ReturnType<ConfigurationGr
     if (value !== undefined) vfeKt[c.key] = value;
   }
   return {
-    configurations: configurations.map((c) => ({
-      key: c.key,
-      label: c.label,
-      positionError: c.positionError.map((p) => withoutUndefined({ iasKt: out(p.iasKt), casKt: out(p.casKt) })),
-    })),
+    configurations: configurations.map((c) =>
+      withoutUndefined({
+        key: c.key,
+        label: c.label,
+        iceIncrementKt: out(c.iceIncrementKt),
+        positionError: c.positionError.map((p) => withoutUndefined({ iasKt: out(p.iasKt), casKt: out(p.casKt) })),
+      }),
+    ),
     vfeKt,
   };
 }
@@ -62,6 +68,7 @@ export function configurationFieldControls(configurations: FormArray<Configurati
     add(`configurations.${i}.key`, c.controls.key);
     add(`configurations.${i}.label`, c.controls.label);
     add(`limits.vfeKt.${c.controls.key.value}`, c.controls.vfeKt);
+    add(`configurations.${i}.iceIncrementKt`, c.controls.iceIncrementKt);
     c.controls.positionError.controls.forEach((p, j) => {
       add(`configurations.${i}.positionError.${j}.iasKt`, p.controls.iasKt);
       add(`configurations.${i}.positionError.${j}.casKt`, p.controls.casKt);

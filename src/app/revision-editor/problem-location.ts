@@ -7,6 +7,7 @@ export const FIELD_WORDS: Readonly<Record<string, string>> = {
   maximumTakeoffKg: 'maximum takeoff weight (kg)',
   maximumLandingKg: 'maximum landing weight (kg)',
   referenceKg: 'reference weight (kg)',
+  iceIncrementKt: 'ice increment (kt)',
   key: 'key',
   label: 'label',
   iasKt: 'IAS (kt)',
