@@ -13,7 +13,7 @@ const dir = __dirname;
 const only = process.argv[2];
 const benches = readdirSync(dir)
   .filter((name) => name.endsWith('.bench.ts'))
-  // The cost of growth (scale.bench.ts, about half an hour) runs only when named: `npm run bench:scale`.
+  // The cost of growth (scale.bench.ts, about 15 minutes) runs only when named: `npm run bench:scale`.
   .filter((name) => (only ? name.includes(only) : name !== 'scale.bench.ts'))
   .sort();
 
