@@ -15,6 +15,7 @@ import * as userAddressPerOperator from './migrations/20261205-0802-user-address
 import * as signingKeyRetirement from './migrations/20261205-0901-signing-key-retirement';
 import * as approachAdditivePolicy from './migrations/20261205-0902-approach-additive-policy';
 import * as syncStampsAtCommit from './migrations/20261205-0903-sync-stamps-at-commit';
+import * as cardLogAirframeTimeIndex from './migrations/20261205-1001-card-log-airframe-time-index';
 
 
 /**
@@ -37,6 +38,7 @@ const MIGRATIONS: { name: string; module: { up: Migration; down: Migration } }[]
   { name: '20261205-0901-signing-key-retirement', module: signingKeyRetirement },
   { name: '20261205-0902-approach-additive-policy', module: approachAdditivePolicy },
   { name: '20261205-0903-sync-stamps-at-commit', module: syncStampsAtCommit },
+  { name: '20261205-1001-card-log-airframe-time-index', module: cardLogAirframeTimeIndex },
 ];
 
 /** The names of the migrations this build knows, oldest first (a backup's must all be among them). */

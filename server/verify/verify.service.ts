@@ -28,7 +28,7 @@ interface VerifyRow {
  */
 const isoOf = (column: string) => `CONCAT(DATE_FORMAT(${column}, '%Y-%m-%dT%H:%i:%s.'), LPAD(FLOOR(MICROSECOND(${column}) / 1000), 3, '0'), 'Z')`;
 
-const VERIFY_SQL = `
+export const VERIFY_SQL = `
   SELECT ${isoOf('ci.issued_at')} AS issued_at, r.number, ${isoOf('r.published_at')} AS published_at, r.status, a.registration
   FROM card_issues ci
   JOIN revisions r ON r.id = ci.revision_id AND r.operator_id = ci.operator_id
