@@ -31,12 +31,11 @@
  * full sync carries every airframe, so its payload grows with the fleet by design: its ratio is
  * printed beside the payload's, without a target.
  */
-import { request as httpRequest, type IncomingHttpHeaders } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { loadavg } from 'node:os';
 import { randomUUID } from 'node:crypto';
-import { gunzipSync } from 'node:zlib';
 import { pino } from 'pino';
+import { call, cookiesOf, median, type Answer } from './timed-http';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { openLocalDatabase, type LocalDatabase } from '../../db/local';
 import { createMigrator } from '../../db/migrator';
@@ -260,34 +259,6 @@ async function generate(sequelize: Sequelize, size: Size): Promise<Seeded> {
 // ---------------------------------------------------------------------------------------------
 // Measuring through the app
 
-interface Answer {
-  status: number;
-  headers: IncomingHttpHeaders;
-  wireBytes: number;
-  body: string;
-  ms: number;
-}
-
-function call(port: number, method: 'GET' | 'POST', path: string, headers: Record<string, string>, payload?: string): Promise<Answer> {
-  return new Promise((resolve, reject) => {
-    const start = process.hrtime.bigint();
-    const req = httpRequest({ host: '127.0.0.1', port, method, path, headers: { 'accept-encoding': 'gzip', ...headers } }, (res) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (chunk: Buffer) => chunks.push(chunk));
-      res.on('end', () => {
-        const ms = Number(process.hrtime.bigint() - start) / 1e6;
-        const raw = Buffer.concat(chunks);
-        const body = res.headers['content-encoding'] === 'gzip' ? gunzipSync(raw).toString('utf8') : raw.toString('utf8');
-        resolve({ status: res.statusCode ?? 0, headers: res.headers, wireBytes: raw.length, body, ms });
-      });
-      res.on('error', reject);
-    });
-    req.on('error', reject);
-    if (payload) req.end(payload);
-    else req.end();
-  });
-}
-
 /** A signed-in client: its cookies and CSRF token. */
 class Client {
   private readonly jar = new Map<string, string>();
@@ -295,11 +266,7 @@ class Client {
   constructor(private readonly port: number) {}
 
   private keep(answer: Answer): void {
-    for (const line of answer.headers['set-cookie'] ?? []) {
-      const [pair] = line.split(';');
-      const eq = pair!.indexOf('=');
-      this.jar.set(pair!.slice(0, eq), pair!.slice(eq + 1));
-    }
+    cookiesOf(answer, this.jar);
   }
 
   private headers(): Record<string, string> {
@@ -331,8 +298,6 @@ class Client {
     return answer;
   }
 }
-
-const median = (values: number[]): number => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
 
 /** Median ms of `runs` calls after one warm-up. */
 async function timed(runs: number, once: () => Promise<Answer>): Promise<{ ms: number; last: Answer }> {

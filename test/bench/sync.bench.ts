@@ -21,11 +21,10 @@
  * process.hrtime.bigint(); they include the loopback round trip, the session lookup and gzip,
  * which is what a device waits for. The load average is printed beside the figures.
  */
-import { request as httpRequest, type IncomingHttpHeaders } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { loadavg } from 'node:os';
-import { gunzipSync } from 'node:zlib';
 import { pino } from 'pino';
+import { call, cookiesOf, median, type Answer } from './timed-http';
 import { openLocalDatabase } from '../../db/local';
 import { createMigrator } from '../../db/migrator';
 import { seedOperators, type SeedOperator, type SeedType } from '../../server/dev/demo-seed';
@@ -88,44 +87,6 @@ function generatedOperator(): SeedOperator {
     fleet,
   };
 }
-
-interface Answer {
-  status: number;
-  headers: IncomingHttpHeaders;
-  wireBytes: number;
-  body: string;
-  ms: number;
-}
-
-function call(port: number, method: 'GET' | 'POST', path: string, headers: Record<string, string>, payload?: string): Promise<Answer> {
-  return new Promise((resolve, reject) => {
-    const start = process.hrtime.bigint();
-    const req = httpRequest({ host: '127.0.0.1', port, method, path, headers: { 'accept-encoding': 'gzip', ...headers } }, (res) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (chunk: Buffer) => chunks.push(chunk));
-      res.on('end', () => {
-        const ms = Number(process.hrtime.bigint() - start) / 1e6;
-        const raw = Buffer.concat(chunks);
-        const body = res.headers['content-encoding'] === 'gzip' ? gunzipSync(raw).toString('utf8') : raw.toString('utf8');
-        resolve({ status: res.statusCode ?? 0, headers: res.headers, wireBytes: raw.length, body, ms });
-      });
-      res.on('error', reject);
-    });
-    req.on('error', reject);
-    if (payload) req.end(payload);
-    else req.end();
-  });
-}
-
-function cookiesOf(answer: Answer, jar: Map<string, string>): void {
-  for (const line of answer.headers['set-cookie'] ?? []) {
-    const [pair] = line.split(';');
-    const eq = pair!.indexOf('=');
-    jar.set(pair!.slice(0, eq), pair!.slice(eq + 1));
-  }
-}
-
-const median = (values: number[]): number => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
 
 async function main(): Promise<void> {
   const local = await openLocalDatabase('test', 'speedwright_bench_sync', { fresh: true });
